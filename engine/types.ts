@@ -1,0 +1,168 @@
+// The public value types of tidewright: stations as loaded, tide events, and the StationYear model.
+// Everything here is plain data (JSON-serialisable); renderers read these and never recompute.
+
+export type EventType = 'high' | 'low';
+
+export interface Position {
+  latitude: number; // degrees, north positive
+  longitude: number; // degrees, east positive
+}
+
+export interface ConstituentConstant {
+  amplitude: number; // H, metres
+  phase: number; // g, Greenwich phase lag, degrees in [0, 360), UTC
+}
+
+interface StationCommon {
+  id: string; // [a-z0-9-]+, used in file names and URLs
+  name: string;
+  position: Position;
+  timezone: string; // IANA name
+  datum: string; // label of the zero for heights, e.g. "Chart Datum"
+  provenance: string;
+  datum_epoch?: number; // first year of the 19-year span for LAT/HAT (default 2020)
+  sourceFile?: string; // path of the file it was loaded from (for error messages)
+}
+
+export interface ReferenceStation extends StationCommon {
+  kind: 'reference';
+  mean_level: number; // Z0, metres above datum
+  constituents: Record<string, ConstituentConstant>;
+}
+
+export interface DifferencePair {
+  time: number; // minutes, + later
+  height: number; // metres
+}
+
+export interface SecondaryDifferences {
+  high_water: { springs: DifferencePair; neaps: DifferencePair };
+  low_water: { springs: DifferencePair; neaps: DifferencePair };
+}
+
+export interface SecondaryStation extends StationCommon {
+  kind: 'secondary';
+  reference: string; // id of a reference port in the same station set
+  differences: SecondaryDifferences;
+}
+
+export type Station = ReferenceStation | SecondaryStation;
+
+/** A high or low water as the engine computes it: UTC epoch milliseconds, metres above datum. */
+export interface TideEvent {
+  time: number;
+  type: EventType;
+  height: number;
+}
+
+// ---------------------------------------------------------------------------------------------
+// The StationYear model (engine/almanac builds it; templates and templates/pdf read it).
+// Times: `time` fields are ISO UTC instants to the second ("2027-01-01T03:12:41Z");
+// `local` fields are ISO with the station's offset ("2027-03-28T14:02:10+01:00");
+// `clock` fields are the local wall-clock "HH:mm" ready to print.
+// Heights: metres above the station's datum, rounded to the millimetre.
+// ---------------------------------------------------------------------------------------------
+
+export type MoonPhaseName = 'new' | 'first-quarter' | 'full' | 'last-quarter';
+export type SpringNeapKind = 'spring' | 'neap';
+
+export interface AlmanacEvent {
+  time: string;
+  local: string;
+  clock: string;
+  offset: string; // "+01:00"
+  type: EventType;
+  height: number;
+  belowDatum: boolean; // height < 0: dries below chart datum, printed unmistakably
+}
+
+export interface MoonPhaseEntry {
+  time: string;
+  local: string;
+  clock: string;
+  date: string; // local date "YYYY-MM-DD"
+  phase: MoonPhaseName;
+}
+
+export interface SpringNeapEntry {
+  date: string; // local date of the peak (spring) or trough (neap) of the station's own daily range
+  kind: SpringNeapKind;
+  range: number; // the station's predicted range on that day, metres
+  astronomical: string; // ISO UTC instant of the syzygy (spring) or quadrature (neap) it follows
+  lagHours: number; // hours from that syzygy/quadrature to this marker
+}
+
+export interface Datums {
+  LAT: number;
+  HAT: number;
+  MHWS: number;
+  MHWN: number;
+  MLWN: number;
+  MLWS: number;
+  MSL: number;
+  epoch: { from: number; to: number }; // years spanned for LAT/HAT, e.g. 2020..2038
+}
+
+export interface TideType {
+  formNumber: number; // (K1 + O1) / (M2 + S2)
+  kind: 'semidiurnal' | 'mixed-semidiurnal' | 'mixed-diurnal' | 'diurnal';
+  label: string; // plain words, e.g. "Semidiurnal"
+}
+
+export interface DayEntry {
+  date: string; // local date "YYYY-MM-DD"
+  weekday: string; // "Mon"
+  month: number; // 1..12
+  dayOfMonth: number;
+  hours: number; // 24, or 23 / 25 on daylight-saving change days
+  offsetStart: string; // UTC offset at local midnight, "+00:00"
+  offsetEnd: string; // UTC offset at the end of the day
+  offsetChange: null | { time: string; clock: string; from: string; to: string; note: string };
+  events: AlmanacEvent[]; // this day's high and low waters, in time order
+  curve: number[]; // heights every `curveStepMinutes` from local midnight to next local midnight (inclusive)
+  sunrise: string | null; // ISO UTC; null = no sunrise this day (polar night or polar day: see sunNote)
+  sunset: string | null;
+  sunriseClock: string | null;
+  sunsetClock: string | null;
+  sunNote: null | 'sun-up-all-day' | 'sun-down-all-day';
+  moonrise: string | null;
+  moonset: string | null;
+  moonriseClock: string | null;
+  moonsetClock: string | null;
+  moonPhase: MoonPhaseName | null; // a quarter falls on this local day
+  moonIllumination: number; // 0..1 at local noon
+  springNeap: SpringNeapKind | null; // marker on this day
+  range: number | null; // largest high-to-low range of the day, metres
+}
+
+export interface MonthEntry {
+  month: number; // 1..12
+  name: string; // "January"
+  slug: string; // "01"
+  firstDayIndex: number; // index into days
+  dayCount: number;
+}
+
+export interface StationYear {
+  station: Station; // as loaded
+  year: number;
+  timezone: string;
+  invented: boolean; // demo data: every output says so
+  caution: string; // the safety caution every output carries
+  reference: null | { id: string; name: string }; // for a secondary port, its reference port
+  events: AlmanacEvent[];
+  moonPhases: MoonPhaseEntry[];
+  springNeap: SpringNeapEntry[];
+  datums: Datums;
+  tideType: TideType;
+  meanSpringRange: number; // metres
+  meanNeapRange: number;
+  ageOfTideHours: number;
+  curveStepMinutes: number;
+  days: DayEntry[];
+  months: MonthEntry[];
+  offsetChanges: NonNullable<DayEntry['offsetChange']>[];
+  extremes: { highest: AlmanacEvent; lowest: AlmanacEvent }; // of this year
+  warnings: string[];
+  generator: { name: 'tidewright'; version: string };
+}
