@@ -1,0 +1,17 @@
+// Station files: zod schema, YAML loader, station sets with references resolved, and the checks
+// behind `tidewright check`. Every rejection is a StationFileError naming file, field and fix.
+
+export { parseStation, checkStationText, type StationFileCheck } from './stations/parse.js';
+export {
+  loadStationFile,
+  loadStationSet,
+  checkStationSet,
+  setProblems,
+  stationFilesIn,
+  PROJECT_FILE_NAME,
+  type StationSet,
+  type StationSetCheck,
+} from './stations/set.js';
+export { suspiciousConstants, distanceKm, suggestedMeanLevel } from './stations/suspicious.js';
+export { STATION_ID_PATTERN, DEFAULT_DATUM_EPOCH, idFromText } from './stations/schema.js';
+export { nearestName } from './stations/suggest.js';

@@ -1,0 +1,93 @@
+// One station file: YAML text → a validated Station, or every problem found in it.
+
+import { parseDocument, type YAMLError } from 'yaml';
+import { StationFileError } from '../errors.js';
+import type { ReferenceStation, SecondaryStation, Station } from '../types.js';
+import { describeValue, issuesToErrors } from './issues.js';
+import { FIELD_HELP, STATION_KINDS, referencePortSchema, secondaryPortSchema, type StationKind } from './schema.js';
+import { nearestName } from './suggest.js';
+
+export interface StationFileCheck {
+  station?: Station; // present only when the file has no problem
+  problems: StationFileError[];
+}
+
+const YAML_FIXES: Readonly<Record<string, string>> = {
+  DUPLICATE_KEY: 'write each key only once',
+  TAB_AS_INDENT: 'indent with spaces, not tabs',
+  BAD_INDENT: 'indent nested keys by the same number of spaces and close every [ or {',
+  MISSING_CHAR: 'close every [ { and quote you open',
+  MULTILINE_IMPLICIT_KEY: 'write key: value on one line, with a space after the colon',
+  BLOCK_AS_IMPLICIT_KEY: 'put a nested map on the lines below its key, indented',
+};
+
+function yamlProblem(file: string, error: YAMLError): StationFileError {
+  const where = error.linePos?.[0];
+  const field = where ? `line ${where.line}, column ${where.col}` : '(file)';
+  const firstLine = error.message.split('\n')[0] ?? error.message;
+  const what = firstLine.replace(/ at line \d+, column \d+:?$/, '');
+  const fix = YAML_FIXES[error.code] ?? 'check the indentation, colons and quotes there (each field is written key: value)';
+  return new StationFileError(file, field, `YAML syntax error: ${what}`, fix);
+}
+
+function isPlainMap(value: unknown): value is Record<string, unknown> {
+  return value !== null && typeof value === 'object' && !Array.isArray(value);
+}
+
+/** The kind the file says, or (with a problem) the kind its keys suggest, so the rest still gets checked. */
+function kindOf(file: string, raw: Record<string, unknown>): { kind: StationKind; problem?: StationFileError } {
+  const said = raw.kind;
+  if (said === 'reference' || said === 'secondary') return { kind: said };
+  const guessed: StationKind = 'differences' in raw || 'reference' in raw ? 'secondary' : 'reference';
+  const fix = FIELD_HELP.kind ?? '';
+  if (said === undefined) return { kind: guessed, problem: new StationFileError(file, 'kind', 'is missing', fix) };
+  const nearest = typeof said === 'string' ? STATION_KINDS.find((k) => k === nearestName(said, STATION_KINDS)) : undefined;
+  const problem = new StationFileError(
+    file,
+    'kind',
+    `${describeValue(said)} is not a kind of port`,
+    nearest ? `did you mean ${nearest}? write kind: ${nearest}` : fix,
+  );
+  return { kind: nearest ?? guessed, problem };
+}
+
+/** Every problem of one station file's text (and the station when there is none). */
+export function checkStationText(text: string, file: string): StationFileCheck {
+  const doc = parseDocument(text, { prettyErrors: true, uniqueKeys: true });
+  const firstError = doc.errors[0];
+  if (firstError) return { problems: [yamlProblem(file, firstError)] };
+  let raw: unknown;
+  try {
+    raw = doc.toJS({ maxAliasCount: 100 });
+  } catch (error) {
+    const what = error instanceof Error ? error.message.split('\n')[0] : String(error);
+    return { problems: [new StationFileError(file, '(file)', `YAML could not be read: ${what}`, 'write plain key: value lines without aliases')] };
+  }
+  if (!isPlainMap(raw)) {
+    const what = raw === null || raw === undefined ? 'is empty' : `holds ${describeValue(raw)}, not a station`;
+    return { problems: [new StationFileError(file, '(file)', what, FIELD_HELP[''] ?? '')] };
+  }
+  const { kind, problem: kindProblem } = kindOf(file, raw);
+  const problems: StationFileError[] = kindProblem ? [kindProblem] : [];
+  const input = { ...raw, kind };
+  if (kind === 'reference') {
+    const result = referencePortSchema.safeParse(input);
+    if (!result.success) problems.push(...issuesToErrors(file, raw, result.error.issues, kind));
+    if (problems.length > 0 || !result.success) return { problems };
+    const station: ReferenceStation = { ...result.data, sourceFile: file };
+    return { station, problems };
+  }
+  const result = secondaryPortSchema.safeParse(input);
+  if (!result.success) problems.push(...issuesToErrors(file, raw, result.error.issues, kind));
+  if (problems.length > 0 || !result.success) return { problems };
+  const station: SecondaryStation = { ...result.data, sourceFile: file };
+  return { station, problems };
+}
+
+/** A station from the text of its YAML file; the first problem found is thrown as a StationFileError. */
+export function parseStation(text: string, file: string): Station {
+  const { station, problems } = checkStationText(text, file);
+  if (problems[0]) throw problems[0];
+  if (!station) throw new StationFileError(file, '(file)', 'could not be read', 'check the file');
+  return station;
+}

@@ -1,0 +1,180 @@
+// The station file, as zod schemas: exactly the keys a reference port or a secondary port may hold.
+// Checks that need words of their own (time zones, constituent names, ids) raise custom issues
+// carrying `params: { problem, fix }`, which issues.ts turns into one-line StationFileErrors.
+
+import * as z from 'zod';
+import { IANAZone } from 'luxon';
+import { CONSTITUENT_NAMES } from '../constituents.js';
+import { nearestName } from './suggest.js';
+
+export const STATION_ID_PATTERN = /^[a-z0-9-]+$/;
+export const DEFAULT_DATUM_EPOCH = 2020;
+
+type CheckContext = z.core.ParsePayload<string>;
+
+function fail(ctx: CheckContext, problem: string, fix: string): void {
+  ctx.issues.push({ code: 'custom', input: ctx.value, message: problem, params: { problem, fix } });
+}
+
+/** Turns free text into a plausible id: "Gannet Head" → "gannet-head". */
+export function idFromText(text: string): string {
+  const slug = text
+    .normalize('NFKD')
+    .replace(/[\u0300-\u036f]/g, '')
+    .toLowerCase()
+    .replace(/[^a-z0-9]+/g, '-')
+    .replace(/^-+|-+$/g, '');
+  return slug === '' ? 'gannet-head' : slug;
+}
+
+function checkId(ctx: CheckContext): void {
+  const id = ctx.value;
+  if (id.length > 64) {
+    fail(ctx, `"${id.slice(0, 20)}…" is ${id.length} characters long`, 'write a short id of at most 64 characters');
+  } else if (!STATION_ID_PATTERN.test(id)) {
+    fail(ctx, `"${id}" may only hold lower-case letters a-z, digits and hyphens`, `write ${idFromText(id)}`);
+  }
+}
+
+const stationId = z.string().check(checkId);
+
+const knownZones: readonly string[] = Intl.supportedValuesOf('timeZone');
+
+function checkTimezone(ctx: CheckContext): void {
+  const zone = ctx.value;
+  const exact = knownZones.includes(zone);
+  const nearest = exact ? zone : nearestName(zone, knownZones);
+  if (!IANAZone.isValidZone(zone)) {
+    const hint = nearest ? `did you mean ${nearest}?` : 'write an IANA time zone name such as Europe/Lisbon or Pacific/Auckland';
+    fail(ctx, `"${zone}" is not a known IANA time zone`, hint);
+  } else if (!exact && nearest !== undefined && nearest.toLowerCase() === zone.toLowerCase()) {
+    fail(ctx, `"${zone}" is spelt with the wrong capitals`, `write ${nearest}`);
+  }
+}
+
+function checkText(ctx: CheckContext): void {
+  if (ctx.value.trim() === '') fail(ctx, 'is empty', 'write some text');
+}
+
+const text = z.string().check(checkText);
+
+const knownConstituents: ReadonlySet<string> = new Set(CONSTITUENT_NAMES);
+
+function checkConstituentName(ctx: CheckContext): void {
+  const name = ctx.value;
+  if (knownConstituents.has(name)) return;
+  const nearest = nearestName(name, CONSTITUENT_NAMES);
+  const fix = nearest
+    ? `write ${nearest}`
+    : 'use one of the constituent names tidewright knows (M2, S2, N2, K1, O1, M4, …); `tidewright help constituents` lists them';
+  fail(ctx, `"${name}" is not a constituent tidewright knows`, nearest ? `did you mean ${nearest}? ${fix}` : fix);
+}
+
+export const positionSchema = z.strictObject({
+  latitude: z.number().min(-90).max(90),
+  longitude: z.number().min(-180).max(180),
+});
+
+export const constituentSchema = z.strictObject({
+  amplitude: z.number().min(0),
+  phase: z.number().min(0).lt(360),
+});
+
+// Key order here is the order a loaded station keeps (and the order problems are listed in).
+export const referencePortSchema = z.strictObject({
+  id: stationId,
+  name: text,
+  kind: z.literal('reference'),
+  position: positionSchema,
+  timezone: z.string().check(checkTimezone),
+  datum: text,
+  mean_level: z.number().min(-100).max(100),
+  constituents: z
+    .record(z.string().check(checkConstituentName), constituentSchema)
+    .refine((all) => Object.keys(all).length > 0, {
+      params: { problem: 'lists no constituents', fix: 'add at least M2: { amplitude: …, phase: … }' },
+    }),
+  provenance: text,
+  datum_epoch: z.int().min(1900).max(2100).default(DEFAULT_DATUM_EPOCH),
+});
+
+// Half a day either way: beyond that a secondary event would pair with the wrong tide.
+const differencePair = z.strictObject({
+  time: z.number().min(-720).max(720),
+  height: z.number().min(-50).max(50),
+});
+
+const springsAndNeaps = z.strictObject({ springs: differencePair, neaps: differencePair });
+
+export const secondaryPortSchema = z.strictObject({
+  id: stationId,
+  name: text,
+  kind: z.literal('secondary'),
+  reference: stationId,
+  position: positionSchema,
+  timezone: z.string().check(checkTimezone),
+  datum: text,
+  differences: z.strictObject({ high_water: springsAndNeaps, low_water: springsAndNeaps }),
+  provenance: text,
+  datum_epoch: z.int().min(1900).max(2100).default(DEFAULT_DATUM_EPOCH),
+});
+
+export const STATION_KINDS = ['reference', 'secondary'] as const;
+export type StationKind = (typeof STATION_KINDS)[number];
+
+/** The keys allowed in the map at `path` (for "unknown key" suggestions). */
+export function allowedKeysAt(path: readonly PropertyKey[], kind: StationKind): readonly string[] {
+  const [first, second, third] = path;
+  if (path.length === 0) {
+    return Object.keys((kind === 'reference' ? referencePortSchema : secondaryPortSchema).shape);
+  }
+  if (first === 'position') return ['latitude', 'longitude'];
+  if (first === 'constituents' && second !== undefined) return ['amplitude', 'phase'];
+  if (first === 'differences' && path.length === 1) return ['high_water', 'low_water'];
+  if (first === 'differences' && third === undefined) return ['springs', 'neaps'];
+  if (first === 'differences') return ['time', 'height'];
+  return [];
+}
+
+/** Keys that exist only for the other kind of port, so the message can say so. */
+export function keyOfOtherKind(key: string, kind: StationKind): StationKind | undefined {
+  const other: StationKind = kind === 'reference' ? 'secondary' : 'reference';
+  const ownKeys = allowedKeysAt([], kind);
+  const otherKeys = allowedKeysAt([], other);
+  return !ownKeys.includes(key) && otherKeys.includes(key) ? other : undefined;
+}
+
+/** What to write, for each field (`*` stands for a constituent name). */
+export const FIELD_HELP: Readonly<Record<string, string>> = {
+  '': 'write the station as key: value lines starting with id:, name:, kind:',
+  id: 'write lower-case letters, digits and hyphens, e.g. id: gannet-head',
+  name: 'write the station name as text, e.g. name: Gannet Head',
+  kind: 'write kind: reference (a port with harmonic constants) or kind: secondary (a port with time and height differences)',
+  position: 'write position: { latitude: 50.12, longitude: -4.87 }',
+  'position.latitude': 'write degrees from -90 to 90, north positive, e.g. latitude: 50.12',
+  'position.longitude': 'write degrees from -180 to 180, east positive, e.g. longitude: -4.87',
+  timezone: 'write an IANA time zone name such as Europe/Lisbon or Pacific/Auckland',
+  datum: 'write the name of the zero for heights, e.g. datum: Chart Datum',
+  provenance: 'write where the constants came from, e.g. provenance: "Harbour gauge 2019-2020"',
+  datum_epoch: 'write the first year of the 19-year span for LAT and HAT as a whole year, e.g. datum_epoch: 2020, or leave it out',
+  mean_level: 'write Z0, the mean level in metres above the datum, e.g. mean_level: 2.41',
+  constituents: 'write one line per constituent, e.g. M2: { amplitude: 1.621, phase: 135.2 }',
+  'constituents.*': 'write { amplitude: metres, phase: degrees }, e.g. M2: { amplitude: 1.621, phase: 135.2 }',
+  'constituents.*.amplitude': 'write the amplitude in metres, zero or more, e.g. amplitude: 1.621',
+  'constituents.*.phase': 'write the Greenwich phase lag in degrees from 0 up to (not including) 360, e.g. phase: 135.2',
+  reference: 'write the id of a reference port in the same folder, e.g. reference: gannet-head',
+  differences: 'write differences: with high_water: and low_water:, each with springs: and neaps: { time: minutes, height: metres }',
+  'differences.*': 'write e.g. { springs: { time: 25, height: -0.30 }, neaps: { time: 15, height: -0.20 } }',
+  'differences.*.*': 'write e.g. { time: 25, height: -0.30 }',
+  'differences.*.*.time': 'write minutes from -720 to 720, positive when the tide comes later than at the reference port, e.g. time: 25',
+  'differences.*.*.height': 'write metres to add to the reference port height, e.g. height: -0.30',
+};
+
+/** The help text for a concrete path such as constituents.M2.phase. */
+export function fieldHelp(path: readonly PropertyKey[]): string {
+  const parts = path.map(String);
+  // Constituent names and high_water/low_water, springs/neaps are the variable parts of a path.
+  const wild = parts[0] === 'constituents' ? 1 : parts[0] === 'differences' ? 2 : 0;
+  const key = parts.map((p, i) => (i >= 1 && i <= wild ? '*' : p)).join('.');
+  return FIELD_HELP[key] ?? 'see the station file example in README.md';
+}

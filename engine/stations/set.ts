@@ -1,0 +1,166 @@
+// A station set: every station file of one folder, ids unique, each secondary port's reference
+// resolved to a reference port of the same set.
+
+import { readFileSync, readdirSync, statSync } from 'node:fs';
+import { join } from 'node:path';
+import { StationFileError } from '../errors.js';
+import type { Station } from '../types.js';
+import { checkStationText, parseStation } from './parse.js';
+import { nearestName } from './suggest.js';
+
+export interface StationSet {
+  dir: string;
+  stations: Station[];
+  byId: Map<string, Station>;
+}
+
+/** The optional project file that lives beside the stations (title, publisher…): not a station. */
+export const PROJECT_FILE_NAME = 'tidewright.yaml';
+
+function readStationText(path: string): string {
+  try {
+    return readFileSync(path, 'utf8');
+  } catch (error) {
+    const code = (error as NodeJS.ErrnoException).code;
+    const problem = code === 'ENOENT' ? 'does not exist' : code === 'EISDIR' ? 'is a folder, not a station file' : `cannot be read (${code ?? 'error'})`;
+    throw new StationFileError(path, '(file)', problem, 'give the path of a station .yaml file');
+  }
+}
+
+/** One station file from disk; the first problem is thrown as a StationFileError. */
+export function loadStationFile(path: string): Station {
+  return parseStation(readStationText(path), path);
+}
+
+/** The station files of a folder, in name order (hidden files and the project file left out). */
+export function stationFilesIn(dir: string): string[] {
+  let names: string[];
+  try {
+    if (!statSync(dir).isDirectory()) {
+      throw new StationFileError(dir, '(folder)', 'is a file, not a folder', 'give the folder that holds the station .yaml files');
+    }
+    names = readdirSync(dir);
+  } catch (error) {
+    if (error instanceof StationFileError) throw error;
+    throw new StationFileError(dir, '(folder)', 'does not exist or cannot be read', 'give the folder that holds the station .yaml files, e.g. --stations stations-demo');
+  }
+  const files = names
+    .filter((name) => /\.ya?ml$/i.test(name) && !name.startsWith('.') && name !== PROJECT_FILE_NAME)
+    .sort()
+    .map((name) => join(dir, name));
+  if (files.length === 0) {
+    throw new StationFileError(dir, '(folder)', 'holds no station files (*.yaml)', 'put one .yaml file per station in this folder');
+  }
+  return files;
+}
+
+/** Duplicate ids and unresolvable references among stations that each passed on their own. */
+export function setProblems(dir: string, stations: readonly Station[]): StationFileError[] {
+  const problems: StationFileError[] = [];
+  const byId = new Map<string, Station>();
+  for (const station of stations) {
+    const first = byId.get(station.id);
+    if (first) {
+      problems.push(
+        new StationFileError(
+          station.sourceFile ?? dir,
+          'id',
+          `"${station.id}" is also the id of ${first.sourceFile ?? 'another station'}`,
+          'give each station its own id (file names and web addresses are made from it)',
+        ),
+      );
+    } else {
+      byId.set(station.id, station);
+    }
+  }
+  const referenceIds = stations.filter((s) => s.kind === 'reference').map((s) => s.id);
+  for (const station of stations) {
+    if (station.kind !== 'secondary' || byId.get(station.id) !== station) continue;
+    const problem = referenceProblem(dir, station, byId, referenceIds);
+    if (problem) problems.push(problem);
+  }
+  return problems;
+}
+
+function referenceProblem(
+  dir: string,
+  station: Extract<Station, { kind: 'secondary' }>,
+  byId: ReadonlyMap<string, Station>,
+  referenceIds: readonly string[],
+): StationFileError | undefined {
+  const file = station.sourceFile ?? dir;
+  const target = byId.get(station.reference);
+  if (station.reference === station.id) {
+    return new StationFileError(file, 'reference', `names the station itself ("${station.id}")`, 'write the id of a reference port in the same folder');
+  }
+  if (!target) {
+    const nearest = nearestName(station.reference, referenceIds);
+    const fix = nearest
+      ? `did you mean ${nearest}? write reference: ${nearest}`
+      : referenceIds.length > 0
+        ? `write the id of one of the reference ports here: ${referenceIds.join(', ')}`
+        : 'add the reference port\'s station file to this folder';
+    return new StationFileError(file, 'reference', `no station in ${dir} has the id "${station.reference}"`, fix);
+  }
+  if (target.kind === 'reference') return undefined;
+  // Follow the chain of secondary ports: it either reaches a reference port or loops.
+  const chain = [station.id];
+  let current: Station | undefined = target;
+  while (current && current.kind === 'secondary' && !chain.includes(current.id)) {
+    chain.push(current.id);
+    current = byId.get(current.reference);
+  }
+  if (current && chain.includes(current.id)) {
+    return new StationFileError(
+      file,
+      'reference',
+      `the references go round in a loop (${[...chain, current.id].join(' → ')})`,
+      'point each secondary port at a reference port (kind: reference)',
+    );
+  }
+  const ultimate = current?.kind === 'reference' ? current.id : undefined;
+  return new StationFileError(
+    file,
+    'reference',
+    `"${target.id}" is itself a secondary port; differences are only taken from a reference port`,
+    ultimate ? `write reference: ${ultimate} (with differences measured against ${ultimate})` : 'write the id of a reference port',
+  );
+}
+
+export interface StationSetCheck {
+  dir: string;
+  stations: Station[]; // the stations that passed on their own
+  files: string[];
+  problems: StationFileError[];
+}
+
+/** Every problem of a folder of station files: each file, then ids and references across the set. */
+export function checkStationSet(dir: string): StationSetCheck {
+  const files = stationFilesIn(dir);
+  const stations: Station[] = [];
+  const problems: StationFileError[] = [];
+  for (const file of files) {
+    let text: string;
+    try {
+      text = readStationText(file);
+    } catch (error) {
+      if (error instanceof StationFileError) {
+        problems.push(error);
+        continue;
+      }
+      throw error;
+    }
+    const result = checkStationText(text, file);
+    problems.push(...result.problems);
+    if (result.station) stations.push(result.station);
+  }
+  problems.push(...setProblems(dir, stations));
+  return { dir, stations, files, problems };
+}
+
+/** A whole station set, references resolved; the first problem is thrown as a StationFileError. */
+export function loadStationSet(dir: string): StationSet {
+  const { stations, problems } = checkStationSet(dir);
+  if (problems[0]) throw problems[0];
+  return { dir, stations, byId: new Map(stations.map((s) => [s.id, s])) };
+}

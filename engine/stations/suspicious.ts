@@ -1,0 +1,127 @@
+// Constants that pass the schema but are probably wrong: quick checks from sums of amplitudes
+// and plain geometry, no prediction needed. `tidewright check` lists them beside schema errors.
+
+import { StationFileError } from '../errors.js';
+import type { ReferenceStation, SecondaryStation, Station } from '../types.js';
+
+/** Larger than the largest tidal constituent anywhere (M2 is about 5–6 m in the greatest bays). */
+export const MAX_PLAUSIBLE_AMPLITUDE = 10;
+/** How far ordinary spring lows may fall below the datum before the datum label looks wrong, metres. */
+export const DATUM_ABOVE_LOWS_TOLERANCE = 0.3;
+/** How far above the datum the lowest conceivable tide may stay before the datum looks too low, metres. */
+export const DATUM_BELOW_LOWS_TOLERANCE = 0.5;
+/** Time differences beyond this (minutes) are usually a unit or sign slip. */
+export const MAX_PLAUSIBLE_TIME_DIFFERENCE = 240;
+/** Secondary ports farther than this from their reference port rarely share its tide, km. */
+export const MAX_REFERENCE_DISTANCE_KM = 300;
+
+const amp = (station: ReferenceStation, name: string): number => station.constituents[name]?.amplitude ?? 0;
+const fmt = (x: number): string => x.toFixed(2);
+
+/** Low water at big springs, roughly: Z0 − (M2 + S2 + K1 + O1) (Pugh 1987, MLWS with the diurnal pair). */
+export function roughSpringLow(station: ReferenceStation): number {
+  return station.mean_level - (amp(station, 'M2') + amp(station, 'S2') + amp(station, 'K1') + amp(station, 'O1'));
+}
+
+/** No tide can fall below Z0 − Σ H (node factors aside): every constituent at its trough at once. */
+export function lowestConceivable(station: ReferenceStation): number {
+  let sum = 0;
+  for (const c of Object.values(station.constituents)) sum += c.amplitude;
+  return station.mean_level - sum;
+}
+
+/** Mean level that puts chart datum near LAT: Z0 ≈ H_M2 + H_S2 + H_K1 + H_O1 + 0.1 m (rule of thumb). */
+export function suggestedMeanLevel(station: ReferenceStation): number {
+  return amp(station, 'M2') + amp(station, 'S2') + amp(station, 'K1') + amp(station, 'O1') + 0.1;
+}
+
+function referenceSuspicions(station: ReferenceStation): StationFileError[] {
+  const file = station.sourceFile ?? station.id;
+  const problems: StationFileError[] = [];
+  if (!('M2' in station.constituents)) {
+    problems.push(
+      new StationFileError(file, 'constituents.M2', 'is missing from a reference port', 'add M2: { amplitude: …, phase: … }; every coast has a measurable M2 and the spring and neap ranges are built from it'),
+    );
+  }
+  for (const [name, c] of Object.entries(station.constituents)) {
+    if (c.amplitude > MAX_PLAUSIBLE_AMPLITUDE) {
+      problems.push(
+        new StationFileError(file, `constituents.${name}.amplitude`, `${c.amplitude} m is larger than any tide on Earth`, 'amplitudes are in metres: write 1.62 rather than 162 (centimetres)'),
+      );
+    }
+  }
+  const springLow = roughSpringLow(station);
+  const lowest = lowestConceivable(station);
+  const suggested = fmt(suggestedMeanLevel(station));
+  if (springLow < -DATUM_ABOVE_LOWS_TOLERANCE) {
+    problems.push(
+      new StationFileError(
+        file,
+        'mean_level',
+        `with mean_level ${station.mean_level} ordinary spring low waters fall about ${fmt(-springLow)} m below ${station.datum}, so the datum would lie far above the lowest tides`,
+        `raise mean_level to about ${suggested} (H_M2 + H_S2 + H_K1 + H_O1 + 0.1 puts chart datum near LAT), or check the datum and the amplitudes`,
+      ),
+    );
+  } else if (lowest > DATUM_BELOW_LOWS_TOLERANCE) {
+    problems.push(
+      new StationFileError(
+        file,
+        'mean_level',
+        `with mean_level ${station.mean_level} the tide can never fall closer than ${fmt(lowest)} m to ${station.datum}, so the datum would lie far below the lowest tides`,
+        `lower mean_level to about ${suggested}, or check that this datum really lies that far below the lowest tide`,
+      ),
+    );
+  }
+  return problems;
+}
+
+/** Great-circle distance in km (haversine, mean Earth radius 6371 km). */
+export function distanceKm(a: Station['position'], b: Station['position']): number {
+  const rad = Math.PI / 180;
+  const dLat = (b.latitude - a.latitude) * rad;
+  const dLon = (b.longitude - a.longitude) * rad;
+  const h = Math.sin(dLat / 2) ** 2 + Math.cos(a.latitude * rad) * Math.cos(b.latitude * rad) * Math.sin(dLon / 2) ** 2;
+  return 2 * 6371 * Math.asin(Math.min(1, Math.sqrt(h)));
+}
+
+function secondarySuspicions(station: SecondaryStation, reference: ReferenceStation | undefined): StationFileError[] {
+  const file = station.sourceFile ?? station.id;
+  const problems: StationFileError[] = [];
+  for (const water of ['high_water', 'low_water'] as const) {
+    for (const phase of ['springs', 'neaps'] as const) {
+      const minutes = station.differences[water][phase].time;
+      if (Math.abs(minutes) > MAX_PLAUSIBLE_TIME_DIFFERENCE) {
+        problems.push(
+          new StationFileError(file, `differences.${water}.${phase}.time`, `${minutes} minutes is more than ${MAX_PLAUSIBLE_TIME_DIFFERENCE / 60} hours`, 'time differences are in minutes (write 25 for 25 minutes, 90 for an hour and a half); check the sign too, + means later'),
+        );
+      }
+    }
+  }
+  if (!reference) return problems;
+  const km = distanceKm(station.position, reference.position);
+  if (km > MAX_REFERENCE_DISTANCE_KM) {
+    problems.push(
+      new StationFileError(file, 'reference', `${reference.id} lies ${Math.round(km)} km away`, 'choose a reference port on the same stretch of coast, or check both positions (east longitude positive)'),
+    );
+  }
+  // The reference port's mean low water springs, Z0 − (M2 + S2), shifted by the secondary's difference.
+  const refSpringLow = reference.mean_level - (amp(reference, 'M2') + amp(reference, 'S2'));
+  const springLow = refSpringLow + station.differences.low_water.springs.height;
+  if (springLow < -DATUM_ABOVE_LOWS_TOLERANCE) {
+    problems.push(
+      new StationFileError(
+        file,
+        'differences.low_water.springs.height',
+        `puts mean low water springs at ${fmt(springLow)} m, well below ${station.datum}`,
+        'check the sign and size of the height difference (metres added to the reference port\'s height)',
+      ),
+    );
+  }
+  return problems;
+}
+
+/** Suspicious constants of one station (its reference port, if given, for a secondary port). */
+export function suspiciousConstants(station: Station, reference?: Station): StationFileError[] {
+  if (station.kind === 'reference') return referenceSuspicions(station);
+  return secondarySuspicions(station, reference?.kind === 'reference' ? reference : undefined);
+}
