@@ -1,0 +1,97 @@
+// Linear least squares by the normal equations, solved with a Cholesky factorisation (Golub and
+// Van Loan, Matrix Computations, §4.2). The design matrix is never stored: each observation's row is
+// folded into AᵀA and Aᵀy as it is made, so a year of hourly readings needs only m² numbers.
+
+export interface NormalEquations {
+  size: number; // m, the number of unknowns
+  matrix: Float64Array; // AᵀA, row-major m×m (upper triangle filled while accumulating)
+  rhs: Float64Array; // Aᵀy
+  count: number; // observations folded in
+}
+
+export function createNormalEquations(size: number): NormalEquations {
+  return { size, matrix: new Float64Array(size * size), rhs: new Float64Array(size), count: 0 };
+}
+
+/** Folds one observation y with design row `row` into AᵀA and Aᵀy (upper triangle only). */
+export function addObservation(eq: NormalEquations, row: Float64Array, y: number): void {
+  const { size, matrix, rhs } = eq;
+  for (let i = 0; i < size; i++) {
+    const ri = row[i]!;
+    if (ri === 0) continue;
+    rhs[i]! += ri * y;
+    const base = i * size;
+    for (let j = i; j < size; j++) matrix[base + j]! += ri * row[j]!;
+  }
+  eq.count++;
+}
+
+/** Thrown when AᵀA is not positive definite: the unknown at `index` is not determined by the data. */
+export class SingularSystemError extends Error {
+  override name = 'SingularSystemError';
+  constructor(readonly index: number) {
+    super(`normal equations are singular at unknown ${index}`);
+  }
+}
+
+/**
+ * Cholesky factor L (lower triangle, row-major) of the symmetric matrix whose upper triangle is given.
+ * A pivot smaller than `relativeTolerance` times its diagonal entry means the column is (nearly) a
+ * combination of earlier ones: the record cannot tell those unknowns apart.
+ */
+export function choleskyFactor(upper: Float64Array, size: number, relativeTolerance = 1e-10): Float64Array {
+  const L = new Float64Array(size * size);
+  for (let j = 0; j < size; j++) {
+    let diag = upper[j * size + j]!;
+    for (let k = 0; k < j; k++) diag -= L[j * size + k]! ** 2;
+    if (!(diag > relativeTolerance * upper[j * size + j]!)) throw new SingularSystemError(j);
+    const ljj = Math.sqrt(diag);
+    L[j * size + j] = ljj;
+    for (let i = j + 1; i < size; i++) {
+      let sum = upper[j * size + i]!; // A[i][j] = A[j][i] from the upper triangle
+      for (let k = 0; k < j; k++) sum -= L[i * size + k]! * L[j * size + k]!;
+      L[i * size + j] = sum / ljj;
+    }
+  }
+  return L;
+}
+
+/** Solves L Lᵀ x = b. */
+export function solveCholesky(L: Float64Array, size: number, b: Float64Array): Float64Array {
+  const x = Float64Array.from(b);
+  for (let i = 0; i < size; i++) {
+    let sum = x[i]!;
+    for (let k = 0; k < i; k++) sum -= L[i * size + k]! * x[k]!;
+    x[i] = sum / L[i * size + i]!;
+  }
+  for (let i = size - 1; i >= 0; i--) {
+    let sum = x[i]!;
+    for (let k = i + 1; k < size; k++) sum -= L[k * size + i]! * x[k]!;
+    x[i] = sum / L[i * size + i]!;
+  }
+  return x;
+}
+
+/** (AᵀA)⁻¹ from its Cholesky factor, column by column; the unknowns' covariance up to σ². */
+export function inverseFromCholesky(L: Float64Array, size: number): Float64Array {
+  const inverse = new Float64Array(size * size);
+  const unit = new Float64Array(size);
+  for (let c = 0; c < size; c++) {
+    unit.fill(0);
+    unit[c] = 1;
+    const column = solveCholesky(L, size, unit);
+    for (let r = 0; r < size; r++) inverse[r * size + c] = column[r]!;
+  }
+  return inverse;
+}
+
+export interface LeastSquaresSolution {
+  coefficients: Float64Array;
+  inverse: Float64Array; // (AᵀA)⁻¹, m×m
+}
+
+/** Solves the accumulated normal equations; throws SingularSystemError when they are not determined. */
+export function solveNormalEquations(eq: NormalEquations): LeastSquaresSolution {
+  const L = choleskyFactor(eq.matrix, eq.size);
+  return { coefficients: solveCholesky(L, eq.size, eq.rhs), inverse: inverseFromCholesky(L, eq.size) };
+}
