@@ -1,0 +1,72 @@
+// `tidewright check`: validates a whole station set and lists every problem, not just the first,
+// each naming file, field and fix; then suspicious constants that pass the schema.
+
+import { checkStationSet, suspiciousConstants } from '../engine/stations.js';
+import type { StationFileError } from '../engine/errors.js';
+import { parseCommandLine, positionalArguments } from './args.js';
+
+export const DEFAULT_STATIONS_DIR = 'stations-demo';
+
+export const CHECK_HELP = `Usage: tidewright check [--stations DIR]
+
+Checks every station file in DIR (default: ${DEFAULT_STATIONS_DIR}) and the set as a whole: the keys and
+values of each file, time zones and constituent names, unique ids, each secondary port's reference port,
+and constants that are probably wrong (a mean level that puts chart datum far from the lowest tides,
+amplitudes too large for a tide, time differences of many hours). Every problem is listed on its own
+line as FILE: FIELD: what is wrong; what to write instead. Exit code 1 when there is any problem.
+`;
+
+export interface SetReport {
+  problems: StationFileError[];
+  referencePorts: number;
+  secondaryPorts: number;
+  files: number;
+}
+
+/** Every problem of the station set in DIR: schema, set-wide, then suspicious constants. */
+export function checkStations(dir: string): SetReport {
+  const result = checkStationSet(dir);
+  const problems = [...result.problems];
+  const byId = new Map(result.stations.map((s) => [s.id, s]));
+  for (const station of result.stations) {
+    const reference = station.kind === 'secondary' ? byId.get(station.reference) : undefined;
+    problems.push(...suspiciousConstants(station, reference));
+  }
+  // Group by file, keeping the order found within each file.
+  const order = new Map(result.files.map((f, i) => [f, i]));
+  const sorted = problems
+    .map((p, i) => ({ p, i }))
+    .sort((a, b) => (order.get(a.p.file) ?? -1) - (order.get(b.p.file) ?? -1) || a.i - b.i)
+    .map(({ p }) => p);
+  return {
+    problems: sorted,
+    referencePorts: result.stations.filter((s) => s.kind === 'reference').length,
+    secondaryPorts: result.stations.filter((s) => s.kind === 'secondary').length,
+    files: result.files.length,
+  };
+}
+
+const plural = (n: number, word: string): string => `${n} ${word}${n === 1 ? '' : 's'}`;
+
+export async function runCheck(argv: string[]): Promise<number> {
+  const { values, positionals } = parseCommandLine('check', argv, {
+    stations: { type: 'string' },
+    help: { type: 'boolean', short: 'h' },
+  });
+  if (values.help) {
+    process.stdout.write(CHECK_HELP);
+    return 0;
+  }
+  positionalArguments('check', positionals, []);
+  const dir = values.stations ?? DEFAULT_STATIONS_DIR;
+  const report = checkStations(dir);
+  if (report.problems.length === 0) {
+    process.stdout.write(`${dir}: ${plural(report.referencePorts, 'reference port')}, ${plural(report.secondaryPorts, 'secondary port')}, OK\n`);
+    return 0;
+  }
+  const badFiles = new Set(report.problems.map((p) => p.file)).size;
+  const lines = report.problems.map((p) => p.message);
+  lines.push(`${dir}: ${plural(report.problems.length, 'problem')} in ${plural(badFiles, 'file')} (of ${report.files})`);
+  process.stdout.write(`${lines.join('\n')}\n`);
+  return 1;
+}

@@ -1,0 +1,199 @@
+// `tidewright predict`: high and low waters, or heights every few minutes, for one station over any
+// span, as a table for people or as JSON/CSV for programs. Secondary ports work as reference ports do.
+
+import { dirname } from 'node:path';
+import { DateTime } from 'luxon';
+import { CAUTION } from '../engine/almanac/caution.js';
+import { UsageError } from '../engine/errors.js';
+import { loadStationFile, loadStationSet, type StationSet } from '../engine/stations.js';
+import { tideEvents, tideHeights } from '../engine/tides.js';
+import type { Station, TideEvent } from '../engine/types.js';
+import { oneOf, parseCommandLine, parseMinutes, parseWhen, positionalArguments } from './args.js';
+
+const FORMATS = ['table', 'json', 'csv'] as const;
+type Format = (typeof FORMATS)[number];
+
+const MINUTE = 60_000;
+const MAX_ROWS = 5_000_000;
+
+export const PREDICT_HELP = `Usage: tidewright predict STATION.yaml [--from DATE] [--to DATE] [--every MINUTES]
+                          [--format table|json|csv] [--stations DIR]
+
+High and low waters of one station between two instants, or with --every its heights at that step.
+
+  --from DATE       start: YYYY-MM-DD (midnight in the station's time zone) or an ISO 8601 instant
+                    such as 2027-01-01T06:00Z; default: today at the station
+  --to DATE         end, not included; same forms; default: 7 days after --from
+  --every MINUTES   heights every MINUTES instead of high and low waters (e.g. 10, or 0.5 for 30 s)
+  --format FORMAT   table (default, for people: local time with its UTC offset, heights to cm),
+                    json (UTC instants to the second, metres to the mm) or csv
+  --stations DIR    the station set a secondary port's reference port is found in
+                    (default: the folder of STATION.yaml)
+
+Example: tidewright predict stations-demo/gannet-head.yaml --from 2027-01-01 --to 2027-02-01 --format json
+`;
+
+interface PredictRequest {
+  station: Station;
+  set: StationSet;
+  from: number;
+  to: number;
+  stepMinutes: number | undefined;
+  format: Format;
+}
+
+/** The station set a prediction draws on: the named folder, or the station file's own folder for a secondary port. */
+function stationSetFor(file: string, station: Station, stationsDir: string | undefined): StationSet {
+  if (stationsDir === undefined && station.kind === 'reference') {
+    return { dir: dirname(file), stations: [station], byId: new Map([[station.id, station]]) };
+  }
+  const set = loadStationSet(stationsDir ?? dirname(file));
+  // The file given on the command line wins over a station of the same id in the set.
+  const byId = new Map(set.byId);
+  byId.set(station.id, station);
+  return { ...set, byId };
+}
+
+function request(argv: readonly string[]): PredictRequest | undefined {
+  const { values, positionals } = parseCommandLine('predict', argv, {
+    from: { type: 'string' },
+    to: { type: 'string' },
+    every: { type: 'string' },
+    format: { type: 'string', default: 'table' },
+    stations: { type: 'string' },
+    help: { type: 'boolean', short: 'h' },
+  });
+  if (values.help) return undefined;
+  const [file] = positionalArguments('predict', positionals, ['STATION.yaml']) as [string];
+  const format = oneOf('--format', values.format, FORMATS);
+  const stepMinutes = values.every === undefined ? undefined : parseMinutes('--every', values.every);
+  const station = loadStationFile(file);
+  const set = stationSetFor(file, station, values.stations);
+  const zone = station.timezone;
+  const from = values.from === undefined ? DateTime.now().setZone(zone).startOf('day').toMillis() : parseWhen('--from', values.from, zone);
+  const to = values.to === undefined ? DateTime.fromMillis(from, { zone }).plus({ days: 7 }).toMillis() : parseWhen('--to', values.to, zone);
+  if (!(to > from)) {
+    throw new UsageError('--to', `${values.to ?? ''} is not later than --from ${values.from ?? ''}`.replace(/\s+/g, ' ').trim(), 'give an end after the start, e.g. --from 2027-01-01 --to 2027-02-01');
+  }
+  if (stepMinutes !== undefined && (to - from) / (stepMinutes * MINUTE) > MAX_ROWS) {
+    throw new UsageError('--every', `${stepMinutes} minutes over this span gives more than ${MAX_ROWS} heights`, 'choose a shorter span or a larger step');
+  }
+  return { station, set, from, to, stepMinutes, format };
+}
+
+// --- formatting --------------------------------------------------------------------------------
+
+const toSecond = (t: number): number => Math.round(t / 1000) * 1000;
+const toMinute = (t: number): number => Math.round(t / MINUTE) * MINUTE;
+const mm = (h: number): number => Math.round(h * 1000) / 1000 + 0; // + 0 turns -0 into 0
+
+/** ISO 8601 UTC to the second: 2027-01-01T03:12:41Z. */
+export function utcSecond(t: number): string {
+  return new Date(toSecond(t)).toISOString().replace(/\.\d{3}Z$/, 'Z');
+}
+
+function localSecond(t: number, zone: string): string {
+  return DateTime.fromMillis(toSecond(t), { zone }).toISO({ suppressMilliseconds: true }) ?? '';
+}
+
+function cm(h: number): string {
+  const text = (Math.round(h * 100) / 100 + 0).toFixed(2);
+  return text === '-0.00' ? '0.00' : text;
+}
+
+function jsonEvents(events: readonly TideEvent[]): string {
+  const rows = events.map((e) => JSON.stringify({ time: utcSecond(e.time), type: e.type, height: mm(e.height) }));
+  return rows.length === 0 ? '[]\n' : `[\n${rows.join(',\n')}\n]\n`;
+}
+
+function jsonHeights(times: readonly number[], heights: Float64Array): string {
+  const rows = times.map((t, i) => JSON.stringify({ time: utcSecond(t), height: Number.isFinite(heights[i]) ? mm(heights[i]!) : null }));
+  return rows.length === 0 ? '[]\n' : `[\n${rows.join(',\n')}\n]\n`;
+}
+
+function csvEvents(events: readonly TideEvent[], zone: string): string {
+  const rows = events.map((e) => `${utcSecond(e.time)},${localSecond(e.time, zone)},${e.type},${mm(e.height).toFixed(3)}`);
+  return ['time_utc,time_local,type,height_m', ...rows].join('\n') + '\n';
+}
+
+function csvHeights(times: readonly number[], heights: Float64Array, zone: string): string {
+  const rows = times.map((t, i) => {
+    const h = heights[i]!;
+    return `${utcSecond(t)},${localSecond(t, zone)},${Number.isFinite(h) ? mm(h).toFixed(3) : ''}`;
+  });
+  return ['time_utc,time_local,height_m', ...rows].join('\n') + '\n';
+}
+
+function tableHeader(req: PredictRequest, what: string): string[] {
+  const { station, set } = req;
+  const zone = station.timezone;
+  const span = `${DateTime.fromMillis(req.from, { zone }).toFormat('yyyy-MM-dd HH:mm')} to ${DateTime.fromMillis(req.to, { zone }).toFormat('yyyy-MM-dd HH:mm')}`;
+  const reference = station.kind === 'secondary' ? set.byId.get(station.reference) : undefined;
+  const kind =
+    station.kind === 'reference'
+      ? 'reference port'
+      : `secondary port of ${reference?.name ?? station.reference}, by time and height differences`;
+  return [
+    `${station.name} (${station.id}), ${kind}`,
+    `${station.position.latitude.toFixed(3)}, ${station.position.longitude.toFixed(3)}; time zone ${zone}`,
+    `${what}, ${span} local time (end not included)`,
+    `Times: local time at the station with its UTC offset. Heights: metres above ${station.datum}; "below datum" marks negative heights.`,
+    `Constants: ${station.provenance}`,
+    `Caution: ${CAUTION}`,
+    '',
+  ];
+}
+
+interface TableRow {
+  t: number;
+  type?: string;
+  height: number;
+}
+
+function tableRows(rows: readonly TableRow[], zone: string, withType: boolean): string[] {
+  const head = withType ? 'Date        Day  Time   UTC±    Tide  Height' : 'Date        Day  Time   UTC±    Height';
+  const lines = [head];
+  let lastDate = '';
+  for (const row of rows) {
+    const local = DateTime.fromMillis(toMinute(row.t), { zone });
+    const date = local.toFormat('yyyy-MM-dd');
+    const dayPart = date === lastDate ? ' '.repeat(15) : `${date}  ${local.toFormat('ccc')}`;
+    lastDate = date;
+    const height = Number.isFinite(row.height) ? `${cm(row.height).padStart(6)} m${row.height < -0.005 ? '  below datum' : ''}` : '     — (no value)';
+    const type = withType ? `  ${(row.type ?? '').padEnd(4)}` : '';
+    lines.push(`${dayPart}  ${local.toFormat('HH:mm')}  ${local.toFormat('ZZ')}${type}  ${height}`);
+  }
+  if (rows.length === 0) lines.push('(none in this span)');
+  return lines;
+}
+
+function render(req: PredictRequest): string {
+  const zone = req.station.timezone;
+  if (req.stepMinutes === undefined) {
+    const events = tideEvents(req.station, req.set, req.from, req.to);
+    if (req.format === 'json') return jsonEvents(events);
+    if (req.format === 'csv') return csvEvents(events, zone);
+    const header = tableHeader(req, 'High and low waters');
+    const rows = events.map((e) => ({ t: e.time, type: e.type, height: e.height }));
+    return [...header, ...tableRows(rows, zone, true)].join('\n') + '\n';
+  }
+  const stepMs = Math.round(req.stepMinutes * MINUTE);
+  const count = Math.ceil((req.to - req.from) / stepMs);
+  const heights = tideHeights(req.station, req.set, req.from, stepMs, count);
+  const times = Array.from({ length: count }, (_, i) => req.from + i * stepMs);
+  if (req.format === 'json') return jsonHeights(times, heights);
+  if (req.format === 'csv') return csvHeights(times, heights, zone);
+  const what = `Heights every ${req.stepMinutes} minutes${req.station.kind === 'secondary' ? ' (between its high and low waters a half-cosine curve, a drawing aid)' : ''}`;
+  const rows = times.map((t, i) => ({ t, height: heights[i]! }));
+  return [...tableHeader(req, what), ...tableRows(rows, zone, false)].join('\n') + '\n';
+}
+
+export async function runPredict(argv: string[]): Promise<number> {
+  const req = request(argv);
+  if (!req) {
+    process.stdout.write(PREDICT_HELP);
+    return 0;
+  }
+  process.stdout.write(render(req));
+  return 0;
+}
