@@ -1,0 +1,2 @@
+// The public surface of the engine: re-exports only (whoever adds a module adds its line).
+export * from './localtime.js';
