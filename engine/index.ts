@@ -1,2 +1,3 @@
 // The public surface of the engine: re-exports only (whoever adds a module adds its line).
 export * from './localtime.js';
+export * from './stations.js';
