@@ -145,5 +145,16 @@ export function issuesToErrors(
   issues: readonly z.core.$ZodIssue[],
   kind: StationKind,
 ): StationFileError[] {
-  return issues.flatMap((issue) => oneIssue(file, raw, issue, kind));
+  const errors = issues.flatMap((issue) => oneIssue(file, raw, issue, kind));
+  // A misspelt key also leaves the real key missing: say it once, at the misspelling, first.
+  const meant = new Set<string>();
+  for (const e of errors) {
+    const suggestion = /^did you mean (\S+)\?/.exec(e.fix)?.[1];
+    if (suggestion && e.problem === 'is not a key tidewright knows here') {
+      meant.add([...e.field.split('.').slice(0, -1), suggestion].join('.'));
+    }
+  }
+  const missing = (e: StationFileError): boolean => e.problem === 'is missing' && meant.has(e.field);
+  const unknownKeys = errors.filter((e) => e.problem === 'is not a key tidewright knows here');
+  return [...unknownKeys, ...errors.filter((e) => !missing(e) && !unknownKeys.includes(e))];
 }
