@@ -1,3 +1,4 @@
 // The public surface of the engine: re-exports only (whoever adds a module adds its line).
 export * from './localtime.js';
 export * from './stations.js';
+export * from './sky.js';
