@@ -1,0 +1,79 @@
+// The command line of `tidewright build`: parsed and checked, nothing else decided here.
+import { UsageError } from '../../engine/errors.js';
+import { oneOf, parseCommandLine, positionalArguments } from '../args.js';
+import {
+  FIRST_YEAR, IMPOSITIONS, LAST_YEAR, MAX_WORKERS, PAGE_SIZES, UNITS,
+  type Imposition, type PageSize, type Units,
+} from './options.js';
+
+export interface BuildArgs {
+  stations?: string;
+  year?: number;
+  out?: string;
+  units?: Units;
+  page?: PageSize;
+  imposition?: Imposition;
+  workers?: number;
+  quiet: boolean;
+  help: boolean;
+}
+
+export const BUILD_USAGE = `Usage: tidewright build [options]
+
+Builds the website, the PDF tide books and the data downloads for every station in a folder.
+
+  --stations DIR      folder of station files (default: stations-demo)
+  --year YYYY         year of the almanac (default: next calendar year)
+  --out DIR           output folder, replaced whole when the build succeeds (default: out)
+  --units m|ft        heights in metres or feet (default: m)
+  --page SIZE         PDF page: ${PAGE_SIZES.join(', ')} (default: a5)
+  --imposition KIND   none, or saddle-stitch for fold-and-staple booklets (default: none)
+  --workers N         worker threads for the station computations (default: one per core)
+  --quiet             print nothing but errors
+  --help              show this text
+
+Settings a publisher keeps can go in tidewright.yaml beside the station files
+(title, publisher, year, page, units, locale, imposition); options given here win.`;
+
+const OPTIONS = {
+  stations: { type: 'string' },
+  year: { type: 'string' },
+  out: { type: 'string' },
+  units: { type: 'string' },
+  page: { type: 'string' },
+  imposition: { type: 'string' },
+  workers: { type: 'string' },
+  quiet: { type: 'boolean', short: 'q' },
+  help: { type: 'boolean', short: 'h' },
+} as const;
+
+function integer(option: string, text: string, min: number, max: number, example: string): number {
+  const value = /^\d+$/.test(text) ? Number(text) : NaN;
+  if (!Number.isInteger(value) || value < min || value > max) {
+    throw new UsageError(option, `"${text}" is not a whole number from ${min} to ${max}`, `write e.g. ${option} ${example}`);
+  }
+  return value;
+}
+
+function folder(option: string, text: string | undefined): string | undefined {
+  if (text === undefined) return undefined;
+  if (text.trim() === '') throw new UsageError(option, 'is empty', `write a folder after ${option}`);
+  return text;
+}
+
+/** Turns the arguments after `build` into checked values; a bad one is a UsageError. */
+export function parseBuildArgs(argv: readonly string[]): BuildArgs {
+  const { values, positionals } = parseCommandLine('build', argv, OPTIONS);
+  positionalArguments('build', positionals, []);
+  return {
+    stations: folder('--stations', values.stations),
+    out: folder('--out', values.out),
+    year: values.year === undefined ? undefined : integer('--year', values.year, FIRST_YEAR, LAST_YEAR, '2027'),
+    units: values.units === undefined ? undefined : oneOf('--units', values.units, UNITS),
+    page: values.page === undefined ? undefined : oneOf('--page', values.page, PAGE_SIZES),
+    imposition: values.imposition === undefined ? undefined : oneOf('--imposition', values.imposition, IMPOSITIONS),
+    workers: values.workers === undefined ? undefined : integer('--workers', values.workers, 1, MAX_WORKERS, '2'),
+    quiet: values.quiet ?? false,
+    help: values.help ?? false,
+  };
+}

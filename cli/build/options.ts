@@ -1,0 +1,39 @@
+// The choices a build can be given (command line, project file, defaults) and their allowed values.
+
+export const UNITS = ['m', 'ft'] as const;
+export const PAGE_SIZES = ['a5', 'a6', 'a4', 'letter', 'half-letter'] as const;
+export const IMPOSITIONS = ['none', 'saddle-stitch'] as const;
+
+export type Units = (typeof UNITS)[number];
+export type PageSize = (typeof PAGE_SIZES)[number];
+export type Imposition = (typeof IMPOSITIONS)[number];
+
+// Years the engine's astronomy and the datum epochs are written for.
+export const FIRST_YEAR = 1900;
+export const LAST_YEAR = 2100;
+export const MAX_WORKERS = 64;
+
+/** What the renderers are told: the same for the site, the books and the exports. */
+export interface RenderChoices {
+  units: Units;
+  page: PageSize;
+  imposition: Imposition;
+  title?: string;
+  publisher?: string;
+  locale?: string;
+}
+
+/** Everything one build needs to know, after the command line, the project file and the defaults. */
+export interface BuildPlan {
+  stationsDir: string; // absolute
+  outDir: string; // absolute, as given (resolved against the working folder)
+  year: number;
+  render: RenderChoices;
+  quiet: boolean;
+  workers: number | null; // null: one per core, capped by the work there is
+  projectFile: string | null; // the tidewright.yaml that was read, if any
+}
+
+export function isOneOf<T extends string>(values: readonly T[], value: string): value is T {
+  return (values as readonly string[]).includes(value);
+}

@@ -1,0 +1,43 @@
+// One BuildPlan from the command line, the project file and the defaults (in that order of precedence).
+import { existsSync, statSync } from 'node:fs';
+import { resolve } from 'node:path';
+import { UsageError } from '../../engine/errors.js';
+import type { BuildArgs } from './args.js';
+import type { BuildPlan } from './options.js';
+import { loadProjectFile } from './project.js';
+
+export const DEFAULT_STATIONS_DIR = 'stations-demo';
+export const DEFAULT_OUT_DIR = 'out';
+
+/** Next calendar year by the real clock: an almanac is built the autumn before the year it covers. */
+export function defaultYear(now: Date = new Date()): number {
+  return now.getFullYear() + 1;
+}
+
+export function makePlan(args: BuildArgs, cwd: string = process.cwd(), now: Date = new Date()): BuildPlan {
+  const stationsDir = resolve(cwd, args.stations ?? DEFAULT_STATIONS_DIR);
+  if (!existsSync(stationsDir)) {
+    throw new UsageError('--stations', `folder ${stationsDir} does not exist`, 'give the folder holding the station .yaml files');
+  }
+  if (!statSync(stationsDir).isDirectory()) {
+    throw new UsageError('--stations', `${stationsDir} is a file, not a folder`, 'give the folder holding the station .yaml files');
+  }
+  const project = loadProjectFile(stationsDir);
+  const s = project.settings;
+  return {
+    stationsDir,
+    outDir: resolve(cwd, args.out ?? DEFAULT_OUT_DIR),
+    year: args.year ?? s.year ?? defaultYear(now),
+    render: {
+      units: args.units ?? s.units ?? 'm',
+      page: args.page ?? s.page ?? 'a5',
+      imposition: args.imposition ?? s.imposition ?? 'none',
+      ...(s.title !== undefined && { title: s.title }),
+      ...(s.publisher !== undefined && { publisher: s.publisher }),
+      ...(s.locale !== undefined && { locale: s.locale }),
+    },
+    quiet: args.quiet,
+    workers: args.workers ?? null,
+    projectFile: project.file,
+  };
+}
