@@ -2,13 +2,16 @@
 
 import { parseDocument, type YAMLError } from 'yaml';
 import { StationFileError } from '../errors.js';
-import type { ReferenceStation, SecondaryStation, Station } from '../types.js';
+import type { ConstituentConstant, ReferenceStation, SecondaryStation, Station } from '../types.js';
 import { describeValue, issuesToErrors } from './issues.js';
-import { FIELD_HELP, STATION_KINDS, referencePortSchema, secondaryPortSchema, type StationKind } from './schema.js';
+import {
+  CANONICAL_CONSTITUENT, FIELD_HELP, STATION_KINDS, referencePortSchema, secondaryPortSchema, type StationKind,
+} from './schema.js';
 import { nearestName } from './suggest.js';
 
 export interface StationFileCheck {
   station?: Station; // present only when the file has no problem
+  declaredId?: string; // the id the file gives, even when it has problems (for set-wide messages)
   problems: StationFileError[];
 }
 
@@ -26,7 +29,8 @@ function yamlProblem(file: string, error: YAMLError): StationFileError {
   const field = where ? `line ${where.line}, column ${where.col}` : '(file)';
   const firstLine = error.message.split('\n')[0] ?? error.message;
   const what = firstLine.replace(/ at line \d+, column \d+:?$/, '');
-  const fix = YAML_FIXES[error.code] ?? 'check the indentation, colons and quotes there (each field is written key: value)';
+  const advice = YAML_FIXES[error.code] ?? 'check the indentation, colons and quotes (each field is written key: value)';
+  const fix = error.code === 'DUPLICATE_KEY' ? `${advice} (keep this line or the earlier one)` : `${advice}, on that line or just above it`;
   return new StationFileError(file, field, `YAML syntax error: ${what}`, fix);
 }
 
@@ -51,6 +55,29 @@ function kindOf(file: string, raw: Record<string, unknown>): { kind: StationKind
   return { kind: nearest ?? guessed, problem };
 }
 
+/** Constituents under their canonical names (an alias such as LAM2 becomes LAMBDA2), each listed once. */
+function canonicalConstituents(
+  file: string,
+  listed: Record<string, ConstituentConstant>,
+): { constituents: Record<string, ConstituentConstant>; problems: StationFileError[] } {
+  const constituents: Record<string, ConstituentConstant> = {};
+  const writtenAs = new Map<string, string>();
+  const problems: StationFileError[] = [];
+  for (const [name, constant] of Object.entries(listed)) {
+    const canonical = CANONICAL_CONSTITUENT.get(name) ?? name;
+    const earlier = writtenAs.get(canonical);
+    if (earlier !== undefined) {
+      problems.push(
+        new StationFileError(file, `constituents.${name}`, `is another name for ${canonical}, which is already listed as ${earlier}`, 'list each constituent once'),
+      );
+      continue;
+    }
+    writtenAs.set(canonical, name);
+    constituents[canonical] = constant;
+  }
+  return { constituents, problems };
+}
+
 /** Every problem of one station file's text (and the station when there is none). */
 export function checkStationText(text: string, file: string): StationFileCheck {
   const doc = parseDocument(text, { prettyErrors: true, uniqueKeys: true });
@@ -67,21 +94,24 @@ export function checkStationText(text: string, file: string): StationFileCheck {
     const what = raw === null || raw === undefined ? 'is empty' : `holds ${describeValue(raw)}, not a station`;
     return { problems: [new StationFileError(file, '(file)', what, FIELD_HELP[''] ?? '')] };
   }
+  const declaredId = typeof raw.id === 'string' ? raw.id : undefined;
   const { kind, problem: kindProblem } = kindOf(file, raw);
   const problems: StationFileError[] = kindProblem ? [kindProblem] : [];
   const input = { ...raw, kind };
   if (kind === 'reference') {
     const result = referencePortSchema.safeParse(input);
     if (!result.success) problems.push(...issuesToErrors(file, raw, result.error.issues, kind));
-    if (problems.length > 0 || !result.success) return { problems };
-    const station: ReferenceStation = { ...result.data, sourceFile: file };
-    return { station, problems };
+    if (problems.length > 0 || !result.success) return { declaredId, problems };
+    const { constituents, problems: duplicates } = canonicalConstituents(file, result.data.constituents);
+    if (duplicates.length > 0) return { declaredId, problems: duplicates };
+    const station: ReferenceStation = { ...result.data, constituents, sourceFile: file };
+    return { station, declaredId, problems };
   }
   const result = secondaryPortSchema.safeParse(input);
   if (!result.success) problems.push(...issuesToErrors(file, raw, result.error.issues, kind));
-  if (problems.length > 0 || !result.success) return { problems };
+  if (problems.length > 0 || !result.success) return { declaredId, problems };
   const station: SecondaryStation = { ...result.data, sourceFile: file };
-  return { station, problems };
+  return { station, declaredId, problems };
 }
 
 /** A station from the text of its YAML file; the first problem found is thrown as a StationFileError. */

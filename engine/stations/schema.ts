@@ -4,7 +4,7 @@
 
 import * as z from 'zod';
 import { IANAZone } from 'luxon';
-import { CONSTITUENT_NAMES } from '../constituents.js';
+import { CONSTITUENTS, CONSTITUENT_NAMES } from '../constituents.js';
 import { nearestName } from './suggest.js';
 
 export const STATION_ID_PATTERN = /^[a-z0-9-]+$/;
@@ -45,10 +45,10 @@ function checkTimezone(ctx: CheckContext): void {
   const exact = knownZones.includes(zone);
   const nearest = exact ? zone : nearestName(zone, knownZones);
   if (!IANAZone.isValidZone(zone)) {
-    const hint = nearest ? `did you mean ${nearest}?` : 'write an IANA time zone name such as Europe/Lisbon or Pacific/Auckland';
+    const hint = nearest ? `did you mean ${nearest}? write timezone: ${nearest}` : 'write an IANA time zone name such as Europe/Lisbon or Pacific/Auckland';
     fail(ctx, `"${zone}" is not a known IANA time zone`, hint);
   } else if (!exact && nearest !== undefined && nearest.toLowerCase() === zone.toLowerCase()) {
-    fail(ctx, `"${zone}" is spelt with the wrong capitals`, `write ${nearest}`);
+    fail(ctx, `"${zone}" is spelt with the wrong capitals`, `write timezone: ${nearest}`);
   }
 }
 
@@ -58,16 +58,20 @@ function checkText(ctx: CheckContext): void {
 
 const text = z.string().check(checkText);
 
-const knownConstituents: ReadonlySet<string> = new Set(CONSTITUENT_NAMES);
+/** Every name a station file may use for a constituent (canonical names and aliases) → canonical name. */
+export const CANONICAL_CONSTITUENT: ReadonlyMap<string, string> = new Map(
+  CONSTITUENTS.flatMap((c) => [c.name, ...c.aliases].map((alias) => [alias, c.name] as const)),
+);
 
 function checkConstituentName(ctx: CheckContext): void {
   const name = ctx.value;
-  if (knownConstituents.has(name)) return;
-  const nearest = nearestName(name, CONSTITUENT_NAMES);
+  if (CANONICAL_CONSTITUENT.has(name)) return;
+  const near = nearestName(name, CANONICAL_CONSTITUENT.keys());
+  const nearest = near === undefined ? undefined : CANONICAL_CONSTITUENT.get(near);
   const fix = nearest
-    ? `write ${nearest}`
-    : 'use one of the constituent names tidewright knows (M2, S2, N2, K1, O1, M4, …); `tidewright help constituents` lists them';
-  fail(ctx, `"${name}" is not a constituent tidewright knows`, nearest ? `did you mean ${nearest}? ${fix}` : fix);
+    ? `did you mean ${nearest}? write ${nearest}`
+    : `use one of the ${CONSTITUENT_NAMES.length} constituent names tidewright knows (M2, S2, N2, K1, O1, M4, …; tidewright help constituents lists them)`;
+  fail(ctx, `"${name}" is not a constituent tidewright knows`, fix);
 }
 
 export const positionSchema = z.strictObject({

@@ -54,8 +54,16 @@ export function stationFilesIn(dir: string): string[] {
   return files;
 }
 
-/** Duplicate ids and unresolvable references among stations that each passed on their own. */
-export function setProblems(dir: string, stations: readonly Station[]): StationFileError[] {
+/**
+ * Duplicate ids and unresolvable references among stations that each passed on their own.
+ * `failedIds` maps the ids of files that have problems of their own to those files: a reference to
+ * one of them is not reported again (its file's problems already are), and typos are matched against them.
+ */
+export function setProblems(
+  dir: string,
+  stations: readonly Station[],
+  failedIds: ReadonlyMap<string, string> = new Map(),
+): StationFileError[] {
   const problems: StationFileError[] = [];
   const byId = new Map<string, Station>();
   for (const station of stations) {
@@ -73,9 +81,10 @@ export function setProblems(dir: string, stations: readonly Station[]): StationF
       byId.set(station.id, station);
     }
   }
-  const referenceIds = stations.filter((s) => s.kind === 'reference').map((s) => s.id);
+  const referenceIds = [...stations.filter((s) => s.kind === 'reference').map((s) => s.id), ...failedIds.keys()];
   for (const station of stations) {
     if (station.kind !== 'secondary' || byId.get(station.id) !== station) continue;
+    if (!byId.has(station.reference) && failedIds.has(station.reference)) continue;
     const problem = referenceProblem(dir, station, byId, referenceIds);
     if (problem) problems.push(problem);
   }
@@ -139,6 +148,7 @@ export function checkStationSet(dir: string): StationSetCheck {
   const files = stationFilesIn(dir);
   const stations: Station[] = [];
   const problems: StationFileError[] = [];
+  const failedIds = new Map<string, string>();
   for (const file of files) {
     let text: string;
     try {
@@ -153,8 +163,9 @@ export function checkStationSet(dir: string): StationSetCheck {
     const result = checkStationText(text, file);
     problems.push(...result.problems);
     if (result.station) stations.push(result.station);
+    else if (result.declaredId !== undefined && !failedIds.has(result.declaredId)) failedIds.set(result.declaredId, file);
   }
-  problems.push(...setProblems(dir, stations));
+  problems.push(...setProblems(dir, stations, failedIds));
   return { dir, stations, files, problems };
 }
 

@@ -22,13 +22,17 @@ export function nearestName(typed: string, candidates: Iterable<string>): string
   const lower = typed.toLowerCase();
   let best: string | undefined;
   let bestDistance = Infinity;
+  let bestExact = Infinity;
   for (const candidate of candidates) {
     const candidateLower = candidate.toLowerCase();
     if (candidateLower === lower) return candidate;
     const d = editDistance(lower, candidateLower);
-    if (d < bestDistance) {
+    // Ties go to the candidate closer with capitals kept (SS2 → S2 rather than Ssa).
+    const exact = d <= bestDistance ? editDistance(typed, candidate) : Infinity;
+    if (d < bestDistance || (d === bestDistance && exact < bestExact)) {
       best = candidate;
       bestDistance = d;
+      bestExact = exact;
     }
   }
   // Short names tolerate one slip, longer ones about a third of their length.
