@@ -50,11 +50,19 @@ export function validZone(name: string): boolean {
   return typeof name === 'string' && name.length > 0 && IANAZone.isValidZone(name);
 }
 
+// Checking a name builds an Intl formatter (slow), so each valid zone is checked once.
+const zones = new Map<string, IANAZone>();
+
 function zoneOf(name: string): IANAZone {
-  if (!validZone(name)) {
-    throw new UsageError('timezone', `"${name}" is not a known IANA time zone`, 'write a name such as Europe/Lisbon or Pacific/Auckland');
+  let zone = zones.get(name);
+  if (zone === undefined) {
+    if (!validZone(name)) {
+      throw new UsageError('timezone', `"${name}" is not a known IANA time zone`, 'write a name such as Europe/Lisbon or Pacific/Auckland');
+    }
+    zone = IANAZone.create(name);
+    zones.set(name, zone);
   }
-  return IANAZone.create(name);
+  return zone;
 }
 
 /** "+01:00" from an offset in minutes. */
