@@ -1,0 +1,79 @@
+// A small pool of worker threads fed with units of work (lists of station ids), one unit at a time
+// per worker, so a fast worker takes more. Results arrive in any order; the caller files them by id.
+import { Worker } from 'node:worker_threads';
+import { BuildStepError, deserializeError } from './failure.js';
+import type { FromWorker, ToWorker, WorkerSetup } from './protocol.js';
+import type { StationOutcome } from './station-job.js';
+
+export interface PoolRun {
+  workerUrl: URL;
+  setup: WorkerSetup;
+  size: number;
+  units: readonly string[][];
+  onStation(outcome: StationOutcome): void;
+  signal?: AbortSignal;
+}
+
+export function runPool(run: PoolRun): Promise<void> {
+  const queue = [...run.units];
+  const workers: Worker[] = [];
+  return new Promise<void>((resolve, reject) => {
+    let settled = false;
+    let open = 0;
+    const fail = (error: Error): void => {
+      if (settled) return;
+      settled = true;
+      run.signal?.removeEventListener('abort', onAbort);
+      // Stop the others at once; their half-written files go with the temporary folder.
+      Promise.all(workers.map((w) => w.terminate())).finally(() => reject(error));
+    };
+    const onAbort = (): void => fail(new BuildStepError('computing the stations', run.signal?.reason ?? new Error('stopped')));
+    run.signal?.addEventListener('abort', onAbort, { once: true });
+
+    const feed = (worker: Worker): void => {
+      const ids = queue.shift();
+      const message: ToWorker = ids ? { type: 'unit', ids } : { type: 'close' };
+      worker.postMessage(message);
+    };
+
+    const size = Math.max(1, Math.min(run.size, run.units.length));
+    if (run.units.length === 0) {
+      resolve();
+      return;
+    }
+    for (let i = 0; i < size; i++) {
+      const worker = new Worker(run.workerUrl, { workerData: run.setup });
+      workers.push(worker);
+      open++;
+      worker.on('message', (message: FromWorker) => {
+        if (settled) return;
+        switch (message.type) {
+          case 'ready':
+          case 'unit-done':
+            feed(worker);
+            break;
+          case 'station':
+            run.onStation(message.outcome);
+            break;
+          case 'failed': {
+            const step = message.id === null ? 'starting a worker' : `station ${message.id}`;
+            fail(new BuildStepError(step, deserializeError(message.error)));
+            break;
+          }
+        }
+      });
+      worker.on('error', (error) => fail(new BuildStepError('a worker thread', error)));
+      worker.on('exit', (code) => {
+        open--;
+        if (settled) return;
+        if (code !== 0) fail(new BuildStepError('a worker thread', new Error(`stopped with exit code ${code}`)));
+        else if (open === 0 && queue.length > 0) fail(new BuildStepError('a worker thread', new Error('stopped before the work was done')));
+        else if (open === 0) {
+          settled = true;
+          run.signal?.removeEventListener('abort', onAbort);
+          resolve();
+        }
+      });
+    }
+  });
+}

@@ -1,0 +1,145 @@
+// The build, step by step: check the output target, validate the whole station set, compute every
+// station (workers), render the site and the combined book, then swap the finished folder into place.
+import { mkdir, readdir, stat, writeFile } from 'node:fs/promises';
+import { join } from 'node:path';
+import type { StationFileError } from '../../engine/errors.js';
+import type { Station, StationYear } from '../../engine/types.js';
+import { BuildStepError, StationSetInvalid } from './failure.js';
+import { poolSize, workUnits } from './groups.js';
+import type { BuildPlan, RenderChoices } from './options.js';
+import { commitOutput, createTemp, discardTemp, planOutput, recoverStale, type OutputTarget } from './output.js';
+import { combinedBookName, stationYearFile } from './paths.js';
+import type { Progress } from './progress.js';
+import { countPdfPages, type StationOutcome } from './station-job.js';
+
+export interface ComputeRequest {
+  stationsDir: string;
+  year: number;
+  tempDir: string;
+  render: RenderChoices;
+  units: string[][];
+  workers: number;
+}
+
+/** The pieces a build is made of; the CLI passes the real ones, tests may pass their own. */
+export interface BuildDeps {
+  checkSet(dir: string): { stations: Station[]; problems: StationFileError[] };
+  computeStations(request: ComputeRequest, onStation: (outcome: StationOutcome) => void, signal?: AbortSignal): Promise<void>;
+  /** The site into siteDir, and every station-year's downloads (CSV, JSON, iCalendar) into dataDir too. */
+  renderSite(models: StationYear[], siteDir: string, dataDir: string, options: RenderChoices): Promise<unknown>;
+  renderCombinedBook(models: StationYear[], options: RenderChoices): Promise<Buffer>;
+  cores(): number;
+}
+
+export interface BuildEvents {
+  progress: Progress;
+  note(text: string): void; // something worth a line on stderr (stale folders cleaned…)
+  tempCreated(target: OutputTarget): void; // from here until `committed`, the temp folder is ours to remove
+  committed(target: OutputTarget): void;
+  signal?: AbortSignal;
+}
+
+export interface BuildSummary {
+  out: string;
+  year: number;
+  stations: number;
+  workers: number;
+  pdfPages: number;
+  webPages: number;
+  files: number;
+  bytes: number;
+  ms: number;
+  stepMs: Record<string, number>;
+}
+
+async function treeStats(dir: string): Promise<{ files: number; bytes: number; html: number }> {
+  const total = { files: 0, bytes: 0, html: 0 };
+  for (const entry of await readdir(dir, { withFileTypes: true })) {
+    const path = join(dir, entry.name);
+    if (entry.isDirectory()) {
+      const sub = await treeStats(path);
+      total.files += sub.files;
+      total.bytes += sub.bytes;
+      total.html += sub.html;
+    } else {
+      total.files++;
+      total.bytes += (await stat(path)).size;
+      if (entry.name.endsWith('.html')) total.html++;
+    }
+  }
+  return total;
+}
+
+async function step<T>(name: string, times: Record<string, number>, work: () => Promise<T>): Promise<T> {
+  const start = performance.now();
+  try {
+    return await work();
+  } catch (error) {
+    throw error instanceof BuildStepError ? error : new BuildStepError(name, error);
+  } finally {
+    times[name] = (times[name] ?? 0) + performance.now() - start;
+  }
+}
+
+export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: BuildEvents): Promise<BuildSummary> {
+  const started = performance.now();
+  const times: Record<string, number> = {};
+  const target = planOutput(plan.outDir, plan.stationsDir);
+  for (const note of recoverStale(target)) events.note(note);
+
+  events.progress.stage('checking the station files');
+  const checked = deps.checkSet(plan.stationsDir);
+  if (checked.problems.length > 0) throw new StationSetInvalid(checked.problems);
+  const stations = checked.stations;
+  const year = plan.year;
+
+  createTemp(target);
+  events.tempCreated(target);
+  try {
+    const units = workUnits(stations, plan.workers ?? deps.cores());
+    const workers = poolSize(plan.workers, deps.cores(), units.length);
+    const outcomes = new Map<string, StationOutcome>();
+    events.progress.stage('stations', stations.length);
+    await step('computing the stations', times, () => deps.computeStations(
+      { stationsDir: plan.stationsDir, year, tempDir: target.temp, render: plan.render, units, workers },
+      (outcome) => {
+        outcomes.set(outcome.id, outcome);
+        events.progress.tick(outcomes.size);
+      },
+      events.signal,
+    ));
+    // The set's order (file-name order), whichever worker finished first.
+    const missing = stations.filter((s) => !outcomes.has(s.id)).map((s) => s.id);
+    if (missing.length > 0) throw new BuildStepError('computing the stations', new Error(`no result for ${missing.join(', ')}`));
+    const models = stations.map((s) => outcomes.get(s.id)!.model);
+    let pdfPages = stations.reduce((n, s) => n + outcomes.get(s.id)!.pdfPages, 0);
+    outcomes.clear();
+
+    events.progress.stage('website and downloads');
+    await step('rendering the website and downloads', times, () => deps.renderSite(models, join(target.temp, 'site'), join(target.temp, 'data'), plan.render));
+    events.signal?.throwIfAborted();
+
+    events.progress.stage('combined book');
+    const name = combinedBookName(plan.render.title, stations.map((s) => s.id));
+    await step('rendering the combined book', times, async () => {
+      const pdf = await deps.renderCombinedBook(models, plan.render);
+      await mkdir(join(target.temp, 'pdf'), { recursive: true });
+      await writeFile(stationYearFile(join(target.temp, 'pdf'), name, year, 'pdf'), pdf);
+      pdfPages += countPdfPages(pdf);
+    });
+    events.signal?.throwIfAborted();
+
+    const tree = await step('counting the output', times, () => treeStats(target.temp));
+    events.progress.clear();
+    commitOutput(target);
+    events.committed(target);
+    return {
+      out: target.out, year, stations: stations.length, workers, pdfPages, webPages: tree.html,
+      files: tree.files, bytes: tree.bytes, ms: performance.now() - started, stepMs: times,
+    };
+  } catch (error) {
+    events.progress.clear();
+    discardTemp(target);
+    throw error;
+  }
+}

@@ -1,0 +1,45 @@
+// The work done for one station, in a worker thread (or in-process when no compiled worker exists):
+// its year model and its PDF book, written straight into the temporary output folder. (The downloads
+// are written by the site renderer, which links them from the station pages.)
+import { mkdir, writeFile } from 'node:fs/promises';
+import { join } from 'node:path';
+import type { StationSet } from '../../engine/stations.js';
+import type { Station, StationYear } from '../../engine/types.js';
+import type { RenderChoices } from './options.js';
+import { assertSafeId, stationYearFile } from './paths.js';
+
+export interface StationJobDeps {
+  buildStationYear(station: Station, set: StationSet, year: number): StationYear | Promise<StationYear>;
+  renderStationBook(model: StationYear, options: RenderChoices): Promise<Buffer>;
+}
+
+export interface StationJobContext {
+  set: StationSet;
+  year: number;
+  tempDir: string; // the build's temporary output folder
+  render: RenderChoices;
+}
+
+export interface StationOutcome {
+  id: string;
+  model: StationYear;
+  pdfPages: number;
+}
+
+/** Pages of a PDF written by pdfkit (page objects are plain dictionaries, never in object streams). */
+export function countPdfPages(pdf: Buffer): number {
+  const text = pdf.toString('latin1');
+  return text.match(/\/Type\s*\/Page(?![a-zA-Z])/g)?.length ?? 0;
+}
+
+export async function runStationJob(id: string, ctx: StationJobContext, deps: StationJobDeps): Promise<StationOutcome> {
+  const station = ctx.set.byId.get(assertSafeId(id));
+  if (!station) throw new Error(`station "${id}" is not in the station set`);
+  const model = await deps.buildStationYear(station, ctx.set, ctx.year);
+  if (model.station.id !== id) throw new Error(`the model built for "${id}" names station "${model.station.id}"`);
+  const pdfDir = join(ctx.tempDir, 'pdf');
+  await mkdir(pdfDir, { recursive: true });
+  const pdf = await deps.renderStationBook(model, ctx.render);
+  await writeFile(stationYearFile(pdfDir, id, ctx.year, 'pdf'), pdf);
+  return { id, model, pdfPages: countPdfPages(pdf) };
+}
