@@ -2,3 +2,6 @@
 export * from './localtime.js';
 export * from './stations.js';
 export * from './sky.js';
+export * from './astro.js';
+export * from './constituents.js';
+export * from './nodal.js';
