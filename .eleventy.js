@@ -1,0 +1,26 @@
+// Eleventy wiring only: where templates, layouts and data live, Nunjucks with autoescape, the CSS.
+// renderSite (templates/site/render.ts) registers the filters and hands over the models before this
+// runs; started on its own (npx @11ty/eleventy) it takes the compiled filters from dist/ (npm ci builds
+// them), templates/_data asks the engine for the demo, and the site goes to out/site.
+import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+
+const root = dirname(fileURLToPath(import.meta.url));
+
+export default async function (eleventyConfig) {
+  const standalone = !eleventyConfig.getFilter('tideCurve');
+  if (standalone) {
+    const { registerSiteFilters } = await import('./dist/templates/site/filters.js');
+    registerSiteFilters(eleventyConfig, 'm');
+  }
+  eleventyConfig.setUseGitIgnore(false);
+  eleventyConfig.setNunjucksEnvironmentOptions({ autoescape: true, trimBlocks: true, lstripBlocks: true });
+  for (const folder of ['pdf', 'site', 'exports']) eleventyConfig.ignores.add(join(root, 'templates', folder, '**'));
+  eleventyConfig.addPassthroughCopy({ [join(root, 'templates', 'assets')]: 'assets' });
+  return {
+    // Absolute, so a build started from any folder finds the templates; renderSite chooses the output.
+    dir: { input: join(root, 'templates'), includes: '_includes', data: '_data', ...(standalone ? { output: 'out/site' } : {}) },
+    templateFormats: ['njk'],
+    htmlTemplateEngine: 'njk',
+  };
+}

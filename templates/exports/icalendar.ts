@@ -1,0 +1,84 @@
+// High and low waters of a station-year as one iCalendar file (RFC 5545) that calendar programs import:
+// CRLF line ends, lines folded at 75 octets, TEXT values escaped, times in UTC, stable UIDs and a
+// DTSTAMP taken from the model (not the clock) so two builds of the same input are identical.
+import type { AlmanacEvent, StationYear } from '../../engine/types.js';
+
+const METRES_PER_FOOT = 0.3048; // international foot, exact
+const MINUS = '\u2212';
+
+/** Escape a TEXT value (RFC 5545 §3.3.11): backslash, semicolon, comma and line breaks. */
+export function escapeText(text: string): string {
+  return text
+    .replace(/\\/g, '\\\\')
+    .replace(/;/g, '\\;')
+    .replace(/,/g, '\\,')
+    .replace(/\r\n|\r|\n/g, '\\n');
+}
+
+/** Fold one content line at 75 octets (RFC 5545 §3.1), never inside a UTF-8 character. */
+export function foldLine(line: string): string {
+  const out: string[] = [];
+  let current = '';
+  let octets = 0;
+  let limit = 75;
+  for (const ch of line) {
+    const size = Buffer.byteLength(ch, 'utf8');
+    if (octets + size > limit) {
+      out.push(current);
+      current = ' ';
+      octets = 1;
+      limit = 75;
+    }
+    current += ch;
+    octets += size;
+  }
+  out.push(current);
+  return out.join('\r\n');
+}
+
+/** "2027-01-01T03:12:41Z" → "20270101T031241Z" (RFC 5545 §3.3.5, form 2: UTC). */
+export function icalUtc(iso: string): string {
+  return iso.replace(/[-:]/g, '').replace(/\.\d+/, '');
+}
+
+function heightWords(e: AlmanacEvent, units: 'm' | 'ft'): string {
+  const value = units === 'ft' ? e.height / METRES_PER_FOOT : e.height;
+  const text = Math.abs(value).toFixed(units === 'ft' ? 1 : 2);
+  return `${e.height < 0 ? MINUS : ''}${text} ${units}`;
+}
+
+export function eventsICalendar(model: StationYear, units: 'm' | 'ft' = 'm'): string {
+  const st = model.station;
+  const stamp = `${model.year}0101T000000Z`; // fixed by the edition's year: reproducible builds
+  const invented = model.invented ? ' These data are INVENTED for a demonstration: never use them for navigation.' : '';
+  const lines: string[] = [
+    'BEGIN:VCALENDAR',
+    'VERSION:2.0',
+    `PRODID:-//tidewright//tidewright ${model.generator.version}//EN`,
+    'CALSCALE:GREGORIAN',
+    'METHOD:PUBLISH',
+    `X-WR-CALNAME:${escapeText(`Tides ${model.year}: ${st.name}`)}`,
+    `X-WR-CALDESC:${escapeText(`High and low waters at ${st.name}, heights above ${st.datum}. ${model.caution}${invented}`)}`,
+  ];
+  model.events.forEach((e, i) => {
+    const what = e.type === 'high' ? 'High water' : 'Low water';
+    const height = heightWords(e, units);
+    const below = e.belowDatum ? ` (below ${st.datum})` : '';
+    const description = `${what} at ${st.name}: ${e.clock} local time (UTC${e.offset}), ${height} above ${st.datum}${below}.`
+      + `\n\nCaution: ${model.caution}${invented}\n\nProvenance: ${st.provenance}`;
+    lines.push(
+      'BEGIN:VEVENT',
+      `UID:${st.id}-${model.year}-${i + 1}@tidewright`,
+      `DTSTAMP:${stamp}`,
+      `DTSTART:${icalUtc(e.time)}`,
+      `SUMMARY:${escapeText(`${what} ${height}${below}`)}`,
+      `DESCRIPTION:${escapeText(description)}`,
+      `LOCATION:${escapeText(st.name)}`,
+      `GEO:${st.position.latitude.toFixed(6)};${st.position.longitude.toFixed(6)}`,
+      'TRANSP:TRANSPARENT',
+      'END:VEVENT',
+    );
+  });
+  lines.push('END:VCALENDAR');
+  return `${lines.map(foldLine).join('\r\n')}\r\n`;
+}

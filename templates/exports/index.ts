@@ -1,0 +1,6 @@
+// The export writers: CSV, JSON and iCalendar of a station-year's high and low waters.
+export { csvField, eventsCsv } from './csv.js';
+export { eventsJson } from './json.js';
+export { escapeText, eventsICalendar, foldLine, icalUtc } from './icalendar.js';
+export { exportFileNames, writeExports } from './write.js';
+export type { ExportFileNames } from './write.js';

@@ -1,0 +1,98 @@
+// Geometry of the small tide curve drawn for each day of a month page: an SVG path from the model's
+// `curve` heights (local midnight to next local midnight), the chart-datum line, event dots and
+// clock ticks. One vertical scale per station-year so that days can be compared at a glance.
+import type { DayEntry, StationYear } from '../../engine/types.js';
+
+export const CURVE_WIDTH = 240;
+export const CURVE_HEIGHT = 60;
+const PAD_TOP = 5;
+const PAD_BOTTOM = 5;
+
+export interface HeightScale {
+  min: number; // metres at the bottom of the plot
+  max: number; // metres at the top
+}
+
+export interface CurveDot {
+  x: number;
+  y: number;
+  type: 'high' | 'low';
+  belowDatum: boolean;
+}
+
+export interface DayCurve {
+  line: string; // SVG path data of the curve
+  water: string; // closed path: the curve down to the bottom edge (the water body)
+  datumY: number; // y of chart datum (height 0)
+  dots: CurveDot[];
+  ticks: number[]; // x of local 06:00, 12:00 and 18:00
+  noon: number; // x of local 12:00 (drawn a little stronger)
+  night: { x: number; width: number }[]; // spans with the sun below the horizon
+}
+
+/** The plotting range of a station-year: every curve sample, chart datum and HAT fit inside. */
+export function heightScale(model: StationYear): HeightScale {
+  let min = Math.min(0, model.datums.LAT);
+  let max = model.datums.HAT;
+  for (const day of model.days) {
+    for (const h of day.curve) {
+      if (h < min) min = h;
+      if (h > max) max = h;
+    }
+  }
+  if (!(max > min)) max = min + 1; // a flat record still gets a drawable box
+  return { min, max };
+}
+
+const r1 = (v: number): number => Math.round(v * 10) / 10;
+
+function yOf(h: number, scale: HeightScale): number {
+  return r1(PAD_TOP + ((scale.max - h) / (scale.max - scale.min)) * (CURVE_HEIGHT - PAD_TOP - PAD_BOTTOM));
+}
+
+function dayStartMs(day: DayEntry): number {
+  return Date.parse(`${day.date}T00:00:00${day.offsetStart}`);
+}
+
+/** Elapsed minutes from local midnight to a wall-clock hour of this day, across a clock change. */
+function elapsedToClock(day: DayEntry, hour: number): number {
+  const clock = `${String(hour).padStart(2, '0')}:00`;
+  const change = day.offsetChange;
+  const offset = change && clock >= change.clock ? day.offsetEnd : day.offsetStart;
+  return (Date.parse(`${day.date}T${clock}:00${offset}`) - dayStartMs(day)) / 60_000;
+}
+
+/** Dark spans of the day in elapsed minutes, from sunrise/sunset or the polar note. */
+function nightSpans(day: DayEntry, start: number, minutes: number): [number, number][] {
+  if (day.sunNote === 'sun-down-all-day') return [[0, minutes]];
+  if (day.sunNote === 'sun-up-all-day') return [];
+  const rise = day.sunrise === null ? null : (Date.parse(day.sunrise) - start) / 60_000;
+  const set = day.sunset === null ? null : (Date.parse(day.sunset) - start) / 60_000;
+  if (rise !== null && set !== null && set < rise) return [[set, rise]]; // sets after midnight, rises again
+  const spans: [number, number][] = [];
+  if (rise !== null) spans.push([0, rise]);
+  if (set !== null) spans.push([set, minutes]);
+  return spans;
+}
+
+export function dayCurve(day: DayEntry, stepMinutes: number, scale: HeightScale): DayCurve {
+  const minutes = day.hours * 60;
+  const xOf = (elapsed: number): number => r1((elapsed / minutes) * CURVE_WIDTH);
+  const parts: string[] = [];
+  for (let i = 0; i < day.curve.length; i++) {
+    parts.push(`${i === 0 ? 'M' : 'L'}${xOf(i * stepMinutes)} ${yOf(day.curve[i], scale)}`);
+  }
+  const line = parts.join('');
+  const lastX = xOf((day.curve.length - 1) * stepMinutes);
+  const water = day.curve.length > 0 ? `${line}L${lastX} ${CURVE_HEIGHT}L0 ${CURVE_HEIGHT}Z` : '';
+  const start = dayStartMs(day);
+  const dots = day.events.map((e) => ({
+    x: xOf((Date.parse(e.time) - start) / 60_000),
+    y: yOf(e.height, scale),
+    type: e.type,
+    belowDatum: e.belowDatum,
+  }));
+  const ticks = [6, 12, 18].map((h) => xOf(elapsedToClock(day, h)));
+  const night = nightSpans(day, start, minutes).map(([a, b]) => ({ x: xOf(a), width: r1(xOf(b) - xOf(a)) }));
+  return { line, water, datumY: yOf(0, scale), dots, ticks, noon: ticks[1], night };
+}

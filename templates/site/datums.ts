@@ -1,0 +1,48 @@
+// The station's datums as a ladder: highest first, with the y of each level on a small vertical
+// scale and label positions pushed apart where levels lie close (LAT and MLWS often do).
+import type { Datums } from '../../engine/types.js';
+
+export const LADDER_HEIGHT = 210;
+const TOP = 10;
+const BOTTOM = 200;
+const LABEL_GAP = 13; // smallest distance between two label baselines
+
+export interface DatumRow {
+  key: string;
+  name: string;
+  value: number; // metres above chart datum
+  y: number; // level on the diagram
+  labelY: number; // where its label sits (may differ from y when crowded)
+}
+
+const NAMES: [keyof Omit<Datums, 'epoch'> | 'CD', string][] = [
+  ['HAT', 'Highest astronomical tide'],
+  ['MHWS', 'Mean high water springs'],
+  ['MHWN', 'Mean high water neaps'],
+  ['MSL', 'Mean sea level'],
+  ['MLWN', 'Mean low water neaps'],
+  ['MLWS', 'Mean low water springs'],
+  ['LAT', 'Lowest astronomical tide'],
+  ['CD', 'Chart datum (zero of all heights)'],
+];
+
+export function datumLadder(datums: Datums): DatumRow[] {
+  const rows = NAMES.map(([key, name]) => ({ key, name, value: key === 'CD' ? 0 : datums[key] }));
+  rows.sort((a, b) => b.value - a.value); // highest first; chart datum lands where it belongs
+  const hi = rows[0].value;
+  const lo = rows[rows.length - 1].value;
+  const span = hi - lo || 1;
+  const placed: DatumRow[] = rows.map((r) => {
+    const y = Math.round((TOP + ((hi - r.value) / span) * (BOTTOM - TOP)) * 10) / 10;
+    return { ...r, y, labelY: y };
+  });
+  // Push labels down where they crowd, then back up from the bottom edge if they ran past it.
+  for (let i = 1; i < placed.length; i++) {
+    placed[i].labelY = Math.max(placed[i].labelY, placed[i - 1].labelY + LABEL_GAP);
+  }
+  for (let i = placed.length - 1; i >= 0; i--) {
+    const limit = i === placed.length - 1 ? BOTTOM + 4 : placed[i + 1].labelY - LABEL_GAP;
+    placed[i].labelY = Math.min(placed[i].labelY, limit);
+  }
+  return placed;
+}

@@ -1,0 +1,172 @@
+// The site's page structure, built once from the models: the grouped index, one entry per
+// station-year page and per month page (with their URLs and neighbours). Numbers stay in the models;
+// formatting and drawing happen in the filters while each page renders.
+import type { MonthEntry, Station, StationYear } from '../../engine/types.js';
+import { exportFileNames } from '../exports/write.js';
+import type { Units } from './format.js';
+
+export interface SiteOptions {
+  units: Units;
+  title?: string;
+  publisher?: string;
+  locale?: string;
+}
+
+export interface IndexYear {
+  year: number;
+  url: string;
+}
+
+export interface IndexStation {
+  id: string;
+  name: string;
+  kind: Station['kind'];
+  position: Station['position'];
+  timezone: string;
+  tideType: string;
+  invented: boolean;
+  years: IndexYear[];
+}
+
+export interface IndexGroup {
+  referenceName: string;
+  reference: IndexStation | null; // null when the reference port itself is not in this build
+  secondaries: IndexStation[];
+}
+
+export interface PageLink {
+  url: string;
+  label: string;
+}
+
+export interface StationYearPage {
+  url: string;
+  model: StationYear;
+  referenceUrl: string | null;
+  months: { month: MonthEntry; url: string }[];
+  downloads: { csv: string; json: string; ics: string };
+}
+
+export interface MonthPage {
+  url: string;
+  yearUrl: string;
+  model: StationYear;
+  month: MonthEntry;
+  days: StationYear['days'];
+  prev: PageLink | null;
+  next: PageLink | null;
+  clockChanges: NonNullable<StationYear['days'][number]['offsetChange']>[];
+}
+
+export interface SiteData {
+  title: string;
+  publisher: string | null;
+  locale: string;
+  units: Units;
+  downloads: boolean; // false when Eleventy runs on its own and no exports were written
+  caution: string;
+  anyInvented: boolean;
+  provenances: string[];
+  generator: string;
+  groups: IndexGroup[];
+  stationYears: StationYearPage[];
+  monthPages: MonthPage[];
+}
+
+// The same words the engine puts in every model; used only when a site is built with no models at all.
+const FALLBACK_CAUTION = 'Astronomical predictions only: wind, atmospheric pressure and river flow change real '
+  + 'heights and times. Not a substitute for the official tide tables or local notices; defer to the harbour '
+  + 'authority and licensed practice.';
+
+const byName = (a: { name: string }, b: { name: string }): number => a.name.localeCompare(b.name, 'en');
+
+export const stationYearUrl = (id: string, year: number): string => `/${id}/${year}/`;
+
+function indexGroups(models: StationYear[]): IndexGroup[] {
+  const stations = new Map<string, IndexStation>();
+  const referenceOf = new Map<string, { id: string; name: string } | null>();
+  for (const m of models) {
+    const st = m.station;
+    let entry = stations.get(st.id);
+    if (!entry) {
+      entry = { id: st.id, name: st.name, kind: st.kind, position: st.position, timezone: m.timezone,
+        tideType: m.tideType.label, invented: m.invented, years: [] };
+      stations.set(st.id, entry);
+      referenceOf.set(st.id, st.kind === 'secondary' ? (m.reference ?? { id: st.reference, name: st.reference }) : null);
+    }
+    entry.years.push({ year: m.year, url: stationYearUrl(st.id, m.year) });
+  }
+  const groups = new Map<string, IndexGroup>();
+  for (const entry of stations.values()) {
+    entry.years.sort((a, b) => a.year - b.year);
+    if (entry.kind === 'reference') {
+      const g = groups.get(entry.id);
+      if (g) g.reference = entry;
+      else groups.set(entry.id, { referenceName: entry.name, reference: entry, secondaries: [] });
+    }
+  }
+  for (const entry of stations.values()) {
+    const ref = referenceOf.get(entry.id);
+    if (!ref) continue;
+    let g = groups.get(ref.id);
+    if (!g) {
+      g = { referenceName: ref.name, reference: null, secondaries: [] };
+      groups.set(ref.id, g);
+    }
+    g.secondaries.push(entry);
+  }
+  const list = [...groups.values()];
+  for (const g of list) g.secondaries.sort(byName);
+  return list.sort((a, b) => a.referenceName.localeCompare(b.referenceName, 'en'));
+}
+
+function monthPagesOf(model: StationYear, yearUrl: string): MonthPage[] {
+  const pages: MonthPage[] = model.months.map((month) => {
+    const days = model.days.slice(month.firstDayIndex, month.firstDayIndex + month.dayCount);
+    const clockChanges = days.flatMap((d) => (d.offsetChange ? [d.offsetChange] : []));
+    return { url: `${yearUrl}${month.slug}/`, yearUrl, model, month, days, prev: null, next: null, clockChanges };
+  });
+  pages.forEach((p, i) => {
+    if (i > 0) p.prev = { url: pages[i - 1].url, label: pages[i - 1].month.name };
+    if (i < pages.length - 1) p.next = { url: pages[i + 1].url, label: pages[i + 1].month.name };
+  });
+  return pages;
+}
+
+export function buildSiteData(models: StationYear[], options: SiteOptions, downloads = true): SiteData {
+  const sorted = [...models].sort((a, b) => a.station.id.localeCompare(b.station.id, 'en') || a.year - b.year);
+  const built = new Set(sorted.map((m) => stationYearUrl(m.station.id, m.year)));
+  const stationYears: StationYearPage[] = [];
+  const monthPages: MonthPage[] = [];
+  const seen = new Set<string>();
+  for (const model of sorted) {
+    const names = exportFileNames(model); // also checks the id is safe for a file name and a URL
+    const url = stationYearUrl(model.station.id, model.year);
+    if (seen.has(url)) throw new Error(`two models for ${model.station.id} ${model.year}: each station-year may appear once`);
+    seen.add(url);
+    const months = monthPagesOf(model, url);
+    const ref = model.reference;
+    stationYears.push({
+      url, model,
+      referenceUrl: ref && built.has(stationYearUrl(ref.id, model.year)) ? stationYearUrl(ref.id, model.year) : null,
+      months: months.map((p) => ({ month: p.month, url: p.url })),
+      downloads: { csv: `/data/${names.csv}`, json: `/data/${names.json}`, ics: `/data/${names.ics}` },
+    });
+    monthPages.push(...months);
+  }
+  const first = sorted[0];
+  return {
+    title: options.title ?? 'Tide almanac',
+    publisher: options.publisher ?? null,
+    locale: options.locale ?? 'en',
+    units: options.units,
+    downloads,
+    caution: first?.caution ?? FALLBACK_CAUTION,
+    anyInvented: sorted.some((m) => m.invented),
+    provenances: [...new Set(sorted.map((m) => m.station.provenance))].sort(),
+    generator: first ? `${first.generator.name} ${first.generator.version}` : 'tidewright',
+    groups: indexGroups(sorted),
+    stationYears,
+    monthPages,
+  };
+}
