@@ -1,0 +1,37 @@
+// The cover of a combined book: title, edition year, how many stations, the caution.
+import { cautionBlock, inventedBanner } from './cover-parts.js';
+import type { LogicalPage } from './page.js';
+import { unit } from './page.js';
+import type { StationView } from './station-view.js';
+import { DARK, MID } from './style.js';
+import { put, wrapLines } from './text.js';
+
+export interface BookCoverText { title: string; publisher?: string; years: string }
+
+export function bookCoverPage(views: StationView[], text: BookCoverText, caution: string, invented: boolean): LogicalPage {
+  return {
+    kind: 'cover',
+    footer: { invented },
+    draw(ctx) {
+      const { doc, box } = ctx;
+      const s = unit(ctx);
+      let y = box.y + 12 * s;
+      put(doc, 'TIDE PREDICTIONS', box.x, y, { font: 'bold', size: 9 * s, color: MID });
+      y += 62 * s;
+      put(doc, text.years, box.x - 3 * s, y, { font: 'bold', size: 70 * s });
+      y += 36 * s;
+      const titleStyle = { font: 'bold' as const, size: 22 * s };
+      for (const line of wrapLines(doc, text.title, titleStyle, box.width).slice(0, 3)) {
+        put(doc, line, box.x, y, titleStyle);
+        y += 26 * s;
+      }
+      const refs = views.filter((v) => v.model.station.kind === 'reference').length;
+      put(doc, `${views.length} station${views.length === 1 ? '' : 's'}: ${refs} reference port${refs === 1 ? '' : 's'}, `
+        + `${views.length - refs} secondary port${views.length - refs === 1 ? '' : 's'}`, box.x, y + 2 * s,
+      { font: 'regular', size: 10 * s, color: DARK });
+      y += 40 * s;
+      if (invented) inventedBanner(ctx, y);
+      cautionBlock(ctx, caution, text.publisher);
+    },
+  };
+}

@@ -1,0 +1,54 @@
+// Lays out books as lists of logical pages: the order of the parts, and a notes page where a month
+// that fills two pages would otherwise start on a right-hand page and not face itself.
+import { bookCoverPage } from './book-cover.js';
+import { cautionPage } from './caution.js';
+import { contentsPageCount, contentsPages } from './contents.js';
+import type { CoverText } from './cover.js';
+import { coverPage } from './cover.js';
+import { factsPage } from './facts.js';
+import { contentBox } from './geometry.js';
+import type { PageGeometry } from './geometry.js';
+import { monthPage } from './month-page.js';
+import { notesPage } from './notes.js';
+import { overviewPage } from './overview.js';
+import type { LogicalPage } from './page.js';
+import type { StationView } from './station-view.js';
+
+/** The pages of one station, the first of which will be page `firstNumber`. */
+export function stationPages(view: StationView, firstNumber: number, row: number, cover: CoverText,
+  section: boolean): LogicalPage[] {
+  const pages: LogicalPage[] = [coverPage(view, cover, section ? 'section' : 'cover'), factsPage(view)];
+  if (!section) pages.push(cautionPage(view));
+  for (const part of view.parts) {
+    const next = firstNumber + pages.length;
+    if (part.partIndex === 0 && part.partCount % 2 === 0 && next % 2 === 1) {
+      pages.push(notesPage({ invented: view.model.invented, label: view.name }));
+    }
+    pages.push(monthPage(view, part, row));
+  }
+  pages.push(overviewPage(view));
+  return pages;
+}
+
+export interface CombinedText { title: string; publisher?: string }
+
+export function combinedPages(views: StationView[], g: PageGeometry, row: number, text: CombinedText): LogicalPage[] {
+  const invented = views.some((v) => v.model.invented);
+  const years = [...new Set(views.map((v) => v.model.year))].sort((a, b) => a - b);
+  const yearText = years.length === 1 ? String(years[0]) : `${years[0]}\u2013${years[years.length - 1]}`;
+  const front: LogicalPage[] = [bookCoverPage(views, { ...text, years: yearText }, views[0].model.caution, invented)];
+  const contentsCount = contentsPageCount(views.length, contentBox(g, 1).height, g.scale);
+  const mixed = views.some((v) => v.southern) && views.some((v) => !v.southern);
+  const caution = cautionPage(views[0], mixed);
+  let next = 1 + contentsCount + 2; // after the cover, the contents and the caution page
+  const sections: LogicalPage[] = [];
+  const entries = views.map((view) => {
+    const kicker = view.model.station.kind === 'secondary' ? 'Secondary port' : 'Reference port';
+    const pages = stationPages(view, next, row, { kicker: `${kicker} \u00b7 ${text.title}` }, true);
+    const entry = { view, page: next };
+    next += pages.length;
+    sections.push(...pages);
+    return entry;
+  });
+  return [...front, ...contentsPages(entries, contentBox(g, 1).height, g.scale, invented), caution, ...sections];
+}

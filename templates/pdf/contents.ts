@@ -1,0 +1,72 @@
+// The front of a combined book: its cover, and the contents listing every station with its page.
+import { printable } from './format.js';
+import type { LogicalPage, PageContext } from './page.js';
+import { unit } from './page.js';
+import type { StationView } from './station-view.js';
+import { MID, RULE } from './style.js';
+import { put, putFitted, widthOf } from './text.js';
+
+export interface ContentsEntry { view: StationView; page: number }
+
+const ENTRY = 15; // design height of one contents line
+const FIRST_TOP = 40;
+const NEXT_TOP = 22;
+
+function entriesPerPage(ctx: { height: number }, s: number, first: boolean): number {
+  return Math.max(1, Math.floor((ctx.height - (first ? FIRST_TOP : NEXT_TOP) * s) / (ENTRY * s)));
+}
+
+/** How many contents pages the entries need (known before page numbers are assigned). */
+export function contentsPageCount(count: number, boxHeight: number, s: number): number {
+  const first = entriesPerPage({ height: boxHeight }, s, true);
+  if (count <= first) return 1;
+  return 1 + Math.ceil((count - first) / entriesPerPage({ height: boxHeight }, s, false));
+}
+
+function describe(view: StationView): string {
+  const st = view.model.station;
+  return st.kind === 'secondary'
+    ? `secondary port of ${printable(view.model.reference?.name ?? st.reference)}`
+    : `reference port \u00b7 ${view.model.tideType.label.toLowerCase()}`;
+}
+
+export function contentsPages(entries: ContentsEntry[], boxHeight: number, s: number, invented: boolean): LogicalPage[] {
+  const pages: LogicalPage[] = [];
+  let i = 0;
+  while (i < entries.length || pages.length === 0) {
+    const first = pages.length === 0;
+    const n = entriesPerPage({ height: boxHeight }, s, first);
+    const chunk = entries.slice(i, i + n);
+    i += n;
+    pages.push({
+      kind: 'contents',
+      footer: { invented },
+      outline: first ? { title: 'Contents', level: 0 } : undefined,
+      draw(ctx: PageContext) {
+        const { doc, box } = ctx;
+        let y = box.y + (first ? 14 : 0) * s;
+        if (first) put(doc, 'Contents', box.x, y, { font: 'bold', size: 16 * s });
+        y = box.y + (first ? FIRST_TOP : NEXT_TOP) * s;
+        for (const e of chunk) {
+          const num = String(e.page);
+          const numW = widthOf(doc, num, { font: 'bold', size: 9.5 * s });
+          const nameStyle = { font: 'bold' as const, size: 9.5 * s };
+          const used = putFitted(doc, e.view.name, box.x, y, nameStyle, box.width * 0.55, 6.5 * s);
+          const nameW = Math.min(widthOf(doc, e.view.name, used), box.width * 0.55);
+          const desc = describe(e.view);
+          const descX = box.x + nameW + 6 * s;
+          const descMax = box.x + box.width - numW - 14 * s - descX;
+          const dw = Math.min(descMax, widthOf(doc, desc, { font: 'narrow', size: 7.5 * s }));
+          putFitted(doc, desc, descX, y, { font: 'narrow', size: 7.5 * s, color: MID }, descMax, 5 * s);
+          doc.save().lineWidth(0.6 * s).strokeColor(RULE).dash(0.6 * s, { space: 2.2 * s })
+            .moveTo(descX + dw + 4 * s, y).lineTo(box.x + box.width - numW - 4 * s, y).stroke().undash().restore();
+          put(doc, num, box.x + box.width, y, { font: 'bold', size: 9.5 * s }, 'right');
+          if (ctx.interactive) doc.goTo(box.x, y - 10 * s, box.width, ENTRY * s, `station-${e.view.model.station.id}`);
+          y += ENTRY * s;
+        }
+      },
+    });
+  }
+  return pages;
+}
+

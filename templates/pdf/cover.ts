@@ -1,0 +1,90 @@
+// The cover of a station book, also used (as a section title page) for each station of a combined
+// book: station, year, position, datum, the kind of port, a real fortnight of its tide, the caution.
+import { formatDate, formatPosition, printable } from './format.js';
+import type { LogicalPage, PageContext } from './page.js';
+import { unit } from './page.js';
+import type { StationView } from './station-view.js';
+import { cautionBlock, inventedBanner } from './cover-parts.js';
+import { DARK, INK, LIGHT, MID } from './style.js';
+import { paragraph, put, putFitted, wrapLines } from './text.js';
+
+export interface CoverText {
+  kicker: string; // the small line above the year
+  publisher?: string;
+}
+
+/** Two weeks of the tide drawn wide: the station's own curve for its first fortnight. */
+function drawFortnight(ctx: PageContext, view: StationView, x: number, y: number, w: number, h: number): void {
+  const { doc } = ctx;
+  const s = unit(ctx);
+  const days = view.model.days.slice(0, 14);
+  const heights = days.flatMap((d, i) => (i === 0 ? d.curve : d.curve.slice(1)));
+  if (heights.length < 2) return;
+  const { low, high } = view.curve;
+  const px = (i: number) => x + (i / (heights.length - 1)) * w;
+  const py = (v: number) => y + h - ((v - low) / (high - low)) * h;
+  doc.save();
+  doc.moveTo(px(0), y + h);
+  heights.forEach((v, i) => doc.lineTo(px(i), py(v)));
+  doc.lineTo(px(heights.length - 1), y + h).closePath().fill(LIGHT);
+  doc.moveTo(px(0), py(heights[0]));
+  heights.forEach((v, i) => doc.lineTo(px(i), py(v)));
+  doc.lineWidth(1.1 * s).strokeColor(INK).stroke();
+  doc.lineWidth(0.5 * s).strokeColor(INK).moveTo(x, y + h).lineTo(x + w, y + h).stroke();
+  doc.restore();
+  const first = days[0].date;
+  const last = days[days.length - 1].date;
+  put(doc, `The predicted tide, ${formatDate(first, false)} to ${formatDate(last)}`, x, y + h + 10 * s,
+    { font: 'narrow', size: 7 * s, color: MID });
+}
+
+export function coverPage(view: StationView, text: CoverText, kind: 'cover' | 'section'): LogicalPage {
+  const { model } = view;
+  return {
+    kind,
+    footer: { invented: model.invented },
+    outline: kind === 'section' ? { title: view.name, level: 0 } : undefined,
+    anchor: kind === 'section' ? `station-${model.station.id}` : undefined,
+    draw(ctx) {
+      const { doc, box } = ctx;
+      const s = unit(ctx);
+      let y = box.y + 12 * s;
+      put(doc, text.kicker.toUpperCase(), box.x, y, { font: 'bold', size: 9 * s, color: MID });
+      y += 62 * s;
+      put(doc, String(model.year), box.x - 3 * s, y, { font: 'bold', size: 70 * s });
+      y += 38 * s;
+
+      const nameStyle = { font: 'bold' as const, size: 25 * s };
+      const lines = wrapLines(doc, view.name, nameStyle, box.width);
+      if (lines.length <= 2) {
+        for (const line of lines) { put(doc, line, box.x, y, nameStyle); y += 29 * s; }
+      } else {
+        y = paragraph(doc, view.name, box.x, y, box.width, { ...nameStyle, size: 16 * s }, 19 * s, 4) + 6 * s;
+      }
+      const station = model.station;
+      const kindLine = station.kind === 'secondary'
+        ? `Secondary port, predicted from ${printable(model.reference?.name ?? station.reference)}`
+        : 'Reference port, predicted from its own harmonic constants';
+      putFitted(doc, kindLine, box.x, y, { font: 'regular', size: 10 * s, color: DARK }, box.width, 6 * s);
+      y += 20 * s;
+
+      const facts: [string, string][] = [
+        ['Position', formatPosition(station.position)],
+        ['Heights above', printable(station.datum)],
+        ['Local time', printable(model.timezone)],
+      ];
+      for (const [k, v] of facts) {
+        put(doc, k, box.x, y, { font: 'narrow', size: 8.5 * s, color: MID });
+        putFitted(doc, v, box.x + 62 * s, y, { font: 'regular', size: 9.5 * s }, box.width - 62 * s, 6 * s);
+        y += 14 * s;
+      }
+
+      y += 16 * s;
+      drawFortnight(ctx, view, box.x, y, box.width, 70 * s);
+      y += 70 * s + 30 * s;
+
+      if (model.invented) inventedBanner(ctx, y);
+      cautionBlock(ctx, model.caution, text.publisher);
+    },
+  };
+}

@@ -1,0 +1,76 @@
+// A tide staff drawn to scale beside the datums table: each datum a line at its true height, the
+// chart datum heavy, labels spread apart where datums lie close together.
+import type { Datums } from '../../engine/types.js';
+import type { Box } from './geometry.js';
+import { FEET_PER_METRE, formatHeight } from './format.js';
+import type { HeightUnits } from './options.js';
+import { INK, MID, WHITE } from './style.js';
+import { put } from './text.js';
+
+export const DATUM_ROWS: { key: keyof Omit<Datums, 'epoch'>; name: string }[] = [
+  { key: 'HAT', name: 'Highest astronomical tide' },
+  { key: 'MHWS', name: 'Mean high water springs' },
+  { key: 'MHWN', name: 'Mean high water neaps' },
+  { key: 'MSL', name: 'Mean sea level' },
+  { key: 'MLWN', name: 'Mean low water neaps' },
+  { key: 'MLWS', name: 'Mean low water springs' },
+  { key: 'LAT', name: 'Lowest astronomical tide' },
+];
+
+/** Spreads label positions (sorted top to bottom) so neighbours are at least `gap` apart. */
+export function spreadLabels(ys: number[], gap: number): number[] {
+  const out = [...ys];
+  for (let i = 1; i < out.length; i++) if (out[i] < out[i - 1] + gap) out[i] = out[i - 1] + gap;
+  // pull the stack back up around its centre so it does not only grow downwards
+  const shift = (out[out.length - 1] - ys[ys.length - 1]) / 2;
+  if (shift > 0) for (let i = 0; i < out.length; i++) out[i] -= shift;
+  for (let i = 1; i < out.length; i++) if (out[i] < out[i - 1] + gap) out[i] = out[i - 1] + gap;
+  return out;
+}
+
+function staffStep(span: number, units: HeightUnits): number {
+  if (units === 'ft') return span > 24 ? 5 : span > 10 ? 2 : 1;
+  return span > 8 ? 2 : span > 3 ? 1 : 0.5;
+}
+
+export function drawDatumScale(doc: PDFKit.PDFDocument, datums: Datums, datumLabel: string, units: HeightUnits,
+  box: Box, s: number): void {
+  const k = units === 'ft' ? FEET_PER_METRE : 1;
+  const lo = Math.min(0, datums.LAT) * k;
+  const hi = datums.HAT * k;
+  const step = staffStep(hi - lo, units);
+  const bottom = Math.floor(lo / step - 0.5) * step;
+  const top = Math.ceil(hi / step + 0.25) * step;
+  const y = (v: number) => box.y + box.height - ((v - bottom) / (top - bottom)) * box.height;
+
+  const staffX = box.x + 20 * s;
+  const staffW = 8 * s;
+  doc.save().lineWidth(0.5 * s).strokeColor(INK);
+  for (let v = bottom, i = 0; v < top - 1e-9; v += step, i++) {
+    doc.rect(staffX, y(v + step), staffW, y(v) - y(v + step)).fillAndStroke(i % 2 === 0 ? INK : WHITE, INK);
+  }
+  doc.restore();
+  const tick = { font: 'narrow' as const, size: 6.5 * s, color: MID };
+  for (let v = bottom; v <= top + 1e-9; v += step) {
+    const label = Math.abs(v) < 1e-9 ? '0' : formatHeight(v / k, units).replace(/\.0+$/, '').replace(/(\.\d*?)0+$/, '$1');
+    put(doc, label, staffX - 3 * s, y(v) + 2.2 * s, tick, 'right');
+  }
+
+  const rows: { label: string; v: number; zero: boolean }[] = DATUM_ROWS.map((r) => ({ label: r.key as string, v: datums[r.key] * k, zero: false }));
+  rows.push({ label: datumLabel, v: 0, zero: true });
+  rows.sort((a, b) => b.v - a.v);
+  const lineEnd = staffX + staffW + 14 * s;
+  const labelX = lineEnd + 10 * s;
+  const ys = spreadLabels(rows.map((r) => y(r.v)), 8.2 * s);
+  rows.forEach((r, i) => {
+    const isDatum = r.zero;
+    const ly = y(r.v);
+    doc.save().lineWidth(isDatum ? 1.6 * s : 0.6 * s).strokeColor(INK)
+      .moveTo(staffX - (isDatum ? 2 * s : 0), ly).lineTo(lineEnd, ly)
+      .lineTo(lineEnd + 6 * s, ys[i]).lineTo(labelX - 1.5 * s, ys[i]).stroke().restore();
+    put(doc, r.label, labelX, ys[i] + 2.4 * s,
+      { font: isDatum ? 'narrow-bold' : 'narrow', size: 7 * s }, 'left');
+  });
+  put(doc, units === 'ft' ? 'feet' : 'metres', staffX + staffW / 2, box.y - 5 * s,
+    { font: 'narrow', size: 6.5 * s, color: MID }, 'center');
+}

@@ -1,0 +1,65 @@
+// The small tide curve of one day: heights from the model's curve, night shaded from sunset to
+// sunrise, chart datum dashed, water below chart datum filled solid.
+import type { DayEntry } from '../../engine/types.js';
+import type { Box } from './geometry.js';
+import { INK, LIGHT, NIGHT } from './style.js';
+
+const HOUR = 3_600_000;
+
+export function dayStartMs(day: DayEntry): number {
+  return Date.parse(`${day.date}T00:00:00${day.offsetStart}`);
+}
+
+/** Night intervals of the day as fractions [from, to] of the day. */
+export function nightSpans(day: DayEntry): [number, number][] {
+  if (day.sunNote === 'sun-up-all-day') return [];
+  if (day.sunNote === 'sun-down-all-day') return [[0, 1]];
+  const start = dayStartMs(day);
+  const len = day.hours * HOUR;
+  const frac = (iso: string) => Math.min(1, Math.max(0, (Date.parse(iso) - start) / len));
+  const rise = day.sunrise ? frac(day.sunrise) : null;
+  const set = day.sunset ? frac(day.sunset) : null;
+  if (rise !== null && set !== null) {
+    return rise < set ? [[0, rise], [set, 1]] : [[set, rise]];
+  }
+  if (rise !== null) return [[0, rise]];
+  if (set !== null) return [[set, 1]];
+  return [];
+}
+
+export interface CurveScale { low: number; high: number }
+
+export function drawDayCurve(doc: PDFKit.PDFDocument, day: DayEntry, box: Box, scale: CurveScale, u: number): void {
+  const n = day.curve.length;
+  if (n < 2) return;
+  const y = (h: number) => box.y + box.height - ((h - scale.low) / (scale.high - scale.low)) * box.height;
+  const x = (i: number) => box.x + (i / (n - 1)) * box.width;
+
+  doc.save();
+  for (const [a, b] of nightSpans(day)) {
+    doc.rect(box.x + a * box.width, box.y, (b - a) * box.width, box.height).fill(NIGHT);
+  }
+  doc.lineWidth(0.3 * u).strokeColor(LIGHT);
+  for (const f of [0.25, 0.5, 0.75]) {
+    const gx = box.x + f * box.width;
+    doc.moveTo(gx, box.y).lineTo(gx, box.y + box.height).stroke();
+  }
+  const zero = y(0);
+  const showZero = scale.low < 0;
+  if (showZero && day.curve.some((h) => h < 0)) {
+    // water below chart datum: solid fill between the curve and the datum line
+    doc.save().rect(box.x, zero, box.width, box.y + box.height - zero).clip();
+    doc.moveTo(x(0), zero);
+    for (let i = 0; i < n; i++) doc.lineTo(x(i), y(day.curve[i]));
+    doc.lineTo(x(n - 1), zero).closePath().fill(INK);
+    doc.restore();
+  }
+  if (showZero) {
+    doc.lineWidth(0.4 * u).strokeColor(INK).dash(1.2 * u, { space: 1.2 * u })
+      .moveTo(box.x, zero).lineTo(box.x + box.width, zero).stroke().undash();
+  }
+  doc.moveTo(x(0), y(day.curve[0]));
+  for (let i = 1; i < n; i++) doc.lineTo(x(i), y(day.curve[i]));
+  doc.lineWidth(0.9 * u).lineJoin('round').strokeColor(INK).stroke();
+  doc.restore();
+}

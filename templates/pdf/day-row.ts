@@ -1,0 +1,126 @@
+// One day of a month page: spring/neap badge, date, moon, the high-water lane above the low-water
+// lane (each in time order), the day's curve, and sunrise/sunset.
+import type { AlmanacEvent, DayEntry } from '../../engine/types.js';
+import { drawDayCurve } from './day-curve.js';
+import { formatHeight } from './format.js';
+import { belowDatumMark, clockGlyph, laneMark, moonGlyph, springNeapBadge, sunGlyph, sunGlyphWidth } from './glyphs.js';
+import type { Columns } from './month-layout.js';
+import { NOTE_BAND } from './month-layout.js';
+import type { HeightUnits } from './options.js';
+import type { StationView } from './station-view.js';
+import { FAINT, INK, MID } from './style.js';
+import type { TextStyle } from './text.js';
+import { put, putFitted } from './text.js';
+
+export interface RowFrame {
+  cols: Columns;
+  top: number;
+  height: number; // the day itself, without the clock-change band
+  u: number;
+  units: HeightUnits;
+}
+
+/** Where the two lanes' baselines sit within a row. */
+export function laneBaselines(top: number, height: number): { high: number; low: number } {
+  return { high: top + height * 0.43, low: top + height * 0.84 };
+}
+
+function drawLane(doc: PDFKit.PDFDocument, events: AlmanacEvent[], type: 'high' | 'low', day: DayEntry,
+  f: RowFrame, baseline: number): void {
+  const { lanes } = f.cols;
+  const u = f.u;
+  const markSize = 7.5 * u;
+  laneMark(doc, type, lanes.x, baseline, markSize);
+  const start = lanes.x + markSize * 0.55 + 3.5 * u;
+  const slots = Math.max(3, events.length);
+  const slotW = (lanes.x + lanes.w - start) / slots;
+  const crowd = Math.min(1, 3 / slots);
+  const timeStyle: TextStyle = { font: type === 'high' ? 'narrow-bold' : 'narrow', size: 9.6 * u * (0.85 + 0.15 * crowd) };
+  const heightSize = 8.6 * u * (0.85 + 0.15 * crowd);
+  const showOffset = day.offsetChange !== null;
+  events.forEach((e, i) => {
+    let x = start + i * slotW;
+    x += put(doc, e.clock, x, baseline, timeStyle);
+    if (showOffset) {
+      // on a clock-change day each time carries its own offset, so the repeated hour is never ambiguous
+      const off = e.offset.slice(0, 3).replace('-', '\u2212');
+      x += put(doc, off, x + 0.4 * u, baseline - 3.2 * u, { font: 'narrow', size: 5.4 * u, color: MID }) + 0.6 * u;
+    }
+    x += 2.6 * u;
+    const below = e.belowDatum;
+    const style: TextStyle = below
+      ? { font: 'narrow-bold', size: heightSize * 1.04 }
+      : { font: 'narrow', size: heightSize, color: type === 'high' ? INK : '#222222' };
+    const text = formatHeight(e.height, f.units, below);
+    const w = put(doc, text, x, baseline, style);
+    if (below) {
+      belowDatumMark(doc, x + w + 0.8 * u, baseline, heightSize);
+      // underline the whole reading as well: the mark survives a poor photocopy
+      doc.save().lineWidth(0.7 * u).moveTo(x, baseline + 1.4 * u).lineTo(x + w, baseline + 1.4 * u).stroke(INK).restore();
+    }
+  });
+}
+
+export function drawDayRow(doc: PDFKit.PDFDocument, view: StationView, day: DayEntry, f: RowFrame): number {
+  const { cols, top, height, u } = f;
+  const weekend = day.weekday === 'Sat' || day.weekday === 'Sun';
+  const lanesY = laneBaselines(top, height);
+  if (weekend) doc.save().rect(cols.day.x, top, cols.day.w + cols.moon.w, height).fill(FAINT).restore();
+
+  if (day.springNeap) {
+    springNeapBadge(doc, day.springNeap, cols.badge.x + cols.badge.w / 2, top + height / 2,
+      cols.badge.w, Math.min(height - 4 * u, 21 * u), 10.5 * u);
+  }
+
+  const dayRight = cols.day.x + cols.day.w - 2 * u;
+  put(doc, String(day.dayOfMonth), dayRight, top + height * 0.52, { font: 'bold', size: 13.5 * u }, 'right');
+  put(doc, day.weekday, dayRight, top + height * 0.52 + 8.2 * u,
+    { font: weekend ? 'narrow-bold' : 'narrow', size: 6.6 * u, color: weekend ? INK : MID }, 'right');
+
+  if (day.moonPhase) {
+    const cx = cols.moon.x + cols.moon.w / 2;
+    const cy = top + height * 0.36;
+    const r = 4.6 * u;
+    moonGlyph(doc, day.moonPhase, cx, cy, r, view.southern);
+    const phase = view.model.moonPhases.find((m) => m.date === day.date && m.phase === day.moonPhase);
+    if (phase) put(doc, phase.clock, cx, cy + r + 6 * u, { font: 'narrow', size: 5.6 * u, color: MID }, 'center');
+  }
+
+  drawLane(doc, day.events.filter((e) => e.type === 'high'), 'high', day, f, lanesY.high);
+  drawLane(doc, day.events.filter((e) => e.type === 'low'), 'low', day, f, lanesY.low);
+
+  const pad = 2.2 * u;
+  drawDayCurve(doc, day, { x: cols.curve.x, y: top + pad, width: cols.curve.w, height: height - 2 * pad },
+    view.curve, u);
+
+  drawSun(doc, day, f, lanesY);
+
+  if (day.offsetChange) {
+    const y = top + height;
+    const band = NOTE_BAND * u;
+    const r = 3.3 * u;
+    clockGlyph(doc, cols.day.x + r + 1 * u, y + band / 2 - 0.5 * u, r);
+    putFitted(doc, day.offsetChange.note, cols.day.x + 2 * r + 4 * u, y + band * 0.62,
+      { font: 'narrow-bold', size: 7 * u }, cols.sun.x + cols.sun.w - cols.day.x - 2 * r - 4 * u, 5 * u);
+    return height + band;
+  }
+  return height;
+}
+
+function drawSun(doc: PDFKit.PDFDocument, day: DayEntry, f: RowFrame, y: { high: number; low: number }): void {
+  const { sun } = f.cols;
+  const u = f.u;
+  const style: TextStyle = { font: 'narrow', size: 7.4 * u };
+  if (day.sunNote) {
+    const words = day.sunNote === 'sun-up-all-day' ? ['sun up', 'all day'] : ['sun down', 'all day'];
+    putFitted(doc, words[0], sun.x, y.high, { ...style, font: 'narrow-bold' }, sun.w, 4.5 * u);
+    putFitted(doc, words[1], sun.x, y.low, { ...style, font: 'narrow-bold' }, sun.w, 4.5 * u);
+    return;
+  }
+  const glyph = 7.4 * u;
+  const textX = sun.x + sunGlyphWidth(glyph) + 1.5 * u;
+  sunGlyph(doc, true, sun.x, y.high, glyph);
+  put(doc, day.sunriseClock ?? '\u2014', textX, y.high, style);
+  sunGlyph(doc, false, sun.x, y.low, glyph);
+  put(doc, day.sunsetClock ?? '\u2014', textX, y.low, style);
+}

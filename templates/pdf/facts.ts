@@ -1,0 +1,106 @@
+// The station facts page: where and what the station is, its datums (table and tide staff to scale),
+// ranges and age of the tide, provenance, and for a secondary port its reference and differences.
+import type { SecondaryStation } from '../../engine/types.js';
+import { DATUM_ROWS, drawDatumScale } from './datum-scale.js';
+import { drawDifferences } from './differences.js';
+import {
+  formatDate, formatHeight, formatLength, formatPosition, printable, unitLabel,
+} from './format.js';
+import type { LogicalPage, PageContext } from './page.js';
+import { unit } from './page.js';
+import type { StationView } from './station-view.js';
+import { DARK, HAIRLINE, INK, MID, RULE } from './style.js';
+import { paragraph, put, putFitted } from './text.js';
+
+function sectionTitle(ctx: PageContext, title: string, y: number): number {
+  const s = unit(ctx);
+  put(ctx.doc, title, ctx.box.x, y, { font: 'bold', size: 10.5 * s });
+  ctx.doc.save().lineWidth(0.6 * s).strokeColor(INK)
+    .moveTo(ctx.box.x, y + 3.5 * s).lineTo(ctx.box.x + ctx.box.width, y + 3.5 * s).stroke().restore();
+  return y + 15 * s;
+}
+
+/** Label/value lines; values wrap. Returns the next baseline. */
+function keyValues(ctx: PageContext, rows: [string, string][], y: number, labelW: number): number {
+  const s = unit(ctx);
+  const { doc, box } = ctx;
+  for (const [k, v] of rows) {
+    put(doc, k, box.x, y, { font: 'narrow', size: 7.8 * s, color: MID });
+    y = paragraph(doc, v, box.x + labelW, y, box.width - labelW, { font: 'regular', size: 8.4 * s }, 10.6 * s, 3);
+    y += 1.5 * s;
+  }
+  return y;
+}
+
+export function factsPage(view: StationView): LogicalPage {
+  const { model } = view;
+  return {
+    kind: 'facts',
+    footer: { invented: model.invented, label: view.name },
+    outline: { title: 'Station facts', level: 1 },
+    draw(ctx) {
+      const { doc, box } = ctx;
+      const s = unit(ctx);
+      const units = ctx.settings.units;
+      const st = model.station;
+      let y = box.y + 14 * s;
+      put(doc, 'Station facts', box.x, y, { font: 'bold', size: 16 * s });
+      y += 14 * s;
+      putFitted(doc, view.name, box.x, y, { font: 'regular', size: 10 * s, color: DARK }, box.width, 6 * s);
+      y += 18 * s;
+
+      const age = model.ageOfTideHours;
+      y = keyValues(ctx, [
+        ['Position', formatPosition(st.position)],
+        ['Time zone', `${printable(model.timezone)} (local clock time; each month states its UTC offset)`],
+        ['Tide type', `${model.tideType.label} (form number ${model.tideType.formNumber.toFixed(2)})`],
+        ['Mean ranges', `springs ${formatLength(model.meanSpringRange, units)}, neaps ${formatLength(model.meanNeapRange, units)}`],
+        ['Age of the tide', `${age.toFixed(0)} hours (${(age / 24).toFixed(1)} days): spring and neap tides come this long after new or full moon and the quarters`],
+        ['Provenance', printable(st.provenance)],
+      ], y, 62 * s);
+
+      y += 8 * s;
+      y = sectionTitle(ctx, `Datums, ${unitLabel(units)} above ${printable(st.datum)}`, y);
+      const tableW = Math.min(box.width * 0.58, 210 * s);
+      const rowH = 12.5 * s;
+      const tableTop = y;
+      const datumRows = [...DATUM_ROWS.map((r) => ({ key: r.key as string, name: r.name, v: model.datums[r.key] })),
+        { key: 'CD', name: printable(st.datum), v: 0 }];
+      for (const r of datumRows) {
+        const bold = r.key === 'CD';
+        put(doc, r.key, box.x, y, { font: bold ? 'bold' : 'narrow-bold', size: 8.2 * s });
+        putFitted(doc, r.name, box.x + 32 * s, y, { font: 'narrow', size: 8.2 * s, color: DARK }, tableW - 70 * s, 5 * s);
+        put(doc, formatHeight(r.v, units), box.x + tableW, y, { font: bold ? 'bold' : 'regular', size: 8.6 * s }, 'right');
+        doc.save().lineWidth(HAIRLINE).strokeColor(RULE)
+          .moveTo(box.x, y + 3.8 * s).lineTo(box.x + tableW, y + 3.8 * s).stroke().restore();
+        y += rowH;
+      }
+      y = paragraph(doc, `LAT and HAT from predictions over ${model.datums.epoch.from}\u2013${model.datums.epoch.to}; `
+        + 'the others from the harmonic constants.', box.x, y + 2 * s, tableW, { font: 'narrow', size: 7 * s, color: MID }, 8.6 * s);
+      const diagramX = box.x + tableW + 8 * s;
+      drawDatumScale(doc, model.datums, printable(st.datum), units,
+        { x: diagramX, y: tableTop + 2 * s, width: box.x + box.width - diagramX, height: Math.max(rowH * 8, y - tableTop - 6 * s) }, s);
+      y = Math.max(y, tableTop + rowH * 8 + 12 * s) + 10 * s;
+
+      if (st.kind === 'secondary') {
+        y = sectionTitle(ctx, `Secondary port of ${printable(model.reference?.name ?? st.reference)}`, y);
+        y = drawDifferences(ctx, st as SecondaryStation, y);
+      }
+
+      y = sectionTitle(ctx, `The year ${model.year}`, y + 4 * s);
+      const { highest, lowest } = model.extremes;
+      const at = (e: typeof highest) => `${formatDate(e.local.slice(0, 10))} at ${e.clock} (UTC${e.offset})`;
+      y = keyValues(ctx, [
+        ['Highest water', `${formatLength(highest.height, units)}, ${at(highest)}`],
+        ['Lowest water', `${formatLength(lowest.height, units)}${lowest.belowDatum ? ' (below chart datum)' : ''}, ${at(lowest)}`],
+      ], y, 62 * s);
+
+      if (model.warnings.length > 0) {
+        y = sectionTitle(ctx, 'Warnings', y + 6 * s);
+        for (const w of model.warnings) {
+          y = paragraph(doc, `\u2022 ${w}`, box.x, y, box.width, { font: 'bold', size: 8 * s }, 10 * s, 3);
+        }
+      }
+    },
+  };
+}

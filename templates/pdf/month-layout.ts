@@ -1,0 +1,94 @@
+// How a month is split over pages and where each column of a day row sits. Pure geometry: the
+// design is drawn for A5 (unit 1) and scaled to the other formats.
+import type { DayEntry, MonthEntry, StationYear } from '../../engine/types.js';
+import type { Box, PageGeometry } from './geometry.js';
+import { contentBox } from './geometry.js';
+
+// design sizes at unit 1 (A5), in points
+export const HEADER_HEIGHT = 50;
+const MIN_ROW = 25;
+const MAX_ROW = 33;
+export const NOTE_BAND = 10; // extra strip under a day on which the clocks change
+
+// fixed columns, left to right; the lanes and the curve share what is left over
+const FIXED = { badge: 15, gap1: 3, day: 26, moon: 17, gap2: 4, gap3: 7, gap4: 5, sun: 32 };
+const FLEX = { lanes: 168, curve: 73 };
+const DESIGN_WIDTH = Object.values(FIXED).reduce((a, b) => a + b, 0) + FLEX.lanes + FLEX.curve;
+
+export interface Columns {
+  badge: { x: number; w: number };
+  day: { x: number; w: number };
+  moon: { x: number; w: number };
+  lanes: { x: number; w: number };
+  curve: { x: number; w: number };
+  sun: { x: number; w: number };
+}
+
+export interface MonthPart {
+  month: MonthEntry;
+  partIndex: number; // 0-based
+  partCount: number;
+  days: DayEntry[];
+}
+
+/** Element scale for month pages: the format's type scale, reduced if the design would not fit. */
+export function monthUnit(g: PageGeometry): number {
+  const width = contentBox(g, 1).width;
+  return Math.min(g.scale, width / DESIGN_WIDTH);
+}
+
+export function columns(box: Box, u: number): Columns {
+  const spare = Math.max(0, box.width - DESIGN_WIDTH * u);
+  const lanesW = FLEX.lanes * u + spare * 0.6;
+  const curveW = FLEX.curve * u + spare * 0.4;
+  let x = box.x;
+  const take = (w: number) => { const c = { x, w }; x += w; return c; };
+  const badge = take(FIXED.badge * u);
+  x += FIXED.gap1 * u;
+  const day = take(FIXED.day * u);
+  const moon = take(FIXED.moon * u);
+  x += FIXED.gap2 * u;
+  const lanes = take(lanesW);
+  x += FIXED.gap3 * u;
+  const curve = take(curveW);
+  x += FIXED.gap4 * u;
+  const sun = take(box.x + box.width - x);
+  return { badge, day, moon, lanes, curve, sun };
+}
+
+function rowsHeight(days: DayEntry[], row: number, u: number): number {
+  const notes = days.filter((d) => d.offsetChange !== null).length;
+  return days.length * row + notes * NOTE_BAND * u;
+}
+
+/** Splits each month into the fewest pages whose rows still meet the minimum row height. */
+export function monthParts(model: StationYear, g: PageGeometry): MonthPart[] {
+  const u = monthUnit(g);
+  const avail = contentBox(g, 1).height - HEADER_HEIGHT * u;
+  const parts: MonthPart[] = [];
+  for (const month of model.months) {
+    const days = model.days.slice(month.firstDayIndex, month.firstDayIndex + month.dayCount);
+    let count = 1;
+    for (;; count++) {
+      const per = Math.ceil(days.length / count);
+      const chunks = Array.from({ length: count }, (_, i) => days.slice(i * per, (i + 1) * per));
+      if (chunks.every((c) => rowsHeight(c, MIN_ROW * u, u) <= avail) || count >= days.length) {
+        chunks.forEach((c, i) => parts.push({ month, partIndex: i, partCount: count, days: c }));
+        break;
+      }
+    }
+  }
+  return parts;
+}
+
+/** One row height for the whole book, so every month page has the same rhythm. */
+export function rowHeight(parts: MonthPart[], g: PageGeometry): number {
+  const u = monthUnit(g);
+  const avail = contentBox(g, 1).height - HEADER_HEIGHT * u;
+  let row = MAX_ROW * u;
+  for (const p of parts) {
+    const notes = p.days.filter((d) => d.offsetChange !== null).length;
+    row = Math.min(row, (avail - notes * NOTE_BAND * u) / p.days.length);
+  }
+  return row;
+}

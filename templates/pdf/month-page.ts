@@ -1,0 +1,87 @@
+// A month page: heading with the month, the station, the clock offsets in force and the height
+// unit; column heads; then one row per day.
+import type { DayEntry } from '../../engine/types.js';
+import { drawDayRow } from './day-row.js';
+import { laneMark } from './glyphs.js';
+import { formatDate, formatOffset, unitWord } from './format.js';
+import type { MonthPart } from './month-layout.js';
+import { columns, HEADER_HEIGHT, monthUnit } from './month-layout.js';
+import type { LogicalPage, PageContext } from './page.js';
+import type { StationView } from './station-view.js';
+import { HAIRLINE, INK, MID, RULE } from './style.js';
+import { put, putFitted, widthOf } from './text.js';
+
+/** "Times are UTC+00:00 until 27 March, UTC+01:00 from 28 March" — the offsets of the month. */
+export function offsetStatement(days: DayEntry[]): string {
+  const first = days[0].offsetStart;
+  const changes = days.filter((d) => d.offsetChange !== null);
+  if (changes.length === 0) return `All times ${formatOffset(first)}`;
+  const pieces = [`Times ${formatOffset(first)}`];
+  for (const d of changes) {
+    pieces.push(`${formatOffset(d.offsetChange!.to)} from ${d.offsetChange!.clock} on ${formatDate(d.date, false)}`);
+  }
+  return `${pieces.join(', ')} (clock sign on the day)`;
+}
+
+export function monthPage(view: StationView, part: MonthPart, row: number): LogicalPage {
+  const { model } = view;
+  const monthDays = model.days.slice(part.month.firstDayIndex, part.month.firstDayIndex + part.month.dayCount);
+  return {
+    kind: 'month',
+    footer: { invented: model.invented, label: view.name },
+    outline: part.partIndex === 0 ? { title: `${part.month.name} ${model.year}`, level: 1 } : undefined,
+    draw(ctx: PageContext) {
+      const { doc, box } = ctx;
+      const u = monthUnit(ctx.settings.geometry);
+      const cols = columns(box, u);
+      const units = ctx.settings.units;
+      const y0 = box.y;
+
+      // heading: month and year large on the left; station and day span on the right
+      const monthStyle = { font: 'bold' as const, size: 21 * u };
+      const mw = put(doc, part.month.name, box.x, y0 + 17 * u, monthStyle);
+      put(doc, String(model.year), box.x + mw + 6 * u, y0 + 17 * u, { font: 'regular', size: 21 * u, color: MID });
+      const rightX = box.x + box.width;
+      const headW = box.width - mw - widthOf(doc, ` ${model.year}`, { font: 'regular', size: 21 * u }) - 14 * u;
+      putFitted(doc, view.name, rightX, y0 + 8 * u, { font: 'bold', size: 9.5 * u }, headW, 6 * u, 'right');
+      const first = part.days[0].dayOfMonth;
+      const last = part.days[part.days.length - 1].dayOfMonth;
+      const span = part.partCount > 1 ? `days ${first}\u2013${last} of ${part.month.dayCount}` : `${part.month.dayCount} days`;
+      put(doc, span, rightX, y0 + 17.5 * u, { font: 'narrow', size: 7.6 * u, color: MID }, 'right');
+
+      const info = `${offsetStatement(monthDays)} \u00b7 heights in ${unitWord(units)} above ${model.station.datum}`;
+      putFitted(doc, info, box.x, y0 + 29 * u, { font: 'narrow', size: 7.6 * u }, box.width, 5 * u);
+
+      // column heads
+      const hy = y0 + 42 * u;
+      const head = { font: 'narrow-bold' as const, size: 6.3 * u, color: MID };
+      put(doc, 'DAY', cols.day.x + cols.day.w - 2 * u, hy, head, 'right');
+      const mark = 7.5 * u;
+      let hx = cols.lanes.x;
+      laneMark(doc, 'high', hx, hy, mark);
+      hx += mark * 0.55 + 3.5 * u;
+      hx += put(doc, 'HIGH WATER', hx, hy, head) + 8 * u;
+      laneMark(doc, 'low', hx, hy, mark);
+      hx += mark * 0.55 + 3 * u;
+      hx += put(doc, 'LOW WATER', hx, hy, head) + 8 * u;
+      put(doc, 'time \u00b7 height', hx, hy, { ...head, font: 'narrow' });
+      put(doc, 'SUN', cols.sun.x, hy, head);
+      const tick = { font: 'narrow' as const, size: 5.6 * u, color: MID };
+      ['0', '6', '12', '18', '24'].forEach((label, i) => {
+        const tx = cols.curve.x + (i / 4) * cols.curve.w;
+        put(doc, label, tx, hy, tick, i === 0 ? 'left' : i === 4 ? 'right' : 'center');
+      });
+      doc.save().lineWidth(0.9 * u).strokeColor(INK)
+        .moveTo(box.x, y0 + HEADER_HEIGHT * u - 3 * u).lineTo(rightX, y0 + HEADER_HEIGHT * u - 3 * u).stroke().restore();
+
+      let top = y0 + HEADER_HEIGHT * u;
+      for (const day of part.days) {
+        const h = drawDayRow(doc, view, day, { cols, top, height: row, u, units });
+        top += h;
+        const weekEnd = day.weekday === 'Sun';
+        doc.save().lineWidth(weekEnd ? 0.9 * u : HAIRLINE).strokeColor(weekEnd ? INK : RULE)
+          .moveTo(cols.day.x, top).lineTo(rightX, top).stroke().restore();
+      }
+    },
+  };
+}

@@ -1,0 +1,29 @@
+// Options of a printed tide book, and their defaults.
+
+export type PageSizeName = 'a5' | 'a6' | 'a4' | 'letter' | 'half-letter';
+export type HeightUnits = 'm' | 'ft';
+
+export interface BookOptions {
+  units: HeightUnits;
+  page: PageSizeName;
+  imposition?: 'none' | 'saddle-stitch';
+  title?: string;
+  publisher?: string;
+  locale?: string; // BCP 47 tag written into the PDF (language of the words we print: English)
+}
+
+export const PAGE_SIZE_NAMES: readonly PageSizeName[] = ['a5', 'a6', 'a4', 'letter', 'half-letter'];
+
+/** Rejects option values the renderer cannot honour (the CLI validates earlier; this guards direct callers). */
+export function checkBookOptions(options: BookOptions): void {
+  if (!PAGE_SIZE_NAMES.includes(options.page)) {
+    throw new RangeError(`page size "${String(options.page)}" is not one of ${PAGE_SIZE_NAMES.join(', ')}`);
+  }
+  if (options.units !== 'm' && options.units !== 'ft') {
+    throw new RangeError(`units "${String(options.units)}" must be m or ft`);
+  }
+  const imp = options.imposition ?? 'none';
+  if (imp !== 'none' && imp !== 'saddle-stitch') {
+    throw new RangeError(`imposition "${String(imp)}" must be none or saddle-stitch`);
+  }
+}

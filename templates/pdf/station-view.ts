@@ -1,0 +1,32 @@
+// What the pages of one station need beyond the model itself, worked out once per book (layout
+// choices only: scales and page splits, never tide arithmetic).
+import type { StationYear } from '../../engine/types.js';
+import type { PageGeometry } from './geometry.js';
+import type { CurveScale } from './day-curve.js';
+import type { MonthPart } from './month-layout.js';
+import { monthParts } from './month-layout.js';
+import { printable } from './format.js';
+
+export interface StationView {
+  model: StationYear;
+  name: string; // printable station name
+  southern: boolean; // the moon's lit side is drawn as seen from the southern hemisphere
+  curve: CurveScale; // one vertical scale for every day curve of the station, so days compare
+  parts: MonthPart[];
+}
+
+export function stationView(model: StationYear, g: PageGeometry): StationView {
+  let low = Math.min(0, model.datums.LAT);
+  let high = model.datums.HAT;
+  for (const d of model.days) {
+    for (const h of d.curve) { if (h < low) low = h; if (h > high) high = h; }
+  }
+  const pad = (high - low) * 0.06;
+  return {
+    model,
+    name: printable(model.station.name),
+    southern: model.station.position.latitude < 0,
+    curve: { low: low - pad, high: high + pad },
+    parts: monthParts(model, g),
+  };
+}

@@ -1,0 +1,91 @@
+// Text placed by baseline with explicit alignment, fitting and wrapping. pdfkit's own flowing text
+// adds pages when it runs past the margin; every line here is positioned by us, so it never does.
+import type { FontName } from './fonts.js';
+import { printable } from './format.js';
+
+export interface TextStyle {
+  font: FontName;
+  size: number;
+  color?: string;
+}
+
+export type Align = 'left' | 'right' | 'center';
+
+export function widthOf(doc: PDFKit.PDFDocument, text: string, style: TextStyle): number {
+  doc.font(style.font).fontSize(style.size);
+  return doc.widthOfString(printable(text));
+}
+
+/** Draws one line with its baseline at y; returns the drawn width. */
+export function put(doc: PDFKit.PDFDocument, text: string, x: number, y: number, style: TextStyle,
+  align: Align = 'left'): number {
+  const s = printable(text);
+  if (s.length === 0) return 0;
+  doc.font(style.font).fontSize(style.size).fillColor(style.color ?? '#000000');
+  const w = doc.widthOfString(s);
+  const left = align === 'left' ? x : align === 'right' ? x - w : x - w / 2;
+  doc.text(s, left, y, { lineBreak: false, baseline: 'alphabetic' });
+  return w;
+}
+
+/** The largest size ≤ style.size (down to minSize) at which the text fits maxWidth. */
+export function fitStyle(doc: PDFKit.PDFDocument, text: string, style: TextStyle, maxWidth: number,
+  minSize: number): TextStyle {
+  const w = widthOf(doc, text, style);
+  if (w <= maxWidth) return style;
+  return { ...style, size: Math.max(minSize, (style.size * maxWidth) / w) };
+}
+
+/** Shortens text with an ellipsis until it fits (after shrinking to the minimum size failed). */
+export function clipText(doc: PDFKit.PDFDocument, text: string, style: TextStyle, maxWidth: number): string {
+  const s = printable(text);
+  if (widthOf(doc, s, style) <= maxWidth) return s;
+  let lo = 0;
+  let hi = s.length;
+  while (lo < hi) {
+    const mid = Math.ceil((lo + hi) / 2);
+    if (widthOf(doc, `${s.slice(0, mid).trimEnd()}…`, style) <= maxWidth) lo = mid; else hi = mid - 1;
+  }
+  return `${s.slice(0, lo).trimEnd()}…`;
+}
+
+/** Fits one line: shrink to minSize, then clip; draws it and returns the style used. */
+export function putFitted(doc: PDFKit.PDFDocument, text: string, x: number, y: number, style: TextStyle,
+  maxWidth: number, minSize: number, align: Align = 'left'): TextStyle {
+  const fitted = fitStyle(doc, text, style, maxWidth, minSize);
+  put(doc, clipText(doc, text, fitted, maxWidth), x, y, fitted, align);
+  return fitted;
+}
+
+/** Greedy word wrap; a word longer than the line is broken by characters. */
+export function wrapLines(doc: PDFKit.PDFDocument, text: string, style: TextStyle, width: number): string[] {
+  const lines: string[] = [];
+  for (const para of text.split('\n').map(printable)) {
+    let line = '';
+    for (const word of para.split(/\s+/).filter(Boolean)) {
+      const candidate = line ? `${line} ${word}` : word;
+      if (widthOf(doc, candidate, style) <= width) { line = candidate; continue; }
+      if (line) lines.push(line);
+      line = word;
+      while (widthOf(doc, line, style) > width && line.length > 1) {
+        let cut = line.length - 1;
+        while (cut > 1 && widthOf(doc, line.slice(0, cut), style) > width) cut--;
+        lines.push(line.slice(0, cut));
+        line = line.slice(cut);
+      }
+    }
+    if (line) lines.push(line);
+  }
+  return lines;
+}
+
+/** Draws a wrapped paragraph from the first baseline y; returns the baseline after the last line. */
+export function paragraph(doc: PDFKit.PDFDocument, text: string, x: number, y: number, width: number,
+  style: TextStyle, leading = style.size * 1.3, maxLines = Infinity): number {
+  const lines = wrapLines(doc, text, style, width);
+  const shown = lines.slice(0, maxLines);
+  if (lines.length > shown.length) shown[shown.length - 1] = clipText(doc, `${shown[shown.length - 1]} …`, style, width);
+  let yy = y;
+  for (const line of shown) { put(doc, line, x, yy, style); yy += leading; }
+  return yy;
+}
