@@ -1,0 +1,9 @@
+// The real engine and renderers a station job uses (the worker and the in-process path share these).
+import { buildStationYear } from '../../engine/almanac.js';
+import { renderStationBook } from '../../templates/pdf/book.js';
+import type { StationJobDeps } from './station-job.js';
+
+export const stationJobDeps: StationJobDeps = {
+  buildStationYear: (station, set, year) => buildStationYear(station, set, year),
+  renderStationBook: (model, options) => renderStationBook(model, options),
+};
