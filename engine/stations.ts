@@ -12,6 +12,6 @@ export {
   type StationSet,
   type StationSetCheck,
 } from './stations/set.js';
-export { suspiciousConstants, distanceKm, suggestedMeanLevel } from './stations/suspicious.js';
+export { suspiciousConstants, distanceKm, lowestOfYear } from './stations/suspicious.js';
 export { STATION_ID_PATTERN, DEFAULT_DATUM_EPOCH, idFromText } from './stations/schema.js';
 export { nearestName } from './stations/suggest.js';

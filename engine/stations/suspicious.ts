@@ -1,15 +1,19 @@
-// Constants that pass the schema but are probably wrong: quick checks from sums of amplitudes
-// and plain geometry, no prediction needed. `tidewright check` lists them beside schema errors.
+// Constants that pass the schema but are probably wrong: quick checks (one year of heights at a
+// coarse step, sums of amplitudes, plain geometry). `tidewright check` lists them beside schema errors.
 
 import { StationFileError } from '../errors.js';
+import { compilePredictor } from '../predict.js';
 import type { ReferenceStation, SecondaryStation, Station } from '../types.js';
+import { DEFAULT_DATUM_EPOCH } from './schema.js';
 
 /** Larger than the largest tidal constituent anywhere (M2 is about 5–6 m in the greatest bays). */
 export const MAX_PLAUSIBLE_AMPLITUDE = 10;
-/** How far ordinary spring lows may fall below the datum before the datum label looks wrong, metres. */
+/** How far a year's lowest tide may fall below the datum before the datum looks too high, metres. */
 export const DATUM_ABOVE_LOWS_TOLERANCE = 0.3;
-/** How far above the datum the lowest conceivable tide may stay before the datum looks too low, metres. */
+/** How far above the datum a year's lowest tide may stay before the datum looks too low, metres. */
 export const DATUM_BELOW_LOWS_TOLERANCE = 0.5;
+/** Step of the quick scan of a year, ms: 10 minutes finds a low water within a few mm. */
+const SCAN_STEP_MS = 600_000;
 /** Time differences beyond this (minutes) are usually a unit or sign slip. */
 export const MAX_PLAUSIBLE_TIME_DIFFERENCE = 240;
 /** Secondary ports farther than this from their reference port rarely share its tide, km. */
@@ -18,21 +22,19 @@ export const MAX_REFERENCE_DISTANCE_KM = 300;
 const amp = (station: ReferenceStation, name: string): number => station.constituents[name]?.amplitude ?? 0;
 const fmt = (x: number): string => x.toFixed(2);
 
-/** Low water at big springs, roughly: Z0 − (M2 + S2 + K1 + O1) (Pugh 1987, MLWS with the diurnal pair). */
-export function roughSpringLow(station: ReferenceStation): number {
-  return station.mean_level - (amp(station, 'M2') + amp(station, 'S2') + amp(station, 'K1') + amp(station, 'O1'));
-}
-
-/** No tide can fall below Z0 − Σ H (node factors aside): every constituent at its trough at once. */
-export function lowestConceivable(station: ReferenceStation): number {
-  let sum = 0;
-  for (const c of Object.values(station.constituents)) sum += c.amplitude;
-  return station.mean_level - sum;
-}
-
-/** Mean level that puts chart datum near LAT: Z0 ≈ H_M2 + H_S2 + H_K1 + H_O1 + 0.1 m (rule of thumb). */
-export function suggestedMeanLevel(station: ReferenceStation): number {
-  return amp(station, 'M2') + amp(station, 'S2') + amp(station, 'K1') + amp(station, 'O1') + 0.1;
+/**
+ * The lowest predicted tide of one year (the first year of the station's datum epoch), sampled every
+ * 10 minutes: a quick stand-in for LAT, which lies a little lower (the full 19-year search is the
+ * almanac's job). Phases count here, not only amplitudes: overtides can deepen or lift the lows.
+ */
+export function lowestOfYear(station: ReferenceStation): number {
+  const year = station.datum_epoch ?? DEFAULT_DATUM_EPOCH;
+  const start = Date.UTC(year, 0, 1);
+  const count = Math.round((Date.UTC(year + 1, 0, 1) - start) / SCAN_STEP_MS);
+  const heights = compilePredictor(station).heights(start, SCAN_STEP_MS, count);
+  let lowest = Infinity;
+  for (let i = 0; i < heights.length; i++) if (heights[i]! < lowest) lowest = heights[i]!;
+  return lowest;
 }
 
 function referenceSuspicions(station: ReferenceStation): StationFileError[] {
@@ -50,16 +52,17 @@ function referenceSuspicions(station: ReferenceStation): StationFileError[] {
       );
     }
   }
-  const springLow = roughSpringLow(station);
-  const lowest = lowestConceivable(station);
-  const suggested = fmt(suggestedMeanLevel(station));
-  if (springLow < -DATUM_ABOVE_LOWS_TOLERANCE) {
+  const lowest = lowestOfYear(station);
+  // Chart datum is meant to sit at or just below the lowest tide: Z0 that puts it 0.05 m below.
+  const suggested = fmt(station.mean_level - lowest + 0.05);
+  const year = station.datum_epoch ?? DEFAULT_DATUM_EPOCH;
+  if (lowest < -DATUM_ABOVE_LOWS_TOLERANCE) {
     problems.push(
       new StationFileError(
         file,
         'mean_level',
-        `with mean_level ${station.mean_level} ordinary spring low waters fall about ${fmt(-springLow)} m below ${station.datum}, so the datum would lie far above the lowest tides`,
-        `raise mean_level to about ${suggested} (H_M2 + H_S2 + H_K1 + H_O1 + 0.1 puts chart datum near LAT), or check the datum and the amplitudes`,
+        `with mean_level ${station.mean_level} the lowest tide of ${year} falls ${fmt(-lowest)} m below ${station.datum}, so the datum would lie far above the lowest tides`,
+        `raise mean_level to about ${suggested} (chart datum near the lowest tide), or check the datum, the amplitudes and the phases`,
       ),
     );
   } else if (lowest > DATUM_BELOW_LOWS_TOLERANCE) {
@@ -67,8 +70,8 @@ function referenceSuspicions(station: ReferenceStation): StationFileError[] {
       new StationFileError(
         file,
         'mean_level',
-        `with mean_level ${station.mean_level} the tide can never fall closer than ${fmt(lowest)} m to ${station.datum}, so the datum would lie far below the lowest tides`,
-        `lower mean_level to about ${suggested}, or check that this datum really lies that far below the lowest tide`,
+        `with mean_level ${station.mean_level} the lowest tide of ${year} stays ${fmt(lowest)} m above ${station.datum}, so the datum would lie far below the lowest tides`,
+        `lower mean_level to about ${suggested} (chart datum near the lowest tide), or check that this datum really lies that far below the lowest tide`,
       ),
     );
   }

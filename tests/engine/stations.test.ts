@@ -251,17 +251,37 @@ describe('suspicious constants', () => {
     expect(suspiciousConstants(base)).toEqual([]);
   });
 
-  it('flag a mean level that puts chart datum far above the spring lows, suggesting Z0 ≈ ΣH + 0.1', () => {
+  // For a pure M2 + S2 station the lowest tide is Z0 − (f·H_M2 + H_S2), with f(M2) between 0.9632 and
+  // 1.0378 over the nodal cycle (Schureman 1958, REFERENCE-VALUES.md §3): 1.0 − (1.6f + 0.55).
+  it('flag a mean level that puts chart datum far above the lowest tides, with the mean level to write', () => {
     const [problem, ...rest] = suspiciousConstants({ ...base, mean_level: 1.0 });
     expect(rest).toEqual([]);
     expect(problem?.field).toBe('mean_level');
-    expect(problem?.problem).toContain('fall about 1.15 m below Chart Datum');
-    expect(problem?.fix).toContain('raise mean_level to about 2.25');
+    const below = Number(/falls (\d+\.\d+) m below Chart Datum/.exec(problem?.problem ?? '')?.[1]);
+    expect(below).toBeGreaterThanOrEqual(1.6 * 0.9632 + 0.55 - 1.0 - 0.005);
+    expect(below).toBeLessThanOrEqual(1.6 * 1.0378 + 0.55 - 1.0 + 0.005);
+    const suggested = Number(/raise mean_level to about (\d+\.\d+)/.exec(problem?.fix ?? '')?.[1]);
+    expect(suggested).toBeCloseTo(1.0 + below + 0.05, 2);
   });
 
-  it('flag a mean level that puts chart datum far below the lowest conceivable tide', () => {
+  it('flag a mean level that puts chart datum far below the lowest tides', () => {
     const [problem] = suspiciousConstants({ ...base, mean_level: 4.0 });
-    expect(problem?.problem).toContain('never fall closer than 1.85 m');
+    const above = Number(/stays (\d+\.\d+) m above Chart Datum/.exec(problem?.problem ?? '')?.[1]);
+    expect(above).toBeGreaterThanOrEqual(4.0 - (1.6 * 1.0378 + 0.55) - 0.005);
+    expect(above).toBeLessThanOrEqual(4.0 - (1.6 * 0.9632 + 0.55) + 0.005);
+    expect(problem?.fix).toContain('lower mean_level to about');
+  });
+
+  it('count the phases: an M4 overtide can deepen the lows past the datum, or lift them', () => {
+    // M4's argument is twice M2's, so at M2 low water (M2 angle 180°) the M4 term is B·cos(2g_M2 − g_M4):
+    // with g_M2 = 100°, g_M4 = 20° gives −B (lows deepened by 0.6 m), g_M4 = 200° gives +B.
+    const withM4 = (phase: number): ReferenceStation => ({
+      ...base,
+      mean_level: 1.7,
+      constituents: { ...base.constituents, M4: { amplitude: 0.6, phase } },
+    });
+    expect(suspiciousConstants(withM4(200))).toEqual([]);
+    expect(suspiciousConstants(withM4(20)).map((p) => p.field)).toEqual(['mean_level']);
   });
 
   it('flag a missing M2 and amplitudes beyond any tide on Earth', () => {
