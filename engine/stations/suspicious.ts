@@ -12,8 +12,8 @@ export const MAX_PLAUSIBLE_AMPLITUDE = 10;
 export const DATUM_ABOVE_LOWS_TOLERANCE = 0.3;
 /** How far above the datum a year's lowest tide may stay before the datum looks too low, metres. */
 export const DATUM_BELOW_LOWS_TOLERANCE = 0.5;
-/** Step of the quick scan of a year, ms: 10 minutes finds a low water within a few mm. */
-const SCAN_STEP_MS = 600_000;
+/** Step of the quick scan of a year, ms: within 15 min of a low water at most ½·h″·(¼ h)² ≈ 3 cm off. */
+const SCAN_STEP_MS = 1_800_000;
 /** Time differences beyond this (minutes) are usually a unit or sign slip. */
 export const MAX_PLAUSIBLE_TIME_DIFFERENCE = 240;
 /** Secondary ports farther than this from their reference port rarely share its tide, km. */
@@ -24,7 +24,7 @@ const fmt = (x: number): string => x.toFixed(2);
 
 /**
  * The lowest predicted tide of one year (the first year of the station's datum epoch), sampled every
- * 10 minutes: a quick stand-in for LAT, which lies a little lower (the full 19-year search is the
+ * 30 minutes: a quick stand-in for LAT, which lies a little lower (the full 19-year search is the
  * almanac's job). Phases count here, not only amplitudes: overtides can deepen or lift the lows.
  */
 export function lowestOfYear(station: ReferenceStation): number {

@@ -252,13 +252,14 @@ describe('suspicious constants', () => {
   });
 
   // For a pure M2 + S2 station the lowest tide is Z0 − (f·H_M2 + H_S2), with f(M2) between 0.9632 and
-  // 1.0378 over the nodal cycle (Schureman 1958, REFERENCE-VALUES.md §3): 1.0 − (1.6f + 0.55).
+  // 1.0378 over the nodal cycle (Schureman 1958, REFERENCE-VALUES.md §3): 1.0 − (1.6f + 0.55). The scan
+  // samples every 30 min, so it may miss the true lowest by up to 3 cm (½·h″·(¼ h)²): tolerance 0.03 m.
   it('flag a mean level that puts chart datum far above the lowest tides, with the mean level to write', () => {
     const [problem, ...rest] = suspiciousConstants({ ...base, mean_level: 1.0 });
     expect(rest).toEqual([]);
     expect(problem?.field).toBe('mean_level');
     const below = Number(/falls (\d+\.\d+) m below Chart Datum/.exec(problem?.problem ?? '')?.[1]);
-    expect(below).toBeGreaterThanOrEqual(1.6 * 0.9632 + 0.55 - 1.0 - 0.005);
+    expect(below).toBeGreaterThanOrEqual(1.6 * 0.9632 + 0.55 - 1.0 - 0.03);
     expect(below).toBeLessThanOrEqual(1.6 * 1.0378 + 0.55 - 1.0 + 0.005);
     const suggested = Number(/raise mean_level to about (\d+\.\d+)/.exec(problem?.fix ?? '')?.[1]);
     expect(suggested).toBeCloseTo(1.0 + below + 0.05, 2);
@@ -268,7 +269,7 @@ describe('suspicious constants', () => {
     const [problem] = suspiciousConstants({ ...base, mean_level: 4.0 });
     const above = Number(/stays (\d+\.\d+) m above Chart Datum/.exec(problem?.problem ?? '')?.[1]);
     expect(above).toBeGreaterThanOrEqual(4.0 - (1.6 * 1.0378 + 0.55) - 0.005);
-    expect(above).toBeLessThanOrEqual(4.0 - (1.6 * 0.9632 + 0.55) + 0.005);
+    expect(above).toBeLessThanOrEqual(4.0 - (1.6 * 0.9632 + 0.55) + 0.03);
     expect(problem?.fix).toContain('lower mean_level to about');
   });
 
