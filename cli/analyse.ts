@@ -1,0 +1,163 @@
+// `tidewright analyse`: a tide gauge record in, a reference-port station file out (and, on request, an
+// HTML report of the fit). Nothing is written unless the whole analysis succeeded. The helpers at the
+// bottom are shared with `tidewright differences`.
+
+import { mkdirSync, readFileSync, renameSync, writeFileSync } from 'node:fs';
+import { basename, dirname, extname } from 'node:path';
+import { IANAZone } from 'luxon';
+import { RecordFileError, UsageError } from '../engine/errors.js';
+import { analyseRecord } from '../engine/analysis/harmonic.js';
+import { parseRecord, type GaugeRecord } from '../engine/analysis/record.js';
+import { referenceStationYaml, type StationMeta } from '../engine/analysis/station-yaml.js';
+import { idFromText, parseStation, STATION_ID_PATTERN } from '../engine/stations.js';
+import { renderAnalysisReport } from '../templates/report/analysis-report.js';
+import { parseCommandLine, positionalArguments } from './args.js';
+
+export const ANALYSE_HELP = `Usage: tidewright analyse RECORD.csv --latitude DEG --longitude DEG --timezone ZONE
+                          [--id ID] [--name NAME] [--datum LABEL] [--rayleigh R]
+                          [--output FILE.yaml] [--report FILE.html]
+
+Harmonic constants from a tide gauge record, printed as a reference-port station file.
+
+RECORD.csv holds one reading per line, time,height: an ISO 8601 time with Z or a UTC offset
+(2027-01-01T00:00:00Z or 2027-01-01T01:00+01:00) and the height in metres. A header line, comment
+lines starting with #, gaps, irregular spacing and unsorted rows are fine; a row repeated exactly is
+dropped; two different heights for the same time are an error. The record must span at least
+14.77 days (to separate M2 from S2) with readings over at least half of its span.
+
+  --latitude DEG     the gauge's latitude, degrees north positive
+  --longitude DEG    the gauge's longitude, degrees east positive
+  --timezone ZONE    IANA time zone of the harbour, e.g. Europe/Lisbon
+  --id ID            station id (default: from the record's file name)
+  --name NAME        station name (default: the record's file name)
+  --datum LABEL      what the record's heights are measured from (default: "Gauge zero")
+  --rayleigh R       Rayleigh factor for choosing constituents (default 1; larger fits fewer)
+  --output FILE      write the station file there instead of printing it
+  --report FILE      also write an HTML report: the record, the fit, the residual, the constants
+                     with 95 % intervals and the constituents the record could not separate
+
+Example: tidewright analyse quay-gauge.csv --latitude 50.12 --longitude -4.87 --timezone Europe/Lisbon --report fit.html
+`;
+
+export async function runAnalyse(argv: string[]): Promise<number> {
+  const { values, positionals } = parseCommandLine('analyse', withNegativeNumbers(argv), {
+    latitude: { type: 'string' },
+    longitude: { type: 'string' },
+    timezone: { type: 'string' },
+    id: { type: 'string' },
+    name: { type: 'string' },
+    datum: { type: 'string' },
+    rayleigh: { type: 'string' },
+    output: { type: 'string' },
+    report: { type: 'string' },
+    help: { type: 'boolean', short: 'h' },
+  });
+  if (values.help) {
+    process.stdout.write(ANALYSE_HELP);
+    return 0;
+  }
+  const [file] = positionalArguments('analyse', positionals, ['RECORD.csv']) as [string];
+  const meta = stationMeta('analyse', file, values, { datum: 'Gauge zero' });
+  const rayleigh = values.rayleigh === undefined ? 1 : numberOption('--rayleigh', values.rayleigh, 0.1, 10, 'e.g. --rayleigh 1');
+  const analysis = analyseRecord(readRecordFile(file), { rayleigh });
+  const yaml = referenceStationYaml(analysis, meta);
+  parseStation(yaml, values.output ?? 'the analysed station file'); // the loader must accept what we print
+  const report = values.report === undefined ? [] : [[values.report, renderAnalysisReport(analysis, meta)] as const];
+  writeOutputs(yaml, values.output, report);
+  const r = analysis.residual;
+  const unresolved = analysis.excluded.filter((e) => e.reason === 'rayleigh').length;
+  process.stderr.write(`tidewright: ${r.count} readings over ${(analysis.summary.spanHours / 24).toFixed(1)} days: ` +
+    `${analysis.constituents.length} constituents, residual RMS ${r.rms.toFixed(3)} m, ` +
+    `${(r.explained * 100).toFixed(1)} % of the variance explained` +
+    (unresolved > 0 ? `; ${unresolved} constituents could not be separated (listed in the file)` : '') + '\n');
+  return 0;
+}
+
+// ---- shared with cli/differences.ts ------------------------------------------------------------
+
+/** `--longitude -4.87` as `--longitude=-4.87`, so a negative number is read as the value, not an option. */
+export function withNegativeNumbers(argv: readonly string[]): string[] {
+  const out: string[] = [];
+  for (let i = 0; i < argv.length; i++) {
+    const arg = argv[i]!, next = argv[i + 1];
+    if (/^--(latitude|longitude)$/.test(arg) && next !== undefined && /^-(\d|\.\d)/.test(next)) {
+      out.push(`${arg}=${next}`);
+      i++;
+    } else out.push(arg);
+  }
+  return out;
+}
+
+/** A number option within [min, max]; a UsageError naming the option otherwise. */
+export function numberOption(option: string, text: string, min: number, max: number, example: string): number {
+  const value = /^[+-]?(\d+\.?\d*|\.\d+)$/.test(text.trim()) ? Number(text) : Number.NaN;
+  if (!(value >= min && value <= max)) {
+    throw new UsageError(option, `"${text}" is not a number from ${min} to ${max}`, `write a number, ${example}`);
+  }
+  return value;
+}
+
+interface MetaValues {
+  latitude?: string | undefined;
+  longitude?: string | undefined;
+  timezone?: string | undefined;
+  id?: string | undefined;
+  name?: string | undefined;
+  datum?: string | undefined;
+}
+
+/** Id, name, position, time zone and datum label of the station to write, from the options and defaults. */
+export function stationMeta(
+  command: string, file: string, values: MetaValues,
+  defaults: { datum: string; latitude?: number; longitude?: number; timezone?: string },
+): StationMeta {
+  const required = (option: string, value: string | undefined, fallback: string | number | undefined, example: string): string => {
+    if (value !== undefined) return value;
+    if (fallback !== undefined) return String(fallback);
+    throw new UsageError(`--${option}`, `is missing (tidewright ${command} needs it for the station file)`, `add --${option} ${example}`);
+  };
+  const latitude = numberOption('--latitude', required('latitude', values.latitude, defaults.latitude, '50.12'), -90, 90, 'degrees north positive, e.g. --latitude 50.12');
+  const longitude = numberOption('--longitude', required('longitude', values.longitude, defaults.longitude, '-4.87'), -180, 180, 'degrees east positive, e.g. --longitude -4.87');
+  const timezone = required('timezone', values.timezone, defaults.timezone, 'Europe/Lisbon');
+  if (!IANAZone.isValidZone(timezone)) {
+    throw new UsageError('--timezone', `"${timezone}" is not a known IANA time zone`, 'write a name such as Europe/Lisbon or Pacific/Auckland');
+  }
+  const stem = basename(file, extname(file));
+  const id = values.id ?? idFromText(stem);
+  if (!STATION_ID_PATTERN.test(id) || id.length > 64) {
+    throw new UsageError('--id', `"${id}" may only hold lower-case letters a-z, digits and hyphens`, `write --id ${idFromText(id)}`);
+  }
+  const name = values.name ?? stem;
+  const datum = values.datum ?? defaults.datum;
+  for (const [option, text] of [['--name', name], ['--datum', datum]] as const) {
+    if (text.trim() === '') throw new UsageError(option, 'is empty', `write some text, e.g. ${option} "Gannet Head"`);
+  }
+  return { id, name, latitude, longitude, timezone, datum };
+}
+
+/** Reads and parses a gauge record; an unreadable file is a RecordFileError naming it. */
+export function readRecordFile(file: string): GaugeRecord {
+  let text: string;
+  try {
+    text = readFileSync(file, 'utf8');
+  } catch (error) {
+    const code = (error as { code?: string }).code;
+    const problem = code === 'ENOENT' ? 'no such file' : code === 'EISDIR' ? 'is a folder, not a file' : `cannot be read (${code ?? 'unknown error'})`;
+    throw new RecordFileError(file, 'file', problem, 'give the path of a CSV file of time,height rows');
+  }
+  return parseRecord(text, file);
+}
+
+function writeAtomically(path: string, text: string): void {
+  mkdirSync(dirname(path), { recursive: true });
+  const temporary = `${path}.tidewright-partial`;
+  writeFileSync(temporary, text);
+  renameSync(temporary, path);
+}
+
+/** The station file to --output (or stdout), then any further files such as the report. */
+export function writeOutputs(yaml: string, output: string | undefined, more: readonly (readonly [string, string])[]): void {
+  for (const [path, text] of more) writeAtomically(path, text);
+  if (output === undefined) process.stdout.write(yaml);
+  else writeAtomically(output, yaml);
+}
