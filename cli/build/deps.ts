@@ -4,7 +4,8 @@ import { loadStationSet } from '../../engine/stations.js';
 import { renderCombinedBook } from '../../templates/pdf/book.js';
 import { renderSite } from '../../templates/site/render.js';
 import { checkStations } from '../check.js';
-import { computeStations } from './compute.js';
+import { combinedBookInWorker } from './combined.js';
+import { compiledWorkerUrl, computeStations } from './compute.js';
 import { stationJobDeps } from './engine-deps.js';
 import type { BuildDeps } from './run.js';
 
@@ -16,6 +17,9 @@ export const realBuildDeps: BuildDeps = {
   },
   computeStations: (request, onStation, signal) => computeStations(request, onStation, stationJobDeps, signal),
   renderSite: (models, siteDir, dataDir, options) => renderSite(models, siteDir, { ...options, dataDir, quiet: true }),
-  renderCombinedBook: (models, options) => renderCombinedBook(models, options),
+  renderCombinedBook: (models, options, beside, signal) => {
+    const workerUrl = beside ? compiledWorkerUrl() : null;
+    return workerUrl ? combinedBookInWorker(workerUrl, models, options, signal) : renderCombinedBook(models, options);
+  },
   cores: () => availableParallelism(),
 };

@@ -1,20 +1,32 @@
 // Messages between the build and its worker threads. Everything is plain data (structured clone).
+import type { StationYear } from '../../engine/types.js';
 import type { SerializedError } from './failure.js';
 import type { RenderChoices } from './options.js';
 import type { StationOutcome } from './station-job.js';
 
-/** What every worker is started with (`workerData`): it loads the station set itself. */
+/** What a station worker is started with (`workerData`): it loads the station set itself. */
 export interface WorkerSetup {
+  job?: 'stations';
   stationsDir: string;
   year: number;
   tempDir: string;
   render: RenderChoices;
 }
 
-export type ToWorker = { type: 'unit'; ids: string[] } | { type: 'close' };
+/** A worker that draws the combined book while the main thread renders the website. */
+export interface CombinedSetup {
+  job: 'combined';
+  render: RenderChoices;
+}
+
+export type ToWorker =
+  | { type: 'unit'; ids: string[] }
+  | { type: 'close' }
+  | { type: 'combined'; models: StationYear[] };
 
 export type FromWorker =
   | { type: 'ready' }
   | { type: 'station'; outcome: StationOutcome }
   | { type: 'unit-done' }
+  | { type: 'combined-done'; pdf: Uint8Array }
   | { type: 'failed'; id: string | null; error: SerializedError };

@@ -27,7 +27,8 @@ export interface BuildDeps {
   computeStations(request: ComputeRequest, onStation: (outcome: StationOutcome) => void, signal?: AbortSignal): Promise<void>;
   /** The site into siteDir, and every station-year's downloads (CSV, JSON, iCalendar) into dataDir too. */
   renderSite(models: StationYear[], siteDir: string, dataDir: string, options: RenderChoices): Promise<unknown>;
-  renderCombinedBook(models: StationYear[], options: RenderChoices): Promise<Buffer>;
+  /** `beside`: the caller is rendering the website at the same time (use another thread if there is one). */
+  renderCombinedBook(models: StationYear[], options: RenderChoices, beside: boolean, signal?: AbortSignal): Promise<Buffer>;
   cores(): number;
 }
 
@@ -81,6 +82,13 @@ async function step<T>(name: string, times: Record<string, number>, work: () => 
   }
 }
 
+/** Waits for every one (none may still be writing when the temporary folder goes), then throws the first error. */
+async function allSettledOrFirstError(work: Promise<unknown>[]): Promise<void> {
+  const results = await Promise.allSettled(work);
+  const failed = results.find((r): r is PromiseRejectedResult => r.status === 'rejected');
+  if (failed) throw failed.reason;
+}
+
 export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: BuildEvents): Promise<BuildSummary> {
   const started = performance.now();
   const times: Record<string, number> = {};
@@ -115,18 +123,27 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
     let pdfPages = stations.reduce((n, s) => n + outcomes.get(s.id)!.pdfPages, 0);
     outcomes.clear();
 
-    events.progress.stage('website and downloads');
-    await step('rendering the website and downloads', times, () => deps.renderSite(models, join(target.temp, 'site'), join(target.temp, 'data'), plan.render));
-    events.signal?.throwIfAborted();
-
-    events.progress.stage('combined book');
+    // With more than one worker the combined book is drawn beside the website, else after it.
+    const beside = workers > 1;
     const name = combinedBookName(plan.render.title, stations.map((s) => s.id));
-    await step('rendering the combined book', times, async () => {
-      const pdf = await deps.renderCombinedBook(models, plan.render);
+    const site = (): Promise<unknown> => step('rendering the website and downloads', times,
+      () => deps.renderSite(models, join(target.temp, 'site'), join(target.temp, 'data'), plan.render));
+    const book = (): Promise<void> => step('rendering the combined book', times, async () => {
+      const pdf = await deps.renderCombinedBook(models, plan.render, beside, events.signal);
       await mkdir(join(target.temp, 'pdf'), { recursive: true });
       await writeFile(stationYearFile(join(target.temp, 'pdf'), name, year, 'pdf'), pdf);
       pdfPages += countPdfPages(pdf);
     });
+    if (beside) {
+      events.progress.stage('website, downloads and combined book');
+      await allSettledOrFirstError([book(), site()]);
+    } else {
+      events.progress.stage('website and downloads');
+      await site();
+      events.signal?.throwIfAborted();
+      events.progress.stage('combined book');
+      await book();
+    }
     events.signal?.throwIfAborted();
 
     const tree = await step('counting the output', times, () => treeStats(target.temp));

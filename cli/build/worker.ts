@@ -1,40 +1,67 @@
-// Worker thread entry (compiled to dist/cli/build/worker.js): loads the station set once, then
-// computes the stations it is handed, one unit at a time, and posts each outcome back.
+// Worker thread entry (compiled to dist/cli/build/worker.js). A station worker loads the station set
+// once, then computes the stations it is handed, one unit at a time, posting each outcome back.
+// A combined-book worker draws the whole set's book from the models it is sent.
 import { parentPort, workerData } from 'node:worker_threads';
 import { loadStationSet } from '../../engine/stations.js';
+import { renderCombinedBook } from '../../templates/pdf/book.js';
 import { serializeError } from './failure.js';
-import type { FromWorker, ToWorker, WorkerSetup } from './protocol.js';
+import type { CombinedSetup, FromWorker, ToWorker, WorkerSetup } from './protocol.js';
 import { stationJobDeps } from './engine-deps.js';
 import { runStationJob, type StationJobContext } from './station-job.js';
 
 const port = parentPort;
 if (!port) throw new Error('cli/build/worker.js runs only as a worker thread');
-const setup = workerData as WorkerSetup;
-const post = (message: FromWorker): void => port.postMessage(message);
+const setup = workerData as WorkerSetup | CombinedSetup;
+const post = (message: FromWorker, transfer: ArrayBuffer[] = []): void => port.postMessage(message, transfer);
 
-let ctx: StationJobContext | undefined;
-try {
-  ctx = { set: loadStationSet(setup.stationsDir), year: setup.year, tempDir: setup.tempDir, render: setup.render };
-  post({ type: 'ready' });
-} catch (error) {
-  post({ type: 'failed', id: null, error: serializeError(error) });
+function stationWorker(init: WorkerSetup): void {
+  let ctx: StationJobContext | undefined;
+  try {
+    ctx = { set: loadStationSet(init.stationsDir), year: init.year, tempDir: init.tempDir, render: init.render };
+    post({ type: 'ready' });
+  } catch (error) {
+    post({ type: 'failed', id: null, error: serializeError(error) });
+  }
+  port!.on('message', (message: ToWorker) => {
+    if (message.type !== 'unit' || !ctx) {
+      port!.close();
+      return;
+    }
+    void (async () => {
+      let current: string | null = null;
+      try {
+        for (const id of message.ids) {
+          current = id;
+          post({ type: 'station', outcome: await runStationJob(id, ctx, stationJobDeps) });
+        }
+        post({ type: 'unit-done' });
+      } catch (error) {
+        post({ type: 'failed', id: current, error: serializeError(error) });
+      }
+    })();
+  });
 }
 
-port.on('message', (message: ToWorker) => {
-  if (message.type === 'close' || !ctx) {
-    port.close();
-    return;
-  }
-  void (async () => {
-    let current: string | null = null;
-    try {
-      for (const id of message.ids) {
-        current = id;
-        post({ type: 'station', outcome: await runStationJob(id, ctx, stationJobDeps) });
-      }
-      post({ type: 'unit-done' });
-    } catch (error) {
-      post({ type: 'failed', id: current, error: serializeError(error) });
+function combinedWorker(init: CombinedSetup): void {
+  port!.once('message', (message: ToWorker) => {
+    if (message.type !== 'combined') {
+      port!.close();
+      return;
     }
-  })();
-});
+    void (async () => {
+      try {
+        const pdf = await renderCombinedBook(message.models, init.render);
+        // Handed over, not copied: the book can be tens of megabytes.
+        const bytes = new Uint8Array(pdf.buffer, pdf.byteOffset, pdf.byteLength);
+        const own = bytes.byteOffset === 0 && bytes.byteLength === bytes.buffer.byteLength ? bytes : bytes.slice();
+        post({ type: 'combined-done', pdf: own }, [own.buffer as ArrayBuffer]);
+      } catch (error) {
+        post({ type: 'failed', id: null, error: serializeError(error) });
+      }
+      port!.close();
+    })();
+  });
+}
+
+if (setup.job === 'combined') combinedWorker(setup);
+else stationWorker(setup);

@@ -115,6 +115,30 @@ describe('buildAlmanac', () => {
     expect(readdirSync(p.dir).sort()).toEqual(['out', 'stations']);
   });
 
+  it('with one worker, draws the combined book after the website; with more, beside it', async () => {
+    for (const workers of [1, 2]) {
+      const order: string[] = [];
+      const deps = stubs(SET);
+      const site = deps.renderSite;
+      await buildAlmanac(plan({ workers }), {
+        ...deps,
+        async renderSite(...args) {
+          order.push('site start');
+          await new Promise((r) => setTimeout(r, 30));
+          await site(...args);
+          order.push('site end');
+        },
+        async renderCombinedBook(models, _options, beside) {
+          order.push(`book start ${beside}`);
+          return fakePdf(models.length, 'x');
+        },
+      }, quietEvents());
+      expect(order).toEqual(workers === 1
+        ? ['site start', 'site end', 'book start false']
+        : ['book start true', 'site start', 'site end']);
+    }
+  });
+
   it('names the combined book after the project title', async () => {
     const p = plan({ render: { units: 'm', page: 'a5', imposition: 'none', title: 'Gannet Bay Almanac' } });
     await buildAlmanac(p, stubs(SET), quietEvents());
