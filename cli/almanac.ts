@@ -1,0 +1,105 @@
+// `tidewright almanac STATION.yaml --year 2027 [--stations DIR] [--format table|json]`:
+// build one station-year model and print it (json: the whole model; table: a short summary).
+// User errors are thrown as TidewrightErrors; cli/main.ts prints them as one line, exit code 1.
+import { dirname, resolve } from 'node:path';
+import { buildStationYear } from '../engine/almanac.js';
+import { UsageError } from '../engine/errors.js';
+import { loadStationFile, loadStationSet } from '../engine/stations.js';
+import type { Station, StationYear } from '../engine/types.js';
+import { oneOf, parseCommandLine, positionalArguments } from './args.js';
+
+const HELP = `usage: tidewright almanac STATION.yaml [--year YYYY] [--stations DIR] [--format table|json]
+
+Builds one station-year: every high and low water in the station's local time, the daily curves,
+sun and moon, springs and neaps, datums and warnings, as the model the website and books print.
+  --year YYYY      the calendar year (default: next year)
+  --stations DIR   folder of the station set, to find a secondary port's reference port
+                   (default: the station file's own folder)
+  --format json    print the whole model as JSON; table (default) prints a short summary
+`;
+
+interface AlmanacArgs {
+  file: string;
+  year: number;
+  stations: string | null;
+  format: 'table' | 'json';
+}
+
+function parseAlmanacArgs(argv: readonly string[]): AlmanacArgs | 'help' {
+  const { values, positionals } = parseCommandLine('almanac', argv, {
+    year: { type: 'string' },
+    stations: { type: 'string' },
+    format: { type: 'string', default: 'table' },
+    help: { type: 'boolean', short: 'h' },
+  });
+  if (values.help) return 'help';
+  const [file] = positionalArguments('almanac', positionals, ['STATION.yaml']) as [string];
+  let year = new Date().getUTCFullYear() + 1;
+  if (values.year !== undefined) {
+    if (!/^\d{4}$/.test(values.year)) {
+      throw new UsageError('--year', `"${values.year}" is not a year`, 'write a four-digit year, e.g. --year 2027');
+    }
+    year = Number(values.year);
+  }
+  const format = oneOf('--format', values.format ?? 'table', ['table', 'json'] as const);
+  return { file, year, stations: values.stations ?? null, format };
+}
+
+// The station and the set its reference port is looked up in: the --stations folder, else the
+// station file's own folder for a secondary port, else the station alone.
+function loadStation(args: AlmanacArgs): { station: Station; set: { byId: ReadonlyMap<string, Station> } } {
+  const loaded = loadStationFile(args.file);
+  if (args.stations === null && loaded.kind === 'reference') {
+    return { station: loaded, set: { byId: new Map([[loaded.id, loaded]]) } };
+  }
+  const set = loadStationSet(args.stations ?? dirname(args.file));
+  const same = set.byId.get(loaded.id);
+  const station = same && same.sourceFile && resolve(same.sourceFile) === resolve(args.file) ? same : loaded;
+  return { station, set };
+}
+
+export async function runAlmanac(argv: readonly string[]): Promise<number> {
+  const args = parseAlmanacArgs(argv);
+  if (args === 'help') {
+    process.stdout.write(HELP);
+    return 0;
+  }
+  const { station, set } = loadStation(args);
+  const model = buildStationYear(station, set, args.year);
+  process.stdout.write(args.format === 'json' ? `${JSON.stringify(model)}\n` : summary(model));
+  return 0;
+}
+
+const m = (x: number): string => `${x.toFixed(2)} m`;
+
+/** A short human summary of a model: station facts, datums, each month's extremes, warnings, caution. */
+export function summary(model: StationYear): string {
+  const s = model.station;
+  const d = model.datums;
+  const lines = [
+    `${s.name} (${s.id}) — ${model.year}, times in ${model.timezone}${model.invented ? ' — INVENTED DEMO DATA' : ''}`,
+    model.reference ? `Secondary port of ${model.reference.name} (${model.reference.id})` : 'Reference port',
+    `Tide type: ${model.tideType.label} (form number ${model.tideType.formNumber.toFixed(2)}); `
+      + `mean ranges springs ${m(model.meanSpringRange)}, neaps ${m(model.meanNeapRange)}; `
+      + `age of the tide ${model.ageOfTideHours.toFixed(1)} h`,
+    `Heights above ${s.datum}: HAT ${m(d.HAT)}  MHWS ${m(d.MHWS)}  MHWN ${m(d.MHWN)}  MSL ${m(d.MSL)}  `
+      + `MLWN ${m(d.MLWN)}  MLWS ${m(d.MLWS)}  LAT ${m(d.LAT)}  (LAT/HAT ${d.epoch.from}–${d.epoch.to})`,
+    '',
+    'Month      high waters  low waters  highest           lowest',
+  ];
+  for (const month of model.months) {
+    const days = model.days.slice(month.firstDayIndex, month.firstDayIndex + month.dayCount);
+    const events = days.flatMap((day) => day.events);
+    const highs = events.filter((e) => e.type === 'high');
+    const lows = events.filter((e) => e.type === 'low');
+    const top = highs.reduce((a, b) => (b.height > a.height ? b : a), highs[0]!);
+    const bottom = lows.reduce((a, b) => (b.height < a.height ? b : a), lows[0]!);
+    const at = (e: typeof top) => `${m(e.height).padStart(7)} ${e.local.slice(5, 10)} ${e.clock}`;
+    lines.push(`${month.name.padEnd(10)} ${String(highs.length).padStart(11)} ${String(lows.length).padStart(11)}  ${at(top)}  ${at(bottom)}`);
+  }
+  lines.push('');
+  for (const c of model.offsetChanges) lines.push(`Clock change: ${c.note}`);
+  for (const w of model.warnings) lines.push(`WARNING: ${w}`);
+  lines.push(`Caution: ${model.caution}`, '');
+  return lines.join('\n');
+}

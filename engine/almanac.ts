@@ -1,0 +1,164 @@
+// Build the StationYear model: everything a tide book prints about one station for one year, in
+// plain JSON-serialisable data that the website and the PDF books read and never recompute.
+import { basename } from 'node:path';
+import { CAUTION, isInvented } from './almanac/caution.js';
+import { dayEntries, monthEntries } from './almanac/days.js';
+import { almanacEvent, mm } from './almanac/format.js';
+import { generator } from './almanac/generator.js';
+import { lowWaterBelowLat, stationDatums } from './datums.js';
+import { UsageError } from './errors.js';
+import {
+  clock, dayIndexOf, isoLocal, isoUtc, localDate, localDays, type LocalDay,
+} from './localtime.js';
+import { moonQuarters, skyForDays, type MoonQuarter } from './sky.js';
+import { dayRange, springNeapMarkers } from './springneap.js';
+import {
+  cosineCurve, harmonicStationOf, predictorFor, tideEvents, type StationLookup,
+} from './tides.js';
+import type {
+  AlmanacEvent, MoonPhaseEntry, MoonPhaseName, SpringNeapEntry, SpringNeapKind, Station, StationYear,
+  TideEvent,
+} from './types.js';
+
+export { CAUTION, isInvented } from './almanac/caution.js';
+
+export interface AlmanacOptions {
+  /** Minutes between the points of each day's curve; must divide 60. Default 30 (fits half-hour clock changes). */
+  curveStepMinutes?: number;
+}
+
+const MINUTE = 60_000;
+const DAY = 86_400_000;
+// Days beyond the year so the fortnightly envelope has its peaks and troughs near 1 January / 31 December.
+const SPRING_NEAP_PAD_DAYS = 20;
+
+/** The whole model of one station for one calendar year in the station's own time zone. */
+export function buildStationYear(
+  station: Station, set: StationLookup, year: number, options: AlmanacOptions = {},
+): StationYear {
+  const step = options.curveStepMinutes ?? 30;
+  if (!Number.isInteger(step) || step <= 0 || 60 % step !== 0) {
+    throw new UsageError('curveStepMinutes', `${step} does not divide an hour`, 'use 10, 15, 20 or 30');
+  }
+  const zone = station.timezone;
+  const reference = harmonicStationOf(station, set);
+  const days = localDays(year, zone);
+  const padDays: LocalDay[] = [
+    ...localDays(year - 1, zone).slice(-SPRING_NEAP_PAD_DAYS), ...days,
+    ...localDays(year + 1, zone).slice(0, SPRING_NEAP_PAD_DAYS),
+  ];
+  const yearStart = days[0]!.start;
+  const yearEnd = days[days.length - 1]!.end;
+
+  // One event list for everything: the year's events are those printed on one of its days.
+  const allEvents = tideEvents(station, set, padDays[0]!.start - DAY, padDays[padDays.length - 1]!.end + DAY);
+  const yearEvents = allEvents.filter((e) => dayIndexOf(days, e.time) >= 0);
+  if (yearEvents.length === 0) throw new RangeError(`no high or low water predicted for ${station.id} in ${year}`);
+  const events = yearEvents.map((e) => almanacEvent(e, zone));
+
+  const summary = stationDatums(station, set);
+  const quarters = moonQuarters(padDays[0]!.start - 20 * DAY, padDays[padDays.length - 1]!.end + 5 * DAY);
+  const moonPhases = yearQuarters(quarters, days, zone);
+  const springNeap = springNeapEntries(allEvents, padDays, days, quarters, summary.ageOfTideHours);
+
+  const sample = station.kind === 'reference'
+    ? (s: number, st: number, n: number) => predictorFor(station).heights(s, st, n)
+    : (s: number, st: number, n: number) => cosineCurve(allEvents, s, st, n);
+  const curves = days.map((d) => dayCurve(d, step * MINUTE, sample));
+
+  const dayList = dayEntries({
+    zone, days, events: yearEvents, formatted: events, rangeEvents: allEvents, curves,
+    sky: skyForDays(days, station.position, zone),
+    moonPhaseOn: new Map(moonPhases.map((m) => [m.date, m.phase] as [string, MoonPhaseName])),
+    springNeapOn: new Map(springNeap.map((s) => [s.date, s.kind] as [string, SpringNeapKind])),
+  });
+
+  const warnings = [...summary.warnings];
+  const below = lowWaterBelowLat(yearEvents, summary.datums.LAT);
+  if (below) {
+    warnings.push(`A predicted low water of ${mm(below.height).toFixed(2)} m (${isoLocal(below.time, zone)}) falls `
+      + `below LAT (${summary.datums.LAT.toFixed(2)} m, ${summary.datums.epoch.from}–${summary.datums.epoch.to}): `
+      + 'the LAT epoch or the datum label may be wrong.');
+  }
+
+  return {
+    station: modelStation(station),
+    year,
+    timezone: zone,
+    invented: isInvented(station),
+    caution: CAUTION,
+    reference: station.kind === 'secondary' ? { id: reference.id, name: reference.name } : null,
+    events,
+    moonPhases,
+    springNeap,
+    datums: { ...summary.datums, epoch: { ...summary.datums.epoch } },
+    tideType: { ...summary.tideType },
+    meanSpringRange: summary.meanSpringRange,
+    meanNeapRange: summary.meanNeapRange,
+    ageOfTideHours: summary.ageOfTideHours,
+    curveStepMinutes: step,
+    days: dayList,
+    months: monthEntries(dayList),
+    offsetChanges: dayList.flatMap((d) => (d.offsetChange ? [d.offsetChange] : [])),
+    extremes: yearExtremes(yearEvents, events),
+    warnings,
+    generator: generator(),
+  };
+}
+
+// A deep copy as loaded, its source path cut to the file name (no machine paths in published data).
+function modelStation(station: Station): Station {
+  const copy = structuredClone(station);
+  if (copy.sourceFile !== undefined) copy.sourceFile = basename(copy.sourceFile);
+  return copy;
+}
+
+// Heights from local midnight every `stepMs`, ending exactly on the next local midnight.
+function dayCurve(
+  day: LocalDay, stepMs: number, sample: (start: number, step: number, count: number) => Float64Array,
+): number[] {
+  const n = Math.floor((day.end - day.start) / stepMs) + 1;
+  const out = Array.from(sample(day.start, stepMs, n), mm);
+  if (day.start + (n - 1) * stepMs < day.end) out.push(mm(sample(day.end, stepMs, 1)[0]!));
+  return out;
+}
+
+function yearQuarters(quarters: readonly MoonQuarter[], days: readonly LocalDay[], zone: string): MoonPhaseEntry[] {
+  return quarters
+    .filter((q) => dayIndexOf(days, q.time) >= 0)
+    .map((q) => ({
+      time: isoUtc(q.time), local: isoLocal(q.time, zone), clock: clock(q.time, zone),
+      date: localDate(q.time, zone), phase: q.phase,
+    }));
+}
+
+function springNeapEntries(
+  events: readonly TideEvent[], padDays: readonly LocalDay[], days: readonly LocalDay[],
+  quarters: readonly MoonQuarter[], ageHours: number,
+): SpringNeapEntry[] {
+  const first = days[0]!.date;
+  const last = days[days.length - 1]!.date;
+  return springNeapMarkers(events, padDays, quarters, ageHours)
+    .filter((m) => m.date >= first && m.date <= last)
+    .map((m) => {
+      const day = padDays.find((d) => d.date === m.date)!;
+      return {
+        date: m.date,
+        kind: m.kind,
+        range: mm(dayRange(events, day.start, day.end) ?? m.envelope),
+        astronomical: isoUtc(m.astronomical),
+        lagHours: Math.round(m.lagHours * 10) / 10,
+      };
+    });
+}
+
+function yearExtremes(raw: readonly TideEvent[], events: readonly AlmanacEvent[]): StationYear['extremes'] {
+  let hi = -1;
+  let lo = -1;
+  raw.forEach((e, i) => {
+    if (e.type === 'high' && (hi < 0 || e.height > raw[hi]!.height)) hi = i;
+    if (e.type === 'low' && (lo < 0 || e.height < raw[lo]!.height)) lo = i;
+  });
+  // A year always has both; fall back to any event rather than crash on a degenerate station.
+  return { highest: events[hi < 0 ? 0 : hi]!, lowest: events[lo < 0 ? 0 : lo]! };
+}
