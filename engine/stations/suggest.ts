@@ -1,20 +1,22 @@
 // "Did you mean …?" for names a person typed: a case-insensitive exact match wins, otherwise the
 // candidate with the smallest edit distance, if it is close enough to be a plausible typo.
 
-/** Levenshtein distance (Levenshtein 1966), two-row dynamic programme. */
+/** Edit distance with adjacent transpositions (optimal string alignment; Damerau 1964): form → from is 1. */
 export function editDistance(a: string, b: string): number {
-  let prev = new Array<number>(b.length + 1);
-  let curr = new Array<number>(b.length + 1);
-  for (let j = 0; j <= b.length; j++) prev[j] = j;
-  for (let i = 1; i <= a.length; i++) {
-    curr[0] = i;
-    for (let j = 1; j <= b.length; j++) {
+  const rows = a.length + 1;
+  const cols = b.length + 1;
+  const d = new Array<number>(rows * cols);
+  for (let i = 0; i < rows; i++) d[i * cols] = i;
+  for (let j = 0; j < cols; j++) d[j] = j;
+  for (let i = 1; i < rows; i++) {
+    for (let j = 1; j < cols; j++) {
       const cost = a[i - 1] === b[j - 1] ? 0 : 1;
-      curr[j] = Math.min(prev[j]! + 1, curr[j - 1]! + 1, prev[j - 1]! + cost);
+      let best = Math.min(d[(i - 1) * cols + j]! + 1, d[i * cols + j - 1]! + 1, d[(i - 1) * cols + j - 1]! + cost);
+      if (i > 1 && j > 1 && a[i - 1] === b[j - 2] && a[i - 2] === b[j - 1]) best = Math.min(best, d[(i - 2) * cols + j - 2]! + 1);
+      d[i * cols + j] = best;
     }
-    [prev, curr] = [curr, prev];
   }
-  return prev[b.length]!;
+  return d[rows * cols - 1]!;
 }
 
 /** The candidate the user most likely meant, or undefined when nothing is close. */
