@@ -133,9 +133,11 @@ function tableHeader(req: PredictRequest, what: string): string[] {
     station.kind === 'reference'
       ? 'reference port'
       : `secondary port of ${reference?.name ?? station.reference}, by time and height differences`;
+  const { latitude, longitude } = station.position;
+  const where = `${Math.abs(latitude).toFixed(3)}° ${latitude < 0 ? 'S' : 'N'}, ${Math.abs(longitude).toFixed(3)}° ${longitude < 0 ? 'W' : 'E'}`;
   return [
-    `${station.name} (${station.id}), ${kind}`,
-    `${station.position.latitude.toFixed(3)}, ${station.position.longitude.toFixed(3)}; time zone ${zone}`,
+    `${station.name}: ${kind} (id ${station.id})`,
+    `${where}; time zone ${zone}`,
     `${what}, ${span} local time (end not included)`,
     `Times: local time at the station with its UTC offset. Heights: metres above ${station.datum}; "below datum" marks negative heights.`,
     `Constants: ${station.provenance}`,

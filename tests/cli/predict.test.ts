@@ -106,8 +106,8 @@ describe('predict --format table and csv', () => {
     const { code, stdout } = await runCli(['predict', GANNET, '--from', '2027-03-27', '--to', '2027-03-30']);
     expect(code).toBe(0);
     const [title, where, what, units, provenance, caution] = stdout.split('\n');
-    expect(title).toBe('Gannet Head (invented) (gannet-head), reference port');
-    expect(where).toContain('time zone Europe/Lisbon');
+    expect(title).toBe('Gannet Head (invented): reference port (id gannet-head)');
+    expect(where).toBe('50.120° N, 4.870° W; time zone Europe/Lisbon');
     expect(what).toContain('High and low waters, 2027-03-27 00:00 to 2027-03-30 00:00');
     expect(units).toContain('metres above Chart Datum');
     expect(provenance).toBe('Constants: Invented test fixture');
