@@ -5,3 +5,6 @@ export * from './sky.js';
 export * from './astro.js';
 export * from './constituents.js';
 export * from './nodal.js';
+export * from './predict.js';
+export * from './extrema.js';
+export * from './analysis.js';

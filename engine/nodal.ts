@@ -71,31 +71,51 @@ export interface AstronomicalTerms {
   evaluate(t: number, V: Float64Array, f: Float64Array, u: Float64Array): void;
 }
 
+const RULE_NAMES = Object.keys(nodalRules(fundamentalArguments(0))) as NodalRule[];
+
 export function compileAstronomicalTerms(names: readonly string[]): AstronomicalTerms {
   const constituents = resolve(names);
   const n = constituents.length;
   const mult = new Float64Array(n * 6);
   const phase = new Float64Array(n);
+  // node-factor terms flattened: constituent k uses terms termStart[k] … termStart[k + 1] − 1
+  const termStart = new Int32Array(n + 1);
+  const termRule: number[] = [];
+  const termU: number[] = [];
+  const termF: number[] = [];
   constituents.forEach((c, k) => {
     for (let i = 0; i < 6; i++) mult[k * 6 + i] = c.multipliers[i]!;
     phase[k] = c.phase;
+    for (const term of c.nodal) {
+      termRule.push(RULE_NAMES.indexOf(term.rule));
+      termU.push(term.uMultiplier);
+      termF.push(term.fExponent);
+    }
+    termStart[k + 1] = termRule.length;
   });
+  const ruleF = new Float64Array(RULE_NAMES.length);
+  const ruleU = new Float64Array(RULE_NAMES.length);
   return {
     constituents,
     evaluate(t, V, f, u) {
       const a = fundamentalArguments(t);
       const rules = nodalRules(a);
-      const args = [a.T, a.s, a.h, a.p, a.N, a.pp];
+      RULE_NAMES.forEach((r, i) => {
+        ruleF[i] = rules[r].f;
+        ruleU[i] = rules[r].u;
+      });
       for (let k = 0; k < n; k++) {
-        let v = phase[k]!;
-        for (let i = 0; i < 6; i++) v += mult[k * 6 + i]! * args[i]!;
+        const m = k * 6;
+        const v =
+          phase[k]! + mult[m]! * a.T + mult[m + 1]! * a.s + mult[m + 2]! * a.h +
+          mult[m + 3]! * a.p + mult[m + 4]! * a.N + mult[m + 5]! * a.pp;
         V[k] = normalizeDegrees(v);
         let fk = 1;
         let uk = 0;
-        for (const term of constituents[k]!.nodal) {
-          const r = rules[term.rule];
-          fk *= r.f ** term.fExponent;
-          uk += term.uMultiplier * r.u;
+        for (let j = termStart[k]!; j < termStart[k + 1]!; j++) {
+          const r = termRule[j]!;
+          for (let e = 0; e < termF[j]!; e++) fk *= ruleF[r]!;
+          uk += termU[j]! * ruleU[r]!;
         }
         f[k] = fk;
         u[k] = uk;
