@@ -1,0 +1,106 @@
+import { HtmlValidate } from 'html-validate';
+import { describe, expect, it } from 'vitest';
+import { analyseRecord } from '../../engine/analysis/harmonic.js';
+import { compilePredictor } from '../../engine/predict.js';
+import type { ReferenceStation } from '../../engine/types.js';
+import { renderAnalysisReport, type ReportStation } from '../../templates/report/analysis-report.js';
+import { niceTicks } from '../../templates/report/chart.js';
+import { escapeHtml } from '../../templates/report/escape.js';
+import { DAY, degrade, evenTimes, recordOf } from '../fixtures/analysis-records.js';
+
+const START = Date.UTC(2027, 0, 1);
+// Invented constants, realistic in magnitude.
+const station: ReferenceStation = {
+  id: 'report-quay', name: 'Report Quay (invented)', kind: 'reference', position: { latitude: 50.1, longitude: -4.9 },
+  timezone: 'Europe/Lisbon', datum: 'Chart Datum', mean_level: 2.4,
+  constituents: {
+    M2: { amplitude: 1.6, phase: 135 }, S2: { amplitude: 0.55, phase: 178 }, N2: { amplitude: 0.3, phase: 117 },
+    K1: { amplitude: 0.08, phase: 101 }, O1: { amplitude: 0.07, phase: 332 }, M4: { amplitude: 0.1, phase: 47 },
+  },
+  provenance: 'Invented for the report test',
+};
+
+function analysis(days: number, stepMinutes: number) {
+  const step = stepMinutes * 60_000;
+  const count = Math.floor((days * DAY) / step) + 1;
+  const clean = recordOf(evenTimes(START, step, count), compilePredictor(station).heights(START, step, count), 'quay <gauge>.csv');
+  return analyseRecord(degrade(clean, { sigma: 0.03, seed: 2, blockFrom: START + 10 * DAY, blockTo: START + 12 * DAY }));
+}
+
+const hostile: ReportStation = {
+  id: 'report-quay', name: 'Quay <script>alert("x")</script> & Sons', latitude: 50.1, longitude: -4.9,
+  timezone: 'Europe/Lisbon', datum: 'Gauge "zero"',
+};
+
+describe('renderAnalysisReport', () => {
+  const month = analysis(32, 10);
+  const html = renderAnalysisReport(month, hostile);
+
+  it('is valid HTML with lang set and no scripts', async () => {
+    const validator = new HtmlValidate({
+      extends: ['html-validate:recommended'],
+      // SVG shapes are written self-closed (HTML allows it for foreign elements); the title carries the
+      // station name, whose length the user sets.
+      rules: { 'void-style': 'off', 'long-title': 'off' },
+    });
+    const report = await validator.validateString(html);
+    const problems = report.results.flatMap((r) => r.messages.map((m) => `${m.line}:${m.column} ${m.ruleId} ${m.message}`));
+    expect(problems).toEqual([]);
+    expect(html).toMatch(/^<!DOCTYPE html>\n<html lang="en">/);
+    expect(html).not.toMatch(/<script/i);
+    expect(html).not.toMatch(/ on[a-z]+=/i);
+  });
+
+  it('escapes every text from the user', () => {
+    expect(html).toContain('Quay &lt;script&gt;alert(&quot;x&quot;)&lt;/script&gt; &amp; Sons');
+    expect(html).toContain('quay &lt;gauge&gt;.csv');
+    expect(html).toContain('Gauge &quot;zero&quot;');
+    expect(escapeHtml(`<a href='x'>&</a>`)).toBe('&lt;a href=&#39;x&#39;&gt;&amp;&lt;/a&gt;');
+  });
+
+  it('shows the record, the fit and the residual as SVG', () => {
+    expect(html.match(/<svg /g)?.length).toBe(3);
+    expect(html).toContain('<path class="observed"');
+    expect(html).toContain('<path class="fitted"');
+    expect(html).toContain('<path class="residual"');
+    // The two-day hole shows as a break: the record's path starts a new piece after it
+    const recordPath = /<path class="observed" d="([^"]+)"/.exec(html)![1]!;
+    expect(recordPath.match(/M/g)!.length).toBe(2);
+  });
+
+  it('lists the constants with their intervals, as analysed', () => {
+    const m2 = month.constituents.find((c) => c.name === 'M2')!;
+    expect(html).toContain(`<th scope="row">M2</th><td>28.9841042</td><td>${m2.amplitude.toFixed(4)}</td>` +
+      `<td>${m2.amplitudeError.toFixed(4)}</td><td>${m2.phase.toFixed(2)}</td><td>${m2.phaseError.toFixed(2)}</td>`);
+    expect(html).toContain(`Mean level Z0 = ${month.meanLevel.toFixed(4)} m`);
+  });
+
+  it('lists what the record could not separate, with the record length needed', () => {
+    expect(html).toMatch(/<th scope="row">K2<\/th><td>S2<\/td><td>182\.6<\/td>/); // REFERENCE-VALUES §5
+    expect(html).toMatch(/<th scope="row">P1<\/th><td>K1<\/td><td>182\.6<\/td>/);
+    expect(html).toMatch(/<th scope="row">Sa<\/th><td>the mean level<\/td>/);
+  });
+
+  it('gives the residual statistics and the caution', () => {
+    expect(html).toContain(`<dt>RMS of the residual</dt><dd>${month.residual.rms.toFixed(3)} m</dd>`);
+    expect(html).toContain('Variance explained by the fit');
+    expect(html).toContain('Constants from a short record are less reliable.');
+    expect(html).toContain('Astronomical predictions only.');
+    expect(html).toContain('defer to the harbour authority');
+    expect(html).toContain('optimistic');
+  });
+
+  it('keeps a year of readings small by drawing each pixel column at most twice', () => {
+    const year = renderAnalysisReport(analysis(366, 60), hostile);
+    const recordPath = /<path class="observed" d="([^"]+)"/.exec(year)![1]!;
+    expect(recordPath.match(/[ML]/g)!.length).toBeLessThanOrEqual(2 * 700); // 8785 readings, 696 columns
+    expect(year.length).toBeLessThan(150_000);
+  });
+});
+
+describe('niceTicks', () => {
+  it('gives round steps of 1, 2 or 5 × 10ⁿ', () => {
+    expect(niceTicks(0, 4.2)).toEqual([0, 1, 2, 3, 4]);
+    expect(niceTicks(-0.11, 0.12)).toEqual([-0.1, -0.05, 0, 0.05, 0.1]);
+  });
+});
