@@ -8,4 +8,3 @@ export * from './nodal.js';
 export * from './predict.js';
 export * from './extrema.js';
 export * from './analysis.js';
-export * from './analysis.js';
