@@ -6,7 +6,7 @@ import { unit } from './page.js';
 import type { StationView } from './station-view.js';
 import { cautionBlock, inventedBanner } from './cover-parts.js';
 import { DARK, INK, LIGHT, MID } from './style.js';
-import { paragraph, put, putFitted, wrapLines } from './text.js';
+import { fitLines, put, putFitted } from './text.js';
 
 export interface CoverText {
   kicker: string; // the small line above the year
@@ -54,13 +54,9 @@ export function coverPage(view: StationView, text: CoverText, kind: 'cover' | 's
       put(doc, String(model.year), box.x - 3 * s, y, { font: 'bold', size: 70 * s });
       y += 38 * s;
 
-      const nameStyle = { font: 'bold' as const, size: 25 * s };
-      const lines = wrapLines(doc, view.name, nameStyle, box.width);
-      if (lines.length <= 2) {
-        for (const line of lines) { put(doc, line, box.x, y, nameStyle); y += 29 * s; }
-      } else {
-        y = paragraph(doc, view.name, box.x, y, box.width, { ...nameStyle, size: 16 * s }, 19 * s, 4) + 6 * s;
-      }
+      const name = fitLines(doc, view.name, { font: 'bold', size: 25 * s }, box.width, 3, 11 * s);
+      for (const line of name.lines) { put(doc, line, box.x, y, name.style); y += name.style.size * 1.16; }
+      y += 4 * s;
       const station = model.station;
       const kindLine = station.kind === 'secondary'
         ? `Secondary port, predicted from ${printable(model.reference?.name ?? station.reference)}`

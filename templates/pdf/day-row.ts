@@ -10,7 +10,7 @@ import type { HeightUnits } from './options.js';
 import type { StationView } from './station-view.js';
 import { FAINT, INK, MID } from './style.js';
 import type { TextStyle } from './text.js';
-import { put, putFitted } from './text.js';
+import { put, putFitted, widthOf } from './text.js';
 
 export interface RowFrame {
   cols: Columns;
@@ -25,6 +25,8 @@ export function laneBaselines(top: number, height: number): { high: number; low:
   return { high: top + height * 0.43, low: top + height * 0.84 };
 }
 
+interface LaneEntry { clock: string; offset: string | null; height: string; below: boolean }
+
 function drawLane(doc: PDFKit.PDFDocument, events: AlmanacEvent[], type: 'high' | 'low', day: DayEntry,
   f: RowFrame, baseline: number): void {
   const { lanes } = f.cols;
@@ -34,28 +36,38 @@ function drawLane(doc: PDFKit.PDFDocument, events: AlmanacEvent[], type: 'high' 
   const start = lanes.x + markSize * 0.55 + 3.5 * u;
   const slots = Math.max(3, events.length);
   const slotW = (lanes.x + lanes.w - start) / slots;
-  const crowd = Math.min(1, 3 / slots);
-  const timeStyle: TextStyle = { font: type === 'high' ? 'narrow-bold' : 'narrow', size: 9.6 * u * (0.85 + 0.15 * crowd) };
-  const heightSize = 8.6 * u * (0.85 + 0.15 * crowd);
-  const showOffset = day.offsetChange !== null;
-  events.forEach((e, i) => {
+  // on a clock-change day each time carries its own offset, so the repeated hour is never ambiguous
+  const entries: LaneEntry[] = events.map((e) => ({
+    clock: e.clock,
+    offset: day.offsetChange ? e.offset.slice(0, 3).replace('-', '\u2212') : null,
+    height: formatHeight(e.height, f.units, e.belowDatum),
+    below: e.belowDatum,
+  }));
+  const styles = (k: number) => ({
+    time: { font: type === 'high' ? 'narrow-bold' : 'narrow', size: 9.6 * u * k } as TextStyle,
+    offset: { font: 'narrow', size: 5.4 * u * k, color: MID } as TextStyle,
+    height: { font: 'narrow', size: 8.6 * u * k, color: type === 'high' ? INK : '#222222' } as TextStyle,
+    below: { font: 'narrow-bold', size: 8.9 * u * k } as TextStyle,
+    gap: 2.6 * u * k,
+  });
+  const width = (e: LaneEntry, k: number) => {
+    const st = styles(k);
+    return widthOf(doc, e.clock, st.time) + (e.offset ? widthOf(doc, e.offset, st.offset) + 1 * u * k : 0) + st.gap
+      + widthOf(doc, e.height, e.below ? st.below : st.height) + (e.below ? 6.5 * u * k : 0);
+  };
+  // shrink the whole lane if its widest entry would run into the next slot
+  const widest = Math.max(0, ...entries.map((e) => width(e, 1)));
+  const k = Math.min(1, (slotW - 3.5 * u) / Math.max(widest, 1e-9));
+  const st = styles(k);
+  entries.forEach((e, i) => {
     let x = start + i * slotW;
-    x += put(doc, e.clock, x, baseline, timeStyle);
-    if (showOffset) {
-      // on a clock-change day each time carries its own offset, so the repeated hour is never ambiguous
-      const off = e.offset.slice(0, 3).replace('-', '\u2212');
-      x += put(doc, off, x + 0.4 * u, baseline - 3.2 * u, { font: 'narrow', size: 5.4 * u, color: MID }) + 0.6 * u;
-    }
-    x += 2.6 * u;
-    const below = e.belowDatum;
-    const style: TextStyle = below
-      ? { font: 'narrow-bold', size: heightSize * 1.04 }
-      : { font: 'narrow', size: heightSize, color: type === 'high' ? INK : '#222222' };
-    const text = formatHeight(e.height, f.units, below);
-    const w = put(doc, text, x, baseline, style);
-    if (below) {
-      belowDatumMark(doc, x + w + 0.8 * u, baseline, heightSize);
-      // underline the whole reading as well: the mark survives a poor photocopy
+    x += put(doc, e.clock, x, baseline, st.time);
+    if (e.offset) x += put(doc, e.offset, x + 0.4 * u * k, baseline - 3.2 * u * k, st.offset) + 1 * u * k;
+    x += st.gap;
+    const w = put(doc, e.height, x, baseline, e.below ? st.below : st.height);
+    if (e.below) {
+      belowDatumMark(doc, x + w + 0.8 * u, baseline, 8.6 * u * k);
+      // underlined as well: the mark survives a poor photocopy
       doc.save().lineWidth(0.7 * u).moveTo(x, baseline + 1.4 * u).lineTo(x + w, baseline + 1.4 * u).stroke(INK).restore();
     }
   });

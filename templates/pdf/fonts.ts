@@ -22,8 +22,11 @@ function fontDir(): string {
 }
 
 /** Path of the font the document is created with, so pdfkit never loads its built-in default. */
+let regularPath: string | null = null;
+
 export function defaultFontPath(): string {
-  return join(fontDir(), FILES.regular);
+  regularPath ??= join(fontDir(), FILES.regular);
+  return regularPath;
 }
 
 /** Font files read once per process (pdfkit parses them per document). */
@@ -40,6 +43,31 @@ export function fontBuffers(): Record<FontName, Buffer> {
 export function registerFonts(doc: PDFKit.PDFDocument): void {
   const buffers = fontBuffers();
   for (const name of Object.keys(buffers) as FontName[]) {
-    doc.registerFont(name, buffers[name]);
+    if (name !== 'regular') doc.registerFont(name, buffers[name]);
   }
+}
+
+/**
+ * Selects a face. The regular face is the document's default, opened from its path; pdfkit keeps it
+ * under that path, and selecting it by any other key would parse the font file again on every call.
+ */
+export function useFont(doc: PDFKit.PDFDocument, name: FontName): PDFKit.PDFDocument {
+  doc.font(name === 'regular' ? defaultFontPath() : name);
+  shareLayouts(doc, name);
+  return doc;
+}
+
+// pdfkit shapes each word once per document and keeps the result on the font object. Shaping is
+// most of the cost of a book, and the result depends only on the face and the word, so all
+// documents of this process share one store per face (pdfkit 0.17 keeps it in `layoutCache`).
+const layouts = new Map<FontName, Record<string, unknown>>();
+
+interface FontWithLayouts { layoutCache?: Record<string, unknown> | null }
+
+function shareLayouts(doc: PDFKit.PDFDocument, name: FontName): void {
+  const font = (doc as unknown as { _font?: FontWithLayouts })._font;
+  if (!font || !font.layoutCache) return;
+  let store = layouts.get(name);
+  if (!store) { store = Object.create(null) as Record<string, unknown>; layouts.set(name, store); }
+  if (font.layoutCache !== store) font.layoutCache = store;
 }

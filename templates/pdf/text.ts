@@ -1,6 +1,7 @@
 // Text placed by baseline with explicit alignment, fitting and wrapping. pdfkit's own flowing text
 // adds pages when it runs past the margin; every line here is positioned by us, so it never does.
 import type { FontName } from './fonts.js';
+import { useFont } from './fonts.js';
 import { printable } from './format.js';
 
 export interface TextStyle {
@@ -12,7 +13,7 @@ export interface TextStyle {
 export type Align = 'left' | 'right' | 'center';
 
 export function widthOf(doc: PDFKit.PDFDocument, text: string, style: TextStyle): number {
-  doc.font(style.font).fontSize(style.size);
+  useFont(doc, style.font).fontSize(style.size);
   return doc.widthOfString(printable(text));
 }
 
@@ -21,7 +22,7 @@ export function put(doc: PDFKit.PDFDocument, text: string, x: number, y: number,
   align: Align = 'left'): number {
   const s = printable(text);
   if (s.length === 0) return 0;
-  doc.font(style.font).fontSize(style.size).fillColor(style.color ?? '#000000');
+  useFont(doc, style.font).fontSize(style.size).fillColor(style.color ?? '#000000');
   const w = doc.widthOfString(s);
   const left = align === 'left' ? x : align === 'right' ? x - w : x - w / 2;
   doc.text(s, left, y, { lineBreak: false, baseline: 'alphabetic' });
@@ -88,4 +89,26 @@ export function paragraph(doc: PDFKit.PDFDocument, text: string, x: number, y: n
   let yy = y;
   for (const line of shown) { put(doc, line, x, yy, style); yy += leading; }
   return yy;
+}
+
+/**
+ * The largest size (from style.size down to minSize) at which the text wraps into at most maxLines
+ * without breaking a word; at the minimum size words may break and extra lines are clipped.
+ */
+export function fitLines(doc: PDFKit.PDFDocument, text: string, style: TextStyle, width: number, maxLines: number,
+  minSize: number): { style: TextStyle; lines: string[] } {
+  const words = printable(text).split(/\s+/).filter(Boolean);
+  for (let size = style.size; size > minSize; size *= 0.94) {
+    const st = { ...style, size };
+    if (words.some((w) => widthOf(doc, w, st) > width)) continue;
+    const lines = wrapLines(doc, text, st, width);
+    if (lines.length <= maxLines) return { style: st, lines };
+  }
+  const st = { ...style, size: minSize };
+  const lines = wrapLines(doc, text, st, width);
+  if (lines.length > maxLines) {
+    lines.length = maxLines;
+    lines[maxLines - 1] = clipText(doc, `${lines[maxLines - 1]} …`, st, width);
+  }
+  return { style: st, lines };
 }

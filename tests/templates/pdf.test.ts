@@ -1,0 +1,202 @@
+// The printed tide book, read back from the PDF: every event of a month as the model has it, fonts
+// embedded, page count and imposition, byte-identical rebuilds, feet, and hostile station names.
+import { execFileSync } from 'node:child_process';
+import { existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { AlmanacEvent, StationYear } from '../../engine/types.js';
+import { renderCombinedBook, renderStationBook } from '../../templates/pdf/book.js';
+import { sampleYear } from '../fixtures/sample-year.js';
+
+const POPPLER = ['pdftotext', 'pdffonts', 'pdfinfo'].every((t) => existsSync(`/usr/bin/${t}`));
+if (!POPPLER) console.warn('poppler-utils (pdftotext, pdffonts, pdfinfo) not found in /usr/bin: PDF text and font checks are SKIPPED');
+
+let dir = '';
+const write = (name: string, buf: Buffer) => { const p = join(dir, name); writeFileSync(p, buf); return p; };
+const run = (cmd: string, args: string[]) => execFileSync(cmd, args, { encoding: 'utf8', maxBuffer: 64 << 20 });
+/** Text of each page (pdftotext separates pages with form feeds). */
+const pagesText = (file: string) => run('pdftotext', ['-layout', file, '-']).split('\f');
+const pageCount = (buf: Buffer) => (buf.toString('latin1').match(/\/Type \/Page\n/g) ?? []).length;
+
+/** Heights as a reader sees them, written here independently of the renderer: cm or tenths of a foot, true minus. */
+function printed(e: AlmanacEvent, units: 'm' | 'ft'): string {
+  const v = units === 'ft' ? e.height / 0.3048 : e.height;
+  const s = Math.abs(v).toFixed(units === 'ft' ? 1 : 2);
+  return e.belowDatum ? `\u2212${s}` : s;
+}
+
+/** All "clock height" pairs in the text (a clock-change day adds a small offset such as +01 after the clock). */
+function pairs(text: string, units: 'm' | 'ft'): string[] {
+  const re = units === 'ft'
+    ? /(\d\d:\d\d)(?:\s*[+\u2212]\d\d)?\s+(\u2212?\d+\.\d)(?!\d)/g
+    : /(\d\d:\d\d)(?:\s*[+\u2212]\d\d)?\s+(\u2212?\d+\.\d\d)(?!\d)/g;
+  return [...text.matchAll(re)].map((m) => `${m[1]} ${m[2]}`).sort();
+}
+
+function monthEvents(model: StationYear, month: number, units: 'm' | 'ft'): string[] {
+  const mm = String(month).padStart(2, '0');
+  return model.events.filter((e) => e.local.slice(5, 7) === mm).map((e) => `${e.clock} ${printed(e, units)}`).sort();
+}
+
+/** The model with every height lowered, so some low waters fall below chart datum. */
+function lowered(model: StationYear, by: number): StationYear {
+  const m = structuredClone(model);
+  const drop = (e: AlmanacEvent) => {
+    e.height = Math.round((e.height - by) * 1000) / 1000;
+    e.belowDatum = e.height < 0;
+  };
+  m.events.forEach(drop);
+  for (const d of m.days) { d.events.forEach(drop); d.curve = d.curve.map((h) => h - by); }
+  return m;
+}
+
+const model = sampleYear(2027);
+// A5 book: cover, facts, caution, two facing pages per month, the year overview
+const expectedPages = 3 + 2 * model.months.length + 1;
+let book: Buffer;
+let bookFile: string;
+
+beforeAll(async () => {
+  dir = mkdtempSync(join(tmpdir(), 'tidewright-pdf-'));
+  book = await renderStationBook(model, { units: 'm', page: 'a5', publisher: 'Test Harbour Office' });
+  bookFile = write('book.pdf', book);
+});
+afterAll(() => { if (dir) rmSync(dir, { recursive: true, force: true }); });
+
+describe('station book (A5, metres)', () => {
+  it('has cover, facts, caution, two pages per month and the year overview', () => {
+    expect(pageCount(book)).toBe(expectedPages);
+  });
+
+  it('is byte-identical when rendered again, with fixed dates from the model year', async () => {
+    const again = await renderStationBook(model, { units: 'm', page: 'a5', publisher: 'Test Harbour Office' });
+    expect(again.equals(book)).toBe(true);
+    if (POPPLER) {
+      const info = run('pdfinfo', [bookFile]);
+      expect(info).toMatch(/CreationDate:\s+\w+ Jan\s+1 00:00:00 2027 UTC/);
+      expect(info).toMatch(/ModDate:\s+\w+ Jan\s+1 00:00:00 2027 UTC/);
+    }
+  });
+
+  it.skipIf(!POPPLER)('embeds every font and uses no standard PDF font', () => {
+    const rows = run('pdffonts', [bookFile]).trim().split('\n').slice(2);
+    expect(rows.length).toBeGreaterThan(0);
+    for (const row of rows) {
+      expect(row).toMatch(/DejaVu/);
+      expect(row).toMatch(/\byes\s+yes\s+yes\b/); // emb sub uni
+    }
+    expect(run('pdffonts', [bookFile])).not.toMatch(/Helvetica|Times|Courier|Symbol|ZapfDingbats/);
+  });
+
+  it.skipIf(!POPPLER)('prints the months in order, each on two facing pages (even page first)', () => {
+    const pages = pagesText(bookFile);
+    model.months.forEach((m, i) => {
+      const left = pages[3 + 2 * i];
+      const right = pages[4 + 2 * i];
+      expect(left).toContain(`${m.name} ${model.year}`);
+      expect(left).toContain(`days 1\u2013${Math.ceil(m.dayCount / 2)} of ${m.dayCount}`);
+      expect(right).toContain(`${m.name} ${model.year}`);
+      expect(right).toContain(`of ${m.dayCount}`);
+    });
+  });
+
+  it.skipIf(!POPPLER)('prints every high and low water of March and October with its local clock time and height', () => {
+    const pages = pagesText(bookFile);
+    for (const month of [3, 10]) {
+      const text = pages[3 + 2 * (month - 1)] + pages[4 + 2 * (month - 1)];
+      const expected = monthEvents(model, month, 'm');
+      expect(expected.length).toBeGreaterThan(100);
+      expect(pairs(text, 'm')).toEqual(expected);
+    }
+  });
+
+  it.skipIf(!POPPLER)('marks each clock change on its day and states the month\u2019s UTC offsets', () => {
+    const pages = pagesText(bookFile);
+    expect(model.offsetChanges.length).toBe(2);
+    for (const change of model.offsetChanges) {
+      const day = model.days.find((d) => d.offsetChange?.time === change.time)!;
+      const page = pages[3 + 2 * (day.month - 1) + (day.dayOfMonth > 16 ? 1 : 0)];
+      expect(page).toContain(change.note);
+      expect(page).toContain(`UTC${change.to}`);
+    }
+    expect(pages[3]).toContain('All times UTC+00:00');
+  });
+
+  it.skipIf(!POPPLER)('carries the caution and the invented-data notice on every page', () => {
+    const pages = pagesText(bookFile).filter((p) => p.trim().length > 0);
+    expect(pages.length).toBe(expectedPages);
+    for (const p of pages) {
+      const flat = p.replace(/\s+/g, ' ');
+      expect(flat).toContain('Astronomical predictions only');
+      expect(flat).toContain('INVENTED DATA');
+    }
+    expect(pages[0].replace(/\s+/g, ' ')).toContain(model.caution);
+  });
+});
+
+describe('station book in feet, with a hostile name and water below chart datum', () => {
+  const name = '<script>alert("x")</script> & Ørsted\nBay \u00d1';
+  const low = lowered(sampleYear(2027, { name }), 0.3);
+  let file = '';
+  beforeAll(async () => { file = write('feet.pdf', await renderStationBook(low, { units: 'ft', page: 'a5' })); });
+
+  it.skipIf(!POPPLER)('prints the name as plain text, control characters removed', () => {
+    const pages = pagesText(file);
+    const shown = '<script>alert("x")</script> & Ørsted Bay \u00d1';
+    expect(pages[0].replace(/\s+/g, ' ')).toContain(shown); // the cover may wrap it over two lines
+    expect(pages[3]).toContain(shown);
+  });
+
+  it.skipIf(!POPPLER)('prints heights in feet, those below chart datum with a minus sign', () => {
+    const pages = pagesText(file);
+    const text = pages[3] + pages[4];
+    const expected = monthEvents(low, 1, 'ft');
+    expect(expected.some((e) => e.includes('\u2212'))).toBe(true);
+    expect(pairs(text, 'ft')).toEqual(expected);
+    expect(pages[3]).toContain('heights in feet above Chart Datum');
+  });
+});
+
+describe('saddle-stitched book', () => {
+  it.skipIf(!POPPLER)('prints two pages per A4 side, sheets × 2 sides, outer sheet first', async () => {
+    const imposed = await renderStationBook(model, { units: 'm', page: 'a5', imposition: 'saddle-stitch' });
+    const sheets = Math.ceil(expectedPages / 4);
+    expect(pageCount(imposed)).toBe(sheets * 2);
+    const file = write('imposed.pdf', imposed);
+    expect(run('pdfinfo', [file])).toMatch(/Page size:\s+841\.89 x 595\.276 pts/);
+    // text of the left and right half of a sheet side (pdftotext crops in points at 72 dpi)
+    const half = (page: number, right: boolean) => run('pdftotext', ['-layout', '-f', String(page), '-l', String(page),
+      '-x', right ? '421' : '0', '-y', '0', '-W', '421', '-H', '596', file, '-']);
+    const n = sheets * 4;
+    expect(half(1, true)).toContain('TIDE PREDICTIONS'); // page 1, the cover
+    expect(half(1, false)).toContain(n === expectedPages ? 'at a glance' : 'Notes'); // page n
+    expect(half(2, false)).toContain('Station facts'); // page 2
+    expect(half(2, true)).toMatch(new RegExp(n - 1 === expectedPages ? 'at a glance' : n - 1 === expectedPages - 1 ? 'December' : 'Notes'));
+    expect(half(3, true)).toContain('Caution'); // page 3 on the second sheet's front
+  });
+});
+
+describe('combined book', () => {
+  it.skipIf(!POPPLER)('lists every station on the contents page with the page its section starts on', async () => {
+    const second = sampleYear(2027, { id: 'second-quay', name: 'Second Quay (invented)',
+      position: { latitude: -41.3, longitude: 174.8 }, timezone: 'Pacific/Auckland' });
+    const buf = await renderCombinedBook([model, second], { units: 'm', page: 'a5', title: 'Club tide book' });
+    const file = write('combined.pdf', buf);
+    const pages = pagesText(file);
+    expect(pages[0]).toContain('Club tide book');
+    for (const st of [model, second]) {
+      const line = pages[1].split('\n').find((l) => l.includes(st.station.name))!;
+      const page = Number(line.trim().split(/\s+/).pop());
+      expect(pages[page - 1]).toContain(st.station.name);
+      expect(pages[page]).toContain('Station facts');
+    }
+    expect(pageCount(buf)).toBe(pages.filter((p) => p.trim()).length);
+  });
+});
+
+describe('options', () => {
+  it('refuses a page size it does not know', async () => {
+    await expect(renderStationBook(model, { units: 'm', page: 'b5' as 'a5' })).rejects.toThrow(/page size "b5"/);
+  });
+});
