@@ -2,9 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { RecordFileError } from '../../engine/errors.js';
 import { CONSTITUENT_NAMES } from '../../engine/constituents.js';
 import { analyseRecord, type HarmonicAnalysis } from '../../engine/analysis/harmonic.js';
-import {
-  ephemeris, equilibriumHeights, expectedEquilibriumConstant, type Ephemeris,
-} from '../fixtures/analysis-equilibrium.js';
+import { expectedEquilibriumConstant } from '../fixtures/analysis-equilibrium.js';
+import { equilibriumTide, hourlyEphemeris, type Ephemeris } from '../fixtures/engine-equilibrium.js';
 import { DAY, HOUR, degrade, evenTimes, gaussian, recordOf, seededRandom } from '../fixtures/analysis-records.js';
 
 const START = Date.UTC(2026, 0, 1);
@@ -16,18 +15,18 @@ const constituent = (a: HarmonicAnalysis, name: string) => {
 };
 
 // The strongest outside check: a year of the equilibrium tide computed from astronomy-engine's Moon and
-// Sun (Laplace's degree-2 formula, tests/fixtures/analysis-equilibrium.ts), with 1 cm of noise, a
+// Sun (Laplace's degree-2 formula, tests/fixtures/engine-equilibrium.ts), with 1 cm of noise, a
 // 10-day hole and 5 % of the hours dropped, must give back the equilibrium constants of
 // REFERENCE-VALUES §4 (Cartwright and Tayler 1971, from memory) × the latitude factor, g = −k·λ.
 describe('analysis of the equilibrium tide from astronomy-engine (REFERENCE-VALUES §4)', () => {
   let eph: Ephemeris | undefined;
-  const year = (): Ephemeris => (eph ??= ephemeris(evenTimes(START, HOUR, 366 * 24 + 1)));
+  const year = (): Ephemeris => (eph ??= hourlyEphemeris(START, 366 * 24 + 1));
 
   it.each([
     ['40°N 30°W', 40, -30, 11],
     ['35°S 150°E (diurnal factor negative: g = −λ + 180°)', -35, 150, 12],
   ])('%s: amplitudes within 3 %, phases within 3° for M2, S2, N2, K2, K1, O1, P1, Q1', (_, lat, lon, seed) => {
-    const clean = recordOf(year().times, equilibriumHeights(year(), lat, lon));
+    const clean = recordOf(evenTimes(START, HOUR, year().hours), equilibriumTide(year(), lat, lon));
     const record = degrade(clean, { sigma: 0.01, seed, dropShare: 0.05, blockFrom: START + 100 * DAY, blockTo: START + 110 * DAY });
     const a = analyseRecord(record);
     for (const name of ['M2', 'S2', 'N2', 'K2', 'K1', 'O1', 'P1', 'Q1']) {
