@@ -117,8 +117,22 @@ async function dispatch(argv: readonly string[]): Promise<number> {
   return (await loadCommand(commandName(first)))(rest);
 }
 
+let pipeGuarded = false;
+
+/** A reader that stops early (`| head`) closes the pipe: stop quietly instead of a stack trace. */
+function guardClosedPipe(): void {
+  if (pipeGuarded) return;
+  pipeGuarded = true;
+  process.stdout.on('error', (error: NodeJS.ErrnoException) => {
+    if (error.code === 'EPIPE') process.exit(process.exitCode ?? 0);
+    process.stderr.write(`tidewright: cannot write the output: ${error.message}\n`);
+    process.exit(2);
+  });
+}
+
 /** Runs the command line (without `node` and the script) and returns the exit code. */
 export async function main(argv: readonly string[]): Promise<number> {
+  guardClosedPipe();
   try {
     return await dispatch(argv);
   } catch (error) {

@@ -52,6 +52,8 @@ function referenceSuspicions(station: ReferenceStation): StationFileError[] {
       );
     }
   }
+  // An amplitude off by a factor of 100 would only echo here as a datum 160 m out: say it once.
+  if (problems.some((p) => p.field.endsWith('.amplitude'))) return problems;
   const lowest = lowestOfYear(station);
   // Chart datum is meant to sit at or just below the lowest tide: Z0 that puts it 0.05 m below.
   const suggested = fmt(station.mean_level - lowest + 0.05);
@@ -110,7 +112,8 @@ function secondarySuspicions(station: SecondaryStation, reference: ReferenceStat
   // The reference port's mean low water springs, Z0 − (M2 + S2), shifted by the secondary's difference.
   const refSpringLow = reference.mean_level - (amp(reference, 'M2') + amp(reference, 'S2'));
   const springLow = refSpringLow + station.differences.low_water.springs.height;
-  if (springLow < -DATUM_ABOVE_LOWS_TOLERANCE) {
+  // Only when the reference port's own MLWS is above its datum is the difference to blame.
+  if (refSpringLow >= 0 && springLow < -DATUM_ABOVE_LOWS_TOLERANCE) {
     problems.push(
       new StationFileError(
         file,
