@@ -58,6 +58,16 @@ function loadStation(args: AlmanacArgs): { station: Station; set: { byId: Readon
   return { station, set };
 }
 
+// `tidewright almanac … | head` closes the pipe early: stop quietly instead of an unhandled EPIPE.
+let pipeGuarded = false;
+function ignoreClosedPipe(): void {
+  if (pipeGuarded) return;
+  pipeGuarded = true;
+  process.stdout.on('error', (error: NodeJS.ErrnoException) => {
+    if (error.code !== 'EPIPE') throw error;
+  });
+}
+
 export async function runAlmanac(argv: readonly string[]): Promise<number> {
   const args = parseAlmanacArgs(argv);
   if (args === 'help') {
@@ -66,6 +76,7 @@ export async function runAlmanac(argv: readonly string[]): Promise<number> {
   }
   const { station, set } = loadStation(args);
   const model = buildStationYear(station, set, args.year);
+  ignoreClosedPipe();
   process.stdout.write(args.format === 'json' ? `${JSON.stringify(model)}\n` : summary(model));
   return 0;
 }

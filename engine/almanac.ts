@@ -8,9 +8,9 @@ import { generator } from './almanac/generator.js';
 import { lowWaterBelowLat, stationDatums } from './datums.js';
 import { UsageError } from './errors.js';
 import {
-  clock, dayIndexOf, isoLocal, isoUtc, localDate, localDays, type LocalDay,
+  clock, dayIndexOf, isoLocal, isoUtc, localDate, localDays, parseDateInZone, type LocalDay,
 } from './localtime.js';
-import { moonQuarters, skyForDays, type MoonQuarter } from './sky.js';
+import { moonQuarters, skyForDays, type DaySpan, type MoonQuarter } from './sky.js';
 import { dayRange, springNeapMarkers } from './springneap.js';
 import {
   cosineCurve, harmonicStationOf, predictorFor, tideEvents, type StationLookup,
@@ -43,10 +43,7 @@ export function buildStationYear(
   const zone = station.timezone;
   const reference = harmonicStationOf(station, set);
   const days = localDays(year, zone);
-  const padDays: LocalDay[] = [
-    ...localDays(year - 1, zone).slice(-SPRING_NEAP_PAD_DAYS), ...days,
-    ...localDays(year + 1, zone).slice(0, SPRING_NEAP_PAD_DAYS),
-  ];
+  const padDays: DaySpan[] = [...paddingDays(year, zone, -1), ...days, ...paddingDays(year, zone, 1)];
   const yearStart = days[0]!.start;
   const yearEnd = days[days.length - 1]!.end;
 
@@ -106,6 +103,17 @@ export function buildStationYear(
   };
 }
 
+// The SPRING_NEAP_PAD_DAYS local days before (-1) or after (+1) the year, as bare spans.
+function paddingDays(year: number, zone: string, side: -1 | 1): DaySpan[] {
+  const dates: string[] = [];
+  for (let i = 0; i <= SPRING_NEAP_PAD_DAYS; i++) {
+    const first = side < 0 ? Date.UTC(year, 0, 1 - SPRING_NEAP_PAD_DAYS) : Date.UTC(year + 1, 0, 1);
+    dates.push(new Date(first + i * DAY).toISOString().slice(0, 10));
+  }
+  const starts = dates.map((d) => parseDateInZone(d, zone));
+  return dates.slice(0, -1).map((date, i) => ({ date, start: starts[i]!, end: starts[i + 1]! }));
+}
+
 // A deep copy as loaded, its source path cut to the file name (no machine paths in published data).
 function modelStation(station: Station): Station {
   const copy = structuredClone(station);
@@ -133,7 +141,7 @@ function yearQuarters(quarters: readonly MoonQuarter[], days: readonly LocalDay[
 }
 
 function springNeapEntries(
-  events: readonly TideEvent[], padDays: readonly LocalDay[], days: readonly LocalDay[],
+  events: readonly TideEvent[], padDays: readonly DaySpan[], days: readonly LocalDay[],
   quarters: readonly MoonQuarter[], ageHours: number,
 ): SpringNeapEntry[] {
   const first = days[0]!.date;

@@ -1,6 +1,7 @@
 // Tidal datums of a station: LAT and HAT from 19 years of predicted high and low waters, the mean
 // spring and neap levels from the constants, the tide type from the form number, the age of the tide.
 import { DEFAULT_DATUM_EPOCH } from './stations/schema.js';
+import { secondaryEventsFrom, secondaryPaddingMs } from './secondary.js';
 import { harmonicStationOf, tideEvents, type StationLookup } from './tides.js';
 import type {
   ConstituentConstant, Datums, ReferenceStation, SecondaryStation, Station, TideEvent, TideType,
@@ -9,6 +10,7 @@ import type {
 // At least one nodal cycle of 18.61 years (IHO resolution on chart datum, from memory).
 export const DATUM_EPOCH_YEARS = 19;
 
+const DAY = 86_400_000;
 // Speeds of M2 and S2 in degrees per hour (Schureman 1958, Table 2).
 const SPEED_M2 = 28.9841042;
 const SPEED_S2 = 30;
@@ -120,9 +122,37 @@ export function stationDatums(station: Station, set: StationLookup): DatumSummar
   return summary;
 }
 
+// The reference port's events over an epoch and a few days either side, kept so that its secondary
+// ports reuse them instead of predicting the same 19 years again.
+const EPOCH_PAD = 3 * DAY;
+const epochEvents = new WeakMap<ReferenceStation, Map<number, TideEvent[]>>();
+
+function referenceEpochEvents(reference: ReferenceStation, set: StationLookup, from: number): TideEvent[] {
+  let byEpoch = epochEvents.get(reference);
+  if (!byEpoch) epochEvents.set(reference, (byEpoch = new Map()));
+  let events = byEpoch.get(from);
+  if (!events) {
+    const start = Date.UTC(from, 0, 1);
+    const end = Date.UTC(from + DATUM_EPOCH_YEARS, 0, 1);
+    events = tideEvents(reference, set, start - EPOCH_PAD, end + EPOCH_PAD);
+    byEpoch.set(from, events);
+  }
+  return events;
+}
+
+/** Every high and low water of a station over its datum epoch (secondary ports: their own events). */
+export function epochTideEvents(station: Station, set: StationLookup): TideEvent[] {
+  const epoch = datumEpoch(station);
+  const inEpoch = (e: TideEvent) => e.time >= epoch.start && e.time < epoch.end;
+  if (station.kind === 'reference') return referenceEpochEvents(station, set, epoch.from).filter(inEpoch);
+  if (secondaryPaddingMs(station) > EPOCH_PAD) return tideEvents(station, set, epoch.start, epoch.end);
+  const reference = harmonicStationOf(station, set);
+  return secondaryEventsFrom(referenceEpochEvents(reference, set, epoch.from), reference, station).filter(inEpoch);
+}
+
 function computeDatums(station: Station, reference: ReferenceStation, set: StationLookup): DatumSummary {
   const epoch = datumEpoch(station);
-  const { LAT, HAT } = astronomicalExtremes(tideEvents(station, set, epoch.start, epoch.end));
+  const { LAT, HAT } = astronomicalExtremes(epochTideEvents(station, set));
   const levels = station.kind === 'reference' ? harmonicLevels(station) : secondaryLevels(reference, station);
   const datums: Datums = {
     LAT: mm(LAT), HAT: mm(HAT),

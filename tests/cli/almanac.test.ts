@@ -1,0 +1,100 @@
+// `tidewright almanac`: the command prints the engine's model (json) or a summary (table) and
+// turns bad input into one line and exit code 1. The model itself is tested in tests/engine/almanac.
+import { cpSync, mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterAll, afterEach, describe, expect, it, vi } from 'vitest';
+import { main } from '../../cli/main.js';
+import { buildStationYear } from '../../engine/almanac.js';
+import { loadStationSet } from '../../engine/stations.js';
+import type { StationYear } from '../../engine/types.js';
+
+const ROOT = join(import.meta.dirname, '..', '..');
+const DEMO = join(ROOT, 'stations-demo');
+
+async function runCli(argv: string[]): Promise<{ code: number; stdout: string; stderr: string }> {
+  let stdout = '';
+  let stderr = '';
+  const out = vi.spyOn(process.stdout, 'write').mockImplementation((chunk: string | Uint8Array) => {
+    stdout += String(chunk);
+    return true;
+  });
+  const err = vi.spyOn(process.stderr, 'write').mockImplementation((chunk: string | Uint8Array) => {
+    stderr += String(chunk);
+    return true;
+  });
+  try {
+    return { code: await main(argv), stdout, stderr };
+  } finally {
+    out.mockRestore();
+    err.mockRestore();
+  }
+}
+
+afterEach(() => vi.restoreAllMocks());
+
+const scratch = mkdtempSync(join(tmpdir(), 'tidewright-almanac-'));
+afterAll(() => rmSync(scratch, { recursive: true, force: true }));
+
+describe('almanac --format json', () => {
+  it('prints exactly the engine model of a secondary port, found through its own folder', async () => {
+    const { code, stdout, stderr } = await runCli(['almanac', join(DEMO, 'pilchard-cove.yaml'), '--year', '2027', '--format', 'json']);
+    expect(stderr).toBe('');
+    expect(code).toBe(0);
+    const printed = JSON.parse(stdout) as StationYear;
+    const set = loadStationSet(DEMO);
+    const model = buildStationYear(set.byId.get('pilchard-cove')!, set, 2027);
+    expect(printed).toEqual(JSON.parse(JSON.stringify(model)));
+    expect(printed.reference).toEqual({ id: 'gannet-head', name: 'Gannet Head (invented)' });
+    expect(printed.events[0]).toEqual(model.events[0]);
+    expect(Object.keys(printed.events[0]!)).toEqual(['time', 'local', 'clock', 'offset', 'type', 'height', 'belowDatum']);
+  });
+
+  it('finds the reference port through --stations when the file stands alone', async () => {
+    cpSync(join(DEMO, 'limpet-harbour.yaml'), join(scratch, 'limpet-harbour.yaml'));
+    const alone = await runCli(['almanac', join(scratch, 'limpet-harbour.yaml'), '--year', '2027', '--format', 'json']);
+    expect(alone.code).toBe(1);
+    expect(alone.stderr).toMatch(/^tidewright: .*limpet-harbour\.yaml: reference: .*gannet-head/);
+    expect(alone.stderr.trim().split('\n').length).toBe(1);
+    const found = await runCli(['almanac', join(scratch, 'limpet-harbour.yaml'), '--year', '2027', '--stations', DEMO, '--format', 'json']);
+    expect(found.stderr).toBe('');
+    expect(found.code).toBe(0);
+    expect((JSON.parse(found.stdout) as StationYear).reference?.id).toBe('gannet-head');
+  });
+});
+
+describe('almanac table and errors', () => {
+  it('prints a short summary with datums, months, warnings and the caution', async () => {
+    const { code, stdout } = await runCli(['almanac', join(DEMO, 'gannet-head.yaml'), '--year', '2027']);
+    expect(code).toBe(0);
+    expect(stdout).toMatch(/Gannet Head \(invented\).*2027.*Europe\/Lisbon.*INVENTED/);
+    expect(stdout).toMatch(/LAT -?\d+\.\d\d m/);
+    expect(stdout).toMatch(/^January +\d+ +\d+/m);
+    expect(stdout).toMatch(/^December +\d+ +\d+/m);
+    expect(stdout).toMatch(/Clocks go back/);
+    expect(stdout).toMatch(/Caution: Astronomical predictions only/);
+  });
+
+  it('answers bad input with one line and exit code 1', async () => {
+    const cases: [string[], RegExp][] = [
+      [['almanac', join(DEMO, 'nowhere.yaml')], /nowhere\.yaml: \(file\): does not exist/],
+      [['almanac', join(DEMO, 'gannet-head.yaml'), '--year', '27'], /--year: "27" is not a year/],
+      [['almanac', join(DEMO, 'gannet-head.yaml'), '--format', 'csv'], /--format/],
+      [['almanac', join(DEMO, 'gannet-head.yaml'), '--yeer', '2027'], /did you mean --year/],
+      [['almanac'], /STATION\.yaml: is missing/],
+    ];
+    for (const [argv, pattern] of cases) {
+      const { code, stdout, stderr } = await runCli(argv);
+      expect(code).toBe(1);
+      expect(stdout).toBe('');
+      expect(stderr).toMatch(pattern);
+      expect(stderr.trim().split('\n').length).toBe(1);
+    }
+  });
+
+  it('has help', async () => {
+    const { code, stdout } = await runCli(['almanac', '--help']);
+    expect(code).toBe(0);
+    expect(stdout).toMatch(/tidewright almanac STATION\.yaml/);
+  });
+});
