@@ -1,0 +1,81 @@
+// Benchmark of the datums: LAT and HAT over the 19-year epoch of a 60-constituent station from the
+// high/low water search, against 1-minute sampling with direct cosines over the same span (target
+// ≥ 30×). The sampling is timed over one year and scaled by 19 (19 years of it would take minutes).
+import { findConstituent } from '../../engine/constituents.js';
+import { datumEpoch, stationDatums } from '../../engine/datums.js';
+import { compileAstronomicalTerms } from '../../engine/nodal.js';
+import type { ReferenceStation } from '../../engine/types.js';
+import { sixtyConstituentStation } from '../fixtures/engine-stations.js';
+
+const DAY = 86_400_000;
+const DEG = Math.PI / 180;
+const RUNS = 5;
+
+/** Lowest and highest of 1-minute direct cosine sums (f, u, V₀ refreshed at each UTC midnight). */
+function sampledExtremes(station: ReferenceStation, start: number, days: number): { low: number; high: number } {
+  const names = Object.keys(station.constituents);
+  const n = names.length;
+  const terms = compileAstronomicalTerms(names);
+  const H = Float64Array.from(names, (k) => station.constituents[k]!.amplitude);
+  const g = Float64Array.from(names, (k) => station.constituents[k]!.phase);
+  const omegaPerMinute = Float64Array.from(names, (k) => (findConstituent(k)!.speed * DEG) / 60);
+  const V = new Float64Array(n);
+  const f = new Float64Array(n);
+  const u = new Float64Array(n);
+  const amplitude = new Float64Array(n);
+  const phase = new Float64Array(n);
+  let low = Infinity;
+  let high = -Infinity;
+  for (let d = 0; d < days; d++) {
+    terms.evaluate(start + d * DAY, V, f, u);
+    for (let k = 0; k < n; k++) {
+      amplitude[k] = f[k]! * H[k]!;
+      phase[k] = (V[k]! + u[k]! - g[k]!) * DEG;
+    }
+    for (let m = 0; m < 1440; m++) {
+      let h = station.mean_level;
+      for (let k = 0; k < n; k++) h += amplitude[k]! * Math.cos(phase[k]! + omegaPerMinute[k]! * m);
+      if (h < low) low = h;
+      if (h > high) high = h;
+    }
+  }
+  return { low, high };
+}
+
+function median(xs: number[]): number {
+  const s = [...xs].sort((a, b) => a - b);
+  return s[s.length >> 1]!;
+}
+
+export async function bench(): Promise<void> {
+  const station = sixtyConstituentStation();
+  const n = Object.keys(station.constituents).length;
+  const epoch = datumEpoch(station);
+  const set = { byId: new Map([[station.id, station]]) };
+  console.log(`datums: LAT/HAT over ${epoch.from}–${epoch.to} (19 years), ${n} constituents (${RUNS} runs each, interleaved)`);
+
+  // A fresh copy each run: datums are cached per station object.
+  const fresh = (): ReferenceStation => structuredClone(station);
+  stationDatums(fresh(), { byId: set.byId });
+  sampledExtremes(station, epoch.start, 30); // warm up
+  const extremaMs: number[] = [];
+  const sampledYearMs: number[] = [];
+  let datums = stationDatums(station, set).datums;
+  let sampled = { low: 0, high: 0 };
+  for (let r = 0; r < RUNS; r++) {
+    const copy = fresh();
+    let t0 = performance.now();
+    datums = stationDatums(copy, { byId: new Map([[copy.id, copy]]) }).datums;
+    extremaMs.push(performance.now() - t0);
+    t0 = performance.now();
+    sampled = sampledExtremes(station, Date.UTC(2034, 0, 1), 365);
+    sampledYearMs.push(performance.now() - t0);
+  }
+  const e = median(extremaMs);
+  const s = median(sampledYearMs) * 19;
+  console.log(`  high/low water search, 19 years         ${e.toFixed(0).padStart(7)} ms median (best ${Math.min(...extremaMs).toFixed(0)} ms)`);
+  console.log(`  1-minute direct sampling, 1 year × 19   ${s.toFixed(0).padStart(7)} ms (one year: ${median(sampledYearMs).toFixed(0)} ms)`);
+  console.log(`  ratio ${(s / e).toFixed(1)}× (target ≥ 30×)`);
+  console.log(`  LAT ${datums.LAT.toFixed(3)} m, HAT ${datums.HAT.toFixed(3)} m; 2034 alone sampled each minute: `
+    + `lowest ${sampled.low.toFixed(3)} m, highest ${sampled.high.toFixed(3)} m`);
+}

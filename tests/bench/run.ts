@@ -1,0 +1,18 @@
+// Runs every benchmark module in turn and prints its figures: `npm run bench` (after tsc) runs
+// dist/tests/bench/run.js. Each module exports `bench(): Promise<void>`; add yours to the list.
+import { bench as datums } from './datums.js';
+import { bench as engine } from './engine.js';
+import { bench as analysis } from './analysis.js';
+
+const BENCHMARKS: readonly (readonly [string, () => Promise<void>])[] = [
+  ['engine', engine],
+  ['analysis', analysis],
+  ['datums', datums],
+];
+
+for (const [name, bench] of BENCHMARKS) {
+  console.log(`\n=== ${name} ===`);
+  const t0 = performance.now();
+  await bench();
+  console.log(`(${name}: ${((performance.now() - t0) / 1000).toFixed(1)} s in all)`);
+}
