@@ -8,3 +8,8 @@ export * from './nodal.js';
 export * from './predict.js';
 export * from './extrema.js';
 export * from './analysis.js';
+export * from './secondary.js';
+export * from './tides.js';
+export * from './datums.js';
+export * from './springneap.js';
+export * from './almanac.js';
