@@ -1,7 +1,7 @@
 // Benchmark of the harmonic analysis (issue 7): a 1-year hourly record of an invented 60-constituent
 // port (predicted by the engine, 2 cm of noise, 5 % of the hours missing) analysed for those 60
 // constituents, and again with the Rayleigh choice. Reports time (median of a few runs) and memory:
-// heap and array-buffer growth during one analysis, and the process's peak resident size.
+// heap growth during one analysis, and the process's peak resident size (maxRSS).
 import { analyseRecord } from '../../engine/analysis/harmonic.js';
 import { compilePredictor } from '../../engine/predict.js';
 import { degrade, evenTimes, HOUR, recordOf } from '../fixtures/analysis-records.js';
@@ -61,9 +61,8 @@ export async function bench(): Promise<void> {
     console.log(`${label}: ${result.constituents.length} constituents, ${1 + 2 * result.constituents.length} unknowns; ` +
       `median ${median(times).toFixed(0)} ms (min ${Math.min(...times).toFixed(0)} ms, ${RUNS} runs)`);
     console.log(gcExposed()
-      ? `  memory: heap +${mb(during.heapUsed - before.heapUsed)} MB and array buffers +${mb(during.arrayBuffers - before.arrayBuffers)} MB ` +
-        `just after one analysis; +${mb(after.heapUsed - before.heapUsed)} MB heap and ` +
-        `+${mb(after.arrayBuffers - before.arrayBuffers)} MB buffers kept with its result (${kept.constituents.length} constituents)`
+      ? `  memory: heap +${mb(during.heapUsed - before.heapUsed)} MB just after one analysis (before any collection), ` +
+        `+${mb(after.heapUsed - before.heapUsed)} MB once collected; its result holds ${mb(kept.fitted.byteLength)} MB of fitted heights`
       : '  memory: run with node --expose-gc (npm run bench does) for heap figures');
     console.log(`  check: residual RMS ${(result.residual.rms * 100).toFixed(2)} cm (noise 2 cm); worst amplitude error ` +
       `${(worstAmplitude * 1000).toFixed(1)} mm; worst phase error ${worstPhase.toFixed(2)}° (constituents over 5 cm)`);
