@@ -13,7 +13,7 @@
 // and bisected on that polynomial under the same two proofs until each piece is settled. Roots are then
 // polished by Newton's method inside the bracket, with bisection as the fallback, to 1e-8 h (36 µs).
 
-import { MS_PER_DAY, type PhasorWindow, type Predictor } from './predict.js';
+import { MS_PER_DAY, newWindow, type PhasorWindow, type Predictor } from './predict.js';
 import type { TideEvent } from './types.js';
 
 const MS_PER_HOUR = 3_600_000;
@@ -104,10 +104,11 @@ export function findExtrema(predictor: Predictor, start: number, end: number): T
     taylor: { coef: new Float64Array(64), degree: 0, value: 0, d1: 0, d2: 0 },
     stack: [],
   };
+  const w = newWindow(n);
   let carried: number | null = null; // h′ at the end of the previous window: the one value both windows use
   for (let ws = start; ws < end; ws += MS_PER_DAY) {
     const we = Math.min(ws + MS_PER_DAY, end);
-    carried = scanWindow(predictor, predictor.window(ws, we), scratch, carried, events);
+    carried = scanWindow(predictor, predictor.window(ws, we, w), scratch, carried, events);
   }
   return events.filter((e) => e.time >= start && e.time < end);
 }
@@ -135,8 +136,9 @@ function scanWindow(
     const rate = Math.sqrt(beta * beta + omega * omega);
     fastestRate = Math.max(fastestRate, rate);
     const size = Math.sqrt(w.re[k]! * w.re[k]! + w.im[k]! * w.im[k]!);
-    M += rate * rate * rate * size * Math.exp(Math.abs(beta) * L);
-    const g = Math.exp((beta * dt) / 2);
+    M += rate * rate * rate * size * (1 + 2 * Math.abs(beta) * L); // bounds e^{|β|L}: |β|L < 1e-3
+    const half = (beta * dt) / 2;
+    const g = 1 + half * (1 + half / 2); // e^{β·dt/2}, |β·dt/2| < 1e-5
     const hc = g * Math.cos((omega * dt) / 2);
     const hs = g * Math.sin((omega * dt) / 2);
     halfC[k] = hc;

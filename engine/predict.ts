@@ -38,8 +38,11 @@ export interface Predictor {
   /** Rate of rise, metres per hour: the analytic derivative of the kernel. */
   rateAt(t: number): number;
   heights(start: number, stepMs: number, count: number): Float64Array;
-  /** The kernel over [start, end] (end − start ≤ 1 day keeps it within 1e-7 m of the exact sum). */
-  window(start: number, end: number): PhasorWindow;
+  /**
+   * The kernel over [start, end] (end − start ≤ 1 day keeps it within 1e-7 m of the exact sum).
+   * Pass `into` to reuse its arrays; consecutive windows sharing an end compute that anchor once.
+   */
+  window(start: number, end: number, into?: PhasorWindow): PhasorWindow;
 }
 
 interface CompiledConstants {
@@ -48,6 +51,9 @@ interface CompiledConstants {
   g: Float64Array; // degrees
   speed: Float64Array; // degrees per hour
   terms: AstronomicalTerms;
+  V: Float64Array; // scratch for terms.evaluate
+  f: Float64Array;
+  u: Float64Array;
 }
 
 function stationFile(station: ReferenceStation): string {
@@ -91,6 +97,9 @@ function compileConstants(station: ReferenceStation): CompiledConstants {
     g: Float64Array.from(g),
     speed: Float64Array.from(terms.constituents.map((c) => c.speed)),
     terms,
+    V: new Float64Array(names.length),
+    f: new Float64Array(names.length),
+    u: new Float64Array(names.length),
   };
 }
 
@@ -101,32 +110,32 @@ interface Anchor {
   amplitude: Float64Array;
 }
 
-function anchorAt(k: CompiledConstants, t: number): Anchor {
-  const n = k.names.length;
-  const V = new Float64Array(n);
-  const f = new Float64Array(n);
-  const u = new Float64Array(n);
-  k.terms.evaluate(t, V, f, u);
-  const phase = new Float64Array(n);
-  const amplitude = new Float64Array(n);
-  for (let i = 0; i < n; i++) {
-    phase[i] = (((V[i]! + u[i]! - k.g[i]!) % 360) + 360) % 360 * DEG;
-    amplitude[i] = f[i]! * k.H[i]!;
-  }
-  return { t, phase, amplitude };
+// Typed arrays this size live outside the JavaScript heap and are slow to make: kernels reuse them.
+function newAnchor(n: number): Anchor {
+  return { t: NaN, phase: new Float64Array(n), amplitude: new Float64Array(n) };
 }
 
-function windowBetween(k: CompiledConstants, a: Anchor, b: Anchor): PhasorWindow {
+export function newWindow(n: number): PhasorWindow {
+  const a = () => new Float64Array(n);
+  return { start: NaN, end: NaN, re: a(), im: a(), omega: a(), beta: a() };
+}
+
+function fillAnchor(k: CompiledConstants, t: number, into: Anchor): Anchor {
+  const { V, f, u } = k;
+  k.terms.evaluate(t, V, f, u);
+  for (let i = 0; i < V.length; i++) {
+    into.phase[i] = ((((V[i]! + u[i]! - k.g[i]!) % 360) + 360) % 360) * DEG;
+    into.amplitude[i] = f[i]! * k.H[i]!;
+  }
+  into.t = t;
+  return into;
+}
+
+function windowBetween(k: CompiledConstants, a: Anchor, b: Anchor, w: PhasorWindow): PhasorWindow {
   const n = k.names.length;
   const hours = (b.t - a.t) / MS_PER_HOUR;
-  const w: PhasorWindow = {
-    start: a.t,
-    end: b.t,
-    re: new Float64Array(n),
-    im: new Float64Array(n),
-    omega: new Float64Array(n),
-    beta: new Float64Array(n),
-  };
+  w.start = a.t;
+  w.end = b.t;
   for (let i = 0; i < n; i++) {
     w.re[i] = a.amplitude[i]! * Math.cos(a.phase[i]!);
     w.im[i] = a.amplitude[i]! * Math.sin(a.phase[i]!);
@@ -139,6 +148,7 @@ function windowBetween(k: CompiledConstants, a: Anchor, b: Anchor): PhasorWindow
       w.beta[i] = a.amplitude[i]! > 0 ? logRatio(b.amplitude[i]!, a.amplitude[i]!) / hours : 0;
     } else {
       w.omega[i] = k.speed[i]! * DEG;
+      w.beta[i] = 0;
     }
   }
   return w;
@@ -155,19 +165,26 @@ export function compilePredictor(station: ReferenceStation): Predictor {
   const k = compileConstants(station);
   const n = k.names.length;
   const z0 = station.mean_level;
+  // two anchors kept: window(a, b) then window(b, c) computes the shared b once
+  const slots = [newAnchor(n), newAnchor(n)];
+  const anchor = (t: number, keep?: Anchor): Anchor => {
+    for (const slot of slots) if (slot.t === t) return slot;
+    const [s0, s1] = slots as [Anchor, Anchor];
+    const older = s1.t < s0.t || Number.isNaN(s0.t) ? s0 : s1;
+    return fillAnchor(k, t, keep === s0 ? s1 : keep === s1 ? s0 : older);
+  };
+  const windowOf = (start: number, end: number, into: PhasorWindow): PhasorWindow => {
+    const a = anchor(start);
+    return windowBetween(k, a, anchor(end, a), into);
+  };
   // a few day windows kept for heightAt/rateAt, which callers use near each other in time
   const cache = new Map<number, PhasorWindow>();
-  let lastAnchor: Anchor | null = null; // window(a, b) then window(b, c): the shared end is computed once
-  const memoAnchor = (t: number): Anchor => {
-    if (lastAnchor?.t !== t) lastAnchor = anchorAt(k, t);
-    return lastAnchor;
-  };
   const dayWindow = (t: number): PhasorWindow => {
     const day = Math.floor(t / MS_PER_DAY);
     let w = cache.get(day);
     if (!w) {
       if (cache.size >= 8) cache.delete(cache.keys().next().value!);
-      w = windowBetween(k, anchorAt(k, day * MS_PER_DAY), anchorAt(k, (day + 1) * MS_PER_DAY));
+      w = windowOf(day * MS_PER_DAY, (day + 1) * MS_PER_DAY, newWindow(n));
       cache.set(day, w);
     }
     return w;
@@ -201,19 +218,22 @@ export function compilePredictor(station: ReferenceStation): Predictor {
     amplitudeSum: k.H.reduce((a, b) => a + b, 0),
     heightAt: (t) => evaluate(t, false),
     rateAt: (t) => evaluate(t, true),
-    window: (start, end) => windowBetween(k, memoAnchor(start), memoAnchor(end)),
+    window: (start, end, into) => windowOf(start, end, into ?? newWindow(n)),
     heights(start, stepMs, count) {
       if (!(stepMs > 0) || !Number.isFinite(stepMs)) {
         throw new RangeError(`heights: the step must be a positive number of milliseconds, not ${stepMs}`);
       }
       const out = new Float64Array(count).fill(z0);
       const perWindow = Math.max(1, Math.floor(MS_PER_DAY / stepMs));
-      let a = count > 0 ? anchorAt(k, start) : null;
+      let a = fillAnchor(k, start, newAnchor(n));
+      let b = newAnchor(n);
+      const w = newWindow(n);
+      const rotation = { cos: new Float64Array(n), sin: new Float64Array(n) };
       for (let j0 = 0; j0 < count; j0 += perWindow) {
         const m = Math.min(perWindow, count - j0);
-        const b = anchorAt(k, start + (j0 + m) * stepMs);
-        accumulateWindow(windowBetween(k, a!, b), stepMs / MS_PER_HOUR, out, j0, m);
-        a = b;
+        fillAnchor(k, start + (j0 + m) * stepMs, b);
+        accumulateWindow(windowBetween(k, a, b, w), stepMs / MS_PER_HOUR, rotation, out, j0, m);
+        [a, b] = [b, a];
       }
       return out;
     },
@@ -224,10 +244,17 @@ export function compilePredictor(station: ReferenceStation): Predictor {
  * Adds m samples of a window's phasor sum, one step apart, to out[j0…]. Four constituents at a time,
  * time inside: four independent recurrences keep the processor busy and the phasors in registers.
  */
-function accumulateWindow(w: PhasorWindow, stepHours: number, out: Float64Array, j0: number, m: number): void {
+function accumulateWindow(
+  w: PhasorWindow,
+  stepHours: number,
+  rotation: { cos: Float64Array; sin: Float64Array },
+  out: Float64Array,
+  j0: number,
+  m: number,
+): void {
   const n = w.re.length;
-  const cr = new Float64Array(n);
-  const ci = new Float64Array(n);
+  const cr = rotation.cos;
+  const ci = rotation.sin;
   for (let i = 0; i < n; i++) {
     const grow = Math.exp(w.beta[i]! * stepHours);
     cr[i] = grow * Math.cos(w.omega[i]! * stepHours);
@@ -268,21 +295,19 @@ function accumulateWindow(w: PhasorWindow, stepHours: number, out: Float64Array,
   }
 }
 
-const directCache = new WeakMap<ReferenceStation, { k: CompiledConstants; V: Float64Array; f: Float64Array; u: Float64Array }>();
+const directCache = new WeakMap<ReferenceStation, CompiledConstants>();
 
 /** Reference evaluation: V, f and u computed at the very instant t, one cosine per constituent. */
 export function directHeight(station: ReferenceStation, t: number): number {
-  let c = directCache.get(station);
-  if (!c) {
-    const k = compileConstants(station);
-    const n = k.names.length;
-    c = { k, V: new Float64Array(n), f: new Float64Array(n), u: new Float64Array(n) };
-    directCache.set(station, c);
+  let k = directCache.get(station);
+  if (!k) {
+    k = compileConstants(station);
+    directCache.set(station, k);
   }
-  c.k.terms.evaluate(t, c.V, c.f, c.u);
+  k.terms.evaluate(t, k.V, k.f, k.u);
   let h = station.mean_level;
-  for (let i = 0; i < c.k.names.length; i++) {
-    h += c.f[i]! * c.k.H[i]! * Math.cos((c.V[i]! + c.u[i]! - c.k.g[i]!) * DEG);
+  for (let i = 0; i < k.names.length; i++) {
+    h += k.f[i]! * k.H[i]! * Math.cos((k.V[i]! + k.u[i]! - k.g[i]!) * DEG);
   }
   return h;
 }
