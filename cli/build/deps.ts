@@ -1,12 +1,10 @@
 // The real pieces of a build: the stations checker, the engine (in workers) and the renderers.
+// The renderers load only when needed, so a build refused for bad input answers at once.
 import { availableParallelism } from 'node:os';
 import { loadStationSet } from '../../engine/stations.js';
-import { renderCombinedBook } from '../../templates/pdf/book.js';
-import { renderSite } from '../../templates/site/render.js';
 import { checkStations } from '../check.js';
 import { combinedBookInWorker } from './combined.js';
 import { compiledWorkerUrl, computeStations } from './compute.js';
-import { stationJobDeps } from './engine-deps.js';
 import type { BuildDeps } from './run.js';
 
 export const realBuildDeps: BuildDeps = {
@@ -15,11 +13,18 @@ export const realBuildDeps: BuildDeps = {
     const { problems } = checkStations(dir);
     return problems.length > 0 ? { stations: [], problems } : { stations: loadStationSet(dir).stations, problems };
   },
-  computeStations: (request, onStation, signal) => computeStations(request, onStation, stationJobDeps, signal),
-  renderSite: (models, siteDir, dataDir, options) => renderSite(models, siteDir, { ...options, dataDir, quiet: true }),
+  computeStations: async (request, onStation, signal) => {
+    const { stationJobDeps } = await import('./engine-deps.js');
+    return computeStations(request, onStation, stationJobDeps, signal);
+  },
+  renderSite: async (models, siteDir, dataDir, options) => {
+    const { renderSite } = await import('../../templates/site/render.js');
+    return renderSite(models, siteDir, { ...options, dataDir, quiet: true });
+  },
   renderCombinedBook: (models, options, beside, signal) => {
     const workerUrl = beside ? compiledWorkerUrl() : null;
-    return workerUrl ? combinedBookInWorker(workerUrl, models, options, signal) : renderCombinedBook(models, options);
+    if (workerUrl) return combinedBookInWorker(workerUrl, models, options, signal);
+    return import('../../templates/pdf/book.js').then(({ renderCombinedBook }) => renderCombinedBook(models, options));
   },
   cores: () => availableParallelism(),
 };

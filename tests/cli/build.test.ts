@@ -1,0 +1,208 @@
+// `tidewright build` end to end, spawning the compiled CLI (worker threads need the compiled JS):
+// broken station sets refused with file and field, an interrupted build, hostile station text shown
+// as text, byte-identical rebuilds, and the exit codes.
+import { execFileSync, spawn, spawnSync } from 'node:child_process';
+import { createHash } from 'node:crypto';
+import {
+  copyFileSync, existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, statSync, writeFileSync,
+} from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join, relative } from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+
+const ROOT = join(import.meta.dirname, '..', '..');
+const BIN = join(ROOT, 'bin', 'tidewright.js');
+const DEMO = join(ROOT, 'stations-demo');
+const work = mkdtempSync(join(tmpdir(), 'tw-build-cli-'));
+afterAll(() => rmSync(work, { recursive: true, force: true }));
+
+const hasPdftotext = spawnSync('pdftotext', ['-v']).error === undefined;
+if (!hasPdftotext) console.warn('build.test.ts: pdftotext (poppler-utils) not found: the PDF half of the escaping test is skipped');
+
+interface Run { code: number | null; stdout: string; stderr: string }
+
+// Eleventy warns on stderr when one of the site's filters took much of its time, even in quiet mode;
+// that line is the site renderer's to silence, so it is set aside here rather than failing every check.
+const ELEVENTY_TIMING = /^\[11ty\] Benchmark .*\n?/gm;
+
+function tidewright(args: string[], cwd = work): Run {
+  const r = spawnSync(process.execPath, [BIN, ...args], { cwd, encoding: 'utf8', timeout: 240_000 });
+  return { code: r.status, stdout: r.stdout, stderr: r.stderr.replace(ELEVENTY_TIMING, '') };
+}
+
+/** Every file under dir (relative path → sha256), and every folder, so any change at all shows. */
+function treeHash(dir: string): Record<string, string> {
+  const out: Record<string, string> = {};
+  const walk = (d: string): void => {
+    for (const name of readdirSync(d).sort()) {
+      const p = join(d, name);
+      const rel = relative(dir, p);
+      if (statSync(p).isDirectory()) {
+        out[`${rel}/`] = 'folder';
+        walk(p);
+      } else {
+        out[rel] = createHash('sha256').update(readFileSync(p)).digest('hex');
+      }
+    }
+  };
+  walk(dir);
+  return out;
+}
+
+let n = 0;
+/** A small station set: the demo's Gannet Head and its secondary port Pilchard Cove, as given or edited. */
+function stationSet(edit: (dir: string) => void = () => {}): string {
+  const dir = join(work, `stations-${n++}`);
+  mkdirSync(dir);
+  copyFileSync(join(DEMO, 'gannet-head.yaml'), join(dir, 'gannet-head.yaml'));
+  copyFileSync(join(DEMO, 'pilchard-cove.yaml'), join(dir, 'pilchard-cove.yaml'));
+  edit(dir);
+  return dir;
+}
+
+function editFile(file: string, from: RegExp, to: string): void {
+  const text = readFileSync(file, 'utf8');
+  if (!from.test(text)) throw new Error(`${from} not in ${file}`);
+  writeFileSync(file, text.replace(from, to));
+}
+
+const HOSTILE = '<script>alert(1)</script> & Pilchard Cove (invented)';
+const hostileSet = (dir: string): void =>
+  editFile(join(dir, 'pilchard-cove.yaml'), /^name: .*$/m, `name: "${HOSTILE}"`);
+
+// One good build shared by several checks: the output a broken build must leave alone.
+let goodStations: string;
+let goodOut: string;
+let goodRun: Run;
+let goodHash: Record<string, string>;
+
+beforeAll(() => {
+  execFileSync('npx', ['tsc', '-p', 'tsconfig.build.json'], { cwd: ROOT, stdio: 'ignore' });
+  goodStations = stationSet(hostileSet);
+  goodOut = join(work, 'good', 'out');
+  goodRun = tidewright(['build', '--stations', goodStations, '--out', goodOut, '--year', '2027']);
+  goodHash = existsSync(goodOut) ? treeHash(goodOut) : {};
+}, 300_000);
+
+function tempFoldersBeside(out: string): string[] {
+  return readdirSync(join(out, '..')).filter((name) => name.startsWith('.tidewright-tmp-'));
+}
+
+describe('a good build', () => {
+  it('exits 0 with a one-line summary and writes the site, the books and the downloads', () => {
+    expect(goodRun.stderr).toBe('');
+    expect(goodRun.code).toBe(0);
+    expect(goodRun.stdout).toMatch(/^built 2 stations for 2027: \d+ web pages, \d+ PDF pages, \d+ files \([\d.]+ MiB\) in \d+:\d\d with \d workers? → .*out\/\n$/);
+    const files = Object.keys(goodHash);
+    for (const f of ['pdf/gannet-head-2027.pdf', 'pdf/pilchard-cove-2027.pdf', 'pdf/almanac-2027.pdf', 'site/index.html',
+      'data/gannet-head-2027.ics', 'data/pilchard-cove-2027-events.csv', 'data/pilchard-cove-2027-events.json']) {
+      expect(files).toContain(f);
+    }
+    expect(tempFoldersBeside(goodOut)).toEqual([]);
+  });
+
+  it('shows a station name holding HTML and script as text on every web page that prints it', () => {
+    const pages = Object.keys(goodHash).filter((f) => f.endsWith('.html'));
+    let shown = 0;
+    for (const page of pages) {
+      const html = readFileSync(join(goodOut, page), 'utf8');
+      expect(html, page).not.toContain('<script>alert(1)');
+      if (html.includes('&lt;script&gt;alert(1)&lt;/script&gt; &amp; Pilchard Cove')) shown++;
+    }
+    expect(shown).toBeGreaterThan(0);
+  });
+
+  it.skipIf(!hasPdftotext)('prints the same name literally in the PDF books', () => {
+    for (const book of ['pilchard-cove-2027.pdf', 'almanac-2027.pdf']) {
+      const text = execFileSync('pdftotext', ['-l', '3', join(goodOut, 'pdf', book), '-'], { encoding: 'utf8' });
+      expect(text.replace(/\s+/g, ' '), book).toContain('<script>alert(1)</script> & Pilchard Cove');
+    }
+  });
+
+  it('is byte-identical when built again into another folder', () => {
+    const again = join(work, 'again', 'out');
+    const run = tidewright(['build', '--stations', goodStations, '--out', again, '--year', '2027', '--quiet', '--workers', '1']);
+    expect(run).toEqual({ code: 0, stdout: '', stderr: '' });
+    expect(treeHash(again)).toEqual(goodHash);
+  });
+});
+
+describe('a broken station set', () => {
+  const faults: [string, (dir: string) => void, RegExp][] = [
+    ['YAML syntax', (d) => writeFileSync(join(d, 'tern-reach.yaml'), 'id: tern-reach\nname: [Tern Reach\nkind: reference\n'),
+      /tern-reach\.yaml: line \d+, column \d+: YAML syntax error/],
+    ['an unknown constituent', (d) => editFile(join(d, 'gannet-head.yaml'), /^ {2}M8: /m, '  MX8: '),
+      /gannet-head\.yaml: constituents\.MX8: .*not a constituent/],
+    ['an unknown time zone', (d) => editFile(join(d, 'gannet-head.yaml'), /^timezone: .*$/m, 'timezone: Europe/Lisbn'),
+      /gannet-head\.yaml: timezone: .*Europe\/Lisbn.*did you mean Europe\/Lisbon/],
+    ['a duplicate id', (d) => copyFileSync(join(d, 'gannet-head.yaml'), join(d, 'gannet-head-copy.yaml')),
+      /gannet-head(-copy)?\.yaml: id: "gannet-head" is also the id of .*gannet-head(-copy)?\.yaml/],
+    ['a missing reference port', (d) => editFile(join(d, 'pilchard-cove.yaml'), /^reference: .*$/m, 'reference: gannet-hed'),
+      /pilchard-cove\.yaml: reference: .*"gannet-hed".*did you mean gannet-head/],
+    ['an id with path characters', (d) => editFile(join(d, 'pilchard-cove.yaml'), /^id: .*$/m, 'id: ../evil'),
+      /pilchard-cove\.yaml: id: "\.\.\/evil" may only hold lower-case letters/],
+  ];
+
+  it.each(faults)('(%s) is refused with file and field, exit 1, and the previous output untouched', (_fault, edit, message) => {
+    const run = tidewright(['build', '--stations', stationSet(edit), '--out', goodOut]);
+    expect(run.code).toBe(1);
+    expect(run.stdout).toBe('');
+    expect(run.stderr).toMatch(message);
+    const lines = run.stderr.trimEnd().split('\n');
+    expect(lines.at(-1)).toMatch(/^tidewright: build failed: \d+ problems? in the station files; nothing was written; .*out\/ is as it was before$/);
+    expect(run.stderr).not.toMatch(/\n\s+at /); // no stack trace
+    expect(treeHash(goodOut)).toEqual(goodHash);
+    expect(tempFoldersBeside(goodOut)).toEqual([]);
+  });
+
+  it('lists every problem, not only the first', () => {
+    const run = tidewright(['build', '--stations', stationSet((d) => {
+      faults[2]![1](d);
+      faults[4]![1](d);
+    }), '--out', goodOut]);
+    expect(run.code).toBe(1);
+    expect(run.stderr).toMatch(faults[2]![2]);
+    expect(run.stderr).toMatch(faults[4]![2]);
+    expect(run.stderr).toMatch(/2 problems in the station files/);
+  });
+});
+
+describe('bad options', () => {
+  it.each([
+    [['--out', '/'], /--out: \/ is the root of the file system/],
+    [['--year', 'next'], /--year: "next" is not a whole number/],
+    [['--page', 'b5'], /--page: "b5" is not one of/],
+  ])('%j exits 1 with one line', (args, message) => {
+    const run = tidewright(['build', '--stations', goodStations, ...args]);
+    expect(run.code).toBe(1);
+    expect(run.stderr).toMatch(message);
+    expect(run.stderr.trimEnd().split('\n')).toHaveLength(1);
+  });
+
+  it('refuses to write over the stations folder', () => {
+    const run = tidewright(['build', '--stations', goodStations, '--out', goodStations]);
+    expect(run.code).toBe(1);
+    expect(run.stderr).toMatch(/is the stations folder/);
+    expect(readdirSync(goodStations).sort()).toEqual(['gannet-head.yaml', 'pilchard-cove.yaml']);
+  });
+});
+
+describe('an interrupted build', () => {
+  it('exits 130 on SIGINT, removes its temporary folder and leaves the previous output as it was', async () => {
+    const child = spawn(process.execPath, [BIN, 'build', '--stations', goodStations, '--out', goodOut, '--year', '2027'],
+      { cwd: work, stdio: ['ignore', 'pipe', 'pipe'] });
+    let stderr = '';
+    child.stderr.on('data', (chunk: Buffer) => { stderr += chunk.toString(); });
+    const exited = new Promise<number | null>((resolve) => child.on('exit', (code) => resolve(code)));
+    const temp = join(goodOut, '..', `.tidewright-tmp-out-${child.pid}`);
+    const deadline = Date.now() + 60_000;
+    while (!existsSync(temp) && Date.now() < deadline) await new Promise((r) => setTimeout(r, 10));
+    expect(existsSync(temp)).toBe(true);
+    await new Promise((r) => setTimeout(r, 150)); // let it start writing
+    child.kill('SIGINT');
+    expect(await exited).toBe(130);
+    expect(stderr).toMatch(/build interrupted \(SIGINT\); .*out\/ is as it was before/);
+    expect(tempFoldersBeside(goodOut)).toEqual([]);
+    expect(treeHash(goodOut)).toEqual(goodHash);
+  });
+});
