@@ -31,7 +31,7 @@ dropped; two different heights for the same time are an error. The record must s
   --id ID            station id (default: from the record's file name)
   --name NAME        station name (default: the record's file name)
   --datum LABEL      what the record's heights are measured from (default: "Gauge zero")
-  --rayleigh R       Rayleigh factor for choosing constituents (default 1; larger fits fewer)
+  --rayleigh R       Rayleigh factor for choosing constituents, 0.5 to 10 (default 1; larger fits fewer)
   --output FILE      write the station file there instead of printing it
   --report FILE      also write an HTML report: the record, the fit, the residual, the constants
                      with 95 % intervals and the constituents the record could not separate
@@ -58,7 +58,7 @@ export async function runAnalyse(argv: string[]): Promise<number> {
   }
   const [file] = positionalArguments('analyse', positionals, ['RECORD.csv']) as [string];
   const meta = stationMeta('analyse', file, values, { datum: 'Gauge zero' });
-  const rayleigh = values.rayleigh === undefined ? 1 : numberOption('--rayleigh', values.rayleigh, 0.1, 10, 'e.g. --rayleigh 1');
+  const rayleigh = values.rayleigh === undefined ? 1 : numberOption('--rayleigh', values.rayleigh, 0.5, 10, 'e.g. --rayleigh 1');
   const analysis = analyseRecord(readRecordFile(file), { rayleigh });
   const yaml = referenceStationYaml(analysis, meta);
   parseStation(yaml, values.output ?? 'the analysed station file'); // the loader must accept what we print

@@ -67,6 +67,10 @@ export async function runDifferences(argv: string[]): Promise<number> {
   if (values.latitude === undefined || values.longitude === undefined) {
     notes.push(`The position is the reference port's (${meta.latitude}, ${meta.longitude}); replace it with this port's own.`);
   }
+  if (values.datum === undefined) {
+    notes.push(`The record's heights are taken to be above this port's ${meta.datum}; if the gauge's zero is ` +
+      'elsewhere, add the offset to every height difference.');
+  }
   const analysis = analyseDifferences(readRecordFile(file), reference);
   const yaml = secondaryStationYaml(analysis, meta, notes);
   parseStation(yaml, values.output ?? 'the fitted station file'); // the loader must accept what we print

@@ -125,6 +125,7 @@ describe('tidewright analyse', () => {
     [['--latitude', '50', '--longitude', '-4', '--timezone', 'Europe/Londn'], /^tidewright: --timezone: "Europe\/Londn" is not a known IANA time zone; /],
     [['--latitude', '50', '--longitude', '-4', '--timezone', 'UTC', '--id', 'Gull Point'], /^tidewright: --id: "Gull Point" may only hold .*; write --id gull-point\n$/],
     [['--latitude', '50', '--longitude', '-4', '--timezone', 'UTC', '--rayleigh', 'lots'], /^tidewright: --rayleigh: "lots" is not a number/],
+    [['--latitude', '50', '--longitude', '-4', '--timezone', 'UTC', '--rayleigh', '0.2'], /^tidewright: --rayleigh: "0\.2" is not a number from 0\.5 to 10; /],
     [['--latitude', '50', '--longitude', '-4', '--timezone', 'UTC', '--colour', 'red'], /^tidewright: --colour: is not an option of tidewright analyse/],
   ])('refuses bad options in one line, exit code 1: %j', async (options, message) => {
     const output = join(dir, 'never.yaml');
@@ -187,6 +188,7 @@ describe('tidewright differences', () => {
     expect(code).toBe(0);
     expect(stdout).toContain('position: { latitude: 50, longitude: -4 }');
     expect(stdout).toMatch(/# The position is the reference port's \(50, -4\); replace it with this port's own\./);
+    expect(stdout).toMatch(/# The record's heights are taken to be above this port's Chart Datum;/);
   });
 
   it('refuses a missing --reference, a secondary port as reference, and a bad record', async () => {
