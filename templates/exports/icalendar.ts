@@ -17,22 +17,32 @@ export function escapeText(text: string): string {
 
 /** Fold one content line at 75 octets (RFC 5545 §3.1), never inside a UTF-8 character. */
 export function foldLine(line: string): string {
+  if (/^[\x20-\x7e]*$/.test(line)) {
+    // Printable ASCII (the usual case): one octet per character, so cut by length.
+    if (line.length <= 75) return line;
+    const parts = [line.slice(0, 75)];
+    for (let i = 75; i < line.length; i += 74) parts.push(` ${line.slice(i, i + 74)}`);
+    return parts.join('\r\n');
+  }
   const out: string[] = [];
-  let current = '';
+  let start = 0;
   let octets = 0;
   let limit = 75;
-  for (const ch of line) {
-    const size = Buffer.byteLength(ch, 'utf8');
+  for (let i = 0; i < line.length; ) {
+    const code = line.charCodeAt(i);
+    const pair = code >= 0xd800 && code <= 0xdbff && i + 1 < line.length;
+    const units = pair ? 2 : 1;
+    const size = pair ? 4 : code < 0x80 ? 1 : code < 0x800 ? 2 : 3; // UTF-8 octets of this character
     if (octets + size > limit) {
-      out.push(current);
-      current = ' ';
-      octets = 1;
-      limit = 75;
+      out.push(out.length === 0 ? line.slice(start, i) : ` ${line.slice(start, i)}`);
+      start = i;
+      octets = 0;
+      limit = 74; // continuation lines begin with one space
     }
-    current += ch;
     octets += size;
+    i += units;
   }
-  out.push(current);
+  out.push(out.length === 0 ? line.slice(start) : ` ${line.slice(start)}`);
   return out.join('\r\n');
 }
 

@@ -3,8 +3,8 @@
 // clock ticks. One vertical scale per station-year so that days can be compared at a glance.
 import type { DayEntry, StationYear } from '../../engine/types.js';
 
-export const CURVE_WIDTH = 240;
-export const CURVE_HEIGHT = 60;
+export const CURVE_WIDTH = 300;
+export const CURVE_HEIGHT = 56;
 const PAD_TOP = 5;
 const PAD_BOTTOM = 5;
 

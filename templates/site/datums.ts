@@ -46,3 +46,8 @@ export function datumLadder(datums: Datums): DatumRow[] {
   }
   return placed;
 }
+
+/** Height on the diagram from the top level to the bottom one (the band drawn behind the lines). */
+export function ladderSpan(rows: DatumRow[]): number {
+  return rows.length === 0 ? 0 : Math.round((rows[rows.length - 1].y - rows[0].y) * 10) / 10;
+}

@@ -2,9 +2,9 @@
 // templates only place what these return. Registered by renderSite (or by .eleventy.js on its own).
 import type { DayEntry, Datums, MoonPhaseEntry, MoonPhaseName, StationYear } from '../../engine/types.js';
 import { dayCurve, heightScale, type DayCurve, type HeightScale } from './curve.js';
-import { datumLadder, type DatumRow } from './datums.js';
+import { datumLadder, ladderSpan, type DatumRow } from './datums.js';
 import {
-  dayMonth, heightNumber, localLongDate, heightSigned, heightText, hoursText, longDate, minutesSigned, offsetText,
+  clockIn, dayMonth, heightNumber, localLongDate, heightSigned, heightText, hoursText, longDate, minutesSigned, offsetText,
   phaseName, positionText, unitName, type Units,
 } from './format.js';
 import { glanceMonth, yearMaxRange, type GlanceMonth } from './glance.js';
@@ -45,6 +45,7 @@ export function siteFilters(units: Units): Record<string, (...args: never[]) => 
     longDate: (date: string): string => longDate(date),
     dayMonth: (date: string): string => dayMonth(date),
     localLongDate: (iso: string, zone: string): string => localLongDate(iso, zone),
+    clockIn: (iso: string, offset: string): string => clockIn(iso, offset),
     hours: (h: number): string => hoursText(h),
     minutesSigned: (m: number): string => minutesSigned(m),
     phaseName: (p: string): string => phaseName(p),
@@ -71,6 +72,7 @@ export function siteFilters(units: Units): Record<string, (...args: never[]) => 
       return byDate.get(date) ?? null;
     },
     datumLadder: (datums: Datums): DatumRow[] => datumLadder(datums),
+    ladderSpan: (rows: DatumRow[]): number => ladderSpan(rows),
   };
 }
 

@@ -62,6 +62,14 @@ export function localLongDate(iso: string, zone: string): string {
   return DateTime.fromISO(iso, { zone, locale: 'en' }).toFormat('cccc d LLLL yyyy');
 }
 
+/** The wall clock "HH:mm" of a UTC instant at a fixed offset such as "+01:00" (the clock before a change). */
+export function clockIn(iso: string, offset: string): string {
+  const m = /^([+-])(\d{2}):(\d{2})$/.exec(offset);
+  const minutes = m ? (m[1] === '-' ? -1 : 1) * (Number(m[2]) * 60 + Number(m[3])) : 0;
+  const t = new Date(Date.parse(iso) + minutes * 60_000);
+  return `${String(t.getUTCHours()).padStart(2, '0')}:${String(t.getUTCMinutes()).padStart(2, '0')}`;
+}
+
 /** "2027-03-28" → "28 March". */
 export function dayMonth(date: string): string {
   return DateTime.fromISO(date, { zone: 'utc', locale: 'en' }).toFormat('d LLLL');

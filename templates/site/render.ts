@@ -37,6 +37,9 @@ export async function renderSite(models: StationYear[], outDir: string, options:
     quietMode: true, // no line per written file; the caller reports progress
     configPath: join(root, '.eleventy.js'),
     config: (config) => {
+      // Eleventy times every filter and warns on stderr when one takes a large share; drawing the
+      // curves always does, by design, so the warning only adds noise to the build's output.
+      config.benchmarks?.config?.setIsVerbose(false);
       registerSiteFilters(config, options.units);
       config.addGlobalData(HANDOFF_KEY, site);
     },

@@ -1,0 +1,124 @@
+// The built site in a real browser (Debian's chromium through playwright-core): follow links from the
+// index to a station and a month, no console errors, no sideways scrolling on a phone, a month prints
+// on one A4 page, and screenshots at phone and desktop widths in tests/.artifacts/ to look at.
+import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, statSync } from 'node:fs';
+import { createServer, type Server } from 'node:http';
+import { tmpdir } from 'node:os';
+import { extname, join, normalize } from 'node:path';
+import { chromium, type Browser, type Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { renderSite } from '../../templates/site/render.js';
+import { editedSample, secondaryOf } from './site-build.js';
+
+const CHROMIUM = '/usr/bin/chromium';
+const hasChromium = existsSync(CHROMIUM);
+if (!hasChromium) console.warn(`browser tests skipped: ${CHROMIUM} not found (apt-get install -y chromium)`);
+
+const ARTIFACTS = join(import.meta.dirname, '..', '.artifacts');
+const TYPES: Record<string, string> = {
+  '.html': 'text/html; charset=utf-8', '.css': 'text/css', '.csv': 'text/csv', '.json': 'application/json',
+  '.ics': 'text/calendar',
+};
+
+let tmp: string;
+let server: Server;
+let base: string;
+let browser: Browser;
+
+function serve(root: string): Promise<Server> {
+  const srv = createServer((req, res) => {
+    const path = normalize(decodeURIComponent(new URL(req.url ?? '/', 'http://x').pathname)).replace(/^(\.\.[/\\])+/, '');
+    let file = join(root, path);
+    if (existsSync(file) && statSync(file).isDirectory()) file = join(file, 'index.html');
+    if (!existsSync(file)) {
+      res.writeHead(404).end('not found');
+      return;
+    }
+    res.writeHead(200, { 'content-type': TYPES[extname(file)] ?? 'application/octet-stream' });
+    res.end(readFileSync(file));
+  });
+  return new Promise((done) => srv.listen(0, '127.0.0.1', () => done(srv)));
+}
+
+/** A page that records console errors, failed requests and uncaught exceptions. */
+async function watchedPage(width: number, height: number): Promise<{ page: Page; errors: string[] }> {
+  const page = await browser.newPage({ viewport: { width, height } });
+  const errors: string[] = [];
+  page.on('console', (m) => { if (m.type() === 'error') errors.push(m.text()); });
+  page.on('pageerror', (e) => errors.push(e.message));
+  page.on('response', (r) => { if (r.status() >= 400) errors.push(`${r.status()} ${r.url()}`); });
+  return { page, errors };
+}
+
+async function noSidewaysScroll(page: Page): Promise<void> {
+  // A string, so this Node-side file needs no DOM types.
+  const widths = await page.evaluate<{ doc: number; view: number }>(
+    '({ doc: document.documentElement.scrollWidth, view: window.innerWidth })',
+  );
+  expect(widths.doc, `page ${page.url()} scrolls sideways`).toBeLessThanOrEqual(widths.view);
+}
+
+describe.skipIf(!hasChromium)('the site in chromium', () => {
+  beforeAll(async () => {
+    tmp = mkdtempSync(join(tmpdir(), 'tidewright-browser-'));
+    const reference = editedSample(2027);
+    await renderSite([reference, secondaryOf(reference)], join(tmp, 'site'), { units: 'm', quiet: true });
+    server = await serve(join(tmp, 'site'));
+    const address = server.address();
+    base = `http://127.0.0.1:${typeof address === 'object' && address ? address.port : 0}/`;
+    browser = await chromium.launch({
+      executablePath: CHROMIUM,
+      args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run',
+        '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+    });
+    mkdirSync(ARTIFACTS, { recursive: true });
+  });
+
+  afterAll(async () => {
+    await browser?.close();
+    await new Promise((done) => (server ? server.close(done) : done(undefined)));
+    if (tmp) rmSync(tmp, { recursive: true, force: true });
+  });
+
+  for (const [label, width, height] of [['phone', 375, 812], ['desktop', 1280, 900]] as const) {
+    it(`index → station → month at ${label} width (${width}×${height}) without console errors`, async () => {
+      const { page, errors } = await watchedPage(width, height);
+      await page.goto(base);
+      expect(await page.locator('h1').count()).toBe(1);
+      await page.screenshot({ path: join(ARTIFACTS, `site-index-${label}.png`), fullPage: true });
+      await noSidewaysScroll(page);
+
+      await page.getByRole('link', { name: 'Sample Quay (invented)', exact: true }).click();
+      await page.waitForURL(/sample-quay\/2027\/index\.html$/);
+      expect(await page.locator('h1').innerText()).toContain('Sample Quay (invented)');
+      await page.screenshot({ path: join(ARTIFACTS, `site-station-${label}.png`), fullPage: true });
+      await noSidewaysScroll(page);
+
+      await page.locator('a.glance-link', { hasText: 'March' }).click();
+      await page.waitForURL(/sample-quay\/2027\/03\/index\.html$/);
+      expect(await page.locator('tbody tr.day').count()).toBe(31);
+      expect(await page.locator('#day-28 .clock-change').isVisible()).toBe(true);
+      await page.screenshot({ path: join(ARTIFACTS, `site-month-${label}.png`), fullPage: true });
+      await noSidewaysScroll(page);
+      await page.locator('#day-28').screenshot({ path: join(ARTIFACTS, `site-day-${label}.png`) });
+
+      await page.goto(`${base}datums/index.html`);
+      await page.screenshot({ path: join(ARTIFACTS, `site-datums-${label}.png`), fullPage: true });
+      await noSidewaysScroll(page);
+
+      expect(errors).toEqual([]);
+      await page.close();
+    });
+  }
+
+  it('prints a 31-day month on a single A4 page', async () => {
+    const { page } = await watchedPage(1280, 900);
+    await page.goto(`${base}sample-quay/2027/01/index.html`);
+    await page.emulateMedia({ media: 'print' });
+    await page.screenshot({ path: join(ARTIFACTS, 'site-month-print.png'), fullPage: true });
+    const pdf = await page.pdf({ preferCSSPageSize: true, printBackground: true });
+    const pages = pdf.toString('latin1').match(/\/Type\s*\/Page[^s]/g) ?? [];
+    expect(pages).toHaveLength(1);
+    await page.close();
+  });
+});
