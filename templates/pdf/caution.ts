@@ -25,7 +25,7 @@ function keyItems(ctx: PageContext, view: StationView, mixed: boolean): KeyItem[
       draw: (x, y) => { laneMark(doc, 'high', x, y, 7.5 * s); t('narrow', t('narrow-bold', x + 8 * s, y, '06:29') + 2.5 * s, y, formatHeight(4.54, units), 8.6); } },
     { text: 'Low water: on the lower line of each day.',
       draw: (x, y) => { laneMark(doc, 'low', x, y, 7.5 * s); t('narrow', t('narrow', x + 8 * s, y, '12:17') + 2.5 * s, y, formatHeight(0.19, units), 8.6); } },
-    { text: `Below ${printable(view.model.station.datum)}: bold, with a minus sign, underlined and marked \u25BC. There is less water than the chart shows.`,
+    { text: `Below ${printable(view.model.station.datum)}: bold, with a minus sign, underlined and marked with a black triangle. There is less water than the chart shows.`,
       draw: (x, y) => {
         laneMark(doc, 'low', x, y, 7.5 * s);
         const hx = t('narrow', x + 8 * s, y, '03:12') + 2.5 * s;
@@ -44,7 +44,7 @@ function keyItems(ctx: PageContext, view: StationView, mixed: boolean): KeyItem[
       draw: (x, y) => drawDayCurve(doc, spring, { x, y: y - 14 * s, width: 48 * s, height: 20 * s }, view.curve, s) },
     { text: 'Sunrise and sunset; near the poles \u201csun up all day\u201d or \u201csun down all day\u201d.',
       draw: (x, y) => { sunGlyph(doc, true, x, y, 7.4 * s); const w = sunGlyphWidth(7.4 * s); t('narrow', x + w + 1.5 * s, y, '07:12', 7.4);
-        sunGlyph(doc, false, x + 28 * s, y, 7.4 * s); t('narrow', x + 28 * s + w + 1.5 * s, y, '19:03', 7.4); } },
+        sunGlyph(doc, false, x + 34 * s, y, 7.4 * s); t('narrow', x + 34 * s + w + 1.5 * s, y, '19:03', 7.4); } },
     { text: 'The clocks change: a note under the day; that day every time carries its UTC offset.',
       draw: (x, y) => clockGlyph(doc, x + 4 * s, y - 3.5 * s, 3.6 * s) },
     { text: 'Saturdays and Sundays are shaded; a heavy rule ends each week.',

@@ -36,9 +36,11 @@ function staffStep(span: number, units: HeightUnits): number {
 export function drawDatumScale(doc: PDFKit.PDFDocument, datums: Datums, datumLabel: string, units: HeightUnits,
   box: Box, s: number): void {
   const k = units === 'ft' ? FEET_PER_METRE : 1;
-  const lo = Math.min(0, datums.LAT) * k;
-  const hi = datums.HAT * k;
-  const step = staffStep(hi - lo, units);
+  // every datum and the chart datum inside the staff, even if the model's datums are out of order
+  const values = DATUM_ROWS.map((r) => datums[r.key] * k);
+  const lo = Math.min(0, ...values);
+  const hi = Math.max(0, ...values);
+  const step = staffStep(Math.max(hi - lo, 1e-6), units);
   const bottom = Math.floor(lo / step - 0.5) * step;
   const top = Math.ceil(hi / step + 0.25) * step;
   const y = (v: number) => box.y + box.height - ((v - bottom) / (top - bottom)) * box.height;

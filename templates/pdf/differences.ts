@@ -13,8 +13,9 @@ export function drawDifferences(ctx: PageContext, st: SecondaryStation, y: numbe
   const colW = (box.width - 70 * s) / 4;
   const col = (i: number) => box.x + 70 * s + colW * (i + 1) - 4 * s;
   const head = { font: 'narrow-bold' as const, size: 7.2 * s, color: MID };
-  put(doc, 'springs', (col(0) + col(1)) / 2 - colW / 2 + 4 * s, y, head, 'center');
-  put(doc, 'neaps', (col(2) + col(3)) / 2 - colW / 2 + 4 * s, y, head, 'center');
+  // each group label centred over its two columns (right-aligned cells about 0.6 of a column wide)
+  put(doc, 'springs', (col(0) - colW * 0.6 + col(1)) / 2, y, head, 'center');
+  put(doc, 'neaps', (col(2) - colW * 0.6 + col(3)) / 2, y, head, 'center');
   y += 10 * s;
   ['time', `height (${unitLabel(units)})`, 'time', `height (${unitLabel(units)})`].forEach((t, i) => {
     put(doc, t, col(i), y, { ...head, font: 'narrow' }, 'right');

@@ -2,6 +2,7 @@
 // ranges and age of the tide, provenance, and for a secondary port its reference and differences.
 import type { SecondaryStation } from '../../engine/types.js';
 import { DATUM_ROWS, drawDatumScale } from './datum-scale.js';
+import { drawConstants } from './constants.js';
 import { drawDifferences } from './differences.js';
 import {
   formatDate, formatHeight, formatLength, formatPosition, printable, unitLabel,
@@ -85,6 +86,9 @@ export function factsPage(view: StationView): LogicalPage {
       if (st.kind === 'secondary') {
         y = sectionTitle(ctx, `Secondary port of ${printable(model.reference?.name ?? st.reference)}`, y);
         y = drawDifferences(ctx, st as SecondaryStation, y);
+      } else {
+        y = sectionTitle(ctx, 'Harmonic constants', y);
+        y = drawConstants(ctx, st, y, 12);
       }
 
       y = sectionTitle(ctx, `The year ${model.year}`, y + 4 * s);

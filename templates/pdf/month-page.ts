@@ -20,7 +20,7 @@ export function offsetStatement(days: DayEntry[]): string {
   for (const d of changes) {
     pieces.push(`${formatOffset(d.offsetChange!.to)} from ${d.offsetChange!.clock} on ${formatDate(d.date, false)}`);
   }
-  return `${pieces.join(', ')} (clock sign on the day)`;
+  return `${pieces.join(', ')} (clock mark on the day)`;
 }
 
 export function monthPage(view: StationView, part: MonthPart, row: number): LogicalPage {

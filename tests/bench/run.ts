@@ -3,11 +3,13 @@
 import { bench as datums } from './datums.js';
 import { bench as engine } from './engine.js';
 import { bench as analysis } from './analysis.js';
+import { bench as pdf } from './pdf.js';
 
 const BENCHMARKS: readonly (readonly [string, () => Promise<void>])[] = [
   ['engine', engine],
   ['analysis', analysis],
   ['datums', datums],
+  ['pdf', pdf],
 ];
 
 for (const [name, bench] of BENCHMARKS) {
