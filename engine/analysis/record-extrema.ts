@@ -1,9 +1,10 @@
 // High and low waters read off a gauge record, robust against noise: candidates are the highest
 // (lowest) point of a lightly smoothed record within ±2 h; each is then refined by a least-squares
 // cubic through the raw readings within ±1.5 h, fitted again centred on its own turning point, which
-// gives the time; the height is read from a quartic centred there. Tried on a curve with a 10 % quarter-diurnal overtide, a quadratic timed
-// the turning points 2.3 min off (RMS) against 0.2 min for the cubic; with 2 cm of noise both scatter by
-// about 2.6 min, which the differences fit then averages over dozens of tides.
+// gives the time; the height is read from a quartic centred there. Tried on a curve with a 10 %
+// quarter-diurnal overtide, a quadratic timed the turning points 2.3 min off (RMS) against 0.2 min for
+// the cubic; with 2 cm of noise both scatter by about 2.6 min, which the differences fit then averages
+// over dozens of tides.
 
 import type { TideEvent } from '../types.js';
 import { addObservation, createNormalEquations, SingularSystemError, solveNormalEquations } from './leastsquares.js';
