@@ -27,6 +27,9 @@ const YAML_FIXES: Readonly<Record<string, string>> = {
 function yamlProblem(file: string, error: YAMLError): StationFileError {
   const where = error.linePos?.[0];
   const field = where ? `line ${where.line}, column ${where.col}` : '(file)';
+  if (error.code === 'MULTIPLE_DOCS') {
+    return new StationFileError(file, field, 'a second YAML document starts here (a --- line)', 'keep one station per file and remove the --- line');
+  }
   const firstLine = error.message.split('\n')[0] ?? error.message;
   const what = firstLine.replace(/ at line \d+, column \d+:?$/, '');
   const advice = YAML_FIXES[error.code] ?? 'check the indentation, colons and quotes (each field is written key: value)';

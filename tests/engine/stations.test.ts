@@ -34,6 +34,7 @@ function rejection(run: () => unknown): StationFileError {
 const BAD_FILES: [string, string, string, string][] = [
   ['yaml-syntax', 'line 5, column 1', 'YAML syntax error', 'close every [ or {'],
   ['duplicate-key', 'line 7, column 1', 'Map keys must be unique', 'write each key only once'],
+  ['two-documents', 'line 11, column 1', 'a second YAML document starts here', 'keep one station per file'],
   ['empty-file', '(file)', 'is empty', 'key: value'],
   ['not-a-map', '(file)', 'holds a list, not a station', 'key: value'],
   ['scalar-file', '(file)', 'holds the text "just some words"', 'key: value'],
