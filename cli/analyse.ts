@@ -69,7 +69,7 @@ export async function runAnalyse(argv: string[]): Promise<number> {
   process.stderr.write(`tidewright: ${r.count} readings over ${(analysis.summary.spanHours / 24).toFixed(1)} days: ` +
     `${analysis.constituents.length} constituents, residual RMS ${r.rms.toFixed(3)} m, ` +
     `${(r.explained * 100).toFixed(1)} % of the variance explained` +
-    (unresolved > 0 ? `; ${unresolved} constituents could not be separated (listed in the file)` : '') + '\n');
+    (unresolved > 0 ? `; ${unresolved} ${unresolved === 1 ? 'constituent' : 'constituents'} could not be separated (listed in the file)` : '') + '\n');
   return 0;
 }
 

@@ -121,10 +121,10 @@ function constantsSection(a: HarmonicAnalysis, station: ReportStation): string {
   return `<section aria-labelledby="constants-heading"><h2 id="constants-heading">Harmonic constants</h2>
 <p>Mean level Z0 = ${esc(fixed(a.meanLevel, 4))} m ± ${esc(fixed(a.meanLevelError, 4))} m above ${esc(station.datum)}.
 Phases are Greenwich phase lags g in degrees (UTC); ± values are 95 % confidence half-widths.</p>
-<table><caption>${a.constituents.length} constituents, largest first</caption>
+<div class="table-scroll"><table><caption>${a.constituents.length} constituents, largest first</caption>
 <thead><tr><th scope="col">Constituent</th><th scope="col">Speed (°/h)</th><th scope="col">Amplitude H (m)</th>
 <th scope="col">± (m)</th><th scope="col">Phase g (°)</th><th scope="col">± (°)</th></tr></thead>
-<tbody>${body.join('\n')}</tbody></table>
+<tbody>${body.join('\n')}</tbody></table></div>
 ${anyWeak ? '<p class="weak">* Smaller than the noise of the record (signal-to-noise below 2): treat with caution.</p>' : ''}
 </section>`;
 }

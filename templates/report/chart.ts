@@ -151,7 +151,10 @@ export function timeSeriesChart(series: readonly ChartSeries[], options: ChartOp
   for (const t of timeTicks(start, end)) {
     const xx = x(t).toFixed(1);
     out.push(`<line class="grid" x1="${xx}" x2="${xx}" y1="${TOP}" y2="${TOP + PLOT_H}"/>`);
-    out.push(`<text class="tick" x="${xx}" y="${HEIGHT - 8}" text-anchor="middle">${escapeHtml(timeLabel(t, spanDays))}</text>`);
+    const label = timeLabel(t, spanDays);
+    const halfWidth = label.length * 3.3; // about half the label's width at 11 px
+    if (x(t) - halfWidth < 0 || x(t) + halfWidth > WIDTH) continue; // a label that would be cut off
+    out.push(`<text class="tick" x="${xx}" y="${HEIGHT - 8}" text-anchor="middle">${escapeHtml(label)}</text>`);
   }
   if (options.zeroLine) out.push(`<line class="zero" x1="${LEFT}" x2="${LEFT + PLOT_W}" y1="${y(0).toFixed(1)}" y2="${y(0).toFixed(1)}"/>`);
   out.push(`<text class="tick" x="${LEFT - 6}" y="${TOP - 10}" text-anchor="end">m</text>`);

@@ -12,6 +12,7 @@ h2 { font-size: 1.15rem; margin-top: 2rem; border-bottom: 1px solid #c9d1d9; pad
 dl.facts { display: grid; grid-template-columns: max-content 1fr; gap: 0.2rem 1rem; }
 dl.facts dt { font-weight: 600; }
 dl.facts dd { margin: 0; }
+div.table-scroll { overflow-x: auto; }
 table { border-collapse: collapse; width: 100%; font-variant-numeric: tabular-nums; }
 caption { text-align: left; font-weight: 600; padding-bottom: 0.3rem; }
 th, td { border-bottom: 1px solid #d0d7de; padding: 0.25rem 0.5rem; text-align: right; }
