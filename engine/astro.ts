@@ -51,8 +51,8 @@ function polynomial(c: readonly number[], x: number): number {
 
 /** Reduce an angle in degrees to [0, 360). */
 export function normalizeDegrees(a: number): number {
-  const r = a % 360;
-  return r < 0 ? r + 360 : r;
+  const r = a - 360 * Math.floor(a / 360); // not %: floor is several times faster on doubles
+  return r >= 360 ? r - 360 : r;
 }
 
 /**

@@ -78,14 +78,25 @@ function polishRoot(p: Taylor, lo: number, hi: number, dlo: number, dhi: number)
 }
 
 interface Scratch {
-  X: Float64Array;
+  X: Float64Array; // phasor of constituent k at grid point j: X[k·cols + j] + i·Y[k·cols + j]
   Y: Float64Array;
-  D: Float64Array;
-  C: Float64Array;
+  D: Float64Array; // h′ at the grid points
+  C: Float64Array; // h″ at the grid points
+  // per constituent, padded with zeros to a multiple of four: start phasor, step rotation, half step,
+  // coefficients of Re(λz) and Re(λ²z) for λ = β + iω, and the Taylor degree it needs
+  re: Float64Array;
+  im: Float64Array;
+  rc: Float64Array;
+  rs: Float64Array;
   halfC: Float64Array;
   halfS: Float64Array;
+  a1: Float64Array;
+  b1: Float64Array;
+  a2: Float64Array;
+  b2: Float64Array;
+  degree: Int32Array;
   taylor: Taylor;
-  stack: number[];
+  stack: Float64Array;
 }
 
 /** All high and low waters in [start, end) (UTC ms), in time order. */
@@ -93,16 +104,27 @@ export function findExtrema(predictor: Predictor, start: number, end: number): T
   const events: TideEvent[] = [];
   const n = predictor.names.length;
   if (!(end > start) || n === 0) return events;
-  const maxSteps = Math.max(1, Math.ceil((24 * predictor.fastestSpeed) / GRID_TURN));
+  const padded = Math.ceil(n / 4) * 4;
+  const cols = Math.max(1, Math.ceil((24 * predictor.fastestSpeed) / GRID_TURN)) + 1;
+  const perConstituent = () => new Float64Array(padded);
   const scratch: Scratch = {
-    X: new Float64Array(n * (maxSteps + 1)),
-    Y: new Float64Array(n * (maxSteps + 1)),
-    D: new Float64Array(maxSteps + 1),
-    C: new Float64Array(maxSteps + 1),
-    halfC: new Float64Array(n),
-    halfS: new Float64Array(n),
+    X: new Float64Array(padded * cols),
+    Y: new Float64Array(padded * cols),
+    D: new Float64Array(cols),
+    C: new Float64Array(cols),
+    re: perConstituent(),
+    im: perConstituent(),
+    rc: perConstituent(),
+    rs: perConstituent(),
+    halfC: perConstituent(),
+    halfS: perConstituent(),
+    a1: perConstituent(),
+    b1: perConstituent(),
+    a2: perConstituent(),
+    b2: perConstituent(),
+    degree: new Int32Array(padded),
     taylor: { coef: new Float64Array(64), degree: 0, value: 0, d1: 0, d2: 0 },
-    stack: [],
+    stack: new Float64Array(6 * 64),
   };
   const w = newWindow(n);
   let carried: number | null = null; // h′ at the end of the previous window: the one value both windows use
@@ -125,66 +147,96 @@ function scanWindow(
   const steps = Math.max(1, Math.ceil((L * predictor.fastestSpeed) / GRID_TURN));
   const dt = L / steps;
   const cols = steps + 1;
-  const { X, Y, D, C, halfC, halfS } = s;
-  D.fill(0, 0, cols);
-  C.fill(0, 0, cols);
   let M = 0;
-  let fastestRate = 0;
+  let curvature = 0;
   for (let k = 0; k < n; k++) {
     const beta = w.beta[k]!;
     const omega = w.omega[k]!;
     const rate = Math.sqrt(beta * beta + omega * omega);
-    fastestRate = Math.max(fastestRate, rate);
-    const size = Math.sqrt(w.re[k]! * w.re[k]! + w.im[k]! * w.im[k]!);
-    M += rate * rate * rate * size * (1 + 2 * Math.abs(beta) * L); // bounds e^{|β|L}: |β|L < 1e-3
+    const size = Math.sqrt(w.re[k]! * w.re[k]! + w.im[k]! * w.im[k]!) * (1 + 2 * Math.abs(beta) * L); // e^{|β|L} < 1 + 2|β|L
+    M += rate * rate * rate * size;
+    curvature += rate * rate * size;
     const half = (beta * dt) / 2;
     const g = 1 + half * (1 + half / 2); // e^{β·dt/2}, |β·dt/2| < 1e-5
     const hc = g * Math.cos((omega * dt) / 2);
     const hs = g * Math.sin((omega * dt) / 2);
-    halfC[k] = hc;
-    halfS[k] = hs;
-    const rc = hc * hc - hs * hs;
-    const rs = 2 * hc * hs;
-    // Re(λz) and Re(λ²z) for λ = β + iω
-    const a1 = beta;
-    const b1 = -omega;
-    const a2 = beta * beta - omega * omega;
-    const b2 = -2 * beta * omega;
-    let x = w.re[k]!;
-    let y = w.im[k]!;
-    const row = k * cols;
-    for (let j = 0; j < cols; j++) {
-      X[row + j] = x;
-      Y[row + j] = y;
-      D[j]! += a1 * x + b1 * y;
-      C[j]! += a2 * x + b2 * y;
-      const t = x * rc - y * rs;
-      y = x * rs + y * rc;
-      x = t;
-    }
+    s.re[k] = w.re[k]!;
+    s.im[k] = w.im[k]!;
+    s.halfC[k] = hc;
+    s.halfS[k] = hs;
+    s.rc[k] = hc * hc - hs * hs;
+    s.rs[k] = 2 * hc * hs;
+    s.a1[k] = beta;
+    s.b1[k] = -omega;
+    s.a2[k] = beta * beta - omega * omega;
+    s.b2[k] = -2 * beta * omega;
   }
   M *= 1 + 1e-12;
-  // Taylor degree: the truncated h″ term (θ/2)^(K−1)/(K−1)! stays below 1e-17 of the sum's size
-  const theta = (fastestRate * dt) / 2;
-  let degree = 1;
-  for (let term = 1; term > 1e-17 && degree < 60; degree++) term *= theta / degree; // term = θ^(degree−1)/(degree−1)!
-  degree = Math.max(degree, 4);
+  // Taylor degree of each constituent: its dropped terms move h″ by under 1e-15 of Σ|λ|²fH
+  const theta = dt / 2;
+  for (let k = 0; k < n; k++) {
+    const rate = Math.sqrt(s.a1[k]! * s.a1[k]! + s.b1[k]! * s.b1[k]!);
+    let term = rate * rate * Math.sqrt(s.re[k]! * s.re[k]! + s.im[k]! * s.im[k]!); // |λ|²A·(|λ|θ)^(K−1)/(K−1)!
+    let degree = 1;
+    while (term > 1e-15 * curvature && degree < 60) term *= (rate * theta) / degree++;
+    s.degree[k] = Math.max(degree, 2);
+  }
+  scanGrid(s, cols);
 
+  const { D, C } = s;
   for (let j = 0; j < steps; j++) {
     const da = j === 0 && carried !== null ? carried : D[j]!;
     const db = D[j + 1]!;
     const ca = C[j]!;
     const cb = C[j + 1]!;
-    const sameSign = da > 0 === db > 0;
-    if (sameSign && provedNoZero(da, db, ca, cb, dt, M)) continue;
-    buildTaylor(s, w, n, cols, j, degree);
+    if (da > 0 === db > 0 && provedNoZero(da, db, ca, cb, dt, M)) continue;
+    buildTaylor(s, w, n, cols, j);
     isolate(s, predictor.meanLevel, w.start + (j + 0.5) * dt * MS_PER_HOUR, dt, da, db, ca, cb, M, events);
   }
   return D[steps]!;
 }
 
-function buildTaylor(s: Scratch, w: PhasorWindow, n: number, cols: number, j: number, degree: number): void {
+/** Phasors, h′ and h″ at every grid point: four constituents at a time, four independent recurrences. */
+function scanGrid(s: Scratch, cols: number): void {
+  const { X, Y, D, C } = s;
+  D.fill(0, 0, cols);
+  C.fill(0, 0, cols);
+  for (let k = 0; k < s.re.length; k += 4) {
+    let x0 = s.re[k]!, y0 = s.im[k]!, x1 = s.re[k + 1]!, y1 = s.im[k + 1]!;
+    let x2 = s.re[k + 2]!, y2 = s.im[k + 2]!, x3 = s.re[k + 3]!, y3 = s.im[k + 3]!;
+    const c0 = s.rc[k]!, s0 = s.rs[k]!, c1 = s.rc[k + 1]!, s1 = s.rs[k + 1]!;
+    const c2 = s.rc[k + 2]!, s2 = s.rs[k + 2]!, c3 = s.rc[k + 3]!, s3 = s.rs[k + 3]!;
+    const p0 = s.a1[k]!, q0 = s.b1[k]!, p1 = s.a1[k + 1]!, q1 = s.b1[k + 1]!;
+    const p2 = s.a1[k + 2]!, q2 = s.b1[k + 2]!, p3 = s.a1[k + 3]!, q3 = s.b1[k + 3]!;
+    const u0 = s.a2[k]!, v0 = s.b2[k]!, u1 = s.a2[k + 1]!, v1 = s.b2[k + 1]!;
+    const u2 = s.a2[k + 2]!, v2 = s.b2[k + 2]!, u3 = s.a2[k + 3]!, v3 = s.b2[k + 3]!;
+    const r0 = k * cols, r1 = r0 + cols, r2 = r1 + cols, r3 = r2 + cols;
+    for (let j = 0; j < cols; j++) {
+      X[r0 + j] = x0; Y[r0 + j] = y0; X[r1 + j] = x1; Y[r1 + j] = y1;
+      X[r2 + j] = x2; Y[r2 + j] = y2; X[r3 + j] = x3; Y[r3 + j] = y3;
+      D[j]! += p0 * x0 + q0 * y0 + (p1 * x1 + q1 * y1) + (p2 * x2 + q2 * y2) + (p3 * x3 + q3 * y3);
+      C[j]! += u0 * x0 + v0 * y0 + (u1 * x1 + v1 * y1) + (u2 * x2 + v2 * y2) + (u3 * x3 + v3 * y3);
+      let t = x0 * c0 - y0 * s0;
+      y0 = x0 * s0 + y0 * c0;
+      x0 = t;
+      t = x1 * c1 - y1 * s1;
+      y1 = x1 * s1 + y1 * c1;
+      x1 = t;
+      t = x2 * c2 - y2 * s2;
+      y2 = x2 * s2 + y2 * c2;
+      x2 = t;
+      t = x3 * c3 - y3 * s3;
+      y3 = x3 * s3 + y3 * c3;
+      x3 = t;
+    }
+  }
+}
+
+/** Taylor coefficients of h − Z0 about the midpoint of grid interval j. */
+function buildTaylor(s: Scratch, w: PhasorWindow, n: number, cols: number, j: number): void {
   const coef = s.taylor.coef;
+  let degree = 0;
+  for (let k = 0; k < n; k++) degree = Math.max(degree, s.degree[k]!);
   coef.fill(0, 0, degree + 1);
   for (let k = 0; k < n; k++) {
     const x0 = s.X[k * cols + j]!;
@@ -194,7 +246,7 @@ function buildTaylor(s: Scratch, w: PhasorWindow, n: number, cols: number, j: nu
     let y = x0 * s.halfS[k]! + y0 * s.halfC[k]!;
     const beta = w.beta[k]!;
     const omega = w.omega[k]!;
-    for (let m = 0; m <= degree; m++) {
+    for (let m = 0, top = s.degree[k]!; m <= top; m++) {
       coef[m]! += x;
       const t = x * beta - y * omega;
       y = x * omega + y * beta;
@@ -223,16 +275,26 @@ function isolate(
   events: TideEvent[],
 ): void {
   const p = s.taylor;
-  const stack = s.stack;
-  stack.length = 0;
-  stack.push(-L / 2, L / 2, da, db, ca, cb);
-  while (stack.length > 0) {
-    const chi = stack.pop()!;
-    const clo = stack.pop()!;
-    const dhi = stack.pop()!;
-    const dlo = stack.pop()!;
-    const hi = stack.pop()!;
-    const lo = stack.pop()!;
+  const stack = s.stack; // pieces waiting, six numbers each; halving from a day to SPLIT_FLOOR_H needs < 40
+  let top = 0;
+  const push = (lo: number, hi: number, dlo: number, dhi: number, clo: number, chi: number) => {
+    stack[top] = lo;
+    stack[top + 1] = hi;
+    stack[top + 2] = dlo;
+    stack[top + 3] = dhi;
+    stack[top + 4] = clo;
+    stack[top + 5] = chi;
+    top += 6;
+  };
+  push(-L / 2, L / 2, da, db, ca, cb);
+  while (top > 0) {
+    top -= 6;
+    const lo = stack[top]!;
+    const hi = stack[top + 1]!;
+    const dlo = stack[top + 2]!;
+    const dhi = stack[top + 3]!;
+    const clo = stack[top + 4]!;
+    const chi = stack[top + 5]!;
     const width = hi - lo;
     if (dlo > 0 === dhi > 0) {
       if (width < SPLIT_FLOOR_H || provedNoZero(dlo, dhi, clo, chi, width, M)) continue;
@@ -246,7 +308,7 @@ function isolate(
     evaluate(p, mid);
     const dm = p.d1;
     const cm = p.d2;
-    stack.push(mid, hi, dm, dhi, cm, chi); // right half waits
-    stack.push(lo, mid, dlo, dm, clo, cm); // left half first: events come out in time order
+    push(mid, hi, dm, dhi, cm, chi); // right half waits
+    push(lo, mid, dlo, dm, clo, cm); // left half first: events come out in time order
   }
 }

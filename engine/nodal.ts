@@ -100,10 +100,10 @@ export function compileAstronomicalTerms(names: readonly string[]): Astronomical
     evaluate(t, V, f, u) {
       const a = fundamentalArguments(t);
       const rules = nodalRules(a);
-      RULE_NAMES.forEach((r, i) => {
-        ruleF[i] = rules[r].f;
-        ruleU[i] = rules[r].u;
-      });
+      for (let i = 0; i < RULE_NAMES.length; i++) {
+        ruleF[i] = rules[RULE_NAMES[i]!].f;
+        ruleU[i] = rules[RULE_NAMES[i]!].u;
+      }
       for (let k = 0; k < n; k++) {
         const m = k * 6;
         const v =

@@ -5,6 +5,7 @@
 // meets the exact evaluation at every window end and strays from it by ~1e-8 m in between (the curvature
 // of u and f over a day). Series advance the phasors by complex multiplication.
 
+import { normalizeDegrees } from './astro.js';
 import { StationFileError } from './errors.js';
 import { compileAstronomicalTerms, type AstronomicalTerms } from './nodal.js';
 import { findConstituent, CONSTITUENT_NAMES } from './constituents.js';
@@ -124,7 +125,7 @@ function fillAnchor(k: CompiledConstants, t: number, into: Anchor): Anchor {
   const { V, f, u } = k;
   k.terms.evaluate(t, V, f, u);
   for (let i = 0; i < V.length; i++) {
-    into.phase[i] = ((((V[i]! + u[i]! - k.g[i]!) % 360) + 360) % 360) * DEG;
+    into.phase[i] = normalizeDegrees(V[i]! + u[i]! - k.g[i]!) * DEG;
     into.amplitude[i] = f[i]! * k.H[i]!;
   }
   into.t = t;
