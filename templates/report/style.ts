@@ -9,9 +9,11 @@ h2 { font-size: 1.15rem; margin-top: 2rem; border-bottom: 1px solid #c9d1d9; pad
 .subtitle { margin-top: 0; color: #444c56; }
 .caution { border: 2px solid #9a3412; background: #fff7ed; padding: 0.6rem 0.9rem; border-radius: 4px; }
 .caution strong { color: #9a3412; }
+.caution h2 { margin-top: 0.3rem; }
 dl.facts { display: grid; grid-template-columns: max-content 1fr; gap: 0.2rem 1rem; }
 dl.facts dt { font-weight: 600; }
-dl.facts dd { margin: 0; }
+dl.facts dd { margin: 0; overflow-wrap: anywhere; }
+@media (max-width: 36rem) { dl.facts { grid-template-columns: 1fr; } dl.facts dd { margin-bottom: 0.4rem; } }
 div.table-scroll { overflow-x: auto; }
 table { border-collapse: collapse; width: 100%; font-variant-numeric: tabular-nums; }
 caption { text-align: left; font-weight: 600; padding-bottom: 0.3rem; }
