@@ -8,7 +8,7 @@ import { extname, join, normalize } from 'node:path';
 import { chromium, type Browser, type Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { renderSite } from '../../templates/site/render.js';
-import { editedSample, secondaryOf } from './site-build.js';
+import { demoModels } from './site-build.js';
 
 const CHROMIUM = '/usr/bin/chromium';
 const hasChromium = existsSync(CHROMIUM);
@@ -17,7 +17,7 @@ if (!hasChromium) console.warn(`browser tests skipped: ${CHROMIUM} not found (ap
 const ARTIFACTS = join(import.meta.dirname, '..', '.artifacts');
 const TYPES: Record<string, string> = {
   '.html': 'text/html; charset=utf-8', '.css': 'text/css', '.csv': 'text/csv', '.json': 'application/json',
-  '.ics': 'text/calendar',
+  '.ics': 'text/calendar', '.svg': 'image/svg+xml',
 };
 
 let tmp: string;
@@ -44,7 +44,7 @@ function serve(root: string): Promise<Server> {
 async function watchedPage(width: number, height: number): Promise<{ page: Page; errors: string[] }> {
   const page = await browser.newPage({ viewport: { width, height } });
   const errors: string[] = [];
-  page.on('console', (m) => { if (m.type() === 'error') errors.push(m.text()); });
+  page.on('console', (m) => { if (m.type() === 'error') errors.push(`${m.text()} ${m.location().url}`); });
   page.on('pageerror', (e) => errors.push(e.message));
   page.on('response', (r) => { if (r.status() >= 400) errors.push(`${r.status()} ${r.url()}`); });
   return { page, errors };
@@ -61,8 +61,8 @@ async function noSidewaysScroll(page: Page): Promise<void> {
 describe.skipIf(!hasChromium)('the site in chromium', () => {
   beforeAll(async () => {
     tmp = mkdtempSync(join(tmpdir(), 'tidewright-browser-'));
-    const reference = editedSample(2027);
-    await renderSite([reference, secondaryOf(reference)], join(tmp, 'site'), { units: 'm', quiet: true });
+    // A reference port with one of its secondary ports, as the engine builds them (Europe/Lisbon, DST).
+    await renderSite(demoModels(['gannet-head', 'pilchard-cove']), join(tmp, 'site'), { units: 'm', quiet: true });
     server = await serve(join(tmp, 'site'));
     const address = server.address();
     base = `http://127.0.0.1:${typeof address === 'object' && address ? address.port : 0}/`;
@@ -88,14 +88,14 @@ describe.skipIf(!hasChromium)('the site in chromium', () => {
       await page.screenshot({ path: join(ARTIFACTS, `site-index-${label}.png`), fullPage: true });
       await noSidewaysScroll(page);
 
-      await page.getByRole('link', { name: 'Sample Quay (invented)', exact: true }).click();
-      await page.waitForURL(/sample-quay\/2027\/index\.html$/);
-      expect(await page.locator('h1').innerText()).toContain('Sample Quay (invented)');
+      await page.getByRole('link', { name: 'Gannet Head (invented)', exact: true }).click();
+      await page.waitForURL(/gannet-head\/2027\/index\.html$/);
+      expect(await page.locator('h1').innerText()).toContain('Gannet Head (invented)');
       await page.screenshot({ path: join(ARTIFACTS, `site-station-${label}.png`), fullPage: true });
       await noSidewaysScroll(page);
 
       await page.locator('a.glance-link', { hasText: 'March' }).click();
-      await page.waitForURL(/sample-quay\/2027\/03\/index\.html$/);
+      await page.waitForURL(/gannet-head\/2027\/03\/index\.html$/);
       expect(await page.locator('tbody tr.day').count()).toBe(31);
       expect(await page.locator('#day-28 .clock-change').isVisible()).toBe(true);
       await page.screenshot({ path: join(ARTIFACTS, `site-month-${label}.png`), fullPage: true });
@@ -111,9 +111,9 @@ describe.skipIf(!hasChromium)('the site in chromium', () => {
     });
   }
 
-  it('prints a 31-day month on a single A4 page', async () => {
+  it('prints a 31-day month with a clock change on a single A4 page', async () => {
     const { page } = await watchedPage(1280, 900);
-    await page.goto(`${base}sample-quay/2027/01/index.html`);
+    await page.goto(`${base}gannet-head/2027/03/index.html`);
     await page.emulateMedia({ media: 'print' });
     await page.screenshot({ path: join(ARTIFACTS, 'site-month-print.png'), fullPage: true });
     const pdf = await page.pdf({ preferCSSPageSize: true, printBackground: true });

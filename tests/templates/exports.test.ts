@@ -1,0 +1,150 @@
+// The downloads of a station-year: CSV and JSON against the model, iCalendar parsed back with ical.js
+// and checked against RFC 5545's line rules (CRLF, 75-octet folding, TEXT escaping).
+import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import ICAL from 'ical.js';
+import { beforeAll, describe, expect, it } from 'vitest';
+import type { StationYear } from '../../engine/types.js';
+import { csvField, eventsCsv } from '../../templates/exports/csv.js';
+import { escapeText, eventsICalendar, foldLine } from '../../templates/exports/icalendar.js';
+import { eventsJson } from '../../templates/exports/json.js';
+import { exportFileNames, writeExports } from '../../templates/exports/write.js';
+import { demoModels } from './site-build.js';
+
+let model: StationYear;
+
+beforeAll(() => {
+  [model] = demoModels(['gannet-head']);
+});
+
+/** The data rows of our CSV: note lines (#) dropped, split on commas (no field of ours is quoted). */
+function csvRows(text: string): { header: string[]; rows: string[][]; notes: string[] } {
+  const lines = text.split('\r\n').filter((l) => l !== '');
+  const notes = lines.filter((l) => l.startsWith('# '));
+  const [header, ...rows] = lines.filter((l) => !l.startsWith('#')).map((l) => l.split(','));
+  return { header, rows, notes };
+}
+
+describe('CSV', () => {
+  it('has one row per event, matching the model, with CRLF line ends and the caution in its notes', () => {
+    const text = eventsCsv(model, 'm');
+    expect(text.replace(/\r\n/g, '')).not.toMatch(/[\r\n]/); // RFC 4180: every line ends in CRLF
+    const { header, rows, notes } = csvRows(text);
+    expect(header).toEqual(['station_id', 'date', 'local_time', 'utc_offset', 'time_utc', 'type', 'height_m', 'below_chart_datum']);
+    expect(rows).toHaveLength(model.events.length);
+    rows.forEach((row, i) => {
+      const e = model.events[i];
+      expect(row).toEqual(['gannet-head', e.local.slice(0, 10), e.clock, e.offset, e.time, e.type, e.height.toFixed(3), e.belowDatum ? 'yes' : 'no']);
+    });
+    expect(notes.join(' ')).toContain(model.caution);
+    expect(notes.join(' ')).toContain('INVENTED');
+    expect(notes.join(' ')).toContain(model.station.provenance);
+  });
+
+  it('in feet converts with the international foot and names the column so', () => {
+    const { header, rows } = csvRows(eventsCsv(model, 'ft'));
+    expect(header[6]).toBe('height_ft');
+    expect(Number(rows[0][6])).toBeCloseTo(model.events[0].height / 0.3048, 2); // 1 ft = 0.3048 m exactly
+  });
+
+  it('quotes fields holding commas, quotes or line breaks (RFC 4180 §2.6–2.7)', () => {
+    expect(csvField('plain')).toBe('plain');
+    expect(csvField('a,b')).toBe('"a,b"');
+    expect(csvField('say "hi"')).toBe('"say ""hi"""');
+    expect(csvField('two\nlines')).toBe('"two\nlines"');
+  });
+});
+
+describe('JSON', () => {
+  it('carries every event as in the model, the station, the datum and the caution', () => {
+    const doc = JSON.parse(eventsJson(model)) as {
+      station: { id: string; name: string; datum: string; timezone: string }; year: number; units: string;
+      invented: boolean; caution: string; events: { time: string; local: string; type: string; height: number; belowDatum: boolean }[];
+    };
+    expect(doc.station).toMatchObject({ id: 'gannet-head', name: model.station.name, datum: model.station.datum, timezone: 'Europe/Lisbon' });
+    expect(doc.year).toBe(2027);
+    expect(doc.units).toBe('m');
+    expect(doc.invented).toBe(true);
+    expect(doc.caution).toBe(model.caution);
+    expect(doc.events).toEqual(model.events.map(({ time, local, type, height, belowDatum }) => ({ time, local, type, height, belowDatum })));
+  });
+});
+
+describe('iCalendar', () => {
+  it('parses back with ical.js: one VEVENT per event, first event’s instant and summary from the model', () => {
+    const text = eventsICalendar(model);
+    const calendar = new ICAL.Component(ICAL.parse(text));
+    expect(calendar.getFirstPropertyValue('version')).toBe('2.0');
+    expect(String(calendar.getFirstPropertyValue('prodid'))).toMatch(/tidewright/);
+    expect(calendar.getFirstPropertyValue('calscale')).toBe('GREGORIAN');
+    expect(calendar.getFirstPropertyValue('x-wr-calname')).toBe(`Tides 2027: ${model.station.name}`);
+    const events = calendar.getAllSubcomponents('vevent');
+    expect(events).toHaveLength(model.events.length);
+    const first = new ICAL.Event(events[0]);
+    const e = model.events[0];
+    expect(first.startDate.toJSDate().toISOString().replace('.000', '')).toBe(e.time);
+    expect(first.startDate.zone?.tzid).toBe('UTC');
+    expect(first.summary).toBe(`${e.type === 'high' ? 'High' : 'Low'} water ${e.height.toFixed(2)} m`);
+    expect(first.uid).toBe('gannet-head-2027-1@tidewright');
+    expect(first.description).toContain(model.caution);
+    expect(first.description).toContain(`${e.clock} local time (UTC${e.offset})`);
+    const last = new ICAL.Event(events[events.length - 1]);
+    expect(last.uid).toBe(`gannet-head-2027-${model.events.length}@tidewright`);
+  });
+
+  it('uses CRLF only, folds at 75 octets, and is the same on every build (fixed DTSTAMP, stable UIDs)', () => {
+    const text = eventsICalendar(model);
+    expect(text.endsWith('\r\n')).toBe(true);
+    expect(text.replace(/\r\n/g, '')).not.toMatch(/[\r\n]/);
+    const lines = text.split('\r\n').slice(0, -1);
+    for (const line of lines) expect(Buffer.byteLength(line, 'utf8')).toBeLessThanOrEqual(75);
+    expect(lines.filter((l) => l.startsWith(' ')).length).toBeGreaterThan(model.events.length); // descriptions fold
+    expect(new Set(lines.filter((l) => l.startsWith('DTSTAMP:')))).toEqual(new Set(['DTSTAMP:20270101T000000Z']));
+    expect(eventsICalendar(model)).toBe(text);
+  });
+
+  it('escapes TEXT values so names with commas, semicolons and backslashes survive (RFC 5545 §3.3.11)', () => {
+    expect(escapeText('a,b;c\\d\ne')).toBe('a\\,b\\;c\\\\d\\ne');
+    const odd = { ...model, station: { ...model.station, name: 'Quay; North, Pier \\ "Old" — Ærø' } };
+    const calendar = new ICAL.Component(ICAL.parse(eventsICalendar(odd)));
+    // ical.js keeps X- properties raw (their value type is unknown to it), so compare the escaped text;
+    // LOCATION is a TEXT property and must come back exactly as written in the station file.
+    expect(calendar.getFirstPropertyValue('x-wr-calname')).toBe('Tides 2027: Quay\\; North\\, Pier \\\\ "Old" — Ærø');
+    expect(new ICAL.Event(calendar.getAllSubcomponents('vevent')[0]).location).toBe(odd.station.name);
+  });
+
+  it('never splits a multi-byte character when folding', () => {
+    const line = `DESCRIPTION:${'é—'.repeat(60)}`; // 2- and 3-octet characters
+    const folded = foldLine(line);
+    const parts = folded.split('\r\n');
+    expect(parts.length).toBeGreaterThan(3);
+    for (const p of parts) expect(Buffer.byteLength(p, 'utf8')).toBeLessThanOrEqual(75);
+    expect(parts.map((p, i) => (i === 0 ? p : p.slice(1))).join('')).toBe(line);
+    expect(foldLine('SHORT:ok')).toBe('SHORT:ok');
+  });
+
+  it('in feet says feet in each summary', () => {
+    const calendar = new ICAL.Component(ICAL.parse(eventsICalendar(model, 'ft')));
+    const e = model.events[0];
+    expect(new ICAL.Event(calendar.getAllSubcomponents('vevent')[0]).summary)
+      .toBe(`${e.type === 'high' ? 'High' : 'Low'} water ${(e.height / 0.3048).toFixed(1)} ft`);
+  });
+});
+
+describe('writeExports', () => {
+  it('writes the three files under the names the site links to, and refuses an unsafe id', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'tidewright-exports-'));
+    try {
+      const names = await writeExports(model, dir);
+      expect(names).toEqual({ csv: 'gannet-head-2027-events.csv', json: 'gannet-head-2027-events.json', ics: 'gannet-head-2027.ics' });
+      expect(readFileSync(join(dir, names.csv), 'utf8')).toBe(eventsCsv(model));
+      expect(readFileSync(join(dir, names.json), 'utf8')).toBe(eventsJson(model));
+      expect(readFileSync(join(dir, names.ics), 'utf8')).toBe(eventsICalendar(model));
+      const escaping = { ...model, station: { ...model.station, id: '../escape' } };
+      expect(() => exportFileNames(escaping)).toThrow(/a-z, 0-9/);
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
+  });
+});
