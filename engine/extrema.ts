@@ -13,10 +13,11 @@
 // and bisected on that polynomial under the same two proofs until each piece is settled. Roots are then
 // polished by Newton's method inside the bracket, with bisection as the fallback, to 1e-8 h (36 µs).
 
-import { MS_PER_DAY, newWindow, type PhasorWindow, type Predictor } from './predict.js';
+import { newPhasorWindow, type PhasorWindow, type Predictor } from './predict.js';
 import type { TideEvent } from './types.js';
 
 const MS_PER_HOUR = 3_600_000;
+const MS_PER_DAY = 86_400_000; // windows of the kernel are at most a day long
 const GRID_TURN = 1; // radians of the fastest constituent per grid step
 const ROOT_TOLERANCE_H = 1e-8; // polishing stops when the bracket is this narrow (hours)
 const SPLIT_FLOOR_H = 1e-6; // pieces narrower than 3.6 ms are not split further
@@ -126,7 +127,7 @@ export function findExtrema(predictor: Predictor, start: number, end: number): T
     taylor: { coef: new Float64Array(64), degree: 0, value: 0, d1: 0, d2: 0 },
     stack: new Float64Array(6 * 64),
   };
-  const w = newWindow(n);
+  const w = newPhasorWindow(n);
   let carried: number | null = null; // h′ at the end of the previous window: the one value both windows use
   for (let ws = start; ws < end; ws += MS_PER_DAY) {
     const we = Math.min(ws + MS_PER_DAY, end);
