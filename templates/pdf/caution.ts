@@ -46,14 +46,17 @@ function keyItems(ctx: PageContext, view: StationView, mixed: boolean): KeyItem[
       draw: (x, y) => { sunGlyph(doc, true, x, y, 7.4 * s); const w = sunGlyphWidth(7.4 * s); t('narrow', x + w + 1.5 * s, y, '07:12', 7.4);
         sunGlyph(doc, false, x + 34 * s, y, 7.4 * s); t('narrow', x + 34 * s + w + 1.5 * s, y, '19:03', 7.4); } },
     { text: 'The clocks change: a note under the day; that day every time carries its UTC offset.',
-      draw: (x, y) => clockGlyph(doc, x + 4 * s, y - 3.5 * s, 3.6 * s) },
+      draw: (x, y) => clockGlyph(doc, x + 5 * s, y - 3.5 * s, 4.8 * s) },
     { text: 'Saturdays and Sundays are shaded; a heavy rule ends each week.',
       draw: (x, y) => { doc.save().rect(x, y - 12 * s, 30 * s, 16 * s).fill(FAINT).restore(); put(doc, 'Sat', x + 15 * s, y, { font: 'narrow-bold', size: 7 * s }, 'center'); } },
   ];
 }
 
-/** `mixedHemispheres`: a combined book with stations both north and south of the equator. */
-export function cautionPage(view: StationView, mixedHemispheres = false): LogicalPage {
+/** For a combined book: `mixedHemispheres` when its stations lie both north and south of the equator. */
+export interface CautionScope { combined: boolean; mixedHemispheres: boolean }
+
+export function cautionPage(view: StationView, scope: CautionScope = { combined: false, mixedHemispheres: false }): LogicalPage {
+  const { mixedHemispheres } = scope;
   const { model } = view;
   return {
     kind: 'caution',
@@ -77,7 +80,15 @@ export function cautionPage(view: StationView, mixedHemispheres = false): Logica
         + `${printable(model.station.datum)}, the zero of the chart. Depth available = charted depth + predicted height.`,
       box.x, y, box.width, { font: 'regular', size: 8.4 * s, color: DARK }, 11 * s);
 
-      y += 12 * s;
+      const derived = model.station.kind === 'secondary' || scope.combined
+        ? 'A secondary port\u2019s times and heights come from its reference port\u2019s predictions and the time and '
+          + 'height differences on its facts page. '
+        : '';
+      y = paragraph(doc, `${derived}Spring and neap tides are marked on the days of the station\u2019s own largest and `
+        + 'smallest predicted range, which follow new and full moon and the quarters by the age of the tide.',
+      box.x, y + 3 * s, box.width, { font: 'regular', size: 8.4 * s, color: DARK }, 11 * s);
+
+      y += 10 * s;
       put(doc, 'How to read the month pages', box.x, y, { font: 'bold', size: 11.5 * s });
       y += 8 * s;
       const textX = box.x + 74 * s;
@@ -87,7 +98,7 @@ export function cautionPage(view: StationView, mixedHemispheres = false): Logica
         const h = Math.max(22 * s, lines.length * 10 * s + 10 * s);
         const base = y + 15 * s;
         item.draw(box.x, base);
-        lines.forEach((line, i) => put(doc, line, textX, base - 3 * s + i * 10 * s - (lines.length - 1) * 3 * s, style));
+        lines.forEach((line, i) => put(doc, line, textX, base + (i - (lines.length - 1) / 2) * 10 * s, style));
         y += h;
       }
     },

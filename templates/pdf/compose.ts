@@ -39,7 +39,7 @@ export function combinedPages(views: StationView[], g: PageGeometry, row: number
   const front: LogicalPage[] = [bookCoverPage(views, { ...text, years: yearText }, views[0].model.caution, invented)];
   const contentsCount = contentsPageCount(views.length, contentBox(g, 1).height, g.scale);
   const mixed = views.some((v) => v.southern) && views.some((v) => !v.southern);
-  const caution = cautionPage(views[0], mixed);
+  const caution = cautionPage(views[0], { combined: true, mixedHemispheres: mixed });
   let next = 1 + contentsCount + 2; // after the cover, the contents and the caution page
   const sections: LogicalPage[] = [];
   const entries = views.map((view) => {

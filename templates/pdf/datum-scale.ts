@@ -2,7 +2,7 @@
 // chart datum heavy, labels spread apart where datums lie close together.
 import type { Datums } from '../../engine/types.js';
 import type { Box } from './geometry.js';
-import { FEET_PER_METRE, formatHeight } from './format.js';
+import { formatHeight, inUnits } from './format.js';
 import type { HeightUnits } from './options.js';
 import { INK, MID, WHITE } from './style.js';
 import { put } from './text.js';
@@ -35,9 +35,8 @@ function staffStep(span: number, units: HeightUnits): number {
 
 export function drawDatumScale(doc: PDFKit.PDFDocument, datums: Datums, datumLabel: string, units: HeightUnits,
   box: Box, s: number): void {
-  const k = units === 'ft' ? FEET_PER_METRE : 1;
   // every datum and the chart datum inside the staff, even if the model's datums are out of order
-  const values = DATUM_ROWS.map((r) => datums[r.key] * k);
+  const values = DATUM_ROWS.map((r) => inUnits(datums[r.key], units));
   const lo = Math.min(0, ...values);
   const hi = Math.max(0, ...values);
   const step = staffStep(Math.max(hi - lo, 1e-6), units);
@@ -54,11 +53,11 @@ export function drawDatumScale(doc: PDFKit.PDFDocument, datums: Datums, datumLab
   doc.restore();
   const tick = { font: 'narrow' as const, size: 6.5 * s, color: MID };
   for (let v = bottom; v <= top + 1e-9; v += step) {
-    const label = Math.abs(v) < 1e-9 ? '0' : formatHeight(v / k, units).replace(/\.0+$/, '').replace(/(\.\d*?)0+$/, '$1');
+    const label = Math.abs(v) < 1e-9 ? '0' : formatHeight(v, 'm').replace(/\.0+$/, '').replace(/(\.\d*?)0+$/, '$1');
     put(doc, label, staffX - 3 * s, y(v) + 2.2 * s, tick, 'right');
   }
 
-  const rows: { label: string; v: number; zero: boolean }[] = DATUM_ROWS.map((r) => ({ label: r.key as string, v: datums[r.key] * k, zero: false }));
+  const rows: { label: string; v: number; zero: boolean }[] = DATUM_ROWS.map((r) => ({ label: r.key as string, v: inUnits(datums[r.key], units), zero: false }));
   rows.push({ label: datumLabel, v: 0, zero: true });
   rows.sort((a, b) => b.v - a.v);
   const lineEnd = staffX + staffW + 14 * s;

@@ -1,12 +1,17 @@
 // How numbers, heights, places and dates are written in the book.
 import type { HeightUnits } from './options.js';
 
-export const FEET_PER_METRE = 1 / 0.3048; // international foot (1959): exactly 0.3048 m
+const METRES_PER_FOOT = 0.3048; // the international foot of 1959, exact
+
+/** Metres to the display unit; dividing by the exact 0.3048 keeps ties such as 1.143 m = 3.75 ft exact. */
+export function inUnits(metres: number, units: HeightUnits): number {
+  return units === 'ft' ? metres / METRES_PER_FOOT : metres;
+}
 export const MINUS = '\u2212'; // a true minus sign: wider than a hyphen, never mistaken for a dash
 
 /** A height above datum for print: metres to the centimetre, feet to the tenth. */
 export function formatHeight(metres: number, units: HeightUnits, below = metres < 0): string {
-  const value = units === 'ft' ? metres * FEET_PER_METRE : metres;
+  const value = inUnits(metres, units);
   const text = Math.abs(value).toFixed(units === 'ft' ? 1 : 2);
   return below ? MINUS + text : text;
 }
@@ -19,7 +24,7 @@ export function formatLength(metres: number, units: HeightUnits): string {
 /** A signed difference, always with its sign ("+0.30", "−0.10"). */
 export function formatSignedHeight(metres: number, units: HeightUnits): string {
   const s = formatHeight(metres, units);
-  return metres < 0 ? s : `+${s}`;
+  return metres < 0 || Number(s) === 0 ? s : `+${s}`;
 }
 
 export function formatSignedMinutes(minutes: number): string {

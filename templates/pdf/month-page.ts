@@ -11,14 +11,14 @@ import type { StationView } from './station-view.js';
 import { HAIRLINE, INK, MID, RULE } from './style.js';
 import { put, putFitted, widthOf } from './text.js';
 
-/** "Times are UTC+00:00 until 27 March, UTC+01:00 from 28 March" — the offsets of the month. */
+/** "Times UTC+00:00, UTC+01:00 from 28 March" — the offsets of the month (the day itself says when). */
 export function offsetStatement(days: DayEntry[]): string {
   const first = days[0].offsetStart;
   const changes = days.filter((d) => d.offsetChange !== null);
   if (changes.length === 0) return `All times ${formatOffset(first)}`;
   const pieces = [`Times ${formatOffset(first)}`];
   for (const d of changes) {
-    pieces.push(`${formatOffset(d.offsetChange!.to)} from ${d.offsetChange!.clock} on ${formatDate(d.date, false)}`);
+    pieces.push(`${formatOffset(d.offsetChange!.to)} from ${formatDate(d.date, false)}`);
   }
   return `${pieces.join(', ')} (clock mark on the day)`;
 }

@@ -1,6 +1,6 @@
 // The year at a glance: for every month a strip of daily ranges drawn to scale, springs and neaps
 // lettered, the moon's quarters above, mean spring and neap ranges as reference lines.
-import { formatLength, shortMonth, unitLabel, FEET_PER_METRE } from './format.js';
+import { formatLength, inUnits, shortMonth, unitLabel } from './format.js';
 import { clockGlyph, moonGlyph } from './glyphs.js';
 import type { LogicalPage } from './page.js';
 import { unit } from './page.js';
@@ -49,9 +49,8 @@ export function overviewPage(view: StationView): LogicalPage {
         }
         doc.undash().restore();
         const scaleStyle = { font: 'narrow' as const, size: 5.6 * s, color: MID };
-        const k = units === 'ft' ? FEET_PER_METRE : 1;
-        put(doc, (model.meanSpringRange * k).toFixed(1), plotX + plotW + 2 * s, yr(model.meanSpringRange) + 2 * s, scaleStyle);
-        put(doc, (model.meanNeapRange * k).toFixed(1), plotX + plotW + 2 * s, yr(model.meanNeapRange) + 2 * s, scaleStyle);
+        put(doc, inUnits(model.meanSpringRange, units).toFixed(1), plotX + plotW + 2 * s, yr(model.meanSpringRange) + 2 * s, scaleStyle);
+        put(doc, inUnits(model.meanNeapRange, units).toFixed(1), plotX + plotW + 2 * s, yr(model.meanNeapRange) + 2 * s, scaleStyle);
         for (let i = 0; i < m.dayCount; i++) {
           const d = model.days[m.firstDayIndex + i];
           const cx = plotX + (i + 0.5) * slot;

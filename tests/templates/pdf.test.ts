@@ -5,9 +5,10 @@ import { existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { buildStationYear } from '../../engine/almanac.js';
+import { loadStationSet } from '../../engine/stations.js';
 import type { AlmanacEvent, StationYear } from '../../engine/types.js';
 import { renderCombinedBook, renderStationBook } from '../../templates/pdf/book.js';
-import { sampleYear } from '../fixtures/sample-year.js';
 
 const POPPLER = ['pdftotext', 'pdffonts', 'pdfinfo'].every((t) => existsSync(`/usr/bin/${t}`));
 if (!POPPLER) console.warn('poppler-utils (pdftotext, pdffonts, pdfinfo) not found in /usr/bin: PDF text and font checks are SKIPPED');
@@ -51,7 +52,11 @@ function lowered(model: StationYear, by: number): StationYear {
   return m;
 }
 
-const model = sampleYear(2027);
+// Real demo station-years: Gannet Head (reference port, Europe/Lisbon with two clock changes) and
+// Albatross Point (reference port in the southern hemisphere) for the combined book.
+const set = loadStationSet('stations-demo');
+const demo = (id: string) => buildStationYear(set.byId.get(id)!, set, 2027);
+const model = demo('gannet-head');
 // A5 book: cover, facts, caution, two facing pages per month, the year overview
 const expectedPages = 3 + 2 * model.months.length + 1;
 let book: Buffer;
@@ -120,7 +125,7 @@ describe('station book (A5, metres)', () => {
       expect(page).toContain(change.note);
       expect(page).toContain(`UTC${change.to}`);
     }
-    expect(pages[3]).toContain('All times UTC+00:00');
+    expect(pages[3]).toContain(`All times UTC${model.days[0].offsetStart}`);
   });
 
   it.skipIf(!POPPLER)('carries the caution and the invented-data notice on every page', () => {
@@ -137,7 +142,8 @@ describe('station book (A5, metres)', () => {
 
 describe('station book in feet, with a hostile name and water below chart datum', () => {
   const name = '<script>alert("x")</script> & Ørsted\nBay \u00d1';
-  const low = lowered(sampleYear(2027, { name }), 0.3);
+  // the demo tide never falls below chart datum: lower it by 0.4 m so that some low waters do
+  const low = lowered({ ...model, station: { ...model.station, name } }, 0.4);
   let file = '';
   beforeAll(async () => { file = write('feet.pdf', await renderStationBook(low, { units: 'ft', page: 'a5' })); });
 
@@ -179,8 +185,7 @@ describe('saddle-stitched book', () => {
 
 describe('combined book', () => {
   it.skipIf(!POPPLER)('lists every station on the contents page with the page its section starts on', async () => {
-    const second = sampleYear(2027, { id: 'second-quay', name: 'Second Quay (invented)',
-      position: { latitude: -41.3, longitude: 174.8 }, timezone: 'Pacific/Auckland' });
+    const second = demo('pilchard-cove'); // a secondary port of Gannet Head
     const buf = await renderCombinedBook([model, second], { units: 'm', page: 'a5', title: 'Club tide book' });
     const file = write('combined.pdf', buf);
     const pages = pagesText(file);
@@ -192,6 +197,8 @@ describe('combined book', () => {
       expect(pages[page]).toContain('Station facts');
     }
     expect(pageCount(buf)).toBe(pages.filter((p) => p.trim()).length);
+    const contents = pages[1].replace(/\s+/g, ' ');
+    expect(contents).toContain(`secondary port of ${model.station.name}`);
   });
 });
 
