@@ -23,13 +23,16 @@ export function idFromText(text: string): string {
     .replace(/[\u0300-\u036f]/g, '')
     .toLowerCase()
     .replace(/[^a-z0-9]+/g, '-')
+    .slice(0, 64)
     .replace(/^-+|-+$/g, '');
-  return slug === '' ? 'gannet-head' : slug;
+  return slug === '' ? 'station' : slug;
 }
 
 function checkId(ctx: CheckContext): void {
   const id = ctx.value;
-  if (id.length > 64) {
+  if (id === '') {
+    fail(ctx, 'is empty', 'write lower-case letters, digits and hyphens, e.g. gannet-head');
+  } else if (id.length > 64) {
     fail(ctx, `"${id.slice(0, 20)}…" is ${id.length} characters long`, 'write a short id of at most 64 characters');
   } else if (!STATION_ID_PATTERN.test(id)) {
     fail(ctx, `"${id}" may only hold lower-case letters a-z, digits and hyphens`, `write ${idFromText(id)}`);
