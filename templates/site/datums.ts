@@ -5,7 +5,7 @@ import type { Datums } from '../../engine/types.js';
 export const LADDER_HEIGHT = 210;
 const TOP = 10;
 const BOTTOM = 200;
-const LABEL_GAP = 13; // smallest distance between two label baselines
+const LABEL_GAP = 14; // smallest distance between two label baselines
 
 export interface DatumRow {
   key: string;

@@ -55,6 +55,7 @@ export interface MonthPage {
   days: StationYear['days'];
   prev: PageLink | null;
   next: PageLink | null;
+  siblings: PageLink[]; // every month of the same station-year, for the month strip
   clockChanges: NonNullable<StationYear['days'][number]['offsetChange']>[];
 }
 
@@ -124,9 +125,11 @@ function monthPagesOf(model: StationYear, yearUrl: string): MonthPage[] {
   const pages: MonthPage[] = model.months.map((month) => {
     const days = model.days.slice(month.firstDayIndex, month.firstDayIndex + month.dayCount);
     const clockChanges = days.flatMap((d) => (d.offsetChange ? [d.offsetChange] : []));
-    return { url: `${yearUrl}${month.slug}/`, yearUrl, model, month, days, prev: null, next: null, clockChanges };
+    return { url: `${yearUrl}${month.slug}/`, yearUrl, model, month, days, prev: null, next: null, siblings: [], clockChanges };
   });
+  const siblings = pages.map((p) => ({ url: p.url, label: p.month.name }));
   pages.forEach((p, i) => {
+    p.siblings = siblings;
     if (i > 0) p.prev = { url: pages[i - 1].url, label: pages[i - 1].month.name };
     if (i < pages.length - 1) p.next = { url: pages[i + 1].url, label: pages[i + 1].month.name };
   });
