@@ -1,6 +1,7 @@
 // Print-ready PDF tide books: one per station-year, and one combined book for a station set.
 import type { StationYear } from '../../engine/types.js';
 import { combinedPages, stationPages } from './compose.js';
+import { bookOrder } from './contents.js';
 import { editionDate } from './document.js';
 import { printable } from './format.js';
 import { pageGeometry } from './geometry.js';
@@ -37,7 +38,7 @@ export async function renderCombinedBook(models: StationYear[], options: BookOpt
   checkBookOptions(options);
   if (models.length === 0) throw new RangeError('a combined book needs at least one station');
   const g = pageGeometry(options.page);
-  const views = models.map((m) => stationView(m, g));
+  const views = bookOrder(models).map((m) => stationView(m, g));
   const title = printable(options.title ?? 'Tide predictions');
   const settings: BookSettings = { units: options.units, geometry: g, title, publisher: options.publisher };
   const row = rowHeight(views.flatMap((v) => v.parts), g);

@@ -23,11 +23,29 @@ export function contentsPageCount(count: number, boxHeight: number, s: number): 
   return 1 + Math.ceil((count - first) / entriesPerPage({ height: boxHeight }, s, false));
 }
 
-function describe(view: StationView): string {
+function describe(view: StationView, underReference: boolean): string {
   const st = view.model.station;
-  return st.kind === 'secondary'
-    ? `secondary port of ${printable(view.model.reference?.name ?? st.reference)}`
-    : `reference port \u00b7 ${view.model.tideType.label.toLowerCase()}`;
+  if (st.kind === 'reference') return `reference port \u00b7 ${view.model.tideType.label.toLowerCase()}`;
+  return underReference ? 'secondary port' : `secondary port of ${printable(view.model.reference?.name ?? st.reference)}`;
+}
+
+/**
+ * Book order: each reference port followed by its secondary ports (in the order given); secondary
+ * ports whose reference is not in the book come last.
+ */
+export function bookOrder<T extends { station: { id: string; kind: string }; reference: { id: string } | null }>(models: T[]): T[] {
+  const out: T[] = [];
+  const placed = new Set<T>();
+  for (const m of models) {
+    if (m.station.kind !== 'reference') continue;
+    out.push(m);
+    placed.add(m);
+    for (const s of models) {
+      if (s.station.kind === 'secondary' && s.reference?.id === m.station.id && !placed.has(s)) { out.push(s); placed.add(s); }
+    }
+  }
+  for (const m of models) if (!placed.has(m)) out.push(m);
+  return out;
 }
 
 export function contentsPages(entries: ContentsEntry[], boxHeight: number, s: number, invented: boolean): LogicalPage[] {
@@ -36,7 +54,8 @@ export function contentsPages(entries: ContentsEntry[], boxHeight: number, s: nu
   while (i < entries.length || pages.length === 0) {
     const first = pages.length === 0;
     const n = entriesPerPage({ height: boxHeight }, s, first);
-    const chunk = entries.slice(i, i + n);
+    const start = i;
+    const chunk = entries.slice(start, start + n);
     i += n;
     pages.push({
       kind: 'contents',
@@ -47,14 +66,20 @@ export function contentsPages(entries: ContentsEntry[], boxHeight: number, s: nu
         let y = box.y + (first ? 14 : 0) * s;
         if (first) put(doc, 'Contents', box.x, y, { font: 'bold', size: 16 * s });
         y = box.y + (first ? FIRST_TOP : NEXT_TOP) * s;
-        for (const e of chunk) {
+        for (const [k, e] of chunk.entries()) {
           const num = String(e.page);
           const numW = widthOf(doc, num, { font: 'bold', size: 9.5 * s });
-          const nameStyle = { font: 'bold' as const, size: 9.5 * s };
-          const used = putFitted(doc, e.view.name, box.x, y, nameStyle, box.width * 0.55, 6.5 * s);
-          const nameW = Math.min(widthOf(doc, e.view.name, used), box.width * 0.55);
-          const desc = describe(e.view);
-          const descX = box.x + nameW + 6 * s;
+          const st = e.view.model.station;
+          const prev = k > 0 ? chunk[k - 1].view.model : start > 0 ? entries[start - 1].view.model : null;
+          const underReference = st.kind === 'secondary' && prev !== null
+            && (prev.station.id === st.reference || prev.reference?.id === st.reference);
+          const indent = underReference ? 12 * s : 0;
+          const nameStyle = { font: underReference ? 'regular' as const : 'bold' as const, size: 9.5 * s };
+          const nameMax = box.width * 0.55 - indent;
+          const used = putFitted(doc, e.view.name, box.x + indent, y, nameStyle, nameMax, 6.5 * s);
+          const nameW = Math.min(widthOf(doc, e.view.name, used), nameMax);
+          const desc = describe(e.view, underReference);
+          const descX = box.x + indent + nameW + 6 * s;
           const descMax = box.x + box.width - numW - 14 * s - descX;
           const dw = Math.min(descMax, widthOf(doc, desc, { font: 'narrow', size: 7.5 * s }));
           putFitted(doc, desc, descX, y, { font: 'narrow', size: 7.5 * s, color: MID }, descMax, 5 * s);
