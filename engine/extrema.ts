@@ -173,13 +173,14 @@ function scanWindow(
     s.b2[k] = -2 * beta * omega;
   }
   M *= 1 + 1e-12;
-  // Taylor degree of each constituent: its dropped terms move h″ by under 1e-15 of Σ|λ|²fH
+  // Taylor degree of each constituent: its dropped terms move h″ by under 1e-13 of Σ|λ|²fH (and h by
+  // less still: far below a micrometre, a microsecond)
   const theta = dt / 2;
   for (let k = 0; k < n; k++) {
     const rate = Math.sqrt(s.a1[k]! * s.a1[k]! + s.b1[k]! * s.b1[k]!);
     let term = rate * rate * Math.sqrt(s.re[k]! * s.re[k]! + s.im[k]! * s.im[k]!); // |λ|²A·(|λ|θ)^(K−1)/(K−1)!
     let degree = 1;
-    while (term > 1e-15 * curvature && degree < 60) term *= (rate * theta) / degree++;
+    while (term > 1e-13 * curvature && degree < 60) term *= (rate * theta) / degree++;
     s.degree[k] = Math.max(degree, 2);
   }
   scanGrid(s, cols);

@@ -65,7 +65,11 @@ function median(values: number[]): number {
 
 /** Runs each job RUNS times, interleaved so both see the same machine load. */
 function timeSideBySide(jobs: (() => unknown)[]): Timing[] {
-  for (const job of jobs) job(); // warm up the compiler
+  // warm up until the optimising compiler has settled: at least 5 runs and 0.5 s of each job
+  for (const job of jobs) {
+    const t0 = performance.now();
+    for (let r = 0; r < 5 || performance.now() - t0 < 500; r++) job();
+  }
   const wall = jobs.map(() => [] as number[]);
   const cpu = jobs.map(() => [] as number[]);
   for (let r = 0; r < RUNS; r++) {
