@@ -1,7 +1,8 @@
 // Benchmark of the harmonic analysis (issue 7): a 1-year hourly record of an invented 60-constituent
 // port (predicted by the engine, 2 cm of noise, 5 % of the hours missing) analysed for those 60
-// constituents, and again with the Rayleigh choice. Reports time (median of a few runs) and memory:
-// heap growth during one analysis, and the process's peak resident size (maxRSS).
+// constituents, and again with the Rayleigh choice. Reports time (median of a few runs, and CPU time,
+// steadier on a busy machine) and memory: heap growth during one analysis, and the process's peak
+// resident size (maxRSS).
 import { analyseRecord } from '../../engine/analysis/harmonic.js';
 import { compilePredictor } from '../../engine/predict.js';
 import { degrade, evenTimes, HOUR, recordOf } from '../fixtures/analysis-records.js';
@@ -39,11 +40,14 @@ export async function bench(): Promise<void> {
     analyseRecord(record, options); // warm-up
     const times: number[] = [];
     let result = analyseRecord(record, options);
+    const cpu0 = process.cpuUsage();
     for (let i = 0; i < RUNS; i++) {
       const t0 = performance.now();
       result = analyseRecord(record, options);
       times.push(performance.now() - t0);
     }
+    const cpu = process.cpuUsage(cpu0);
+    const cpuMs = (cpu.user + cpu.system) / 1000 / RUNS;
     collectGarbage();
     const before = process.memoryUsage();
     const kept = analyseRecord(record, options);
@@ -59,10 +63,11 @@ export async function bench(): Promise<void> {
       worstPhase = Math.max(worstPhase, k.amplitude > 0.05 ? Math.abs(((c.phase - k.phase + 540) % 360) - 180) : 0);
     }
     console.log(`${label}: ${result.constituents.length} constituents, ${1 + 2 * result.constituents.length} unknowns; ` +
-      `median ${median(times).toFixed(0)} ms (min ${Math.min(...times).toFixed(0)} ms, ${RUNS} runs)`);
+      `median ${median(times).toFixed(0)} ms (min ${Math.min(...times).toFixed(0)} ms, ${RUNS} runs), ` +
+      `${cpuMs.toFixed(0)} ms of CPU per run`);
     console.log(gcExposed()
       ? `  memory: heap +${mb(during.heapUsed - before.heapUsed)} MB just after one analysis (before any collection), ` +
-        `+${mb(after.heapUsed - before.heapUsed)} MB once collected; its result holds ${mb(kept.fitted.byteLength)} MB of fitted heights`
+        `+${mb(Math.max(0, after.heapUsed - before.heapUsed))} MB once collected; its result holds ${mb(kept.fitted.byteLength)} MB of fitted heights`
       : '  memory: run with node --expose-gc (npm run bench does) for heap figures');
     console.log(`  check: residual RMS ${(result.residual.rms * 100).toFixed(2)} cm (noise 2 cm); worst amplitude error ` +
       `${(worstAmplitude * 1000).toFixed(1)} mm; worst phase error ${worstPhase.toFixed(2)}° (constituents over 5 cm)`);
