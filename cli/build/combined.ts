@@ -3,12 +3,13 @@
 import { Worker } from 'node:worker_threads';
 import type { StationYear } from '../../engine/types.js';
 import { BuildStepError, deserializeError } from './failure.js';
+import { workerExecArgv } from './pool.js';
 import type { RenderChoices } from './options.js';
 import type { CombinedSetup, FromWorker, ToWorker } from './protocol.js';
 
 export function combinedBookInWorker(workerUrl: URL, models: StationYear[], render: RenderChoices, signal?: AbortSignal): Promise<Buffer> {
   const setup: CombinedSetup = { job: 'combined', render };
-  const worker = new Worker(workerUrl, { workerData: setup });
+  const worker = new Worker(workerUrl, { workerData: setup, execArgv: workerExecArgv() });
   return new Promise<Buffer>((resolve, reject) => {
     let result: Buffer | null = null;
     let settled = false;

@@ -14,6 +14,21 @@ export interface PoolRun {
   signal?: AbortSignal;
 }
 
+/** Node options for the workers: this process's, less those that only make sense for a main script. */
+export function workerExecArgv(argv: readonly string[] = process.execArgv): string[] {
+  const out: string[] = [];
+  for (let i = 0; i < argv.length; i++) {
+    const arg = argv[i]!;
+    const name = arg.split('=')[0]!;
+    if (['-e', '--eval', '-p', '--print', '--input-type'].includes(name)) {
+      if (!arg.includes('=')) i++; // its value is the next word
+    } else if (!['--test', '--watch', '--check', '-c', '-i', '--interactive'].includes(name)) {
+      out.push(arg);
+    }
+  }
+  return out;
+}
+
 export function runPool(run: PoolRun): Promise<void> {
   const queue = [...run.units];
   const workers: Worker[] = [];
@@ -42,7 +57,7 @@ export function runPool(run: PoolRun): Promise<void> {
       return;
     }
     for (let i = 0; i < size; i++) {
-      const worker = new Worker(run.workerUrl, { workerData: run.setup });
+      const worker = new Worker(run.workerUrl, { workerData: run.setup, execArgv: workerExecArgv() });
       workers.push(worker);
       open++;
       worker.on('message', (message: FromWorker) => {

@@ -7,7 +7,7 @@ import { pathToFileURL } from 'node:url';
 import { afterAll, describe, expect, it } from 'vitest';
 import { StationFileError } from '../../engine/errors.js';
 import { BuildStepError, deserializeError, serializeError } from '../../cli/build/failure.js';
-import { runPool, type PoolRun } from '../../cli/build/pool.js';
+import { runPool, workerExecArgv, type PoolRun } from '../../cli/build/pool.js';
 import type { StationOutcome } from '../../cli/build/station-job.js';
 
 const root = mkdtempSync(join(tmpdir(), 'tw-build-pool-'));
@@ -83,6 +83,15 @@ describe('runPool', () => {
     const started = Date.now();
     await expect(done).rejects.toThrow(/interrupted by SIGINT/);
     expect(Date.now() - started).toBeLessThan(10_000);
+  });
+});
+
+describe('workerExecArgv', () => {
+  it('keeps Node options and drops those only a main script may have', () => {
+    expect(workerExecArgv(['--input-type=module', '-e', 'await run()', '--max-old-space-size=4096', '--cpu-prof']))
+      .toEqual(['--max-old-space-size=4096', '--cpu-prof']);
+    expect(workerExecArgv(['--input-type', 'module', '--eval=x', '-p', 'y', '--stack-size=2000']))
+      .toEqual(['--stack-size=2000']);
   });
 });
 
