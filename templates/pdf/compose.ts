@@ -3,7 +3,7 @@
 import { bookCoverPage } from './book-cover.js';
 import { cautionPage } from './caution.js';
 import { contentsPageCount, contentsPages } from './contents.js';
-import type { CoverText } from './cover.js';
+import type { CoverText, GuideEntry } from './cover.js';
 import { coverPage } from './cover.js';
 import { factsPage } from './facts.js';
 import { contentBox } from './geometry.js';
@@ -13,6 +13,18 @@ import { notesPage } from './notes.js';
 import { overviewPage } from './overview.js';
 import type { LogicalPage } from './page.js';
 import type { StationView } from './station-view.js';
+
+/** Where the parts and the months of a station's pages start, for its cover. */
+function guide(pages: LogicalPage[], firstNumber: number): NonNullable<CoverText['guide']> {
+  const parts: GuideEntry[] = [];
+  const months: GuideEntry[] = [];
+  pages.forEach((p, i) => {
+    if (!p.outline || p.kind === 'section' || p.kind === 'cover') return;
+    const entry = { label: p.outline.title, page: firstNumber + i };
+    if (p.kind === 'month') months.push({ ...entry, label: entry.label.replace(/ \d+$/, '') }); else parts.push(entry);
+  });
+  return { parts, months };
+}
 
 /** The pages of one station, the first of which will be page `firstNumber`. */
 export function stationPages(view: StationView, firstNumber: number, row: number, cover: CoverText,
@@ -27,6 +39,7 @@ export function stationPages(view: StationView, firstNumber: number, row: number
     pages.push(monthPage(view, part, row));
   }
   pages.push(overviewPage(view));
+  cover.guide = guide(pages, firstNumber);
   return pages;
 }
 

@@ -8,9 +8,32 @@ import { cautionBlock, inventedBanner } from './cover-parts.js';
 import { DARK, INK, LIGHT, MID } from './style.js';
 import { fitLines, put, putFitted } from './text.js';
 
+export interface GuideEntry { label: string; page: number }
+
 export interface CoverText {
   kicker: string; // the small line above the year
   publisher?: string;
+  guide?: { parts: GuideEntry[]; months: GuideEntry[] }; // where things are, filled in once laid out
+}
+
+/** "In this book": the parts and the first page of each month, if the space allows. */
+function drawGuide(ctx: PageContext, guide: NonNullable<CoverText['guide']>, top: number, bottom: number): void {
+  const { doc, box } = ctx;
+  const s = unit(ctx);
+  const line = 10.8 * s;
+  const monthRows = Math.ceil(guide.months.length / 3);
+  if (bottom - top < (2.2 + 1 + monthRows) * line) return;
+  put(doc, 'IN THIS BOOK', box.x, top, { font: 'bold', size: 7.5 * s, color: MID });
+  let y = top + line * 1.2;
+  const colW = box.width / 3;
+  const cell = (e: GuideEntry, i: number, yy: number) => {
+    const x = box.x + (i % 3) * colW;
+    put(doc, e.label, x, yy, { font: 'regular', size: 8.6 * s });
+    put(doc, String(e.page), x + colW - 12 * s, yy, { font: 'bold', size: 8.6 * s }, 'right');
+  };
+  guide.parts.forEach((e, i) => cell(e, i, y + Math.floor(i / 3) * line));
+  y += Math.ceil(guide.parts.length / 3) * line + 3 * s;
+  guide.months.forEach((e, i) => cell(e, i, y + Math.floor(i / 3) * line));
 }
 
 /** Two weeks of the tide drawn wide: the station's own curve for its first fortnight. */
@@ -77,10 +100,11 @@ export function coverPage(view: StationView, text: CoverText, kind: 'cover' | 's
 
       y += 16 * s;
       drawFortnight(ctx, view, box.x, y, box.width, 70 * s);
-      y += 70 * s + 30 * s;
+      y += 70 * s + 26 * s;
 
-      if (model.invented) inventedBanner(ctx, y);
-      cautionBlock(ctx, model.caution, text.publisher);
+      if (model.invented) y = inventedBanner(ctx, y) + 20 * s;
+      const cautionTop = cautionBlock(ctx, model.caution, text.publisher);
+      if (text.guide) drawGuide(ctx, text.guide, y, cautionTop - 4 * s);
     },
   };
 }
