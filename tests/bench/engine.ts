@@ -63,6 +63,9 @@ function median(values: number[]): number {
   return sorted[sorted.length >> 1]!;
 }
 
+// `npm run bench` starts node with --expose-gc
+const collectGarbage = (globalThis as { gc?: () => void }).gc ?? (() => {});
+
 /** Runs each job RUNS times, interleaved so both see the same machine load. */
 function timeSideBySide(jobs: (() => unknown)[]): Timing[] {
   // warm up until the optimising compiler has settled: at least 5 runs and 0.5 s of each job
@@ -74,6 +77,7 @@ function timeSideBySide(jobs: (() => unknown)[]): Timing[] {
   const cpu = jobs.map(() => [] as number[]);
   for (let r = 0; r < RUNS; r++) {
     jobs.forEach((job, i) => {
+      collectGarbage(); // neither job pays for the other's garbage
       const c0 = process.cpuUsage();
       const t0 = performance.now();
       job();
