@@ -4,12 +4,14 @@ import { bench as datums } from './datums.js';
 import { bench as engine } from './engine.js';
 import { bench as analysis } from './analysis.js';
 import { bench as pdf } from './pdf.js';
+import { bench as build } from './build.js';
 
 const BENCHMARKS: readonly (readonly [string, () => Promise<void>])[] = [
   ['engine', engine],
   ['analysis', analysis],
   ['datums', datums],
   ['pdf', pdf],
+  ['build', build],
 ];
 
 for (const [name, bench] of BENCHMARKS) {
