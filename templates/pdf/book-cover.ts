@@ -4,7 +4,7 @@ import type { LogicalPage } from './page.js';
 import { unit } from './page.js';
 import type { StationView } from './station-view.js';
 import { DARK, MID } from './style.js';
-import { put, wrapLines } from './text.js';
+import { fitLines, put } from './text.js';
 
 export interface BookCoverText { title: string; publisher?: string; years: string }
 
@@ -20,10 +20,10 @@ export function bookCoverPage(views: StationView[], text: BookCoverText, caution
       y += 62 * s;
       put(doc, text.years, box.x - 3 * s, y, { font: 'bold', size: 70 * s });
       y += 36 * s;
-      const titleStyle = { font: 'bold' as const, size: 22 * s };
-      for (const line of wrapLines(doc, text.title, titleStyle, box.width).slice(0, 3)) {
-        put(doc, line, box.x, y, titleStyle);
-        y += 26 * s;
+      const title = fitLines(doc, text.title, { font: 'bold', size: 22 * s }, box.width, 3, 11 * s);
+      for (const line of title.lines) {
+        put(doc, line, box.x, y, title.style);
+        y += title.style.size * 1.18;
       }
       const refs = views.filter((v) => v.model.station.kind === 'reference').length;
       put(doc, `${views.length} station${views.length === 1 ? '' : 's'}: ${refs} reference port${refs === 1 ? '' : 's'}, `

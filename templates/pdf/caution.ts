@@ -92,15 +92,25 @@ export function cautionPage(view: StationView, scope: CautionScope = { combined:
       put(doc, 'How to read the month pages', box.x, y, { font: 'bold', size: 11.5 * s });
       y += 8 * s;
       const textX = box.x + 74 * s;
-      const style = { font: 'narrow' as const, size: 8.2 * s, color: DARK };
-      for (const item of keyItems(ctx, view, mixedHemispheres)) {
-        const lines = wrapLines(doc, item.text, style, box.x + box.width - textX);
-        const h = Math.max(22 * s, lines.length * 10 * s + 10 * s);
-        const base = y + 15 * s;
+      const items = keyItems(ctx, view, mixedHemispheres);
+      // the key must end above the footer: on small pages rows close up, then the type steps down
+      const layout = (size: number, gap: number) => {
+        const style = { font: 'narrow' as const, size, color: DARK };
+        const rows = items.map((item) => ({ item, lines: wrapLines(doc, item.text, style, box.x + box.width - textX) }));
+        const heights = rows.map((r) => Math.max(17 * s, r.lines.length * size * 1.22 + gap));
+        return { style, rows, heights, total: heights.reduce((a, b) => a + b, 0) };
+      };
+      const room = box.y + box.height - y - 6 * s;
+      let plan = layout(8.2 * s, 10 * s);
+      if (plan.total > room) plan = layout(8.2 * s, 4 * s);
+      if (plan.total > room) plan = layout(7.2 * s, 3 * s);
+      const lead = plan.style.size * 1.22;
+      plan.rows.forEach(({ item, lines }, k) => {
+        const base = y + Math.min(15 * s, plan.heights[k] * 0.62);
         item.draw(box.x, base);
-        lines.forEach((line, i) => put(doc, line, textX, base + (i - (lines.length - 1) / 2) * 10 * s, style));
-        y += h;
-      }
+        lines.forEach((line, i) => put(doc, line, textX, base + (i - (lines.length - 1) / 2) * lead, plan.style));
+        y += plan.heights[k];
+      });
     },
   };
 }

@@ -72,12 +72,12 @@ export function coverPage(view: StationView, text: CoverText, kind: 'cover' | 's
       const { doc, box } = ctx;
       const s = unit(ctx);
       let y = box.y + 12 * s;
-      put(doc, text.kicker.toUpperCase(), box.x, y, { font: 'bold', size: 9 * s, color: MID });
+      putFitted(doc, text.kicker.toUpperCase(), box.x, y, { font: 'bold', size: 9 * s, color: MID }, box.width, 6.5 * s);
       y += 62 * s;
       put(doc, String(model.year), box.x - 3 * s, y, { font: 'bold', size: 70 * s });
       y += 38 * s;
 
-      const name = fitLines(doc, view.name, { font: 'bold', size: 25 * s }, box.width, 3, 11 * s);
+      const name = fitLines(doc, view.name, { font: 'bold', size: 25 * s }, box.width, 4, 9 * s);
       for (const line of name.lines) { put(doc, line, box.x, y, name.style); y += name.style.size * 1.16; }
       y += 4 * s;
       const station = model.station;

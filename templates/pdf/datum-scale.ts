@@ -5,7 +5,7 @@ import type { Box } from './geometry.js';
 import { formatHeight, inUnits } from './format.js';
 import type { HeightUnits } from './options.js';
 import { INK, MID, WHITE } from './style.js';
-import { put } from './text.js';
+import { put, putFitted } from './text.js';
 
 export const DATUM_ROWS: { key: keyof Omit<Datums, 'epoch'>; name: string }[] = [
   { key: 'HAT', name: 'Highest astronomical tide' },
@@ -69,8 +69,8 @@ export function drawDatumScale(doc: PDFKit.PDFDocument, datums: Datums, datumLab
     doc.save().lineWidth(isDatum ? 1.6 * s : 0.6 * s).strokeColor(INK)
       .moveTo(staffX - (isDatum ? 2 * s : 0), ly).lineTo(lineEnd, ly)
       .lineTo(lineEnd + 6 * s, ys[i]).lineTo(labelX - 1.5 * s, ys[i]).stroke().restore();
-    put(doc, r.label, labelX, ys[i] + 2.4 * s,
-      { font: isDatum ? 'narrow-bold' : 'narrow', size: 7 * s }, 'left');
+    putFitted(doc, r.label, labelX, ys[i] + 2.4 * s,
+      { font: isDatum ? 'narrow-bold' : 'narrow', size: 7 * s }, box.x + box.width - labelX, 5 * s);
   });
   put(doc, units === 'ft' ? 'feet' : 'metres', staffX + staffW / 2, box.y - 5 * s,
     { font: 'narrow', size: 6.5 * s, color: MID }, 'center');

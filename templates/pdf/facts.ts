@@ -15,7 +15,7 @@ import { paragraph, put, putFitted } from './text.js';
 
 function sectionTitle(ctx: PageContext, title: string, y: number): number {
   const s = unit(ctx);
-  put(ctx.doc, title, ctx.box.x, y, { font: 'bold', size: 10.5 * s });
+  putFitted(ctx.doc, title, ctx.box.x, y, { font: 'bold', size: 10.5 * s }, ctx.box.width, 7 * s);
   ctx.doc.save().lineWidth(0.6 * s).strokeColor(INK)
     .moveTo(ctx.box.x, y + 3.5 * s).lineTo(ctx.box.x + ctx.box.width, y + 3.5 * s).stroke().restore();
   return y + 15 * s;

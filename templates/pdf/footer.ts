@@ -2,7 +2,7 @@
 import type { LogicalPage, PageContext } from './page.js';
 import { unit } from './page.js';
 import { INK, MID } from './style.js';
-import { put, widthOf, wrapLines } from './text.js';
+import { clipText, put, widthOf, wrapLines } from './text.js';
 
 export const FOOTER_CAUTION = 'Astronomical predictions only: wind, air pressure and river flow change real '
   + 'heights and times. Not a substitute for official tide tables or local notices; defer to the harbour '
@@ -30,7 +30,7 @@ export function drawFooter(ctx: PageContext, page: LogicalPage): void {
   const bold = { font: 'narrow-bold' as const, size, color: INK };
   let y = top + 4 * s + size;
 
-  const label = page.footer.label ? `${page.footer.label} · ` : '';
+  const label = page.footer.label ? `${clipText(doc, page.footer.label, regular, width * 0.4)} · ` : '';
   const lead = page.footer.invented ? `${INVENTED_LABEL} ` : '';
   // first line: the bold notice, then the caution continuing on the same line
   const leadWidth = lead ? widthOf(doc, lead, bold) : 0;

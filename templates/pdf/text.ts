@@ -71,6 +71,9 @@ export function wrapLines(doc: PDFKit.PDFDocument, text: string, style: TextStyl
       while (widthOf(doc, line, style) > width && line.length > 1) {
         let cut = line.length - 1;
         while (cut > 1 && widthOf(doc, line.slice(0, cut), style) > width) cut--;
+        // prefer to break a long word just after a hyphen or slash
+        const soft = Math.max(line.lastIndexOf('-', cut - 1), line.lastIndexOf('/', cut - 1));
+        if (soft > cut / 2) cut = soft + 1;
         lines.push(line.slice(0, cut));
         line = line.slice(cut);
       }
@@ -97,7 +100,8 @@ export function paragraph(doc: PDFKit.PDFDocument, text: string, x: number, y: n
  */
 export function fitLines(doc: PDFKit.PDFDocument, text: string, style: TextStyle, width: number, maxLines: number,
   minSize: number): { style: TextStyle; lines: string[] } {
-  const words = printable(text).split(/\s+/).filter(Boolean);
+  // a word may break after a hyphen without looking broken
+  const words = printable(text).split(/\s+|(?<=-)/).filter(Boolean);
   for (let size = style.size; size > minSize; size *= 0.94) {
     const st = { ...style, size };
     if (words.some((w) => widthOf(doc, w, st) > width)) continue;
