@@ -16,6 +16,11 @@ import { stationView } from './station-view.js';
 export type { BookOptions } from './options.js';
 export { saddleStitchOrder } from './imposition.js';
 
+/** The words of the book are English; a locale only refines that (en-GB, en-US), never replaces it. */
+function pdfLanguage(locale: string | undefined): string {
+  return locale && /^en(-[A-Za-z0-9]+)*$/.test(locale) ? locale : 'en';
+}
+
 export async function renderStationBook(model: StationYear, options: BookOptions): Promise<Buffer> {
   checkBookOptions(options);
   const g = pageGeometry(options.page);
@@ -30,7 +35,7 @@ export async function renderStationBook(model: StationYear, options: BookOptions
       + `${model.invented ? ' (invented demonstration data)' : ''}`,
     keywords: 'tide predictions, high water, low water, chart datum',
     date: editionDate(model.year),
-    lang: options.locale ?? 'en',
+    lang: pdfLanguage(options.locale),
   }, options.imposition ?? 'none', () => notesPage({ invented: model.invented, label: view.name }));
 }
 
@@ -51,6 +56,6 @@ export async function renderCombinedBook(models: StationYear[], options: BookOpt
     subject: `Tide predictions for ${models.length} stations${invented ? ' (invented demonstration data)' : ''}`,
     keywords: 'tide predictions, high water, low water, chart datum',
     date: editionDate(year),
-    lang: options.locale ?? 'en',
+    lang: pdfLanguage(options.locale),
   }, options.imposition ?? 'none', () => notesPage({ invented }));
 }

@@ -9,7 +9,7 @@ export interface BookOptions {
   imposition?: 'none' | 'saddle-stitch';
   title?: string;
   publisher?: string;
-  locale?: string; // BCP 47 tag written into the PDF (language of the words we print: English)
+  locale?: string; // BCP 47 tag; the words printed are English, so only an English variant is used
 }
 
 export const PAGE_SIZE_NAMES: readonly PageSizeName[] = ['a5', 'a6', 'a4', 'letter', 'half-letter'];

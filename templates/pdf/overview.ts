@@ -27,7 +27,7 @@ export function overviewPage(view: StationView): LogicalPage {
         + `${formatLength(model.meanNeapRange, units)}. S spring tide, N neap tide; the moon\u2019s quarters above the bars.`,
       box.x, y + 8 * s, box.width, { font: 'narrow', size: 7.6 * s, color: DARK }, 9.6 * s) + 2 * s;
 
-      const maxRange = Math.max(model.meanSpringRange, ...model.days.map((d) => d.range ?? 0)) * 1.05;
+      const maxRange = Math.max(0.01, model.meanSpringRange, ...model.days.map((d) => d.range ?? 0)) * 1.05;
       const stripH = (box.y + box.height - y) / model.months.length;
       const labelW = 26 * s;
       const scaleW = 18 * s;

@@ -21,7 +21,7 @@ export function stationView(model: StationYear, g: PageGeometry): StationView {
   for (const d of model.days) {
     for (const h of d.curve) { if (h < low) low = h; if (h > high) high = h; }
   }
-  const pad = (high - low) * 0.06;
+  const pad = Math.max(high - low, 0.1) * 0.06; // a flat year still gets a scale
   return {
     model,
     name: printable(model.station.name),
