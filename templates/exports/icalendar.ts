@@ -68,14 +68,14 @@ export function eventsICalendar(model: StationYear, units: 'm' | 'ft' = 'm'): st
     'CALSCALE:GREGORIAN',
     'METHOD:PUBLISH',
     `X-WR-CALNAME:${escapeText(`Tides ${model.year}: ${st.name}`)}`,
-    `X-WR-CALDESC:${escapeText(`High and low waters at ${st.name}, heights above ${st.datum}. ${model.caution}${invented}`)}`,
+    `X-WR-CALDESC:${escapeText(`High and low waters at ${st.name}, heights above ${st.datum}. ${model.caution}${invented} Provenance: ${st.provenance}`)}`,
   ];
   model.events.forEach((e, i) => {
     const what = e.type === 'high' ? 'High water' : 'Low water';
     const height = heightWords(e, units);
     const below = e.belowDatum ? ` (below ${st.datum})` : '';
     const description = `${what} at ${st.name}: ${e.clock} local time (UTC${e.offset}), ${height} above ${st.datum}${below}.`
-      + `\n\nCaution: ${model.caution}${invented}\n\nProvenance: ${st.provenance}`;
+      + `\n\nCaution: ${model.caution}${invented}`;
     lines.push(
       'BEGIN:VEVENT',
       `UID:${st.id}-${model.year}-${i + 1}@tidewright`,

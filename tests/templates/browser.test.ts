@@ -111,14 +111,26 @@ describe.skipIf(!hasChromium)('the site in chromium', () => {
     });
   }
 
-  it('prints a 31-day month with a clock change on a single A4 page', async () => {
+  it('prints a 31-day month with a clock change on a single page of A4 and of US Letter', async () => {
     const { page } = await watchedPage(1280, 900);
     await page.goto(`${base}gannet-head/2027/03/index.html`);
     await page.emulateMedia({ media: 'print' });
     await page.screenshot({ path: join(ARTIFACTS, 'site-month-print.png'), fullPage: true });
-    const pdf = await page.pdf({ preferCSSPageSize: true, printBackground: true });
-    const pages = pdf.toString('latin1').match(/\/Type\s*\/Page[^s]/g) ?? [];
-    expect(pages).toHaveLength(1);
+    for (const format of ['A4', 'Letter']) {
+      const pdf = await page.pdf({ format, printBackground: true });
+      const pages = pdf.toString('latin1').match(/\/Type\s*\/Page[^s]/g) ?? [];
+      expect(pages, format).toHaveLength(1);
+    }
+    await page.close();
+  });
+
+  it('has no sideways scrolling at 360 px, the narrowest common phone', async () => {
+    const { page, errors } = await watchedPage(360, 740);
+    for (const path of ['index.html', 'gannet-head/2027/index.html', 'pilchard-cove/2027/10/index.html', 'datums/index.html']) {
+      await page.goto(`${base}${path}`);
+      await noSidewaysScroll(page);
+    }
+    expect(errors).toEqual([]);
     await page.close();
   });
 });
