@@ -124,6 +124,32 @@ describe.skipIf(!hasChromium)('the site in chromium', () => {
     await page.close();
   });
 
+  it('keeps text contrast at or above WCAG AA (4.5:1) on the month and station pages', async () => {
+    const { page } = await watchedPage(1280, 900);
+    // WCAG 2.1 relative luminance and contrast ratio, computed in the page from the used colours.
+    const worst = `(() => {
+      const rgb = (c) => (c.match(/[\\d.]+/g) || []).map(Number);
+      const lum = ([r, g, b]) => [r, g, b].map((v) => { v /= 255; return v <= 0.03928 ? v / 12.92 : ((v + 0.055) / 1.055) ** 2.4; })
+        .reduce((a, v, i) => a + v * [0.2126, 0.7152, 0.0722][i], 0);
+      const bg = (el) => { for (; el; el = el.parentElement) { const c = rgb(getComputedStyle(el).backgroundColor); if (c.length === 3 || c[3] > 0.5) return c.slice(0, 3); } return [255, 255, 255]; };
+      let low = { ratio: 99, text: '' };
+      for (const el of document.querySelectorAll('body *')) {
+        const own = [...el.childNodes].some((n) => n.nodeType === 3 && n.textContent.trim());
+        if (!own || el.closest('svg') || el.offsetParent === null) continue;
+        const a = lum(rgb(getComputedStyle(el).color)), b = lum(bg(el));
+        const ratio = (Math.max(a, b) + 0.05) / (Math.min(a, b) + 0.05);
+        if (ratio < low.ratio) low = { ratio: Math.round(ratio * 100) / 100, text: el.className + ': ' + el.textContent.trim().slice(0, 30) };
+      }
+      return low;
+    })()`;
+    for (const path of ['gannet-head/2027/03/index.html', 'gannet-head/2027/index.html', 'index.html']) {
+      await page.goto(`${base}${path}`);
+      const low = await page.evaluate<{ ratio: number; text: string }>(worst);
+      expect(low.ratio, `${path}: ${low.text}`).toBeGreaterThanOrEqual(4.5);
+    }
+    await page.close();
+  });
+
   it('has no sideways scrolling at 360 px, the narrowest common phone', async () => {
     const { page, errors } = await watchedPage(360, 740);
     for (const path of ['index.html', 'gannet-head/2027/index.html', 'pilchard-cove/2027/10/index.html', 'datums/index.html']) {
