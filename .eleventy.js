@@ -15,7 +15,7 @@ export default async function (eleventyConfig) {
   }
   eleventyConfig.setUseGitIgnore(false);
   eleventyConfig.setNunjucksEnvironmentOptions({ autoescape: true, trimBlocks: true, lstripBlocks: true });
-  for (const folder of ['pdf', 'site', 'exports']) eleventyConfig.ignores.add(join(root, 'templates', folder, '**'));
+  for (const folder of ['pdf', 'site', 'exports', 'report']) eleventyConfig.ignores.add(join(root, 'templates', folder, '**'));
   eleventyConfig.addPassthroughCopy({ [join(root, 'templates', 'assets')]: 'assets' });
   return {
     // Absolute, so a build started from any folder finds the templates; renderSite chooses the output.
