@@ -1,11 +1,8 @@
 // The events of a station-year as CSV (RFC 4180: CRLF, quoted fields where needed). A few leading
 // lines starting with "# " carry the caution, units and provenance, so a spreadsheet shows them too.
 import type { StationYear } from '../../engine/types.js';
+import { toUnits, type Units } from '../site/format.js';
 import { exportNotes } from './notes.js';
-
-export type Units = 'm' | 'ft';
-
-const METRES_PER_FOOT = 0.3048; // international foot, exact
 
 /** One CSV field, quoted when it holds a comma, quote or line break (RFC 4180 §2). */
 export function csvField(value: string): string {
@@ -17,7 +14,7 @@ export function eventsCsv(model: StationYear, units: Units = 'm'): string {
   lines.push(['station_id', 'date', 'local_time', 'utc_offset', 'time_utc', 'type',
     units === 'ft' ? 'height_ft' : 'height_m', 'below_chart_datum'].join(','));
   for (const e of model.events) {
-    const height = units === 'ft' ? (e.height / METRES_PER_FOOT).toFixed(2) : e.height.toFixed(3);
+    const height = toUnits(e.height, units).toFixed(units === 'ft' ? 2 : 3); // metres to the millimetre, as in the model
     lines.push([model.station.id, e.local.slice(0, 10), e.clock, e.offset, e.time, e.type, height,
       e.belowDatum ? 'yes' : 'no'].map(csvField).join(','));
   }

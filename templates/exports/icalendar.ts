@@ -1,10 +1,8 @@
 // High and low waters of a station-year as one iCalendar file (RFC 5545) that calendar programs import:
 // CRLF line ends, lines folded at 75 octets, TEXT values escaped, times in UTC, stable UIDs and a
 // DTSTAMP taken from the model (not the clock) so two builds of the same input are identical.
-import type { AlmanacEvent, StationYear } from '../../engine/types.js';
-
-const METRES_PER_FOOT = 0.3048; // international foot, exact
-const MINUS = '\u2212';
+import type { StationYear } from '../../engine/types.js';
+import { heightNumber, type Units } from '../site/format.js';
 
 /** Escape a TEXT value (RFC 5545 §3.3.11): backslash, semicolon, comma and line breaks. */
 export function escapeText(text: string): string {
@@ -51,13 +49,7 @@ export function icalUtc(iso: string): string {
   return iso.replace(/[-:]/g, '').replace(/\.\d+/, '');
 }
 
-function heightWords(e: AlmanacEvent, units: 'm' | 'ft'): string {
-  const value = units === 'ft' ? e.height / METRES_PER_FOOT : e.height;
-  const text = Math.abs(value).toFixed(units === 'ft' ? 1 : 2);
-  return `${e.height < 0 ? MINUS : ''}${text} ${units}`;
-}
-
-export function eventsICalendar(model: StationYear, units: 'm' | 'ft' = 'm'): string {
+export function eventsICalendar(model: StationYear, units: Units = 'm'): string {
   const st = model.station;
   const stamp = `${model.year}0101T000000Z`; // fixed by the edition's year: reproducible builds
   const invented = model.invented ? ' These data are INVENTED for a demonstration: never use them for navigation.' : '';
@@ -72,7 +64,7 @@ export function eventsICalendar(model: StationYear, units: 'm' | 'ft' = 'm'): st
   ];
   model.events.forEach((e, i) => {
     const what = e.type === 'high' ? 'High water' : 'Low water';
-    const height = heightWords(e, units);
+    const height = `${heightNumber(e.height, units)} ${units}`;
     const below = e.belowDatum ? ` (below ${st.datum})` : '';
     const description = `${what} at ${st.name}: ${e.clock} local time (UTC${e.offset}), ${height} above ${st.datum}${below}.`
       + `\n\nCaution: ${model.caution}${invented}`;

@@ -2,6 +2,7 @@
 import { mkdir, writeFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import type { StationYear } from '../../engine/types.js';
+import type { Units } from '../site/format.js';
 import { eventsCsv } from './csv.js';
 import { eventsICalendar } from './icalendar.js';
 import { eventsJson } from './json.js';
@@ -24,7 +25,7 @@ export function exportFileNames(model: StationYear): ExportFileNames {
 }
 
 export async function writeExports(
-  model: StationYear, dataDir: string, options: { units?: 'm' | 'ft' } = {},
+  model: StationYear, dataDir: string, options: { units?: Units } = {},
 ): Promise<ExportFileNames> {
   const names = exportFileNames(model);
   const units = options.units ?? 'm';

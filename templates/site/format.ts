@@ -5,7 +5,7 @@ import { DateTime } from 'luxon';
 export type Units = 'm' | 'ft';
 
 // International foot (1959 agreement): exactly 0.3048 m.
-export const METRES_PER_FOOT = 0.3048;
+const METRES_PER_FOOT = 0.3048;
 
 const MINUS = '\u2212';
 

@@ -1,6 +1,7 @@
 // The site's page structure, built once from the models: the grouped index, one entry per
 // station-year page and per month page (with their URLs and neighbours). Numbers stay in the models;
 // formatting and drawing happen in the filters while each page renders.
+import { CAUTION } from '../../engine/almanac/caution.js';
 import type { MonthEntry, Station, StationYear } from '../../engine/types.js';
 import { exportFileNames } from '../exports/write.js';
 import type { Units } from './format.js';
@@ -73,11 +74,6 @@ export interface SiteData {
   stationYears: StationYearPage[];
   monthPages: MonthPage[];
 }
-
-// The same words the engine puts in every model; used only when a site is built with no models at all.
-const FALLBACK_CAUTION = 'Astronomical predictions only: wind, atmospheric pressure and river flow change real '
-  + 'heights and times. Not a substitute for the official tide tables or local notices; defer to the harbour '
-  + 'authority and licensed practice.';
 
 const byName = (a: { name: string }, b: { name: string }): number => a.name.localeCompare(b.name, 'en');
 
@@ -164,7 +160,7 @@ export function buildSiteData(models: StationYear[], options: SiteOptions, downl
     locale: options.locale ?? 'en',
     units: options.units,
     downloads,
-    caution: first?.caution ?? FALLBACK_CAUTION,
+    caution: first?.caution ?? CAUTION, // the engine's words, also for a build with no stations
     anyInvented: sorted.some((m) => m.invented),
     provenances: [...new Set(sorted.map((m) => m.station.provenance))].sort(),
     generator: first ? `${first.generator.name} ${first.generator.version}` : 'tidewright',
