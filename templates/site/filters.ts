@@ -4,7 +4,7 @@ import type { DayEntry, Datums, MoonPhaseEntry, MoonPhaseName, StationYear } fro
 import { dayCurve, heightScale, type DayCurve, type HeightScale } from './curve.js';
 import { datumLadder, ladderSpan, type DatumRow } from './datums.js';
 import {
-  clockIn, dayMonth, heightNumber, localLongDate, heightSigned, heightText, hoursText, longDate, minutesSigned, offsetText,
+  clockIn, heightNumber, localLongDate, heightSigned, heightText, hoursText, minutesSigned, offsetText,
   phaseName, positionText, unitName, type Units,
 } from './format.js';
 import { glanceMonth, yearMaxRange, type GlanceMonth } from './glance.js';
@@ -42,8 +42,6 @@ export function siteFilters(units: Units): Record<string, (...args: never[]) => 
     unitName: (): string => unitName(units),
     position: (p: { latitude: number; longitude: number }): string => positionText(p),
     offset: (offset: string): string => offsetText(offset),
-    longDate: (date: string): string => longDate(date),
-    dayMonth: (date: string): string => dayMonth(date),
     localLongDate: (iso: string, zone: string): string => localLongDate(iso, zone),
     clockIn: (iso: string, offset: string): string => clockIn(iso, offset),
     hours: (h: number): string => hoursText(h),

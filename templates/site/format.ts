@@ -52,11 +52,6 @@ export function offsetText(offset: string): string {
   return `UTC${offset.replace('-', MINUS)}`;
 }
 
-/** "2027-03-28" → "Sunday 28 March 2027". */
-export function longDate(date: string): string {
-  return DateTime.fromISO(date, { zone: 'utc', locale: 'en' }).toFormat('cccc d LLLL yyyy');
-}
-
 /** A UTC instant as the long local date in a zone: the day it falls on at the station. */
 export function localLongDate(iso: string, zone: string): string {
   return DateTime.fromISO(iso, { zone, locale: 'en' }).toFormat('cccc d LLLL yyyy');
@@ -68,11 +63,6 @@ export function clockIn(iso: string, offset: string): string {
   const minutes = m ? (m[1] === '-' ? -1 : 1) * (Number(m[2]) * 60 + Number(m[3])) : 0;
   const t = new Date(Date.parse(iso) + minutes * 60_000);
   return `${String(t.getUTCHours()).padStart(2, '0')}:${String(t.getUTCMinutes()).padStart(2, '0')}`;
-}
-
-/** "2027-03-28" → "28 March". */
-export function dayMonth(date: string): string {
-  return DateTime.fromISO(date, { zone: 'utc', locale: 'en' }).toFormat('d LLLL');
 }
 
 /** Hours as "1 day 17 h" or "9 h" (age of the tide, lags). */
