@@ -6,7 +6,7 @@ import { loadStationSet } from '../../engine/stations.js';
 import { BuildStepError } from './failure.js';
 import { runPool } from './pool.js';
 import type { ComputeRequest } from './run.js';
-import { runStationJob, type StationJobDeps, type StationOutcome } from './station-job.js';
+import { freshSet, runStationJob, type StationJobDeps, type StationOutcome } from './station-job.js';
 
 /** The compiled worker entry beside this module, or null when this module is not compiled. */
 export function compiledWorkerUrl(): URL | null {
@@ -21,10 +21,11 @@ export async function computeInProcess(
 ): Promise<void> {
   const ctx = { set: loadStationSet(request.stationsDir), year: request.year, tempDir: request.tempDir, render: request.render };
   for (const ids of request.units) {
+    const unit = { ...ctx, set: freshSet(ctx.set) };
     for (const id of ids) {
       signal?.throwIfAborted();
       try {
-        onStation(await runStationJob(id, ctx, deps));
+        onStation(await runStationJob(id, unit, deps));
       } catch (error) {
         throw new BuildStepError(`station ${id}`, error);
       }

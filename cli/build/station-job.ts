@@ -26,6 +26,16 @@ export interface StationOutcome {
   pdfPages: number;
 }
 
+/**
+ * The set again with new station objects. The engine caches per station object (predictors, 19 years
+ * of a reference port's events for its datums); giving each unit of work its own objects lets those
+ * caches go when the unit is done, instead of growing with every station a worker has computed.
+ */
+export function freshSet(set: StationSet): StationSet {
+  const stations = set.stations.map((s) => ({ ...s }));
+  return { dir: set.dir, stations, byId: new Map(stations.map((s) => [s.id, s])) };
+}
+
 /** Pages of a PDF written by pdfkit (page objects are plain dictionaries, never in object streams). */
 export function countPdfPages(pdf: Buffer): number {
   const text = pdf.toString('latin1');

@@ -7,7 +7,7 @@ import { renderCombinedBook } from '../../templates/pdf/book.js';
 import { serializeError } from './failure.js';
 import type { CombinedSetup, FromWorker, ToWorker, WorkerSetup } from './protocol.js';
 import { stationJobDeps } from './engine-deps.js';
-import { runStationJob, type StationJobContext } from './station-job.js';
+import { freshSet, runStationJob, type StationJobContext } from './station-job.js';
 
 const port = parentPort;
 if (!port) throw new Error('cli/build/worker.js runs only as a worker thread');
@@ -30,9 +30,10 @@ function stationWorker(init: WorkerSetup): void {
     void (async () => {
       let current: string | null = null;
       try {
+        const unit = { ...ctx, set: freshSet(ctx.set) };
         for (const id of message.ids) {
           current = id;
-          post({ type: 'station', outcome: await runStationJob(id, ctx, stationJobDeps) });
+          post({ type: 'station', outcome: await runStationJob(id, unit, stationJobDeps) });
         }
         post({ type: 'unit-done' });
       } catch (error) {
