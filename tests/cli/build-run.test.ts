@@ -12,7 +12,7 @@ import { BuildStepError, StationSetInvalid } from '../../cli/build/failure.js';
 import { poolSize, workUnits } from '../../cli/build/groups.js';
 import type { BuildPlan } from '../../cli/build/options.js';
 import { clock, createProgress, progressLine } from '../../cli/build/progress.js';
-import { buildAlmanac, type BuildDeps, type BuildEvents } from '../../cli/build/run.js';
+import { BESIDE_MAX_STATIONS, buildAlmanac, type BuildDeps, type BuildEvents } from '../../cli/build/run.js';
 import { sampleStation, sampleYear } from '../fixtures/sample-year.js';
 
 const root = mkdtempSync(join(tmpdir(), 'tw-build-run-'));
@@ -137,6 +137,23 @@ describe('buildAlmanac', () => {
         ? ['site start', 'site end', 'book start false']
         : ['book start true', 'site start', 'site end']);
     }
+  });
+
+  it(`draws them one after the other above ${BESIDE_MAX_STATIONS} stations, to keep the peak memory down`, async () => {
+    const many = Array.from({ length: BESIDE_MAX_STATIONS + 1 }, (_, i) => station(`s${i}`));
+    let beside: boolean | undefined;
+    await buildAlmanac(plan({ workers: 2 }), {
+      ...stubs(many),
+      async computeStations(request, onStation) {
+        for (const id of request.units.flat()) onStation({ id, model: base, pdfPages: 1 });
+      },
+      async renderSite() {},
+      async renderCombinedBook(_models, _options, b) {
+        beside = b;
+        return fakePdf(1, 'x');
+      },
+    }, quietEvents());
+    expect(beside).toBe(false);
   });
 
   it('names the combined book after the project title', async () => {

@@ -67,8 +67,11 @@ function editFile(file: string, from: RegExp, to: string): void {
 }
 
 const HOSTILE = '<script>alert(1)</script> & Pilchard Cove (invented)';
-const hostileSet = (dir: string): void =>
+const HOSTILE_PROVENANCE = 'Invented <img src=x onerror=alert(2)> & not real';
+const hostileSet = (dir: string): void => {
   editFile(join(dir, 'pilchard-cove.yaml'), /^name: .*$/m, `name: "${HOSTILE}"`);
+  editFile(join(dir, 'pilchard-cove.yaml'), /^provenance: .*$/m, `provenance: "${HOSTILE_PROVENANCE}"`);
+};
 
 // One good build shared by several checks: the output a broken build must leave alone.
 let goodStations: string;
@@ -101,21 +104,26 @@ describe('a good build', () => {
     expect(tempFoldersBeside(goodOut)).toEqual([]);
   });
 
-  it('shows a station name holding HTML and script as text on every web page that prints it', () => {
+  it('shows station text holding HTML and script as text on every web page that prints it', () => {
     const pages = Object.keys(goodHash).filter((f) => f.endsWith('.html'));
-    let shown = 0;
+    let names = 0;
+    let provenances = 0;
     for (const page of pages) {
       const html = readFileSync(join(goodOut, page), 'utf8');
       expect(html, page).not.toContain('<script>alert(1)');
-      if (html.includes('&lt;script&gt;alert(1)&lt;/script&gt; &amp; Pilchard Cove')) shown++;
+      expect(html, page).not.toContain('<img src=x');
+      if (html.includes('&lt;script&gt;alert(1)&lt;/script&gt; &amp; Pilchard Cove')) names++;
+      if (html.includes('Invented &lt;img src=x onerror=alert(2)&gt; &amp; not real')) provenances++;
     }
-    expect(shown).toBeGreaterThan(0);
+    expect(names).toBeGreaterThan(0);
+    expect(provenances).toBeGreaterThan(0);
   });
 
-  it.skipIf(!hasPdftotext)('prints the same name literally in the PDF books', () => {
+  it.skipIf(!hasPdftotext)('prints the same texts literally in the PDF books', () => {
     for (const book of ['pilchard-cove-2027.pdf', 'almanac-2027.pdf']) {
-      const text = execFileSync('pdftotext', ['-l', '3', join(goodOut, 'pdf', book), '-'], { encoding: 'utf8' });
-      expect(text.replace(/\s+/g, ' '), book).toContain('<script>alert(1)</script> & Pilchard Cove');
+      const text = execFileSync('pdftotext', [join(goodOut, 'pdf', book), '-'], { encoding: 'utf8' }).replace(/\s+/g, ' ');
+      expect(text, book).toContain('<script>alert(1)</script> & Pilchard Cove');
+      expect(text, book).toContain(HOSTILE_PROVENANCE);
     }
   });
 
