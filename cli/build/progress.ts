@@ -49,7 +49,7 @@ export function createProgress(stream: ProgressStream, quiet: boolean, now: () =
     const t = now();
     if (!force && t - lastDraw < 200) return;
     lastDraw = t;
-    const width = Math.max(20, (stream.columns ?? 80) - 1);
+    const width = Math.max(20, (stream.columns || 80) - 1); // 0 or missing: a terminal of unknown size
     stream.write(`\r\x1b[K${progressLine(label, done, total, t - start, t - stageStart).slice(0, width)}`);
     shown = true;
   };

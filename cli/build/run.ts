@@ -110,7 +110,7 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
     const units = workUnits(stations, plan.workers ?? deps.cores());
     const workers = poolSize(plan.workers, deps.cores(), units.length);
     const outcomes = new Map<string, StationOutcome>();
-    events.progress.stage('stations', stations.length);
+    events.progress.stage('computing', stations.length);
     await step('computing the stations', times, () => deps.computeStations(
       { stationsDir: plan.stationsDir, year, tempDir: target.temp, render: plan.render, units, workers },
       (outcome) => {
