@@ -37,6 +37,7 @@ export async function runBuild(argv: string[]): Promise<number> {
   const progress = createProgress(process.stderr, plan.quiet);
   const abort = new AbortController();
   let temp: OutputTarget | null = null;
+  let started = false;
 
   // Ctrl-C or a kill: remove our temporary folder and leave at once; the previous output is untouched.
   // (The swap itself is synchronous, so this can never run between its two renames.)
@@ -47,13 +48,27 @@ export async function runBuild(argv: string[]): Promise<number> {
     say(`build interrupted (${signal}); ${shown(plan.outDir)}/ is as it was before`);
     process.exit(SIGNAL_EXIT[signal] ?? 1);
   };
+  // A renderer's library may fail outside any promise we await (Eleventy's file copying on a full disk
+  // does): the build cannot go on, so clean up the same way and say what failed in one line.
+  const onStray = (error: unknown): void => {
+    progress.clear();
+    if (temp) discardTemp(temp);
+    say(`build failed: ${messageOf(error)}; ${shown(plan.outDir)}/ is as it was before`);
+    if (process.env.TIDEWRIGHT_DEBUG && error instanceof Error && error.stack) process.stderr.write(`${error.stack}\n`);
+    process.exit(2);
+  };
   process.on('SIGINT', onSignal);
   process.on('SIGTERM', onSignal);
+  process.on('unhandledRejection', onStray);
+  process.on('uncaughtException', onStray);
   try {
     const summary = await buildAlmanac(plan, realBuildDeps, {
       progress,
       note: (text) => { if (!plan.quiet) say(text); },
-      tempCreated: (target) => { temp = target; },
+      tempCreated: (target) => {
+        temp = target;
+        started = true;
+      },
       committed: () => { temp = null; },
       signal: abort.signal,
     });
@@ -64,11 +79,15 @@ export async function runBuild(argv: string[]): Promise<number> {
     if (error instanceof StationSetInvalid) {
       for (const problem of error.problems) say(problem.message);
     }
-    say(`build failed: ${messageOf(error)}; ${shown(plan.outDir)}/ is as it was before`);
+    // Once a temporary folder existed, say that the previous output survived; before, nothing was written.
+    if (started) say(`build failed: ${messageOf(error)}; ${shown(plan.outDir)}/ is as it was before`);
+    else say(error instanceof StationSetInvalid ? `build failed: ${error.message}` : messageOf(error));
     if (process.env.TIDEWRIGHT_DEBUG && error instanceof Error && error.stack) process.stderr.write(`${error.stack}\n`);
     return exitCodeOf(error);
   } finally {
     process.off('SIGINT', onSignal);
     process.off('SIGTERM', onSignal);
+    process.off('unhandledRejection', onStray);
+    process.off('uncaughtException', onStray);
   }
 }

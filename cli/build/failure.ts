@@ -8,7 +8,7 @@ export class BuildStepError extends Error {
     readonly step: string,
     override readonly cause: unknown,
   ) {
-    super(`${step}: ${messageOf(cause)}`);
+    super(`${step}: ${cause instanceof Error ? cause.message.split('\n')[0] : String(cause)}`);
   }
 }
 
@@ -20,8 +20,23 @@ export class StationSetInvalid extends TidewrightError {
   }
 }
 
+/** The innermost error with a system error code, following `cause` and `originalError` (Eleventy's). */
+function systemErrorIn(error: Error): Error | undefined {
+  let current: unknown = error;
+  let found: Error | undefined;
+  for (let depth = 0; current instanceof Error && depth < 8; depth++) {
+    if (typeof (current as NodeJS.ErrnoException).code === 'string' && /^E[A-Z]+$/.test((current as NodeJS.ErrnoException).code!)) found = current;
+    const next: unknown = (current as { originalError?: unknown }).originalError ?? current.cause;
+    current = next;
+  }
+  return found;
+}
+
 export function messageOf(error: unknown): string {
+  if (error instanceof BuildStepError) return `${error.step}: ${messageOf(error.cause)}`;
   if (error instanceof Error) {
+    const system = systemErrorIn(error);
+    if (system && system !== error) return messageOf(system);
     const code = (error as NodeJS.ErrnoException).code;
     // A full disk or a folder we may not write to is the usual cause of a write error: say it plainly.
     if (code === 'ENOSPC') return `no space left on the disk (${error.message})`;

@@ -157,7 +157,7 @@ describe('a broken station set', () => {
     expect(run.stdout).toBe('');
     expect(run.stderr).toMatch(message);
     const lines = run.stderr.trimEnd().split('\n');
-    expect(lines.at(-1)).toMatch(/^tidewright: build failed: \d+ problems? in the station files; nothing was written; .*out\/ is as it was before$/);
+    expect(lines.at(-1)).toMatch(/^tidewright: build failed: \d+ problems? in the station files; nothing was written$/);
     expect(run.stderr).not.toMatch(/\n\s+at /); // no stack trace
     expect(treeHash(goodOut)).toEqual(goodHash);
     expect(tempFoldersBeside(goodOut)).toEqual([]);
@@ -192,6 +192,29 @@ describe('bad options', () => {
     expect(run.code).toBe(1);
     expect(run.stderr).toMatch(/is the stations folder/);
     expect(readdirSync(goodStations).sort()).toEqual(['gannet-head.yaml', 'pilchard-cove.yaml']);
+  });
+});
+
+describe('a full disk', () => {
+  // A 3 MiB file system of our own (tmpfs) stands in for a full disk; mounting needs root, so the test
+  // is skipped, visibly, where that is not allowed.
+  const disk = join(work, 'small-disk');
+  mkdirSync(disk);
+  const mounted = spawnSync('mount', ['-t', 'tmpfs', '-o', 'size=3m', 'tmpfs', disk]).status === 0;
+  if (!mounted) console.warn('build.test.ts: cannot mount a small tmpfs here (needs root): the full-disk test is skipped');
+  afterAll(() => { if (mounted) spawnSync('umount', [disk]); });
+
+  it.skipIf(!mounted)('fails with exit 2 naming the cause, and leaves the previous output and no temporary folder', () => {
+    const out = join(disk, 'out');
+    mkdirSync(out);
+    writeFileSync(join(out, '.tidewright-output'), '');
+    writeFileSync(join(out, 'index.html'), 'previous');
+    const before = treeHash(out);
+    const run = tidewright(['build', '--stations', goodStations, '--out', out]);
+    expect(run.code).toBe(2);
+    expect(run.stderr).toMatch(/^tidewright: build failed: .*no space left on the disk.*; .*out\/ is as it was before\n$/);
+    expect(treeHash(out)).toEqual(before);
+    expect(readdirSync(disk)).toEqual(['out']);
   });
 });
 
