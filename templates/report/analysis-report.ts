@@ -4,6 +4,7 @@
 
 import { CAUTION } from '../../engine/almanac/caution.js';
 import type { HarmonicAnalysis } from '../../engine/analysis/harmonic.js';
+import type { StationMeta } from '../../engine/analysis/station-yaml.js';
 import { timeSeriesChart } from './chart.js';
 import { escapeHtml as esc } from './escape.js';
 import { REPORT_CSS } from './style.js';
@@ -11,14 +12,8 @@ import { REPORT_CSS } from './style.js';
 const HOUR = 3_600_000;
 const DAY = 86_400_000;
 
-export interface ReportStation {
-  id: string;
-  name: string;
-  latitude: number;
-  longitude: number;
-  timezone: string;
-  datum: string;
-}
+/** The station a report is about: the same facts the analysed station file is written from. */
+export type ReportStation = StationMeta;
 
 const fixed = (v: number, digits: number): string => v.toFixed(digits).replace(/^-(?=0\.?0*$)/, '').replace('-', '\u2212');
 const instant = (t: number): string => `${new Date(t).toISOString().slice(0, 16).replace('T', ' ')} UTC`;

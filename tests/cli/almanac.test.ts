@@ -4,32 +4,13 @@ import { cpSync, mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, afterEach, describe, expect, it, vi } from 'vitest';
-import { main } from '../../cli/main.js';
+import { runCli } from '../fixtures/run-cli.js';
 import { buildStationYear } from '../../engine/almanac.js';
 import { loadStationSet } from '../../engine/stations.js';
 import type { StationYear } from '../../engine/types.js';
 
 const ROOT = join(import.meta.dirname, '..', '..');
 const DEMO = join(ROOT, 'stations-demo');
-
-async function runCli(argv: string[]): Promise<{ code: number; stdout: string; stderr: string }> {
-  let stdout = '';
-  let stderr = '';
-  const out = vi.spyOn(process.stdout, 'write').mockImplementation((chunk: string | Uint8Array) => {
-    stdout += String(chunk);
-    return true;
-  });
-  const err = vi.spyOn(process.stderr, 'write').mockImplementation((chunk: string | Uint8Array) => {
-    stderr += String(chunk);
-    return true;
-  });
-  try {
-    return { code: await main(argv), stdout, stderr };
-  } finally {
-    out.mockRestore();
-    err.mockRestore();
-  }
-}
 
 afterEach(() => vi.restoreAllMocks());
 

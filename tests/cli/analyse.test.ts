@@ -6,7 +6,7 @@ import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'no
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, afterEach, describe, expect, it, vi } from 'vitest';
-import { main } from '../../cli/main.js';
+import { runCli } from '../fixtures/run-cli.js';
 import { loadStationFile } from '../../engine/stations.js';
 import { compilePredictor } from '../../engine/predict.js';
 import { tideHeights } from '../../engine/tides.js';
@@ -20,24 +20,6 @@ afterEach(() => vi.restoreAllMocks());
 const FIXTURES = join(import.meta.dirname, '..', 'fixtures', 'records');
 const START = Date.UTC(2027, 2, 1);
 const STEP = 10 * 60_000;
-
-async function runCli(argv: string[]): Promise<{ code: number; stdout: string; stderr: string }> {
-  let stdout = '';
-  let stderr = '';
-  vi.spyOn(process.stdout, 'write').mockImplementation((chunk: string | Uint8Array) => {
-    stdout += String(chunk);
-    return true;
-  });
-  vi.spyOn(process.stderr, 'write').mockImplementation((chunk: string | Uint8Array) => {
-    stderr += String(chunk);
-    return true;
-  });
-  try {
-    return { code: await main(argv), stdout, stderr };
-  } finally {
-    vi.restoreAllMocks();
-  }
-}
 
 // Invented ports, realistic in magnitude.
 const reference: ReferenceStation = {

@@ -3,30 +3,9 @@
 
 import { join } from 'node:path';
 import { afterEach, describe, expect, it, vi } from 'vitest';
-import { main } from '../../cli/main.js';
+import { runCli } from '../fixtures/run-cli.js';
 
 const FIXTURES = join(import.meta.dirname, '..', 'fixtures');
-
-/** Runs main() in-process and returns its exit code with what it wrote. */
-async function runCli(argv: string[]): Promise<{ code: number; stdout: string; stderr: string }> {
-  let stdout = '';
-  let stderr = '';
-  const out = vi.spyOn(process.stdout, 'write').mockImplementation((chunk: string | Uint8Array) => {
-    stdout += String(chunk);
-    return true;
-  });
-  const err = vi.spyOn(process.stderr, 'write').mockImplementation((chunk: string | Uint8Array) => {
-    stderr += String(chunk);
-    return true;
-  });
-  try {
-    const code = await main(argv);
-    return { code, stdout, stderr };
-  } finally {
-    out.mockRestore();
-    err.mockRestore();
-  }
-}
 
 afterEach(() => vi.restoreAllMocks());
 

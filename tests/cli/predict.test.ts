@@ -6,7 +6,7 @@ import { existsSync, readdirSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import { DateTime } from 'luxon';
 import { afterEach, beforeAll, describe, expect, it, vi } from 'vitest';
-import { main } from '../../cli/main.js';
+import { runCli } from '../fixtures/run-cli.js';
 import { findExtrema } from '../../engine/extrema.js';
 import { compilePredictor } from '../../engine/predict.js';
 import { loadStationFile, loadStationSet } from '../../engine/stations.js';
@@ -19,25 +19,6 @@ const DEMO = join(ROOT, 'stations-demo');
 const GANNET = join(GOOD, 'gannet-head.yaml'); // Europe/Lisbon: +00:00 in winter, +01:00 in summer
 const PILCHARD = join(GOOD, 'pilchard-cove.yaml'); // its secondary port
 const SKUA = join(DEMO, 'skua-fjord.yaml'); // Europe/Oslo: +01:00 in winter
-
-async function runCli(argv: string[]): Promise<{ code: number; stdout: string; stderr: string }> {
-  let stdout = '';
-  let stderr = '';
-  const out = vi.spyOn(process.stdout, 'write').mockImplementation((chunk: string | Uint8Array) => {
-    stdout += String(chunk);
-    return true;
-  });
-  const err = vi.spyOn(process.stderr, 'write').mockImplementation((chunk: string | Uint8Array) => {
-    stderr += String(chunk);
-    return true;
-  });
-  try {
-    return { code: await main(argv), stdout, stderr };
-  } finally {
-    out.mockRestore();
-    err.mockRestore();
-  }
-}
 
 afterEach(() => vi.restoreAllMocks());
 
