@@ -2,6 +2,12 @@
 // filters are handed to Eleventy here (templates/_data/site.js returns the handoff), and every
 // station-year's downloads are written inside the site (outDir/data/) so the site is whole wherever it
 // is uploaded; with `dataDir` the same files are also placed there (hard links where the disk allows).
+//
+// Eleventy keeps every page it renders in memory until its run ends (about 5 MiB per station-year),
+// so the pages are written in several runs into the same folder: one per batch of station-years (their
+// year and month pages only) and one for the shared pages (index, datums, assets). Every run sees the
+// same site-wide facts, so the pages are the same as from one run; the memory no longer grows with
+// the number of stations beyond the models themselves.
 import { copyFile, link, mkdir, rm } from 'node:fs/promises';
 import { join, resolve } from 'node:path';
 import Eleventy from '@11ty/eleventy';
@@ -9,15 +15,24 @@ import type { StationYear } from '../../engine/types.js';
 import { writeExports } from '../exports/write.js';
 import { registerSiteFilters } from './filters.js';
 import { projectRoot } from './paths.js';
-import { buildSiteData, type SiteOptions } from './views.js';
+import { buildSiteData, type MonthPage, type SiteData, type SiteOptions, type StationYearPage } from './views.js';
 
 export interface RenderSiteOptions extends SiteOptions {
   quiet?: boolean;
   dataDir?: string; // also place the downloads here (e.g. out/data beside out/site)
+  /** Station-years per Eleventy run (default STATION_YEARS_PER_RUN); bounds the renderer's memory. */
+  stationYearsPerRun?: number;
 }
 
 /** The global-data name under which renderSite hands the site to templates/_data/site.js. */
 export const HANDOFF_KEY = 'tidewrightSite';
+
+/** 25 station-years ≈ 130 MiB of Eleventy's page content; more per run saves little time. */
+export const STATION_YEARS_PER_RUN = 25;
+
+// Which templates each kind of run leaves out.
+const SHARED_PAGES = ['index.njk', 'datums.njk'];
+const STATION_PAGES = ['station-year.njk', 'month.njk'];
 
 async function linkOrCopy(from: string, to: string): Promise<void> {
   await rm(to, { force: true });
@@ -28,11 +43,10 @@ async function linkOrCopy(from: string, to: string): Promise<void> {
   }
 }
 
-export async function renderSite(models: StationYear[], outDir: string, options: RenderSiteOptions): Promise<void> {
-  const root = projectRoot();
-  const out = resolve(outDir);
+/** One Eleventy run over `site`, leaving out the templates named in `skip`. */
+async function runEleventy(root: string, out: string, site: SiteData, skip: string[], options: RenderSiteOptions): Promise<void> {
   // Frozen so Eleventy passes it by reference instead of deep-copying every model into every page.
-  const site = Object.freeze(buildSiteData(models, options, true));
+  const handoff = Object.freeze(site);
   const eleventy = new Eleventy(join(root, 'templates'), out, {
     quietMode: true, // no line per written file; the caller reports progress
     configPath: join(root, '.eleventy.js'),
@@ -41,11 +55,35 @@ export async function renderSite(models: StationYear[], outDir: string, options:
       // curves always does, by design, so the warning only adds noise to the build's output.
       config.benchmarks?.config?.setIsVerbose(false);
       registerSiteFilters(config, options.units);
-      config.addGlobalData(HANDOFF_KEY, site);
+      for (const name of skip) config.ignores.add(join(root, 'templates', name));
+      config.addGlobalData(HANDOFF_KEY, handoff);
     },
   });
   if (options.quiet) eleventy.disableLogger();
   await eleventy.write();
+}
+
+/** The station-year pages in runs of at most `size`, each with its own month pages (same order as in `site`). */
+function batches(site: SiteData, size: number): { stationYears: StationYearPage[]; monthPages: MonthPage[] }[] {
+  const list: { stationYears: StationYearPage[]; monthPages: MonthPage[] }[] = [];
+  let month = 0;
+  for (let i = 0; i < site.stationYears.length; i += size) {
+    const stationYears = site.stationYears.slice(i, i + size);
+    const count = stationYears.reduce((n, sy) => n + sy.months.length, 0);
+    list.push({ stationYears, monthPages: site.monthPages.slice(month, month + count) });
+    month += count;
+  }
+  return list;
+}
+
+export async function renderSite(models: StationYear[], outDir: string, options: RenderSiteOptions): Promise<void> {
+  const root = projectRoot();
+  const out = resolve(outDir);
+  const size = options.stationYearsPerRun ?? STATION_YEARS_PER_RUN;
+  if (!Number.isInteger(size) || size < 1) throw new RangeError(`stationYearsPerRun must be a whole number from 1, not ${size}`);
+  const site = buildSiteData(models, options, true);
+  for (const batch of batches(site, size)) await runEleventy(root, out, { ...site, ...batch }, SHARED_PAGES, options);
+  await runEleventy(root, out, { ...site, stationYears: [], monthPages: [] }, STATION_PAGES, options);
 
   const siteData = join(out, 'data');
   await mkdir(siteData, { recursive: true });
