@@ -126,9 +126,10 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
     let pdfPages = stations.reduce((n, s) => n + outcomes.get(s.id)!.pdfPages, 0);
     outcomes.clear();
 
-    // With more than one worker the combined book is drawn beside the website, else after it. Both
-    // hold every model and the site renderer needs about 5 MiB per station-year, so large sets draw
-    // them one after the other (200 stations: 2.4 GiB peak beside, 1.9 GiB after; 100 s vs 134 s).
+    // With more than one worker the combined book is drawn beside the website, else after it. The
+    // combined book's worker holds its own copy of every model (about 0.85 MiB each) and the whole PDF,
+    // so large sets draw them one after the other (measured when the site still rendered in one
+    // Eleventy run, 200 stations: 2.4 GiB peak beside, 1.9 GiB after; the threshold wants re-measuring).
     const beside = workers > 1 && stations.length <= BESIDE_MAX_STATIONS;
     const name = combinedBookName(plan.render.title, stations.map((s) => s.id));
     const site = (): Promise<unknown> => step('rendering the website and downloads', times,
