@@ -11,6 +11,7 @@
 
 import { DateTime, IANAZone } from 'luxon';
 import { UsageError } from './errors.js';
+import { zoneOffset } from './zone-offsets.js';
 
 const MINUTE = 60_000;
 const HOUR = 3_600_000;
@@ -78,7 +79,7 @@ function pad2(n: number): string {
 
 /** The UTC offset in force at an instant, "+01:00". */
 export function offsetString(ms: number, zone: string): string {
-  return formatOffset(zoneOf(zone).offset(ms));
+  return formatOffset(zoneOffset(zoneOf(zone), ms));
 }
 
 export function roundToSecond(ms: number): number {
@@ -98,17 +99,41 @@ export function isoUtc(ms: number): string {
 export function isoLocal(ms: number, zone: string): string {
   const t = roundToSecond(ms);
   const z = zoneOf(zone);
-  return DateTime.fromMillis(t, { zone: z }).toFormat("yyyy-MM-dd'T'HH:mm:ss") + formatOffset(z.offset(t));
+  const offset = zoneOffset(z, t);
+  const w = wallClock(t, offset);
+  if (w === null) return DateTime.fromMillis(t, { zone: z }).toFormat("yyyy-MM-dd'T'HH:mm:ss") + formatOffset(z.offset(t));
+  return `${datePart(w)}T${pad2(w.getUTCHours())}:${pad2(w.getUTCMinutes())}:${pad2(w.getUTCSeconds())}${formatOffset(offset)}`;
 }
 
 /** Local wall clock "HH:mm" at the instant's nearest minute (see the rounding rule above). */
 export function clock(ms: number, zone: string): string {
-  return DateTime.fromMillis(roundToMinute(ms), { zone: zoneOf(zone) }).toFormat('HH:mm');
+  const t = roundToMinute(ms);
+  const z = zoneOf(zone);
+  const w = wallClock(t, zoneOffset(z, t));
+  if (w === null) return DateTime.fromMillis(t, { zone: z }).toFormat('HH:mm');
+  return `${pad2(w.getUTCHours())}:${pad2(w.getUTCMinutes())}`;
 }
 
 /** Local date "YYYY-MM-DD" of the instant's nearest minute, so it always agrees with `clock`. */
 export function localDate(ms: number, zone: string): string {
-  return DateTime.fromMillis(roundToMinute(ms), { zone: zoneOf(zone) }).toFormat('yyyy-MM-dd');
+  const t = roundToMinute(ms);
+  const z = zoneOf(zone);
+  const w = wallClock(t, zoneOffset(z, t));
+  if (w === null) return DateTime.fromMillis(t, { zone: z }).toFormat('yyyy-MM-dd');
+  return datePart(w);
+}
+
+// The local wall time as a Date whose UTC fields read it, built as luxon builds it (the instant
+// shifted by its offset), so the plain formatting below prints what luxon's toFormat would.
+// Null for years without four plain digits: those are left to luxon.
+function wallClock(t: number, offsetMinutes: number): Date | null {
+  const w = new Date(t + offsetMinutes * 60 * 1000);
+  const y = w.getUTCFullYear();
+  return y >= 1000 && y <= 9999 ? w : null;
+}
+
+function datePart(w: Date): string {
+  return `${w.getUTCFullYear()}-${pad2(w.getUTCMonth() + 1)}-${pad2(w.getUTCDate())}`;
 }
 
 const DATE_PATTERN = /^(\d{4})-(\d{2})-(\d{2})$/;
@@ -162,8 +187,8 @@ export function localDays(year: number, zone: string): LocalDay[] {
       start,
       end,
       hours: (end - start) / HOUR,
-      offsetStart: formatOffset(z.offset(start)),
-      offsetEnd: formatOffset(z.offset(end - 1)),
+      offsetStart: formatOffset(zoneOffset(z, start)),
+      offsetEnd: formatOffset(zoneOffset(z, end - 1)),
       offsetChange: findOffsetChange(start, end, z),
     });
   }
@@ -190,11 +215,11 @@ export function dayIndexOf(days: readonly Pick<LocalDay, 'start' | 'end'>[], ms:
 // found by bisection to the second (transitions fall on whole seconds).
 function findOffsetChange(start: number, end: number, zone: IANAZone): OffsetChange | null {
   let prevT = start - 1000;
-  let prevOffset = zone.offset(prevT);
+  let prevOffset = zoneOffset(zone, prevT);
   // The common day: 24 hours and one offset from end to end (no zone shifts and shifts back in a day).
-  if (end - start === 24 * HOUR && zone.offset(end - 1) === prevOffset) return null;
+  if (end - start === 24 * HOUR && zoneOffset(zone, end - 1) === prevOffset) return null;
   for (let t = start; ; t = Math.min(t + HOUR / 2, end - 1)) {
-    const offset = zone.offset(t);
+    const offset = zoneOffset(zone, t);
     if (offset !== prevOffset) return describeChange(bisectChange(prevT, t, zone), prevOffset, offset, zone);
     if (t >= end - 1) return null;
     prevT = t;
@@ -203,12 +228,12 @@ function findOffsetChange(start: number, end: number, zone: IANAZone): OffsetCha
 }
 
 function bisectChange(lo: number, hi: number, zone: IANAZone): number {
-  const before = zone.offset(lo);
+  const before = zoneOffset(zone, lo);
   let a = Math.floor(lo / 1000);
   let b = Math.ceil(hi / 1000);
   while (b - a > 1) {
     const mid = Math.floor((a + b) / 2);
-    if (zone.offset(mid * 1000) === before) a = mid;
+    if (zoneOffset(zone, mid * 1000) === before) a = mid;
     else b = mid;
   }
   return b * 1000;

@@ -8,8 +8,9 @@
 // position with getMoonTimes' own criterion (moonCrossings says why its search is not used as is).
 
 import { DateTime } from 'luxon';
-import { getMoonIllumination, getMoonPosition, getPosition, getTimes } from 'suncalc';
+import { getMoonIllumination, getPosition, getTimes } from 'suncalc';
 import { roundToMinute } from '../localtime.js';
+import { moonHeightAt, moonHeightsOnGrid, observer, type Observer } from './moon-grid.js';
 import type { Position } from '../types.js';
 
 const DAY = 86_400_000;
@@ -87,12 +88,18 @@ export function sunCrossings(fromMs: number, toMs: number, position: Position): 
  */
 export function moonCrossings(fromMs: number, toMs: number, position: Position): Crossing[] {
   const out: Crossing[] = [];
+  if (!(fromMs < toMs)) return out;
+  const o = observer(position.latitude, position.longitude);
+  // The 20-minute points come from the grid shared by all stations (moon-grid.ts); the last step,
+  // cut short at toMs, and any range not on whole milliseconds are computed directly.
+  const n = Math.ceil((toMs - fromMs) / MOON_STEP);
+  const shared = Number.isInteger(fromMs) && n < 1e6 ? moonHeightsOnGrid(fromMs, MOON_STEP, n + 1, o) : null;
   let t0 = fromMs;
-  let h0 = moonHeight(t0, position);
-  while (t0 < toMs) {
+  let h0 = shared ? shared(0) : moonHeightAt(t0, o);
+  for (let k = 1; t0 < toMs; k++) {
     const t1 = Math.min(t0 + MOON_STEP, toMs);
-    const h1 = moonHeight(t1, position);
-    if (h0 <= 0 !== h1 <= 0) out.push({ time: refineCrossing(t0, t1, h0, h1, position), direction: h0 <= 0 ? 1 : -1 });
+    const h1 = shared && t1 === fromMs + k * MOON_STEP ? shared(k) : moonHeightAt(t1, o);
+    if (h0 <= 0 !== h1 <= 0) out.push({ time: refineCrossing(t0, t1, h0, h1, o), direction: h0 <= 0 ? 1 : -1 });
     t0 = t1;
     h0 = h1;
   }
@@ -100,24 +107,14 @@ export function moonCrossings(fromMs: number, toMs: number, position: Position):
 }
 
 const MOON_STEP = 20 * 60_000;
-const RAD = Math.PI / 180;
-const EARTH_RADIUS_KM = 6378.14;
-
-// The height of the Moon's upper limb above the rise/set horizon, degrees, exactly as suncalc's
-// getMoonTimes defines it: topocentric apparent altitude + semidiameter (0.2725 × horizontal
-// parallax) + 0.09° of horizon refraction its refraction model leaves out.
-function moonHeight(t: number, position: Position): number {
-  const p = getMoonPosition(new Date(t), position.latitude, position.longitude);
-  return p.altitude + (0.2725 * Math.asin(EARTH_RADIUS_KM / p.distance)) / RAD + 0.09;
-}
 
 // Illinois variant of regula falsi (Dowell & Jarratt 1971): a bracketing root search that keeps
 // the sign change inside [lo, hi] and converges in a few steps on a smooth height curve.
-function refineCrossing(lo: number, hi: number, hLo: number, hHi: number, position: Position): number {
+function refineCrossing(lo: number, hi: number, hLo: number, hHi: number, o: Observer): number {
   let side = 0;
   for (let i = 0; i < 40 && hi - lo > 1000; i++) {
     const t = hi - (hHi * (hi - lo)) / (hHi - hLo);
-    const h = moonHeight(t, position);
+    const h = moonHeightAt(t, o);
     if (h <= 0 === hHi <= 0) {
       hi = t;
       hHi = h;
@@ -176,5 +173,5 @@ function sunUpAt(day: DaySpan, position: Position): boolean {
 const SUN_APPARENT_THRESHOLD = -0.349;
 
 function moonUpAt(day: DaySpan, position: Position): boolean {
-  return moonHeight((day.start + day.end) / 2, position) > 0;
+  return moonHeightAt((day.start + day.end) / 2, observer(position.latitude, position.longitude)) > 0;
 }
