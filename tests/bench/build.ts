@@ -7,6 +7,7 @@ import { availableParallelism, loadavg, tmpdir } from 'node:os';
 import { dirname, join } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { parse, stringify } from 'yaml';
+import { seededRandom } from '../fixtures/analysis-records.js';
 
 const STATION_COUNT = 200;
 const TARGET_MS = 180_000;
@@ -17,18 +18,6 @@ function repoRoot(): string {
   let dir = dirname(fileURLToPath(import.meta.url));
   while (!readdirSync(dir).includes('stations-demo')) dir = dirname(dir);
   return dir;
-}
-
-// A small deterministic generator (mulberry32) so every run benchmarks the same stations.
-function random(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
 }
 
 type Yaml = Record<string, unknown> & { id: string; kind: string; reference?: string; name: string };
@@ -43,7 +32,7 @@ export function generateStations(demoDir: string, outDir: string, count: number)
   const demo = readdirSync(demoDir).filter((f) => f.endsWith('.yaml')).sort()
     .map((f) => parse(readFileSync(join(demoDir, f), 'utf8')) as Yaml)
     .sort((a, b) => Number(a.kind === 'secondary') - Number(b.kind === 'secondary'));
-  const rnd = random(20270101);
+  const rnd = seededRandom(20270101);
   const wiggle = (x: number, by: number): number => x + (rnd() * 2 - 1) * by;
   mkdirSync(outDir, { recursive: true });
   for (let i = 0; i < count; i++) {

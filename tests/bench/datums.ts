@@ -1,43 +1,21 @@
 // Benchmark of the datums: LAT and HAT over the 19-year epoch of a 60-constituent station from the
 // high/low water search, against 1-minute sampling with direct cosines over the same span (target
 // ≥ 30×). The sampling is timed over one year and scaled by 19 (19 years of it would take minutes).
-import { findConstituent } from '../../engine/constituents.js';
 import { astronomicalExtremes, datumEpoch, epochTideEvents, stationDatums } from '../../engine/datums.js';
-import { compileAstronomicalTerms } from '../../engine/nodal.js';
 import type { ReferenceStation } from '../../engine/types.js';
 import { sixtyConstituentStation } from '../fixtures/engine-stations.js';
+import { directMinuteSeries } from './direct.js';
 
-const DAY = 86_400_000;
-const DEG = Math.PI / 180;
 const RUNS = 5;
 
 /** Lowest and highest of 1-minute direct cosine sums (f, u, V₀ refreshed at each UTC midnight). */
 function sampledExtremes(station: ReferenceStation, start: number, days: number): { low: number; high: number } {
-  const names = Object.keys(station.constituents);
-  const n = names.length;
-  const terms = compileAstronomicalTerms(names);
-  const H = Float64Array.from(names, (k) => station.constituents[k]!.amplitude);
-  const g = Float64Array.from(names, (k) => station.constituents[k]!.phase);
-  const omegaPerMinute = Float64Array.from(names, (k) => (findConstituent(k)!.speed * DEG) / 60);
-  const V = new Float64Array(n);
-  const f = new Float64Array(n);
-  const u = new Float64Array(n);
-  const amplitude = new Float64Array(n);
-  const phase = new Float64Array(n);
+  const h = directMinuteSeries(station, start, days);
   let low = Infinity;
   let high = -Infinity;
-  for (let d = 0; d < days; d++) {
-    terms.evaluate(start + d * DAY, V, f, u);
-    for (let k = 0; k < n; k++) {
-      amplitude[k] = f[k]! * H[k]!;
-      phase[k] = (V[k]! + u[k]! - g[k]!) * DEG;
-    }
-    for (let m = 0; m < 1440; m++) {
-      let h = station.mean_level;
-      for (let k = 0; k < n; k++) h += amplitude[k]! * Math.cos(phase[k]! + omegaPerMinute[k]! * m);
-      if (h < low) low = h;
-      if (h > high) high = h;
-    }
+  for (let j = 0; j < h.length; j++) {
+    if (h[j]! < low) low = h[j]!;
+    if (h[j]! > high) high = h[j]!;
   }
   return { low, high };
 }

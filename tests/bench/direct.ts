@@ -1,0 +1,36 @@
+// The baseline the benchmarks measure against: direct cosine sums at 1-minute steps.
+import { findConstituent } from '../../engine/constituents.js';
+import { compileAstronomicalTerms } from '../../engine/nodal.js';
+import type { ReferenceStation } from '../../engine/types.js';
+
+const DAY = 86_400_000;
+const DEG = Math.PI / 180;
+
+/** Heights at 1-minute steps by direct cosines, node factors and V₀ refreshed at each UTC midnight. */
+export function directMinuteSeries(station: ReferenceStation, start: number, days: number): Float64Array {
+  const names = Object.keys(station.constituents);
+  const n = names.length;
+  const terms = compileAstronomicalTerms(names);
+  const H = Float64Array.from(names, (k) => station.constituents[k]!.amplitude);
+  const g = Float64Array.from(names, (k) => station.constituents[k]!.phase);
+  const omegaPerMinute = Float64Array.from(names, (k) => (findConstituent(k)!.speed * DEG) / 60);
+  const V = new Float64Array(n);
+  const f = new Float64Array(n);
+  const u = new Float64Array(n);
+  const amplitude = new Float64Array(n);
+  const phase = new Float64Array(n);
+  const out = new Float64Array(days * 1440);
+  for (let d = 0; d < days; d++) {
+    terms.evaluate(start + d * DAY, V, f, u);
+    for (let k = 0; k < n; k++) {
+      amplitude[k] = f[k]! * H[k]!;
+      phase[k] = (V[k]! + u[k]! - g[k]!) * DEG;
+    }
+    for (let m = 0; m < 1440; m++) {
+      let h = station.mean_level;
+      for (let k = 0; k < n; k++) h += amplitude[k]! * Math.cos(phase[k]! + omegaPerMinute[k]! * m);
+      out[d * 1440 + m] = h;
+    }
+  }
+  return out;
+}
