@@ -5,6 +5,7 @@ import { dirname } from 'node:path';
 import { DateTime } from 'luxon';
 import { CAUTION } from '../engine/almanac/caution.js';
 import { UsageError } from '../engine/errors.js';
+import { isoLocal, isoUtc } from '../engine/localtime.js';
 import { loadStationFile, loadStationSet, type StationSet } from '../engine/stations.js';
 import { tideEvents, tideHeights } from '../engine/tides.js';
 import type { Station, TideEvent } from '../engine/types.js';
@@ -83,18 +84,9 @@ function request(argv: readonly string[]): PredictRequest | undefined {
 
 // --- formatting --------------------------------------------------------------------------------
 
-const toSecond = (t: number): number => Math.round(t / 1000) * 1000;
 const toMinute = (t: number): number => Math.round(t / MINUTE) * MINUTE;
 const mm = (h: number): number => Math.round(h * 1000) / 1000 + 0; // + 0 turns -0 into 0
 
-/** ISO 8601 UTC to the second: 2027-01-01T03:12:41Z. */
-export function utcSecond(t: number): string {
-  return new Date(toSecond(t)).toISOString().replace(/\.\d{3}Z$/, 'Z');
-}
-
-function localSecond(t: number, zone: string): string {
-  return DateTime.fromMillis(toSecond(t), { zone }).toISO({ suppressMilliseconds: true }) ?? '';
-}
 
 function cm(h: number): string {
   const text = (Math.round(h * 100) / 100 + 0).toFixed(2);
@@ -102,24 +94,24 @@ function cm(h: number): string {
 }
 
 function jsonEvents(events: readonly TideEvent[]): string {
-  const rows = events.map((e) => JSON.stringify({ time: utcSecond(e.time), type: e.type, height: mm(e.height) }));
+  const rows = events.map((e) => JSON.stringify({ time: isoUtc(e.time), type: e.type, height: mm(e.height) }));
   return rows.length === 0 ? '[]\n' : `[\n${rows.join(',\n')}\n]\n`;
 }
 
 function jsonHeights(times: readonly number[], heights: Float64Array): string {
-  const rows = times.map((t, i) => JSON.stringify({ time: utcSecond(t), height: Number.isFinite(heights[i]) ? mm(heights[i]!) : null }));
+  const rows = times.map((t, i) => JSON.stringify({ time: isoUtc(t), height: Number.isFinite(heights[i]) ? mm(heights[i]!) : null }));
   return rows.length === 0 ? '[]\n' : `[\n${rows.join(',\n')}\n]\n`;
 }
 
 function csvEvents(events: readonly TideEvent[], zone: string): string {
-  const rows = events.map((e) => `${utcSecond(e.time)},${localSecond(e.time, zone)},${e.type},${mm(e.height).toFixed(3)}`);
+  const rows = events.map((e) => `${isoUtc(e.time)},${isoLocal(e.time, zone)},${e.type},${mm(e.height).toFixed(3)}`);
   return ['time_utc,time_local,type,height_m', ...rows].join('\n') + '\n';
 }
 
 function csvHeights(times: readonly number[], heights: Float64Array, zone: string): string {
   const rows = times.map((t, i) => {
     const h = heights[i]!;
-    return `${utcSecond(t)},${localSecond(t, zone)},${Number.isFinite(h) ? mm(h).toFixed(3) : ''}`;
+    return `${isoUtc(t)},${isoLocal(t, zone)},${Number.isFinite(h) ? mm(h).toFixed(3) : ''}`;
   });
   return ['time_utc,time_local,height_m', ...rows].join('\n') + '\n';
 }

@@ -5,9 +5,8 @@ import { basename } from 'node:path';
 import { CAUTION } from '../almanac/caution.js';
 import type { SecondaryStation } from '../types.js';
 import type { DifferenceAnalysis } from './differences.js';
-import { commentLines, yamlString, type StationMeta } from './station-yaml.js';
+import { commentLines, day, yamlString, type StationMeta } from './station-yaml.js';
 
-const day = (t: number): string => new Date(t).toISOString().slice(0, 10);
 const clean = (v: number): number => (Object.is(v, -0) ? 0 : v);
 const minutes = (v: number): number => clean(Math.round(v));
 const metres = (v: number): number => clean(Number(v.toFixed(3)));

@@ -22,7 +22,8 @@ const round = (v: number, digits: number): number => {
 };
 const needs = (days: number | undefined): string =>
   days !== undefined && Number.isFinite(days) ? `needs ${days.toFixed(1)} days` : 'same speed, never separable';
-const day = (t: number): string => new Date(t).toISOString().slice(0, 10);
+/** The UTC date of an instant, YYYY-MM-DD, as the provenance lines print it. */
+export const day = (t: number): string => new Date(t).toISOString().slice(0, 10);
 
 /** A phase rounded for the file, kept in [0, 360) (359.999 must not become 360). */
 export function roundedPhase(phase: number, digits = 2): number {
