@@ -2,8 +2,8 @@
 // HTML report of the fit). Nothing is written unless the whole analysis succeeded. The helpers at the
 // bottom are shared with `tidewright differences`.
 
-import { mkdirSync, readFileSync, renameSync, writeFileSync } from 'node:fs';
-import { basename, dirname, extname } from 'node:path';
+import { readFileSync } from 'node:fs';
+import { basename, extname } from 'node:path';
 import { IANAZone } from 'luxon';
 import { RecordFileError, UsageError } from '../engine/errors.js';
 import { analyseRecord } from '../engine/analysis/harmonic.js';
@@ -12,10 +12,11 @@ import { referenceStationYaml, type StationMeta } from '../engine/analysis/stati
 import { idFromText, parseStation, STATION_ID_PATTERN } from '../engine/stations.js';
 import { renderAnalysisReport } from '../templates/report/analysis-report.js';
 import { parseCommandLine, positionalArguments } from './args.js';
+import { checkOutputFiles, writeOutputFiles, type OutputFile } from './output-files.js';
 
 export const ANALYSE_HELP = `Usage: tidewright analyse RECORD.csv --latitude DEG --longitude DEG --timezone ZONE
                           [--id ID] [--name NAME] [--datum LABEL] [--rayleigh R]
-                          [--output FILE.yaml] [--report FILE.html]
+                          [--output FILE.yaml] [--report FILE.html] [--force]
 
 Harmonic constants from a tide gauge record, printed as a reference-port station file.
 
@@ -35,6 +36,7 @@ dropped; two different heights for the same time are an error. The record must s
   --output FILE      write the station file there instead of printing it
   --report FILE      also write an HTML report: the record, the fit, the residual, the constants
                      with 95 % intervals and the constituents the record could not separate
+  --force            replace --output or --report if the file exists (never an input of this run)
 
 Example: tidewright analyse quay-gauge.csv --latitude 50.12 --longitude -4.87 --timezone Europe/Lisbon --report fit.html
 `;
@@ -50,6 +52,7 @@ export async function runAnalyse(argv: string[]): Promise<number> {
     rayleigh: { type: 'string' },
     output: { type: 'string' },
     report: { type: 'string' },
+    force: { type: 'boolean' },
     help: { type: 'boolean', short: 'h' },
   });
   if (values.help) {
@@ -59,11 +62,14 @@ export async function runAnalyse(argv: string[]): Promise<number> {
   const [file] = positionalArguments('analyse', positionals, ['RECORD.csv']) as [string];
   const meta = stationMeta('analyse', file, values, { datum: 'Gauge zero' });
   const rayleigh = values.rayleigh === undefined ? 1 : numberOption('--rayleigh', values.rayleigh, 0.5, 10, 'e.g. --rayleigh 1');
+  const targets = outputTargets(values);
+  checkOutputFiles(targets, [file], values.force === true);
   const analysis = analyseRecord(readRecordFile(file), { rayleigh });
   const yaml = referenceStationYaml(analysis, meta);
   parseStation(yaml, values.output ?? 'the analysed station file'); // the loader must accept what we print
-  const report = values.report === undefined ? [] : [[values.report, renderAnalysisReport(analysis, meta)] as const];
-  writeOutputs(yaml, values.output, report);
+  const texts: Record<string, string> = { '--output': yaml };
+  if (values.report !== undefined) texts['--report'] = renderAnalysisReport(analysis, meta);
+  writeOutputs(yaml, targets.map((t) => ({ ...t, text: texts[t.option] ?? '' })), [file], values.force === true);
   const r = analysis.residual;
   const unresolved = analysis.excluded.filter((e) => e.reason === 'rayleigh').length;
   process.stderr.write(`tidewright: ${r.count} readings over ${(analysis.summary.spanHours / 24).toFixed(1)} days: ` +
@@ -148,16 +154,17 @@ export function readRecordFile(file: string): GaugeRecord {
   return parseRecord(text, file);
 }
 
-function writeAtomically(path: string, text: string): void {
-  mkdirSync(dirname(path), { recursive: true });
-  const temporary = `${path}.tidewright-partial`;
-  writeFileSync(temporary, text);
-  renameSync(temporary, path);
+/** The files --output and --report name, text still to come (checked before the work starts). */
+export function outputTargets(values: { output?: string | undefined; report?: string | undefined }): OutputFile[] {
+  const targets: OutputFile[] = [];
+  if (values.output !== undefined) targets.push({ option: '--output', path: values.output, text: '' });
+  if (values.report !== undefined) targets.push({ option: '--report', path: values.report, text: '' });
+  return targets;
 }
 
-/** The station file to --output (or stdout), then any further files such as the report. */
-export function writeOutputs(yaml: string, output: string | undefined, more: readonly (readonly [string, string])[]): void {
-  for (const [path, text] of more) writeAtomically(path, text);
-  if (output === undefined) process.stdout.write(yaml);
-  else writeAtomically(output, yaml);
+/** The files (checked again: time has passed since the first check), or the station file on stdout without --output. */
+export function writeOutputs(yaml: string, files: readonly OutputFile[], inputs: readonly string[], force: boolean): void {
+  checkOutputFiles(files, inputs, force);
+  writeOutputFiles(files);
+  if (!files.some((f) => f.option === '--output')) process.stdout.write(yaml);
 }

@@ -5,12 +5,13 @@ import { UsageError } from '../engine/errors.js';
 import { analyseDifferences } from '../engine/analysis/differences.js';
 import { secondaryStationYaml } from '../engine/analysis/secondary-yaml.js';
 import { loadStationFile, parseStation } from '../engine/stations.js';
-import { readRecordFile, stationMeta, withNegativeNumbers, writeOutputs } from './analyse.js';
+import { outputTargets, readRecordFile, stationMeta, withNegativeNumbers, writeOutputs } from './analyse.js';
+import { checkOutputFiles } from './output-files.js';
 import { parseCommandLine, positionalArguments } from './args.js';
 
 export const DIFFERENCES_HELP = `Usage: tidewright differences SECONDARY.csv --reference STATION.yaml
                           [--id ID] [--name NAME] [--latitude DEG] [--longitude DEG]
-                          [--timezone ZONE] [--datum LABEL] [--output FILE.yaml]
+                          [--timezone ZONE] [--datum LABEL] [--output FILE.yaml] [--force]
 
 Time and height differences of a secondary port from a gauge record taken there, printed as a
 secondary-port station file. The record's high and low waters are matched to the reference port's
@@ -28,6 +29,7 @@ heights in metres on the secondary port's datum).
   --timezone ZONE    IANA time zone (default: the reference port's)
   --datum LABEL      what the record's heights are measured from (default: the reference port's datum)
   --output FILE      write the station file there instead of printing it
+  --force            replace --output if the file exists (never an input of this run)
 
 Example: tidewright differences cove-gauge.csv --reference stations-demo/gannet-head.yaml --latitude 50.21 --longitude -4.95
 `;
@@ -42,6 +44,7 @@ export async function runDifferences(argv: string[]): Promise<number> {
     timezone: { type: 'string' },
     datum: { type: 'string' },
     output: { type: 'string' },
+    force: { type: 'boolean' },
     help: { type: 'boolean', short: 'h' },
   });
   if (values.help) {
@@ -52,6 +55,9 @@ export async function runDifferences(argv: string[]): Promise<number> {
   if (values.reference === undefined) {
     throw new UsageError('--reference', 'is missing', 'add --reference with the reference port\'s station file, e.g. --reference stations-demo/gannet-head.yaml');
   }
+  const targets = outputTargets({ output: values.output });
+  const inputs = [file, values.reference];
+  checkOutputFiles(targets, inputs, values.force === true);
   const reference = loadStationFile(values.reference);
   if (reference.kind !== 'reference') {
     throw new UsageError('--reference', `${values.reference} is a secondary port (kind: secondary)`,
@@ -74,7 +80,7 @@ export async function runDifferences(argv: string[]): Promise<number> {
   const analysis = analyseDifferences(readRecordFile(file), reference);
   const yaml = secondaryStationYaml(analysis, meta, notes);
   parseStation(yaml, values.output ?? 'the fitted station file'); // the loader must accept what we print
-  writeOutputs(yaml, values.output, []);
+  writeOutputs(yaml, targets.map((t) => ({ ...t, text: yaml })), inputs, values.force === true);
   const f = analysis.fits;
   process.stderr.write(`tidewright: ${f.highTime.count} high and ${f.lowTime.count} low waters matched to ${reference.id}; ` +
     `RMS of the fit: high water ${f.highTime.rms.toFixed(1)} min / ${f.highHeight.rms.toFixed(3)} m, ` +
