@@ -2,7 +2,8 @@
 // each naming file, field and fix; then suspicious constants that pass the schema.
 
 import { checkStationSet, suspiciousConstants } from '../engine/stations.js';
-import type { StationFileError } from '../engine/errors.js';
+import { StationFileError } from '../engine/errors.js';
+import { siteFilesFolder } from './build/site-files.js';
 import { parseCommandLine, positionalArguments } from './args.js';
 
 export const DEFAULT_STATIONS_DIR = 'stations-demo';
@@ -31,6 +32,12 @@ export function checkStations(dir: string): SetReport {
   for (const station of result.stations) {
     const reference = station.kind === 'secondary' ? byId.get(station.reference) : undefined;
     problems.push(...suspiciousConstants(station, reference));
+  }
+  try {
+    siteFilesFolder(dir, result.stations.map((s) => s.id));
+  } catch (error) {
+    if (!(error instanceof StationFileError)) throw error;
+    problems.push(error);
   }
   // Group by file, keeping the order found within each file.
   const order = new Map(result.files.map((f, i) => [f, i]));

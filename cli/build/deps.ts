@@ -17,9 +17,9 @@ export const realBuildDeps: BuildDeps = {
     const { stationJobDeps } = await import('./engine-deps.js');
     return computeStations(request, onStation, stationJobDeps, signal);
   },
-  renderSite: async (models, siteDir, dataDir, options) => {
+  renderSite: async (models, siteDir, dataDir, options, siteFiles) => {
     const { renderSite } = await import('../../templates/site/render.js');
-    return renderSite(models, siteDir, { ...options, dataDir, quiet: true });
+    return renderSite(models, siteDir, { ...options, dataDir, quiet: true, ...(siteFiles !== undefined && { siteFiles }) });
   },
   renderCombinedBook: (models, options, beside, signal) => {
     const workerUrl = beside ? compiledWorkerUrl() : null;

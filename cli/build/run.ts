@@ -10,6 +10,7 @@ import type { BuildPlan, RenderChoices } from './options.js';
 import { commitOutput, createTemp, discardTemp, planOutput, recoverStale, type OutputTarget } from './output.js';
 import { combinedBookName, stationYearFile } from './paths.js';
 import type { Progress } from './progress.js';
+import { siteFilesFolder } from './site-files.js';
 import { countPdfPages, type StationOutcome } from './station-job.js';
 
 export interface ComputeRequest {
@@ -26,7 +27,7 @@ export interface BuildDeps {
   checkSet(dir: string): { stations: Station[]; problems: StationFileError[] };
   computeStations(request: ComputeRequest, onStation: (outcome: StationOutcome) => void, signal?: AbortSignal): Promise<void>;
   /** The site into siteDir, and every station-year's downloads (CSV, JSON, iCalendar) into dataDir too. */
-  renderSite(models: StationYear[], siteDir: string, dataDir: string, options: RenderChoices): Promise<unknown>;
+  renderSite(models: StationYear[], siteDir: string, dataDir: string, options: RenderChoices, siteFiles?: string): Promise<unknown>;
   /** `beside`: the caller is rendering the website at the same time (use another thread if there is one). */
   renderCombinedBook(models: StationYear[], options: RenderChoices, beside: boolean, signal?: AbortSignal): Promise<Buffer>;
   cores(): number;
@@ -103,6 +104,7 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
   if (checked.problems.length > 0) throw new StationSetInvalid(checked.problems);
   const stations = checked.stations;
   const year = plan.year;
+  const siteFiles = siteFilesFolder(plan.stationsDir, stations.map((s) => s.id));
 
   createTemp(target);
   events.tempCreated(target);
@@ -133,7 +135,7 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
     const beside = workers > 1 && stations.length <= BESIDE_MAX_STATIONS;
     const name = combinedBookName(plan.render.title, stations.map((s) => s.id));
     const site = (): Promise<unknown> => step('rendering the website and downloads', times,
-      () => deps.renderSite(models, join(target.temp, 'site'), join(target.temp, 'data'), plan.render));
+      () => deps.renderSite(models, join(target.temp, 'site'), join(target.temp, 'data'), plan.render, siteFiles ?? undefined));
     const book = (): Promise<void> => step('rendering the combined book', times, async () => {
       const pdf = await deps.renderCombinedBook(models, plan.render, beside, events.signal);
       await mkdir(join(target.temp, 'pdf'), { recursive: true });

@@ -22,6 +22,8 @@ export interface RenderSiteOptions extends SiteOptions {
   dataDir?: string; // also place the downloads here (e.g. out/data beside out/site)
   /** Station-years per Eleventy run (default STATION_YEARS_PER_RUN); bounds the renderer's memory. */
   stationYearsPerRun?: number;
+  /** A publisher's own files (e.g. CNAME), copied into the site as they are; none may replace a page of the site. */
+  siteFiles?: string;
 }
 
 /** The global-data name under which renderSite hands the site to templates/_data/site.js. */
@@ -44,7 +46,7 @@ async function linkOrCopy(from: string, to: string): Promise<void> {
 }
 
 /** One Eleventy run over `site`, leaving out the templates named in `skip`. */
-async function runEleventy(root: string, out: string, site: SiteData, skip: string[], options: RenderSiteOptions): Promise<void> {
+async function runEleventy(root: string, out: string, site: SiteData, skip: string[], options: RenderSiteOptions, copy?: string): Promise<void> {
   // Frozen so Eleventy passes it by reference instead of deep-copying every model into every page.
   const handoff = Object.freeze(site);
   const eleventy = new Eleventy(join(root, 'templates'), out, {
@@ -56,6 +58,7 @@ async function runEleventy(root: string, out: string, site: SiteData, skip: stri
       config.benchmarks?.config?.setIsVerbose(false);
       registerSiteFilters(config, options.units);
       for (const name of skip) config.ignores.add(join(root, 'templates', name));
+      if (copy) config.addPassthroughCopy({ [copy]: '/' });
       config.addGlobalData(HANDOFF_KEY, handoff);
     },
   });
@@ -83,7 +86,7 @@ export async function renderSite(models: StationYear[], outDir: string, options:
   if (!Number.isInteger(size) || size < 1) throw new RangeError(`stationYearsPerRun must be a whole number from 1, not ${size}`);
   const site = buildSiteData(models, options, true);
   for (const batch of batches(site, size)) await runEleventy(root, out, { ...site, ...batch }, SHARED_PAGES, options);
-  await runEleventy(root, out, { ...site, stationYears: [], monthPages: [] }, STATION_PAGES, options);
+  await runEleventy(root, out, { ...site, stationYears: [], monthPages: [] }, STATION_PAGES, options, options.siteFiles);
 
   const siteData = join(out, 'data');
   await mkdir(siteData, { recursive: true });
