@@ -3,6 +3,7 @@ declare module '@11ty/eleventy' {
   export interface EleventyUserConfig {
     addFilter(name: string, fn: (...args: never[]) => unknown): unknown;
     addGlobalData(name: string, data: unknown): unknown;
+    addPassthroughCopy(map: Record<string, string>): unknown;
     ignores: { add(glob: string): unknown };
     benchmarks?: { config?: { setIsVerbose(verbose: boolean): void } };
   }
