@@ -1,7 +1,7 @@
 // A pdfkit document that is byte-for-byte reproducible: fixed dates and metadata, so pdfkit's file
 // identifier (an MD5 of the info dictionary and creation date) is fixed too; no clock is read.
-import PDFDocument from 'pdfkit';
 import { defaultFontPath, registerFonts } from './fonts.js';
+import { PDFDocument } from './pdfkit.js';
 
 export interface DocumentMeta {
   title: string;

@@ -3,6 +3,7 @@
 import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { dirname, join } from 'node:path';
+import { registerFile } from './pdfkit.js';
 
 export type FontName = 'regular' | 'bold' | 'narrow' | 'narrow-bold' | 'oblique';
 
@@ -25,7 +26,10 @@ function fontDir(): string {
 let regularPath: string | null = null;
 
 export function defaultFontPath(): string {
-  regularPath ??= join(fontDir(), FILES.regular);
+  if (regularPath === null) {
+    regularPath = join(fontDir(), FILES.regular);
+    registerFile(regularPath, fontBuffers().regular);
+  }
   return regularPath;
 }
 
@@ -59,7 +63,7 @@ export function useFont(doc: PDFKit.PDFDocument, name: FontName): PDFKit.PDFDocu
 
 // pdfkit shapes each word once per document and keeps the result on the font object. Shaping is
 // most of the cost of a book, and the result depends only on the face and the word, so all
-// documents of this process share one store per face (pdfkit 0.17 keeps it in `layoutCache`).
+// documents of this process share one store per face (pdfkit 0.20 keeps it in `layoutCache`).
 const layouts = new Map<FontName, Record<string, unknown>>();
 
 interface FontWithLayouts { layoutCache?: Record<string, unknown> | null }
