@@ -3,6 +3,7 @@
 
 import { checkStationSet, suspiciousConstants } from '../engine/stations.js';
 import { StationFileError } from '../engine/errors.js';
+import { windowLevelProblems } from '../engine/windows-check.js';
 import { siteFilesFolder } from './build/site-files.js';
 import { parseCommandLine, positionalArguments } from './args.js';
 
@@ -13,7 +14,8 @@ export const CHECK_HELP = `Usage: tidewright check [--stations DIR]
 Checks every station file in DIR (default: ${DEFAULT_STATIONS_DIR}) and the set as a whole: the keys and
 values of each file, time zones and constituent names, unique ids, each secondary port's reference port,
 and constants that are probably wrong (a mean level that puts chart datum far from the lowest tides,
-amplitudes too large for a tide, time differences of many hours). Every problem is listed on its own
+amplitudes too large for a tide, time differences of many hours), and access windows whose level the
+tide never reaches or never leaves over the station's 19-year datum epoch. Every problem is listed on its own
 line as FILE: FIELD: what is wrong; what to write instead. Exit code 1 when there is any problem.
 `;
 
@@ -38,6 +40,11 @@ export function checkStations(dir: string): SetReport {
   } catch (error) {
     if (!(error instanceof StationFileError)) throw error;
     problems.push(error);
+  }
+  // Window levels need the station's predicted range, so only a set without other problems gets them.
+  if (problems.length === 0) {
+    const set = { byId };
+    for (const station of result.stations) problems.push(...windowLevelProblems(station, set));
   }
   // Group by file, keeping the order found within each file.
   const order = new Map(result.files.map((f, i) => [f, i]));

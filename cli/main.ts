@@ -18,6 +18,8 @@ export const COMMANDS: Readonly<Record<string, CommandInfo>> = {
   build: { usage: 'build [--stations DIR] [--year YYYY] [--out DIR]', summary: 'the website, PDF books and downloads for a whole station set' },
   check: { usage: 'check [--stations DIR]', summary: 'validate a station set and list every problem' },
   predict: { usage: 'predict STATION.yaml --from DATE --to DATE', summary: 'high and low waters (or heights every few minutes) for any span' },
+  windows: { usage: 'windows STATION.yaml --above H | --below H', summary: 'when the tide stands above (or below) a level: sills, bars, bridges' },
+  height: { usage: 'height STATION.yaml --at INSTANT', summary: 'the height at one instant and whether the tide is rising or falling' },
   almanac: { usage: 'almanac STATION.yaml --year YYYY', summary: 'one station-year as the JSON model the books are made from' },
   analyse: { usage: 'analyse RECORD.csv --latitude … --longitude … --timezone …', summary: 'harmonic constants from a tide gauge record' },
   differences: { usage: 'differences SECONDARY.csv --reference STATION.yaml', summary: 'secondary-port time and height differences from a short record' },

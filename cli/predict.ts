@@ -44,7 +44,7 @@ interface PredictRequest {
 }
 
 /** The station set a prediction draws on: the named folder, or the station file's own folder for a secondary port. */
-function stationSetFor(file: string, station: Station, stationsDir: string | undefined): StationSet {
+export function stationSetFor(file: string, station: Station, stationsDir: string | undefined): StationSet {
   if (stationsDir === undefined && station.kind === 'reference') {
     return { dir: dirname(file), stations: [station], byId: new Map([[station.id, station]]) };
   }

@@ -5,6 +5,7 @@ import { CAUTION, isInvented } from './almanac/caution.js';
 import { dayEntries, monthEntries } from './almanac/days.js';
 import { almanacEvent, mm } from './almanac/format.js';
 import { generator } from './almanac/generator.js';
+import { outOfRangeWarning, yearWindows } from './almanac/windows.js';
 import { lowWaterBelowLat, stationDatums } from './datums.js';
 import { UsageError } from './errors.js';
 import {
@@ -78,6 +79,12 @@ export function buildStationYear(
       + 'the LAT epoch or the datum label may be wrong.');
   }
 
+  const windows = yearWindows(station, set, days, allEvents, yearEvents);
+  for (const w of windows) {
+    const line = outOfRangeWarning(w, year);
+    if (line) warnings.push(line);
+  }
+
   return {
     station: modelStation(station),
     year,
@@ -99,6 +106,7 @@ export function buildStationYear(
     offsetChanges: dayList.flatMap((d) => (d.offsetChange ? [d.offsetChange] : [])),
     extremes: yearExtremes(yearEvents, events),
     warnings,
+    windows,
     generator: generator(),
   };
 }

@@ -13,3 +13,4 @@ export * from './tides.js';
 export * from './datums.js';
 export * from './springneap.js';
 export * from './almanac.js';
+export * from './windows.js';

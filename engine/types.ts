@@ -22,6 +22,17 @@ interface StationCommon {
   provenance: string;
   datum_epoch?: number; // first year of the 19-year span for LAT/HAT (default 2020)
   sourceFile?: string; // path of the file it was loaded from (for error messages)
+  windows?: WindowSpec[]; // access windows (a sill, a bar, a bridge) the almanac times for every day
+}
+
+export type WindowSide = 'above' | 'below';
+
+/** A station file's window: open while the tide is at or above `above`, or at or below `below` (metres). */
+export interface WindowSpec {
+  id: string; // [a-z0-9-]+, unique per station
+  name: string;
+  above?: number;
+  below?: number;
 }
 
 export interface ReferenceStation extends StationCommon {
@@ -164,5 +175,47 @@ export interface StationYear {
   offsetChanges: NonNullable<DayEntry['offsetChange']>[];
   extremes: { highest: AlmanacEvent; lowest: AlmanacEvent }; // of this year
   warnings: string[];
+  windows: WindowYear[]; // one per window of the station file, in its order (empty when it has none)
   generator: { name: 'tidewright'; version: string };
+}
+
+// --- access windows (engine/almanac/windows.ts) ----------------------------------------------
+
+/** One open interval as printed on one local day; an interval across midnight is cut at the midnight. */
+export interface WindowPiece {
+  start: string; // ISO UTC to the second; the day's start when the window is already open at midnight
+  end: string; // ISO UTC; the day's end when it is still open at midnight
+  startLocal: string; // ISO with the station's offset
+  endLocal: string;
+  startClock: string; // "HH:mm", the start's nearest minute ("00:00" when open from the day's start)
+  endClock: string; // "HH:mm", "24:00" when still open at the day's end
+  fromPreviousDay: boolean; // open at the day's start (began on an earlier day)
+  intoNextDay: boolean; // still open at the day's end
+}
+
+export interface WindowDay {
+  date: string; // local date, the same order as StationYear.days
+  state: 'closed' | 'open' | 'some'; // no window this day / open all day / the pieces below
+  pieces: WindowPiece[];
+}
+
+/** Whole open intervals (not cut at midnight), for exports and calendars. */
+export interface WindowInterval {
+  start: string; // ISO UTC, clipped to the year's first local midnight
+  end: string; // clipped to the year's last local midnight
+  startLocal: string;
+  endLocal: string;
+}
+
+export interface WindowYear {
+  id: string;
+  name: string;
+  side: WindowSide;
+  level: number; // metres above the station's datum
+  method: 'harmonic' | 'secondary-curve'; // crossings on the prediction, or on the secondary curve
+  intervals: WindowInterval[];
+  days: WindowDay[];
+  openDays: number; // days with any opening
+  // a level beyond the year's highest or lowest water: the window never opens, or never closes
+  outOfRange: null | { code: 'window-never-opens' | 'window-never-closes'; lowest: number; highest: number };
 }

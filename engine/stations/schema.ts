@@ -87,6 +87,45 @@ export const constituentSchema = z.strictObject({
   phase: z.number().min(0).lt(360),
 });
 
+function checkWindowId(ctx: CheckContext): void {
+  const id = ctx.value;
+  if (id === '') fail(ctx, 'is empty', 'write lower-case letters, digits and hyphens, e.g. id: sill');
+  else if (id.length > 64) fail(ctx, `"${id.slice(0, 20)}…" is ${id.length} characters long`, 'write a short id of at most 64 characters');
+  else if (!STATION_ID_PATTERN.test(id)) fail(ctx, `"${id}" may only hold lower-case letters a-z, digits and hyphens`, `write id: ${idFromText(id)}`);
+}
+
+const windowLevel = z.number().min(-100).max(100);
+
+// A window is open while the tide is at or above `above`, or at or below `below`: exactly one of them.
+export const windowSchema = z
+  .strictObject({
+    id: z.string().check(checkWindowId),
+    name: text,
+    above: windowLevel.optional(),
+    below: windowLevel.optional(),
+  })
+  .check((ctx) => {
+    const { above, below } = ctx.value;
+    if ((above === undefined) === (below === undefined)) {
+      const problem = above === undefined ? 'gives neither above: nor below:' : 'gives both above: and below:';
+      ctx.issues.push({
+        code: 'custom', input: ctx.value, message: problem, path: [above === undefined ? 'above' : 'below'],
+        params: { problem, fix: 'write exactly one: above: 2.40 (open while the tide is at or above 2.40 m) or below: 3.10 (open while at or below)' },
+      });
+    }
+  });
+
+export const windowsSchema = z.array(windowSchema).check((ctx) => {
+  const seen = new Set<string>();
+  ctx.value.forEach((w, i) => {
+    if (seen.has(w.id)) {
+      const problem = `"${w.id}" is already the id of another window of this station`;
+      ctx.issues.push({ code: 'custom', input: w.id, message: problem, path: [i, 'id'], params: { problem, fix: 'give each window its own id' } });
+    }
+    seen.add(w.id);
+  });
+});
+
 // Key order here is the order a loaded station keeps (and the order problems are listed in).
 export const referencePortSchema = z.strictObject({
   id: stationId,
@@ -103,6 +142,7 @@ export const referencePortSchema = z.strictObject({
     }),
   provenance: text,
   datum_epoch: z.int().min(1900).max(2100).default(DEFAULT_DATUM_EPOCH),
+  windows: windowsSchema.optional(),
 });
 
 // Half a day either way: beyond that a secondary event would pair with the wrong tide.
@@ -124,6 +164,7 @@ export const secondaryPortSchema = z.strictObject({
   differences: z.strictObject({ high_water: springsAndNeaps, low_water: springsAndNeaps }),
   provenance: text,
   datum_epoch: z.int().min(1900).max(2100).default(DEFAULT_DATUM_EPOCH),
+  windows: windowsSchema.optional(),
 });
 
 export const STATION_KINDS = ['reference', 'secondary'] as const;
@@ -140,6 +181,7 @@ export function allowedKeysAt(path: readonly PropertyKey[], kind: StationKind): 
   if (first === 'differences' && path.length === 1) return ['high_water', 'low_water'];
   if (first === 'differences' && third === undefined) return ['springs', 'neaps'];
   if (first === 'differences') return ['time', 'height'];
+  if (first === 'windows' && path.length === 2) return ['id', 'name', 'above', 'below'];
   return [];
 }
 
@@ -175,13 +217,19 @@ export const FIELD_HELP: Readonly<Record<string, string>> = {
   'differences.*.*': 'write e.g. { time: 25, height: -0.30 }',
   'differences.*.*.time': 'write minutes from -720 to 720, positive when the tide comes later than at the reference port, e.g. time: 25',
   'differences.*.*.height': 'write metres to add to the reference port height, e.g. height: -0.30',
+  windows: 'write a list of windows, e.g. windows: [{ id: sill, name: "Marina sill", above: 2.40 }]',
+  'windows.*': 'write { id: sill, name: "Marina sill", above: 2.40 } (or below: for a level the tide must stay under)',
+  'windows.*.id': 'write lower-case letters, digits and hyphens, unique within the station, e.g. id: sill',
+  'windows.*.name': 'write the label to print, e.g. name: "Marina sill"',
+  'windows.*.above': 'write metres above the datum: the window is open while the tide is at or above it, e.g. above: 2.40',
+  'windows.*.below': 'write metres above the datum: the window is open while the tide is at or below it, e.g. below: 3.10',
 };
 
 /** The help text for a concrete path such as constituents.M2.phase. */
 export function fieldHelp(path: readonly PropertyKey[]): string {
   const parts = path.map(String);
   // Constituent names and high_water/low_water, springs/neaps are the variable parts of a path.
-  const wild = parts[0] === 'constituents' ? 1 : parts[0] === 'differences' ? 2 : 0;
+  const wild = parts[0] === 'constituents' || parts[0] === 'windows' ? 1 : parts[0] === 'differences' ? 2 : 0;
   const key = parts.map((p, i) => (i >= 1 && i <= wild ? '*' : p)).join('.');
   return FIELD_HELP[key] ?? 'see the station file example in README.md';
 }

@@ -1,0 +1,64 @@
+// `tidewright height`: the predicted height at one instant and whether the tide is rising or falling.
+
+import { DateTime } from 'luxon';
+import { CAUTION } from '../engine/almanac/caution.js';
+import { mm } from '../engine/almanac/format.js';
+import { isoLocal, isoUtc } from '../engine/localtime.js';
+import { loadStationFile } from '../engine/stations.js';
+import { heightAndTrend, SECONDARY_WINDOW_NOTE } from '../engine/windows.js';
+import { oneOf, parseCommandLine, parseWhen, positionalArguments } from './args.js';
+import { stationSetFor } from './predict.js';
+import { UsageError } from '../engine/errors.js';
+
+const FORMATS = ['table', 'json'] as const;
+
+export const HEIGHT_HELP = `Usage: tidewright height STATION.yaml --at INSTANT [--format table|json] [--stations DIR]
+
+The predicted height of the tide at one instant, in metres above the station's datum, and whether the
+tide is rising or falling then.
+
+  --at INSTANT      2027-03-14T15:20 (local time at the station), or an ISO 8601 instant with Z or an
+                    offset (2027-03-14T15:20Z, 2027-03-14T15:20+01:00), taken as given
+  --format FORMAT   table (default) or json ({"time":"…Z","local":"…","height":2.41,"trend":"rising"})
+  --stations DIR    the station set a secondary port's reference port is found in
+                    (default: the folder of STATION.yaml)
+
+Secondary ports take the height from the half-cosine curve between their own high and low waters.
+
+Example: tidewright height stations-demo/gannet-head.yaml --at 2027-03-14T15:20
+`;
+
+export async function runHeight(argv: string[]): Promise<number> {
+  const { values, positionals } = parseCommandLine('height', argv, {
+    at: { type: 'string' },
+    format: { type: 'string', default: 'table' },
+    stations: { type: 'string' },
+    help: { type: 'boolean', short: 'h' },
+  });
+  if (values.help) {
+    process.stdout.write(HEIGHT_HELP);
+    return 0;
+  }
+  const [file] = positionalArguments('height', positionals, ['STATION.yaml']) as [string];
+  const format = oneOf('--format', values.format, FORMATS);
+  if (values.at === undefined) throw new UsageError('--at', 'is missing', 'give the instant, e.g. --at 2027-03-14T15:20 (local time at the station)');
+  const station = loadStationFile(file);
+  const set = stationSetFor(file, station, values.stations);
+  const zone = station.timezone;
+  const t = parseWhen('--at', values.at, zone);
+  const { height, trend } = heightAndTrend(station, set, t);
+  if (format === 'json') {
+    process.stdout.write(`${JSON.stringify({ time: isoUtc(t), local: isoLocal(t, zone), height: mm(height), trend })}\n`);
+    return 0;
+  }
+  const when = DateTime.fromMillis(t, { zone }).toFormat('yyyy-MM-dd ccc HH:mm:ss ZZ');
+  const lines = [
+    `${station.name} (id ${station.id}); time zone ${zone}`,
+    `${when}  ${(Math.round(height * 100) / 100 + 0).toFixed(2)} m above ${station.datum}, ${trend}${height < -0.005 ? ' (below datum)' : ''}`,
+    ...(station.kind === 'secondary' ? [`Secondary port: ${SECONDARY_WINDOW_NOTE}`] : []),
+    `Constants: ${station.provenance}`,
+    `Caution: ${CAUTION}`,
+  ];
+  process.stdout.write(`${lines.join('\n')}\n`);
+  return 0;
+}

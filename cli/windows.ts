@@ -1,0 +1,152 @@
+// `tidewright windows`: when the tide stands at or above (or at or below) a level, for any span, without
+// a station-file entry: the question "when can I get over the sill" asked ad hoc.
+
+import { DateTime } from 'luxon';
+import { CAUTION } from '../engine/almanac/caution.js';
+import { UsageError } from '../engine/errors.js';
+import { isoLocal, isoUtc } from '../engine/localtime.js';
+import { loadStationFile } from '../engine/stations.js';
+import type { Station } from '../engine/types.js';
+import { openIntervals, SECONDARY_WINDOW_NOTE, type OpenInterval, type WindowSide } from '../engine/windows.js';
+import { oneOf, parseCommandLine, parseWhen, positionalArguments } from './args.js';
+import { stationSetFor } from './predict.js';
+
+const FORMATS = ['table', 'json', 'csv'] as const;
+type Format = (typeof FORMATS)[number];
+
+const MINUTE = 60_000;
+const MAX_SPAN_MS = 400 * 366 * 86_400_000; // four centuries: far beyond any book, short enough to finish
+
+export const WINDOWS_HELP = `Usage: tidewright windows STATION.yaml (--above METRES | --below METRES)
+                          [--from DATE] [--to DATE] [--format table|json|csv] [--stations DIR]
+
+Every interval when the predicted tide stands at or above (--above) or at or below (--below) a level,
+e.g. over a sill or a bar (--above) or under a bridge (--below). Heights are metres above the station's
+datum. Intervals are clipped to the span: one already open at --from starts there.
+
+  --above METRES    open while the tide is at or above this height
+  --below METRES    open while the tide is at or below this height (give one of the two)
+  --from DATE       start: YYYY-MM-DD (midnight in the station's time zone) or an ISO 8601 instant;
+                    default: today at the station
+  --to DATE         end, not included; same forms; default: 7 days after --from
+  --format FORMAT   table (default: local times to the minute), json
+                    ([{"start":"…Z","end":"…Z","startLocal":"…","endLocal":"…"}], UTC to the second) or csv
+  --stations DIR    the station set a secondary port's reference port is found in
+                    (default: the folder of STATION.yaml)
+
+Reference ports: each crossing of the level is found on the harmonic prediction itself, between two
+consecutive high and low waters (where the curve is monotone). Secondary ports: on the half-cosine curve
+between the port's own high and low waters, an approximation; leave a margin.
+
+Example: tidewright windows stations-demo/gannet-head.yaml --above 2.4 --from 2027-06-01 --to 2027-06-08
+`;
+
+interface WindowsRequest {
+  station: Station;
+  side: WindowSide;
+  level: number;
+  from: number;
+  to: number;
+  format: Format;
+  intervals: OpenInterval[];
+}
+
+/** A level in metres: a plain decimal number. */
+export function parseLevel(option: string, text: string): number {
+  const value = /^[-+]?\d+(\.\d+)?$/.test(text.trim()) ? Number(text) : Number.NaN;
+  if (!Number.isFinite(value) || Math.abs(value) > 100) {
+    throw new UsageError(option, `"${text}" is not a height in metres`, `write metres above the datum, e.g. ${option} 2.40`);
+  }
+  return value;
+}
+
+function request(argv: readonly string[]): WindowsRequest | undefined {
+  const { values, positionals } = parseCommandLine('windows', argv, {
+    above: { type: 'string' },
+    below: { type: 'string' },
+    from: { type: 'string' },
+    to: { type: 'string' },
+    format: { type: 'string', default: 'table' },
+    stations: { type: 'string' },
+    help: { type: 'boolean', short: 'h' },
+  });
+  if (values.help) return undefined;
+  const [file] = positionalArguments('windows', positionals, ['STATION.yaml']) as [string];
+  if ((values.above === undefined) === (values.below === undefined)) {
+    throw new UsageError(values.above === undefined ? '--above' : '--below',
+      values.above === undefined ? 'is missing (and so is --below)' : 'cannot go with --above',
+      'give one level: --above 2.40 (over a sill) or --below 3.10 (under a bridge)');
+  }
+  const side: WindowSide = values.above !== undefined ? 'above' : 'below';
+  const level = parseLevel(`--${side}`, (values.above ?? values.below)!);
+  const format = oneOf('--format', values.format, FORMATS);
+  const station = loadStationFile(file);
+  const set = stationSetFor(file, station, values.stations);
+  const zone = station.timezone;
+  const from = values.from === undefined ? DateTime.now().setZone(zone).startOf('day').toMillis() : parseWhen('--from', values.from, zone);
+  const to = values.to === undefined ? DateTime.fromMillis(from, { zone }).plus({ days: 7 }).toMillis() : parseWhen('--to', values.to, zone);
+  if (!(to > from)) {
+    throw new UsageError('--to', `${values.to ?? ''} is not later than --from ${values.from ?? ''}`.replace(/\s+/g, ' ').trim(), 'give an end after the start, e.g. --from 2027-01-01 --to 2027-02-01');
+  }
+  if (to - from > MAX_SPAN_MS) {
+    throw new UsageError('--to', 'is more than 400 years after --from', 'ask for a shorter span');
+  }
+  return { station, side, level, from, to, format, intervals: openIntervals(station, set, side, level, from, to) };
+}
+
+function json(req: WindowsRequest): string {
+  const zone = req.station.timezone;
+  const rows = req.intervals.map((w) => JSON.stringify({
+    start: isoUtc(w.start), end: isoUtc(w.end), startLocal: isoLocal(w.start, zone), endLocal: isoLocal(w.end, zone),
+  }));
+  return rows.length === 0 ? '[]\n' : `[\n${rows.join(',\n')}\n]\n`;
+}
+
+function csv(req: WindowsRequest): string {
+  const zone = req.station.timezone;
+  const rows = req.intervals.map((w) => [req.station.id, isoUtc(w.start), isoLocal(w.start, zone), isoUtc(w.end),
+    isoLocal(w.end, zone), Math.round((w.end - w.start) / MINUTE)].join(','));
+  return ['station_id,start_utc,start_local,end_utc,end_local,minutes', ...rows].join('\n') + '\n';
+}
+
+const stamp = (t: number, zone: string): string => DateTime.fromMillis(Math.round(t / MINUTE) * MINUTE, { zone }).toFormat('yyyy-MM-dd ccc HH:mm ZZ');
+
+function duration(ms: number): string {
+  const minutes = Math.round(ms / MINUTE);
+  return `${Math.floor(minutes / 60)} h ${String(minutes % 60).padStart(2, '0')} min`;
+}
+
+function table(req: WindowsRequest): string {
+  const { station, from, to } = req;
+  const zone = station.timezone;
+  const span = `${DateTime.fromMillis(from, { zone }).toFormat('yyyy-MM-dd HH:mm')} to ${DateTime.fromMillis(to, { zone }).toFormat('yyyy-MM-dd HH:mm')}`;
+  const rule = req.side === 'above' ? 'at or above' : 'at or below';
+  const lines = [
+    `${station.name} (id ${station.id}); time zone ${zone}`,
+    `Open while the tide is ${rule} ${req.level.toFixed(2)} m above ${station.datum}, ${span} local time (end not included)`,
+    `Times: local time at the station to the minute, with its UTC offset.`,
+    ...(station.kind === 'secondary' ? [`Secondary port: ${SECONDARY_WINDOW_NOTE}`] : []),
+    `Constants: ${station.provenance}`,
+    `Caution: ${CAUTION}`,
+    '',
+    `${'Opens'.padEnd(28)}  ${'Closes'.padEnd(28)}  Open for`,
+  ];
+  for (const w of req.intervals) {
+    const opens = `${stamp(w.start, zone)}${w.start <= from ? ' *' : ''}`;
+    const closes = `${stamp(w.end, zone)}${w.end >= to ? ' *' : ''}`;
+    lines.push(`${opens.padEnd(28)}  ${closes.padEnd(28)}  ${duration(w.end - w.start)}`);
+  }
+  if (req.intervals.length === 0) lines.push(`(never ${rule} ${req.level.toFixed(2)} m in this span)`);
+  if (req.intervals.some((w) => w.start <= from || w.end >= to)) lines.push('* open at the start or end of the span: it opened earlier or closes later');
+  return lines.join('\n') + '\n';
+}
+
+export async function runWindows(argv: string[]): Promise<number> {
+  const req = request(argv);
+  if (!req) {
+    process.stdout.write(WINDOWS_HELP);
+    return 0;
+  }
+  process.stdout.write(req.format === 'json' ? json(req) : req.format === 'csv' ? csv(req) : table(req));
+  return 0;
+}
