@@ -5,6 +5,7 @@ import { CAUTION, isInvented } from './almanac/caution.js';
 import { dayEntries, monthEntries } from './almanac/days.js';
 import { almanacEvent, mm } from './almanac/format.js';
 import { generator } from './almanac/generator.js';
+import { hourlyHeights } from './almanac/hourly.js';
 import { outOfRangeWarning, yearWindows } from './almanac/windows.js';
 import { lowWaterBelowLat, stationDatums } from './datums.js';
 import { UsageError } from './errors.js';
@@ -106,6 +107,7 @@ export function buildStationYear(
     offsetChanges: dayList.flatMap((d) => (d.offsetChange ? [d.offsetChange] : [])),
     extremes: yearExtremes(yearEvents, events),
     warnings,
+    hourly: hourlyHeights(station, set, days, allEvents),
     windows,
     generator: generator(),
   };

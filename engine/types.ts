@@ -175,6 +175,7 @@ export interface StationYear {
   offsetChanges: NonNullable<DayEntry['offsetChange']>[];
   extremes: { highest: AlmanacEvent; lowest: AlmanacEvent }; // of this year
   warnings: string[];
+  hourly: HourlyYear; // heights on every local hour
   windows: WindowYear[]; // one per window of the station file, in its order (empty when it has none)
   generator: { name: 'tidewright'; version: string };
 }
@@ -218,4 +219,19 @@ export interface WindowYear {
   openDays: number; // days with any opening
   // a level beyond the year's highest or lowest water: the window never opens, or never closes
   outOfRange: null | { code: 'window-never-opens' | 'window-never-closes'; lowest: number; highest: number };
+}
+
+// --- heights through the day (engine/almanac/hourly.ts) --------------------------------------
+
+/** Heights on each local whole hour of one day: 24, or 23/25 on clock-change days. */
+export interface HourlyDay {
+  date: string; // local date
+  clocks: string[]; // "HH:00" in local time; a repeated hour comes twice
+  offsets: string[]; // the UTC offset of each, "+01:00" (tells the two repeated hours apart)
+  heights: number[]; // metres above datum, to the millimetre
+}
+
+export interface HourlyYear {
+  method: 'harmonic' | 'secondary-curve'; // the prediction, or the secondary curve between the port's events
+  days: HourlyDay[]; // the same order as StationYear.days
 }
