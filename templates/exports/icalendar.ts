@@ -3,6 +3,7 @@
 // DTSTAMP taken from the model (not the clock) so two builds of the same input are identical.
 import type { StationYear } from '../../engine/types.js';
 import { heightNumber, type Units } from '../site/format.js';
+import { windowCalendarEvents } from './windows.js';
 
 /** Escape a TEXT value (RFC 5545 §3.3.11): backslash, semicolon, comma and line breaks. */
 export function escapeText(text: string): string {
@@ -81,6 +82,7 @@ export function eventsICalendar(model: StationYear, units: Units = 'm'): string 
       'END:VEVENT',
     );
   });
+  lines.push(...windowCalendarEvents(model, units, stamp, invented));
   lines.push('END:VCALENDAR');
   return `${lines.map(foldLine).join('\r\n')}\r\n`;
 }

@@ -4,3 +4,4 @@ export { eventsJson } from './json.js';
 export { escapeText, eventsICalendar, foldLine, icalUtc } from './icalendar.js';
 export { exportFileNames, writeExports } from './write.js';
 export type { ExportFileNames } from './write.js';
+export { hourlyCsv, windowCalendarEvents, windowsCsv, windowsJson } from './windows.js';

@@ -6,11 +6,14 @@ import type { Units } from '../site/format.js';
 import { eventsCsv } from './csv.js';
 import { eventsICalendar } from './icalendar.js';
 import { eventsJson } from './json.js';
+import { hourlyCsv, windowsCsv, windowsJson } from './windows.js';
 
 export interface ExportFileNames {
   csv: string;
   json: string;
   ics: string;
+  hourly: string; // heights on the hour, CSV
+  windows: null | { csv: string; json: string }; // only for a station with windows
 }
 
 const SAFE_ID = /^[a-z0-9-]+$/;
@@ -21,7 +24,11 @@ export function exportFileNames(model: StationYear): ExportFileNames {
   if (!SAFE_ID.test(id) || !Number.isInteger(model.year)) {
     throw new Error(`station id "${id}" / year ${model.year}: ids may hold only a-z, 0-9 and "-"`);
   }
-  return { csv: `${id}-${model.year}-events.csv`, json: `${id}-${model.year}-events.json`, ics: `${id}-${model.year}.ics` };
+  const base = `${id}-${model.year}`;
+  return {
+    csv: `${base}-events.csv`, json: `${base}-events.json`, ics: `${base}.ics`, hourly: `${base}-hourly.csv`,
+    windows: model.windows.length > 0 ? { csv: `${base}-windows.csv`, json: `${base}-windows.json` } : null,
+  };
 }
 
 export async function writeExports(
@@ -34,6 +41,11 @@ export async function writeExports(
     writeFile(join(dataDir, names.csv), eventsCsv(model, units)),
     writeFile(join(dataDir, names.json), eventsJson(model)),
     writeFile(join(dataDir, names.ics), eventsICalendar(model, units)),
+    writeFile(join(dataDir, names.hourly), hourlyCsv(model, units)),
+    ...(names.windows
+      ? [writeFile(join(dataDir, names.windows.csv), windowsCsv(model, units)),
+        writeFile(join(dataDir, names.windows.json), windowsJson(model))]
+      : []),
   ]);
   return names;
 }
