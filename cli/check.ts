@@ -5,6 +5,7 @@ import { checkStationSet, suspiciousConstants } from '../engine/stations.js';
 import { StationFileError } from '../engine/errors.js';
 import { windowLevelProblems } from '../engine/windows-check.js';
 import { siteFilesFolder } from './build/site-files.js';
+import { suspiciousStream } from '../engine/streams.js';
 import { parseCommandLine, positionalArguments } from './args.js';
 
 export const DEFAULT_STATIONS_DIR = 'stations-demo';
@@ -14,7 +15,8 @@ export const CHECK_HELP = `Usage: tidewright check [--stations DIR]
 Checks every station file in DIR (default: ${DEFAULT_STATIONS_DIR}) and the set as a whole: the keys and
 values of each file, time zones and constituent names, unique ids, each secondary port's reference port,
 and constants that are probably wrong (a mean level that puts chart datum far from the lowest tides,
-amplitudes too large for a tide, time differences of many hours), and access windows whose level the
+amplitudes too large for a tide, time differences of many hours; for tidal stream stations an ellipse
+axis over 10 knots, a minor axis longer than the major, a missing M2), and access windows whose level the
 tide never reaches or never leaves over the station's 19-year datum epoch. Every problem is listed on its own
 line as FILE: FIELD: what is wrong; what to write instead. Exit code 1 when there is any problem.
 `;
@@ -23,6 +25,7 @@ export interface SetReport {
   problems: StationFileError[];
   referencePorts: number;
   secondaryPorts: number;
+  streamStations: number;
   files: number;
 }
 
@@ -35,8 +38,12 @@ export function checkStations(dir: string): SetReport {
     const reference = station.kind === 'secondary' ? byId.get(station.reference) : undefined;
     problems.push(...suspiciousConstants(station, reference));
   }
+  for (const stream of result.streams) {
+    const reference = stream.kind === 'stream-secondary' ? result.streams.find((s) => s.id === stream.reference) : undefined;
+    problems.push(...suspiciousStream(stream, reference));
+  }
   try {
-    siteFilesFolder(dir, result.stations.map((s) => s.id));
+    siteFilesFolder(dir, [...result.stations, ...result.streams].map((s) => s.id));
   } catch (error) {
     if (!(error instanceof StationFileError)) throw error;
     problems.push(error);
@@ -56,6 +63,7 @@ export function checkStations(dir: string): SetReport {
     problems: sorted,
     referencePorts: result.stations.filter((s) => s.kind === 'reference').length,
     secondaryPorts: result.stations.filter((s) => s.kind === 'secondary').length,
+    streamStations: result.streams.length,
     files: result.files.length,
   };
 }
@@ -75,7 +83,8 @@ export async function runCheck(argv: string[]): Promise<number> {
   const dir = values.stations ?? DEFAULT_STATIONS_DIR;
   const report = checkStations(dir);
   if (report.problems.length === 0) {
-    process.stdout.write(`${dir}: ${plural(report.referencePorts, 'reference port')}, ${plural(report.secondaryPorts, 'secondary port')}, OK\n`);
+    const streams = report.streamStations > 0 ? `, ${plural(report.streamStations, 'stream station')}` : '';
+    process.stdout.write(`${dir}: ${plural(report.referencePorts, 'reference port')}, ${plural(report.secondaryPorts, 'secondary port')}${streams}, OK\n`);
     return 0;
   }
   const badFiles = new Set(report.problems.map((p) => p.file)).size;

@@ -6,10 +6,12 @@ import { DateTime } from 'luxon';
 import { CAUTION } from '../engine/almanac/caution.js';
 import { UsageError } from '../engine/errors.js';
 import { isoLocal, isoUtc } from '../engine/localtime.js';
-import { loadStationFile, loadStationSet, type StationSet } from '../engine/stations.js';
+import { loadAnyStationFile, loadStationSet, type StationSet } from '../engine/stations.js';
+import type { AnyStreamStation } from '../engine/streams.js';
 import { tideEvents, tideHeights } from '../engine/tides.js';
 import type { Station, TideEvent } from '../engine/types.js';
 import { oneOf, parseCommandLine, parseMinutes, parseWhen, positionalArguments } from './args.js';
+import { renderStreamPrediction, type StreamPredictRequest } from './predict-stream.js';
 
 const FORMATS = ['table', 'json', 'csv'] as const;
 type Format = (typeof FORMATS)[number];
@@ -21,6 +23,8 @@ export const PREDICT_HELP = `Usage: tidewright predict STATION.yaml [--from DATE
                           [--format table|json|csv] [--stations DIR]
 
 High and low waters of one station between two instants, or with --every its heights at that step.
+For a tidal stream station (kind: stream or stream-secondary): slack water and the strongest flood and
+ebb (rates in knots, directions in degrees true), or with --every the stream's velocity.
 
   --from DATE       start: YYYY-MM-DD (midnight in the station's time zone) or an ISO 8601 instant
                     such as 2027-01-01T06:00Z; default: today at the station
@@ -55,7 +59,14 @@ export function stationSetFor(file: string, station: Station, stationsDir: strin
   return { ...set, byId };
 }
 
-function request(argv: readonly string[]): PredictRequest | undefined {
+/** A stream station and the stream stations of its folder (a stream-secondary station's reference). */
+function streamSetFor(file: string, station: AnyStreamStation, stationsDir: string | undefined): StreamPredictRequest['set'] {
+  if (stationsDir === undefined && station.kind === 'stream') return { streams: [station] };
+  const set = loadStationSet(stationsDir ?? dirname(file));
+  return { streams: [station, ...(set.streams ?? []).filter((s) => s.id !== station.id)] };
+}
+
+function request(argv: readonly string[]): PredictRequest | StreamPredictRequest | undefined {
   const { values, positionals } = parseCommandLine('predict', argv, {
     from: { type: 'string' },
     to: { type: 'string' },
@@ -68,8 +79,7 @@ function request(argv: readonly string[]): PredictRequest | undefined {
   const [file] = positionalArguments('predict', positionals, ['STATION.yaml']) as [string];
   const format = oneOf('--format', values.format, FORMATS);
   const stepMinutes = values.every === undefined ? undefined : parseMinutes('--every', values.every);
-  const station = loadStationFile(file);
-  const set = stationSetFor(file, station, values.stations);
+  const station = loadAnyStationFile(file);
   const zone = station.timezone;
   const from = values.from === undefined ? DateTime.now().setZone(zone).startOf('day').toMillis() : parseWhen('--from', values.from, zone);
   const to = values.to === undefined ? DateTime.fromMillis(from, { zone }).plus({ days: 7 }).toMillis() : parseWhen('--to', values.to, zone);
@@ -79,7 +89,10 @@ function request(argv: readonly string[]): PredictRequest | undefined {
   if (stepMinutes !== undefined && (to - from) / (stepMinutes * MINUTE) > MAX_ROWS) {
     throw new UsageError('--every', `${stepMinutes} minutes over this span gives more than ${MAX_ROWS} heights`, 'choose a shorter span or a larger step');
   }
-  return { station, set, from, to, stepMinutes, format };
+  if (station.kind === 'stream' || station.kind === 'stream-secondary') {
+    return { station, set: streamSetFor(file, station, values.stations), from, to, stepMinutes, format };
+  }
+  return { station, set: stationSetFor(file, station, values.stations), from, to, stepMinutes, format };
 }
 
 // --- formatting --------------------------------------------------------------------------------
@@ -188,6 +201,7 @@ export async function runPredict(argv: string[]): Promise<number> {
     process.stdout.write(PREDICT_HELP);
     return 0;
   }
-  process.stdout.write(render(req));
+  const station = req.station;
+  process.stdout.write(station.kind === 'stream' || station.kind === 'stream-secondary' ? renderStreamPrediction(req as StreamPredictRequest) : render(req as PredictRequest));
   return 0;
 }

@@ -14,3 +14,4 @@ export * from './datums.js';
 export * from './springneap.js';
 export * from './almanac.js';
 export * from './windows.js';
+export * from './streams.js';

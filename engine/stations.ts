@@ -1,9 +1,10 @@
 // Station files: zod schema, YAML loader, station sets with references resolved, and the checks
 // behind `tidewright check`. Every rejection is a StationFileError naming file, field and fix.
 
-export { parseStation, checkStationText, type StationFileCheck } from './stations/parse.js';
+export { parseStation, parseAnyStation, checkStationText, type StationFileCheck } from './stations/parse.js';
 export {
   loadStationFile,
+  loadAnyStationFile,
   loadStationSet,
   checkStationSet,
   setProblems,

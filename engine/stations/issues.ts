@@ -39,10 +39,10 @@ const EXPECTED_WORDS: Readonly<Record<string, string>> = {
 
 const round = (x: number, digits: number): number => Math.round(x * 10 ** digits) / 10 ** digits;
 
-function customParams(issue: z.core.$ZodIssue): { problem: string; fix: string } | undefined {
+function customParams(issue: z.core.$ZodIssue, kind?: StationKind): { problem: string; fix: string } | undefined {
   const params = (issue as { params?: Record<string, unknown> }).params;
   if (params && typeof params.problem === 'string') {
-    return { problem: params.problem, fix: typeof params.fix === 'string' ? params.fix : fieldHelp(issue.path) };
+    return { problem: params.problem, fix: typeof params.fix === 'string' ? params.fix : fieldHelp(issue.path, kind) };
   }
   return undefined;
 }
@@ -53,6 +53,7 @@ function rangeWords(
   path: readonly PropertyKey[],
   value: number,
   issue: z.core.$ZodIssueTooSmall | z.core.$ZodIssueTooBig,
+  kind: StationKind,
 ): { problem: string; fix: string } {
   const last = String(path[path.length - 1]);
   if (last === 'phase') {
@@ -76,7 +77,7 @@ function rangeWords(
     issue.code === 'too_small'
       ? `is below the smallest allowed value ${String(bound)}`
       : `is ${inclusive ? 'above the largest allowed value' : 'not below'} ${String(bound)}`;
-  return { problem: `${value} ${side}`, fix: fieldHelp(path) };
+  return { problem: `${value} ${side}`, fix: fieldHelp(path, kind) };
 }
 
 function unknownKeyWords(path: readonly PropertyKey[], key: string, kind: StationKind): { problem: string; fix: string } {
@@ -97,13 +98,13 @@ function unknownKeyWords(path: readonly PropertyKey[], key: string, kind: Statio
 
 function oneIssue(file: string, raw: unknown, issue: z.core.$ZodIssue, kind: StationKind): StationFileError[] {
   const path = issue.path;
-  const custom = customParams(issue);
+  const custom = customParams(issue, kind);
   if (custom) return [new StationFileError(file, fieldName(path), custom.problem, custom.fix)];
   switch (issue.code) {
     case 'invalid_key': {
-      const inner = issue.issues.map((i) => customParams(i)).find((p) => p !== undefined);
+      const inner = issue.issues.map((i) => customParams(i, kind)).find((p) => p !== undefined);
       const problem = inner?.problem ?? 'is not an allowed name here';
-      return [new StationFileError(file, fieldName(path), problem, inner?.fix ?? fieldHelp(path.slice(0, -1)))];
+      return [new StationFileError(file, fieldName(path), problem, inner?.fix ?? fieldHelp(path.slice(0, -1), kind))];
     }
     case 'unrecognized_keys':
       return issue.keys.map((key) => {
@@ -112,30 +113,30 @@ function oneIssue(file: string, raw: unknown, issue: z.core.$ZodIssue, kind: Sta
       });
     case 'invalid_type': {
       const value = valueAt(raw, path);
-      if (value === undefined) return [new StationFileError(file, fieldName(path), 'is missing', fieldHelp(path))];
-      if (value === null) return [new StationFileError(file, fieldName(path), 'is empty', fieldHelp(path))];
+      if (value === undefined) return [new StationFileError(file, fieldName(path), 'is missing', fieldHelp(path, kind))];
+      if (value === null) return [new StationFileError(file, fieldName(path), 'is empty', fieldHelp(path, kind))];
       const expected = EXPECTED_WORDS[issue.expected] ?? issue.expected;
       const quote =
         issue.expected === 'string' && (typeof value === 'number' || typeof value === 'boolean')
           ? `write it in quotes, e.g. "${String(value)}"`
-          : fieldHelp(path);
+          : fieldHelp(path, kind);
       return [new StationFileError(file, fieldName(path), `should be ${expected} but is ${describeValue(value)}`, quote)];
     }
     case 'too_small':
     case 'too_big': {
       const value = valueAt(raw, path);
       if (typeof value !== 'number') break;
-      const words = rangeWords(raw, path, value, issue);
+      const words = rangeWords(raw, path, value, issue, kind);
       return [new StationFileError(file, fieldName(path), words.problem, words.fix)];
     }
     case 'invalid_value': {
       const value = valueAt(raw, path);
-      return [new StationFileError(file, fieldName(path), `${describeValue(value)} is not allowed here`, fieldHelp(path))];
+      return [new StationFileError(file, fieldName(path), `${describeValue(value)} is not allowed here`, fieldHelp(path, kind))];
     }
     default:
       break;
   }
-  return [new StationFileError(file, fieldName(path), issue.message.toLowerCase(), fieldHelp(path))];
+  return [new StationFileError(file, fieldName(path), issue.message.toLowerCase(), fieldHelp(path, kind))];
 }
 
 /** Every zod issue of one station file as StationFileErrors, in the order of the schema. */

@@ -3,14 +3,17 @@
 import { parseDocument, type YAMLError } from 'yaml';
 import { StationFileError } from '../errors.js';
 import type { ConstituentConstant, ReferenceStation, SecondaryStation, Station } from '../types.js';
+import type { AnyStreamStation } from '../streams/types.js';
 import { describeValue, issuesToErrors } from './issues.js';
 import {
   CANONICAL_CONSTITUENT, FIELD_HELP, STATION_KINDS, referencePortSchema, secondaryPortSchema, type StationKind,
 } from './schema.js';
 import { nearestName } from './suggest.js';
+import { streamStationSchema, streamSecondarySchema } from './stream-schema.js';
 
 export interface StationFileCheck {
-  station?: Station; // present only when the file has no problem
+  station?: Station; // present only when the file has no problem (a tide station)
+  stream?: AnyStreamStation; // present only when the file has no problem (a stream station)
   declaredId?: string; // the id the file gives, even when it has problems (for set-wide messages)
   problems: StationFileError[];
 }
@@ -44,26 +47,28 @@ function isPlainMap(value: unknown): value is Record<string, unknown> {
 /** The kind the file says, or (with a problem) the kind its keys suggest, so the rest still gets checked. */
 function kindOf(file: string, raw: Record<string, unknown>): { kind: StationKind; problem?: StationFileError } {
   const said = raw.kind;
-  if (said === 'reference' || said === 'secondary') return { kind: said };
-  const guessed: StationKind = 'differences' in raw || 'reference' in raw ? 'secondary' : 'reference';
+  if (typeof said === 'string' && (STATION_KINDS as readonly string[]).includes(said)) return { kind: said as StationKind };
+  const stream = 'flood_direction' in raw;
+  const secondary = 'differences' in raw || 'reference' in raw;
+  const guessed: StationKind = stream ? (secondary ? 'stream-secondary' : 'stream') : secondary ? 'secondary' : 'reference';
   const fix = FIELD_HELP.kind ?? '';
   if (said === undefined) return { kind: guessed, problem: new StationFileError(file, 'kind', 'is missing', fix) };
   const nearest = typeof said === 'string' ? STATION_KINDS.find((k) => k === nearestName(said, STATION_KINDS)) : undefined;
   const problem = new StationFileError(
     file,
     'kind',
-    `${describeValue(said)} is not a kind of port`,
+    `${describeValue(said)} is not a kind of station`,
     nearest ? `did you mean ${nearest}? write kind: ${nearest}` : fix,
   );
   return { kind: nearest ?? guessed, problem };
 }
 
 /** Constituents under their canonical names (an alias such as LAM2 becomes LAMBDA2), each listed once. */
-function canonicalConstituents(
+function canonicalConstituents<C = ConstituentConstant>(
   file: string,
-  listed: Record<string, ConstituentConstant>,
-): { constituents: Record<string, ConstituentConstant>; problems: StationFileError[] } {
-  const constituents: Record<string, ConstituentConstant> = {};
+  listed: Record<string, C>,
+): { constituents: Record<string, C>; problems: StationFileError[] } {
+  const constituents: Record<string, C> = {};
   const writtenAs = new Map<string, string>();
   const problems: StationFileError[] = [];
   for (const [name, constant] of Object.entries(listed)) {
@@ -101,6 +106,17 @@ export function checkStationText(text: string, file: string): StationFileCheck {
   const { kind, problem: kindProblem } = kindOf(file, raw);
   const problems: StationFileError[] = kindProblem ? [kindProblem] : [];
   const input = { ...raw, kind };
+  if (kind === 'stream' || kind === 'stream-secondary') {
+    const result = (kind === 'stream' ? streamStationSchema : streamSecondarySchema).safeParse(input);
+    if (!result.success) problems.push(...issuesToErrors(file, raw, result.error.issues, kind));
+    if (problems.length > 0 || !result.success) return { declaredId, problems };
+    if (result.data.kind === 'stream') {
+      const { constituents, problems: duplicates } = canonicalConstituents(file, result.data.constituents);
+      if (duplicates.length > 0) return { declaredId, problems: duplicates };
+      return { stream: { ...result.data, constituents, sourceFile: file }, declaredId, problems };
+    }
+    return { stream: { ...result.data, sourceFile: file }, declaredId, problems };
+  }
   if (kind === 'reference') {
     const result = referencePortSchema.safeParse(input);
     if (!result.success) problems.push(...issuesToErrors(file, raw, result.error.issues, kind));
@@ -119,8 +135,18 @@ export function checkStationText(text: string, file: string): StationFileCheck {
 
 /** A station from the text of its YAML file; the first problem found is thrown as a StationFileError. */
 export function parseStation(text: string, file: string): Station {
-  const { station, problems } = checkStationText(text, file);
-  if (problems[0]) throw problems[0];
-  if (!station) throw new StationFileError(file, '(file)', 'could not be read', 'check the file');
+  const station = parseAnyStation(text, file);
+  if (station.kind === 'stream' || station.kind === 'stream-secondary') {
+    throw new StationFileError(file, 'kind', `is ${station.kind}, a tidal stream station, where a tide station is needed`, 'give the file of a reference or secondary port');
+  }
   return station;
+}
+
+/** A tide or stream station from the text of its YAML file; the first problem is thrown. */
+export function parseAnyStation(text: string, file: string): Station | AnyStreamStation {
+  const { station, stream, problems } = checkStationText(text, file);
+  if (problems[0]) throw problems[0];
+  const found = station ?? stream;
+  if (!found) throw new StationFileError(file, '(file)', 'could not be read', 'check the file');
+  return found;
 }

@@ -6,6 +6,9 @@ import * as z from 'zod';
 import { IANAZone } from 'luxon';
 import { CONSTITUENTS, CONSTITUENT_NAMES } from '../constituents.js';
 import { nearestName } from './suggest.js';
+import {
+  ELLIPSE_KEYS, STREAM_DIFFERENCE_KEYS, STREAM_FIELD_HELP, STREAM_KEYS, STREAM_SECONDARY_KEYS,
+} from './stream-help.js';
 
 export const STATION_ID_PATTERN = /^[a-z0-9-]+$/;
 export const DEFAULT_DATUM_EPOCH = 2020;
@@ -39,11 +42,11 @@ function checkId(ctx: CheckContext): void {
   }
 }
 
-const stationId = z.string().check(checkId);
+export const stationId = z.string().check(checkId);
 
 const knownZones: readonly string[] = Intl.supportedValuesOf('timeZone');
 
-function checkTimezone(ctx: CheckContext): void {
+export function checkTimezone(ctx: CheckContext): void {
   const zone = ctx.value;
   const exact = knownZones.includes(zone);
   const nearest = exact ? zone : nearestName(zone, knownZones);
@@ -59,14 +62,14 @@ function checkText(ctx: CheckContext): void {
   if (ctx.value.trim() === '') fail(ctx, 'is empty', 'write some text');
 }
 
-const text = z.string().check(checkText);
+export const text = z.string().check(checkText);
 
 /** Every name a station file may use for a constituent (canonical names and aliases) → canonical name. */
 export const CANONICAL_CONSTITUENT: ReadonlyMap<string, string> = new Map(
   CONSTITUENTS.flatMap((c) => [c.name, ...c.aliases].map((alias) => [alias, c.name] as const)),
 );
 
-function checkConstituentName(ctx: CheckContext): void {
+export function checkConstituentName(ctx: CheckContext): void {
   const name = ctx.value;
   if (CANONICAL_CONSTITUENT.has(name)) return;
   const near = nearestName(name, CANONICAL_CONSTITUENT.keys());
@@ -167,12 +170,25 @@ export const secondaryPortSchema = z.strictObject({
   windows: windowsSchema.optional(),
 });
 
-export const STATION_KINDS = ['reference', 'secondary'] as const;
+export const STATION_KINDS = ['reference', 'secondary', 'stream', 'stream-secondary'] as const;
 export type StationKind = (typeof STATION_KINDS)[number];
+export const isStreamKind = (kind: StationKind): kind is 'stream' | 'stream-secondary' => kind.startsWith('stream');
+
+function streamKeysAt(path: readonly PropertyKey[], kind: 'stream' | 'stream-secondary'): readonly string[] {
+  const [first, second] = path;
+  if (path.length === 0) return kind === 'stream' ? STREAM_KEYS : STREAM_SECONDARY_KEYS;
+  if (first === 'position') return ['latitude', 'longitude'];
+  if (first === 'mean_current') return ['east', 'north'];
+  if (first === 'constituents' && second !== undefined) return ELLIPSE_KEYS;
+  if (first === 'differences' && path.length === 1) return STREAM_DIFFERENCE_KEYS;
+  if (first === 'differences') return String(second).startsWith('slack') ? ['time'] : ['time', 'rate'];
+  return [];
+}
 
 /** The keys allowed in the map at `path` (for "unknown key" suggestions). */
 export function allowedKeysAt(path: readonly PropertyKey[], kind: StationKind): readonly string[] {
   const [first, second, third] = path;
+  if (isStreamKind(kind)) return streamKeysAt(path, kind);
   if (path.length === 0) {
     return Object.keys((kind === 'reference' ? referencePortSchema : secondaryPortSchema).shape);
   }
@@ -187,7 +203,10 @@ export function allowedKeysAt(path: readonly PropertyKey[], kind: StationKind): 
 
 /** Keys that exist only for the other kind of port, so the message can say so. */
 export function keyOfOtherKind(key: string, kind: StationKind): StationKind | undefined {
-  const other: StationKind = kind === 'reference' ? 'secondary' : 'reference';
+  const others: Record<StationKind, StationKind> = {
+    reference: 'secondary', secondary: 'reference', stream: 'stream-secondary', 'stream-secondary': 'stream',
+  };
+  const other = others[kind];
   const ownKeys = allowedKeysAt([], kind);
   const otherKeys = allowedKeysAt([], other);
   return !ownKeys.includes(key) && otherKeys.includes(key) ? other : undefined;
@@ -198,7 +217,7 @@ export const FIELD_HELP: Readonly<Record<string, string>> = {
   '': 'write the station as key: value lines starting with id:, name:, kind:',
   id: 'write lower-case letters, digits and hyphens, e.g. id: gannet-head',
   name: 'write the station name as text, e.g. name: Gannet Head',
-  kind: 'write kind: reference (a port with harmonic constants) or kind: secondary (a port with time and height differences)',
+  kind: 'write kind: reference (a port with harmonic constants), kind: secondary (a port with time and height differences), kind: stream or kind: stream-secondary (tidal streams)',
   position: 'write position: { latitude: 50.12, longitude: -4.87 }',
   'position.latitude': 'write degrees from -90 to 90, north positive, e.g. latitude: 50.12',
   'position.longitude': 'write degrees from -180 to 180, east positive, e.g. longitude: -4.87',
@@ -225,9 +244,15 @@ export const FIELD_HELP: Readonly<Record<string, string>> = {
   'windows.*.below': 'write metres above the datum: the window is open while the tide is at or below it, e.g. below: 3.10',
 };
 
-/** The help text for a concrete path such as constituents.M2.phase. */
-export function fieldHelp(path: readonly PropertyKey[]): string {
+/** The help text for a concrete path such as constituents.M2.phase (of a file of the given kind). */
+export function fieldHelp(path: readonly PropertyKey[], kind?: StationKind): string {
   const parts = path.map(String);
+  if (kind !== undefined && isStreamKind(kind)) {
+    const exact = parts.map((p, i) => (i === 1 && parts[0] === 'constituents' ? '*' : p)).join('.');
+    const loose = parts.map((p, i) => (i === 1 && parts[0] === 'differences' && parts.length === 3 ? '*' : p)).join('.');
+    const help = STREAM_FIELD_HELP[exact] ?? STREAM_FIELD_HELP[loose];
+    if (help !== undefined) return help;
+  }
   // Constituent names and high_water/low_water, springs/neaps are the variable parts of a path.
   const wild = parts[0] === 'constituents' || parts[0] === 'windows' ? 1 : parts[0] === 'differences' ? 2 : 0;
   const key = parts.map((p, i) => (i >= 1 && i <= wild ? '*' : p)).join('.');

@@ -5,13 +5,16 @@ import { readFileSync, readdirSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import { StationFileError } from '../errors.js';
 import type { Station } from '../types.js';
-import { checkStationText, parseStation } from './parse.js';
+import type { AnyStreamStation } from '../streams/types.js';
+import { checkStationText, parseAnyStation, parseStation } from './parse.js';
+import { streamSetProblems } from './stream-set.js';
 import { nearestName } from './suggest.js';
 
 export interface StationSet {
   dir: string;
-  stations: Station[];
+  stations: Station[]; // tide stations (reference and secondary ports)
   byId: Map<string, Station>;
+  streams?: AnyStreamStation[]; // tidal stream stations of the same folder
 }
 
 /** The optional project file that lives beside the stations (title, publisher…): not a station. */
@@ -30,6 +33,11 @@ function readStationText(path: string): string {
 /** One station file from disk; the first problem is thrown as a StationFileError. */
 export function loadStationFile(path: string): Station {
   return parseStation(readStationText(path), path);
+}
+
+/** One tide or stream station file from disk; the first problem is thrown as a StationFileError. */
+export function loadAnyStationFile(path: string): Station | AnyStreamStation {
+  return parseAnyStation(readStationText(path), path);
 }
 
 /** The station files of a folder, in name order (hidden files and the project file left out). */
@@ -139,6 +147,7 @@ function referenceProblem(
 export interface StationSetCheck {
   dir: string;
   stations: Station[]; // the stations that passed on their own
+  streams: AnyStreamStation[]; // the stream stations that passed on their own
   files: string[];
   problems: StationFileError[];
 }
@@ -147,6 +156,7 @@ export interface StationSetCheck {
 export function checkStationSet(dir: string): StationSetCheck {
   const files = stationFilesIn(dir);
   const stations: Station[] = [];
+  const streams: AnyStreamStation[] = [];
   const problems: StationFileError[] = [];
   const failedIds = new Map<string, string>();
   for (const file of files) {
@@ -163,15 +173,17 @@ export function checkStationSet(dir: string): StationSetCheck {
     const result = checkStationText(text, file);
     problems.push(...result.problems);
     if (result.station) stations.push(result.station);
+    else if (result.stream) streams.push(result.stream);
     else if (result.declaredId !== undefined && !failedIds.has(result.declaredId)) failedIds.set(result.declaredId, file);
   }
   problems.push(...setProblems(dir, stations, failedIds));
-  return { dir, stations, files, problems };
+  problems.push(...streamSetProblems(dir, stations, streams, failedIds));
+  return { dir, stations, streams, files, problems };
 }
 
 /** A whole station set, references resolved; the first problem is thrown as a StationFileError. */
 export function loadStationSet(dir: string): StationSet {
-  const { stations, problems } = checkStationSet(dir);
+  const { stations, streams, problems } = checkStationSet(dir);
   if (problems[0]) throw problems[0];
-  return { dir, stations, byId: new Map(stations.map((s) => [s.id, s])) };
+  return { dir, stations, byId: new Map(stations.map((s) => [s.id, s])), streams };
 }

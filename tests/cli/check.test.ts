@@ -52,7 +52,7 @@ describe('tidewright check', () => {
 
   it('passes the demo scenario', async () => {
     const { code, stdout } = await runCli(['check', '--stations', join(import.meta.dirname, '..', '..', 'stations-demo')]);
-    expect(stdout).toMatch(/: 4 reference ports, 5 secondary ports, OK\n$/);
+    expect(stdout).toMatch(/: 4 reference ports, 5 secondary ports, 2 stream stations, OK\n$/);
     expect(code).toBe(0);
   });
 

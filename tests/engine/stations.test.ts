@@ -43,7 +43,7 @@ const BAD_FILES: [string, string, string, string][] = [
   ['unknown-key', 'colour', 'is not a key tidewright knows', 'the keys allowed here are id, name, kind'],
   ['key-of-secondary', 'reference', 'is a key of secondary ports', 'write kind: secondary'],
   ['missing-kind', 'kind', 'is missing', 'kind: reference'],
-  ['misspelt-kind', 'kind', '"referance" is not a kind of port', 'write kind: reference'],
+  ['misspelt-kind', 'kind', '"referance" is not a kind of station', 'write kind: reference'],
   ['bad-id', 'id', '"Gannet Head" may only hold lower-case letters a-z, digits and hyphens', 'write gannet-head'],
   ['id-escape', 'id', '"../../etc/passwd" may only hold', 'write etc-passwd'],
   ['unknown-constituent', 'constituents.X9', '"X9" is not a constituent tidewright knows', 'tidewright help constituents'],

@@ -1,0 +1,109 @@
+// `tidewright predict` on a tidal stream station: slack water and the strongest flood and ebb, or with
+// --every the velocity at that step, as a table for people or as JSON/CSV for programs.
+
+import { DateTime } from 'luxon';
+import { CAUTION } from '../engine/almanac/caution.js';
+import { isoLocal, isoUtc } from '../engine/localtime.js';
+import { STREAM_CAUTION, bearingOf, streamEventsFor, streamVelocities, type StreamLookup } from '../engine/streams.js';
+import type { AnyStreamStation, StreamEvent } from '../engine/streams.js';
+
+const MINUTE = 60_000;
+
+export interface StreamPredictRequest {
+  station: AnyStreamStation;
+  set: StreamLookup & { streams: readonly AnyStreamStation[] };
+  from: number;
+  to: number;
+  stepMinutes: number | undefined;
+  format: 'table' | 'json' | 'csv';
+}
+
+/** Knots to the hundredth, never −0. */
+export const knots = (x: number): number => Math.round(x * 100) / 100 + 0;
+/** Degrees true to the tenth, [0, 360); null stays null. */
+export const degrees = (x: number | null): number | null => (x === null ? null : (Math.round(x * 10) / 10) % 360 + 0);
+
+function jsonList(rows: readonly object[]): string {
+  return rows.length === 0 ? '[]\n' : `[\n${rows.map((r) => JSON.stringify(r)).join(',\n')}\n]\n`;
+}
+
+interface Sample { t: number; east: number; north: number; speed: number; direction: number | null }
+
+function samples(req: StreamPredictRequest, stepMs: number): Sample[] {
+  const count = Math.ceil((req.to - req.from) / stepMs);
+  const { east, north } = streamVelocities(req.station, req.set, req.from, stepMs, count);
+  return Array.from({ length: count }, (_, i) => {
+    const e = east[i]!;
+    const n = north[i]!;
+    const ok = Number.isFinite(e) && Number.isFinite(n);
+    return { t: req.from + i * stepMs, east: e, north: n, speed: ok ? Math.hypot(e, n) : Number.NaN, direction: ok ? bearingOf(e, n) : null };
+  });
+}
+
+function header(req: StreamPredictRequest, what: string): string[] {
+  const { station } = req;
+  const zone = station.timezone;
+  const span = `${DateTime.fromMillis(req.from, { zone }).toFormat('yyyy-MM-dd HH:mm')} to ${DateTime.fromMillis(req.to, { zone }).toFormat('yyyy-MM-dd HH:mm')}`;
+  const reference = station.kind === 'stream-secondary' ? req.set.streams.find((s) => s.id === station.reference) : undefined;
+  const kind = station.kind === 'stream'
+    ? 'tidal stream station'
+    : `secondary stream station of ${reference?.name ?? station.reference}, by time differences and rate ratios`;
+  const { latitude, longitude } = station.position;
+  const where = `${Math.abs(latitude).toFixed(3)}° ${latitude < 0 ? 'S' : 'N'}, ${Math.abs(longitude).toFixed(3)}° ${longitude < 0 ? 'W' : 'E'}`;
+  return [
+    `${station.name}: ${kind} (id ${station.id})`,
+    `${where}; time zone ${zone}; flood sets toward ${station.flood_direction}° true`,
+    `${what}, ${span} local time (end not included)`,
+    'Times: local time at the station with its UTC offset. Rates: knots. Directions: degrees true toward which the stream sets.',
+    `Constants: ${station.provenance}`,
+    `Caution: ${CAUTION}`,
+    `Streams: ${STREAM_CAUTION}`,
+    '',
+  ];
+}
+
+function tableRows(rows: readonly { t: number; type?: string; speed: number; direction: number | null }[], zone: string, withType: boolean): string[] {
+  const lines = [withType ? 'Date        Day  Time   UTC±    Stream  Rate      Direction' : 'Date        Day  Time   UTC±    Rate      Direction'];
+  let lastDate = '';
+  for (const row of rows) {
+    const local = DateTime.fromMillis(Math.round(row.t / MINUTE) * MINUTE, { zone });
+    const date = local.toFormat('yyyy-MM-dd');
+    const dayPart = date === lastDate ? ' '.repeat(15) : `${date}  ${local.toFormat('ccc')}`;
+    lastDate = date;
+    const rate = Number.isFinite(row.speed) ? `${row.speed.toFixed(1).padStart(4)} kn` : '   — ';
+    const dir = row.direction === null ? '   —' : `${String(Math.round(row.direction) % 360).padStart(3, '0')}°`;
+    const type = withType ? `  ${(row.type ?? '').padEnd(6)}` : '';
+    lines.push(`${dayPart}  ${local.toFormat('HH:mm')}  ${local.toFormat('ZZ')}${type}  ${rate}   ${dir}`);
+  }
+  if (rows.length === 0) lines.push('(none in this span)');
+  return lines;
+}
+
+/** The whole output of `predict` for a stream station. */
+export function renderStreamPrediction(req: StreamPredictRequest): string {
+  const zone = req.station.timezone;
+  if (req.stepMinutes === undefined) {
+    const events: StreamEvent[] = streamEventsFor(req.station, req.set, req.from, req.to);
+    if (req.format === 'json') {
+      return jsonList(events.map((e) => ({ time: isoUtc(e.time), type: e.type, speed: knots(e.speed), direction: degrees(e.direction) })));
+    }
+    if (req.format === 'csv') {
+      const rows = events.map((e) => `${isoUtc(e.time)},${isoLocal(e.time, zone)},${e.type},${knots(e.speed).toFixed(2)},${e.direction === null ? '' : degrees(e.direction)!.toFixed(1)}`);
+      return ['time_utc,time_local,type,speed_kn,direction_deg_true', ...rows].join('\n') + '\n';
+    }
+    const rows = events.map((e) => ({ t: e.time, type: e.type, speed: e.speed, direction: e.direction }));
+    return [...header(req, 'Slack water and the strongest flood and ebb'), ...tableRows(rows, zone, true)].join('\n') + '\n';
+  }
+  const list = samples(req, Math.round(req.stepMinutes * MINUTE));
+  const num = (x: number): number | null => (Number.isFinite(x) ? knots(x) : null);
+  if (req.format === 'json') {
+    return jsonList(list.map((s) => ({ time: isoUtc(s.t), speed: num(s.speed), direction: degrees(s.direction), east: num(s.east), north: num(s.north) })));
+  }
+  if (req.format === 'csv') {
+    const cell = (x: number | null, digits: number) => (x === null || !Number.isFinite(x) ? '' : x.toFixed(digits));
+    const rows = list.map((s) => `${isoUtc(s.t)},${isoLocal(s.t, zone)},${cell(num(s.speed), 2)},${cell(degrees(s.direction), 1)},${cell(num(s.east), 2)},${cell(num(s.north), 2)}`);
+    return ['time_utc,time_local,speed_kn,direction_deg_true,east_kn,north_kn', ...rows].join('\n') + '\n';
+  }
+  const what = `The stream every ${req.stepMinutes} minutes${req.station.kind === 'stream-secondary' ? ' (between its events a half-cosine curve, a drawing aid)' : ''}`;
+  return [...header(req, what), ...tableRows(list.map((s) => ({ ...s })), zone, false)].join('\n') + '\n';
+}

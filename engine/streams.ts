@@ -1,0 +1,43 @@
+// Tidal stream stations: one door to their events and velocities, for stream and stream-secondary
+// stations alike. Stream stations: the height kernel on the velocity's east and north components
+// (streams/predict.ts) and their slack and strongest flood and ebb (streams/events.ts). Stream-secondary
+// stations: the reference stream station's events by time differences and rate ratios (streams/secondary.ts).
+
+import { streamEvents } from './streams/events.js';
+import { streamPredictorFor } from './streams/predict.js';
+import {
+  referenceStreamOf, STREAM_SECONDARY_PAD_MS, streamSecondaryEventsFrom, streamSecondarySeries, type StreamLookup,
+} from './streams/secondary.js';
+import type { AnyStreamStation, StreamEvent } from './streams/types.js';
+
+export type * from './streams/types.js';
+export { componentsToEllipse, ellipseToComponents, type ComponentConstant } from './streams/ellipse.js';
+export {
+  bearingOf, compileStreamPredictor, componentStations, isRotary, KNOTS_PER_METRE_PER_SECOND, ROTARY_MINOR_TO_MAJOR,
+  streamPredictorFor, velocity, type StreamPredictor,
+} from './streams/predict.js';
+export { refineRoot, SLACK_SET_THRESHOLD, streamEvents } from './streams/events.js';
+export { ebbDirectionOf, referenceStreamOf, streamSecondaryEventsFrom, type StreamLookup } from './streams/secondary.js';
+
+const DAY = 86_400_000;
+
+/** Every slack and strongest flood and ebb with from ≤ time < to (UTC ms), in time order. */
+export function streamEventsFor(station: AnyStreamStation, set: StreamLookup, from: number, to: number): StreamEvent[] {
+  if (!(to > from)) return [];
+  if (station.kind === 'stream') return streamEvents(streamPredictorFor(station), from, to);
+  const reference = referenceStreamOf(station, set);
+  const events = streamEvents(streamPredictorFor(reference), from - STREAM_SECONDARY_PAD_MS, to + STREAM_SECONDARY_PAD_MS);
+  return streamSecondaryEventsFrom(events, station).filter((e) => e.time >= from && e.time < to);
+}
+
+/** East and north velocity, knots, at start + i·stepMs for i < count. */
+export function streamVelocities(
+  station: AnyStreamStation, set: StreamLookup, start: number, stepMs: number, count: number,
+): { east: Float64Array; north: Float64Array } {
+  if (station.kind === 'stream') return streamPredictorFor(station).series(start, stepMs, count);
+  const end = start + stepMs * Math.max(0, count - 1);
+  const events = streamEventsFor(station, set, Math.min(start, end) - DAY, Math.max(start, end) + DAY);
+  return streamSecondarySeries(events, station, start, stepMs, count);
+}
+export { suspiciousStream, MAX_PLAUSIBLE_MAJOR_KNOTS } from './streams/check.js';
+export { STREAM_CAUTION } from './streams/caution.js';
