@@ -26,6 +26,10 @@ lines starting with #, gaps, irregular spacing and unsorted rows are fine; a row
 dropped; two different heights for the same time are an error. The record must span at least
 14.77 days (to separate M2 from S2) with readings over at least half of its span.
 
+A record too short to separate a constituent from its neighbour (K2 and T2 from S2, P1 from K1, NU2
+and 2N2 from N2, L2 from S2: half a year or more) gets it by inference: the amplitude ratio of the
+equilibrium tide and the neighbour's phase lag. The file and the report say which were inferred.
+
   --latitude DEG     the gauge's latitude, degrees north positive
   --longitude DEG    the gauge's longitude, degrees east positive
   --timezone ZONE    IANA time zone of the harbour, e.g. Europe/Lisbon
@@ -72,9 +76,11 @@ export async function runAnalyse(argv: string[]): Promise<number> {
   writeOutputs(yaml, targets.map((t) => ({ ...t, text: texts[t.option] ?? '' })), [file], values.force === true);
   const r = analysis.residual;
   const unresolved = analysis.excluded.filter((e) => e.reason === 'rayleigh').length;
+  const inferred = analysis.constituents.filter((c) => c.inferred !== undefined).map((c) => c.name);
   process.stderr.write(`tidewright: ${r.count} readings over ${(analysis.summary.spanHours / 24).toFixed(1)} days: ` +
     `${analysis.constituents.length} constituents, residual RMS ${r.rms.toFixed(3)} m, ` +
     `${(r.explained * 100).toFixed(1)} % of the variance explained` +
+    (inferred.length > 0 ? `; inferred from a neighbour by the equilibrium ratio: ${inferred.join(', ')}` : '') +
     (unresolved > 0 ? `; ${unresolved} ${unresolved === 1 ? 'constituent' : 'constituents'} could not be separated (listed in the file)` : '') + '\n');
   return 0;
 }

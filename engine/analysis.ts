@@ -8,6 +8,7 @@ export {
   selectConstituents, separationHours, ANALYSIS_CANDIDATES,
   type ConstituentSelection, type ExcludedConstituent, type SelectionOptions,
 } from './analysis/rayleigh.js';
+export { INFERENCE_RULES, applicableInferences, type InferenceRule } from './analysis/inference.js';
 export { analyseRecord, type AnalysedConstituent, type AnalysisOptions, type HarmonicAnalysis } from './analysis/harmonic.js';
 export type { ResidualStatistics } from './analysis/statistics.js';
 export { recordExtrema, type RecordExtremaOptions } from './analysis/record-extrema.js';

@@ -6,6 +6,7 @@ import { RecordFileError } from '../errors.js';
 import { constituentSpeed } from '../constituents.js';
 import { checkAnalysable, summariseRecord, type RecordSummary } from './coverage.js';
 import { designRows } from './design.js';
+import { applicableInferences, type InferenceRule } from './inference.js';
 import { addObservation, createNormalEquations, SingularSystemError, solveNormalEquations } from './leastsquares.js';
 import { selectConstituents, separationHours, type ExcludedConstituent } from './rayleigh.js';
 import type { GaugeRecord } from './record.js';
@@ -18,6 +19,7 @@ export interface AnalysedConstituent {
   phase: number; // g, degrees in [0, 360), UTC
   amplitudeError: number; // 95 % confidence half-width, metres
   phaseError: number; // 95 % confidence half-width, degrees (180 when the phase is undetermined)
+  inferred?: { from: string; ratio: number }; // not fitted: the equilibrium ratio to a fitted neighbour
 }
 
 export interface HarmonicAnalysis {
@@ -26,8 +28,9 @@ export interface HarmonicAnalysis {
   rayleigh: number;
   meanLevel: number; // Z0, metres on the record's zero
   meanLevelError: number; // 95 % half-width
+  trend?: { change: number; error: number }; // level change over the record (m, last − first reading) and its 95 % half-width
   constituents: AnalysedConstituent[]; // in order of decreasing amplitude
-  excluded: ExcludedConstituent[];
+  excluded: ExcludedConstituent[]; // left out altogether (not inferred)
   residual: ResidualStatistics;
   fitted: Float64Array; // the fitted tide at each reading
 }
@@ -35,6 +38,8 @@ export interface HarmonicAnalysis {
 export interface AnalysisOptions {
   rayleigh?: number; // R of the Rayleigh criterion, default 1
   constituents?: readonly string[]; // a fixed set instead of the Rayleigh choice (benchmarks, tests)
+  infer?: boolean; // infer the unseparated constituents that have an equilibrium neighbour (default true)
+  trend?: boolean; // fit a straight line beside the mean level (default: when Ssa is not separable)
 }
 
 /** Analyses a record into harmonic constants; RecordFileError when the record cannot support it. */
@@ -46,7 +51,13 @@ export function analyseRecord(record: GaugeRecord, options: AnalysisOptions = {}
     ? selectConstituents({ spanHours: summary.spanHours, intervalHours: summary.intervalHours, rayleigh })
     : { admitted: [...options.constituents], excluded: [] };
   const names = selection.admitted;
-  const rows = designRows(names);
+  const inferences: InferenceRule[] = options.infer === false ? [] : applicableInferences(names,
+    selection.excluded.filter((e) => e.reason === 'rayleigh').map((e) => e.name));
+  const excluded = selection.excluded.filter((e) => !inferences.some((r) => r.name === e.name));
+  // Below half a year the seasonal lines (Sa, Ssa) cannot be told from the mean level; what the record
+  // shows of them is mostly a slope, taken up by a straight line so it does not leak into Mm, Mf, MSf.
+  const withTrend = options.trend ?? selection.excluded.some((e) => e.name === 'Ssa' && e.conflictsWith === 'Z0');
+  const rows = designRows(names, inferences, withTrend ? { from: summary.start, to: summary.end } : undefined);
   const size = rows.size;
   const n = record.times.length;
   if (n <= size) {
@@ -65,7 +76,8 @@ export function analyseRecord(record: GaugeRecord, options: AnalysisOptions = {}
     solution = solveNormalEquations(equations);
   } catch (error) {
     if (!(error instanceof SingularSystemError)) throw error;
-    const name = error.index === 0 ? 'the mean level' : names[(error.index - 1) >> 1]!;
+    const name = error.index === 0 ? 'the mean level'
+      : error.index === 1 + 2 * names.length ? 'the change of level over the record' : names[(error.index - 1) >> 1]!;
     throw new RecordFileError(record.file, 'time',
       `the readings' gaps leave ${name} indistinguishable from the other constituents`,
       'analyse a record with fewer or shorter gaps, or raise --rayleigh to fit fewer constituents');
@@ -85,6 +97,18 @@ export function analyseRecord(record: GaugeRecord, options: AnalysisOptions = {}
     const u = constituentUncertainty(x[ia]!, x[ia + 1]!, solution.inverse, size, ia, variance);
     return { name, speed: constituentSpeed(name), ...u };
   });
+  for (const r of inferences) {
+    const from = constituents.find((c) => c.name === r.from)!;
+    constituents.push({
+      name: r.name,
+      speed: constituentSpeed(r.name),
+      amplitude: r.ratio * from.amplitude,
+      phase: from.phase,
+      amplitudeError: r.ratio * from.amplitudeError,
+      phaseError: from.phaseError,
+      inferred: { from: r.from, ratio: r.ratio },
+    });
+  }
   constituents.sort((p, q) => q.amplitude - p.amplitude);
   return {
     record,
@@ -92,8 +116,9 @@ export function analyseRecord(record: GaugeRecord, options: AnalysisOptions = {}
     rayleigh,
     meanLevel: x[0]!,
     meanLevelError: 1.96 * Math.sqrt(variance * solution.inverse[0]!),
+    ...(withTrend ? { trend: { change: x[size - 1]!, error: 1.96 * Math.sqrt(variance * solution.inverse[size * size - 1]!) } } : {}),
     constituents,
-    excluded: selection.excluded,
+    excluded,
     residual,
     fitted,
   };

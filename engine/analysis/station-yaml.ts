@@ -86,6 +86,8 @@ export function referenceStationYaml(a: HarmonicAnalysis, meta: StationMeta): st
   const unresolved = a.excluded.filter((e) => e.reason === 'rayleigh')
     .map((e) => `${e.name} (from ${e.conflictsWith === 'Z0' ? 'the mean level' : e.conflictsWith}: ${needs(e.daysNeeded)})`);
   const tooFast = a.excluded.filter((e) => e.reason === 'nyquist').map((e) => e.name);
+  const inferred = a.constituents.filter((c) => c.inferred !== undefined)
+    .map((c) => `${c.name} from ${c.inferred!.from} (ratio ${c.inferred!.ratio.toFixed(4)})`);
   const lines = [
     ...commentLines(`Harmonic constants of ${meta.name}, derived by tidewright from a gauge record. Amplitudes in metres, ` +
       'phases are Greenwich phase lags in degrees (UTC); the comment beside each gives its 95 % confidence half-widths, ' +
@@ -94,6 +96,14 @@ export function referenceStationYaml(a: HarmonicAnalysis, meta: StationMeta): st
       `explain ${(r.explained * 100).toFixed(2)} % of the variance of the record.`),
     ...(unresolved.length > 0
       ? commentLines(`Not separable with a record of ${(a.summary.spanHours / 24).toFixed(1)} days, so left out: ${unresolved.join(', ')}.`)
+      : []),
+    ...(inferred.length > 0
+      ? commentLines('Inferred, not fitted (the record cannot separate them): each takes its separated neighbour\'s phase ' +
+        'lag and the amplitude ratio of the equilibrium tide (Foreman 1977; Pugh 1987): ' + `${inferred.join(', ')}.`)
+      : []),
+    ...(a.trend !== undefined
+      ? commentLines(`The mean level changed by ${a.trend.change.toFixed(3)} m (± ${a.trend.error.toFixed(3)}) over the record ` +
+        '(seasons and weather, fitted as a straight line beside the mean level and not part of the constants).')
       : []),
     ...(tooFast.length > 0 ? commentLines(`Too fast for the sampling interval, so left out: ${tooFast.join(', ')}.`) : []),
     ...commentLines('Constants from a short record are less reliable than those from a year or more. ' + CAUTION),
@@ -110,7 +120,9 @@ export function referenceStationYaml(a: HarmonicAnalysis, meta: StationMeta): st
   for (const c of a.constituents) {
     const k = station.constituents[c.name]!;
     const body = `  ${`${c.name}:`.padEnd(width + 1)} { amplitude: ${k.amplitude.toFixed(4)}, phase: ${k.phase.toFixed(2).padStart(6)} }`;
-    lines.push(`${body}  # ± ${c.amplitudeError.toFixed(4)} m, ± ${c.phaseError.toFixed(1)}°`);
+    lines.push(c.inferred === undefined
+      ? `${body}  # ± ${c.amplitudeError.toFixed(4)} m, ± ${c.phaseError.toFixed(1)}°`
+      : `${body}  # inferred from ${c.inferred.from}`);
   }
   lines.push(`provenance: ${yamlString(station.provenance)}`);
   return `${lines.join('\n')}\n`;

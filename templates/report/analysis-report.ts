@@ -108,6 +108,10 @@ function constantsSection(a: HarmonicAnalysis, station: ReportStation): string {
   const body = a.constituents.map((c) => {
     // Signal-to-noise (H/σ_H)² below 2 (σ_H = half-width/1.96): not distinguishable from the noise.
     const weak = (c.amplitude / (c.amplitudeError / 1.96)) ** 2 < 2;
+    if (c.inferred !== undefined) {
+      return `<tr class="inferred"><th scope="row">${esc(c.name)}</th><td>${fixed(c.speed, 7)}</td><td>${fixed(c.amplitude, 4)}</td>` +
+        `<td colspan="3">inferred from ${esc(c.inferred.from)}</td></tr>`;
+    }
     return `<tr${weak ? ' class="weak"' : ''}><th scope="row">${esc(c.name)}${weak ? ' *' : ''}</th>` +
       `<td>${fixed(c.speed, 7)}</td><td>${fixed(c.amplitude, 4)}</td><td>${fixed(c.amplitudeError, 4)}</td>` +
       `<td>${fixed(c.phase, 2)}</td><td>${fixed(c.phaseError, 2)}</td></tr>`;
@@ -128,6 +132,17 @@ function excludedSection(a: HarmonicAnalysis): string {
   const rayleigh = a.excluded.filter((e) => e.reason === 'rayleigh');
   const nyquist = a.excluded.filter((e) => e.reason === 'nyquist');
   const parts = [`<section aria-labelledby="excluded-heading"><h2 id="excluded-heading">Constituents this record could not separate</h2>`];
+  const inferred = a.constituents.filter((c) => c.inferred !== undefined);
+  if (inferred.length > 0) {
+    parts.push(`<p>Inferred (Foreman 1977; Pugh 1987): each takes its separated neighbour’s phase lag and the amplitude
+ratio of the equilibrium tide; the neighbour was fitted with the inferred line’s share in the model.</p>`);
+    parts.push('<table><caption>Inferred from a neighbour</caption><thead><tr><th scope="col">Constituent</th>' +
+      '<th scope="col">From</th><th scope="col">Equilibrium ratio</th></tr></thead><tbody>');
+    for (const c of inferred) {
+      parts.push(`<tr><th scope="row">${esc(c.name)}</th><td>${esc(c.inferred!.from)}</td><td>${fixed(c.inferred!.ratio, 4)}</td></tr>`);
+    }
+    parts.push('</tbody></table>');
+  }
   if (rayleigh.length === 0) {
     parts.push(`<p>Every candidate constituent was separable at Rayleigh factor R = ${esc(String(a.rayleigh))}.</p>`);
   } else {

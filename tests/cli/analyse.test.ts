@@ -21,13 +21,16 @@ const FIXTURES = join(import.meta.dirname, '..', 'fixtures', 'records');
 const START = Date.UTC(2027, 2, 1);
 const STEP = 10 * 60_000;
 
-// Invented ports, realistic in magnitude.
+// Invented ports, realistic in magnitude; the lines a month cannot separate (K2, P1, NU2, 2N2, L2, T2)
+// stand to their neighbours as in the equilibrium tide, as at most real ports.
 const reference: ReferenceStation = {
   id: 'gull-point', name: 'Gull Point (invented)', kind: 'reference', position: { latitude: 50, longitude: -4 },
   timezone: 'Europe/London', datum: 'Chart Datum', mean_level: 3,
   constituents: {
     M2: { amplitude: 1.6, phase: 130 }, S2: { amplitude: 0.55, phase: 175 }, N2: { amplitude: 0.3, phase: 110 },
     K1: { amplitude: 0.08, phase: 100 }, O1: { amplitude: 0.07, phase: 330 }, M4: { amplitude: 0.05, phase: 40 },
+    K2: { amplitude: 0.15, phase: 175 }, T2: { amplitude: 0.032, phase: 175 }, L2: { amplitude: 0.045, phase: 130 },
+    NU2: { amplitude: 0.057, phase: 110 }, '2N2': { amplitude: 0.04, phase: 110 }, P1: { amplitude: 0.026, phase: 100 },
   },
   provenance: 'Invented for the command-line test',
 };
@@ -45,6 +48,12 @@ constituents:
   K1: { amplitude: 0.08, phase: 100 }
   O1: { amplitude: 0.07, phase: 330 }
   M4: { amplitude: 0.05, phase: 40 }
+  K2: { amplitude: 0.15, phase: 175 }
+  T2: { amplitude: 0.032, phase: 175 }
+  L2: { amplitude: 0.045, phase: 130 }
+  NU2: { amplitude: 0.057, phase: 110 }
+  2N2: { amplitude: 0.04, phase: 110 }
+  P1: { amplitude: 0.026, phase: 100 }
 provenance: Invented for the command-line test
 `;
 const secondary: SecondaryStation = {
@@ -78,7 +87,11 @@ describe('tidewright analyse', () => {
     expect(stdout).toContain('\nid: gull-gauge\n');
     expect(stdout).toContain('\nposition: { latitude: 50, longitude: -4 }\n');
     expect(stdout).toMatch(/\n {2}M2: +\{ amplitude: 1\.60\d\d, phase: 1[23]\d\.\d\d \}/);
-    expect(stdout).toMatch(/# Not separable with a record of 30\.0 days, so left out: K2 \(from S2: needs 182\.6 days\)/);
+    expect(stdout.replace(/\n# /g, ' ')).toContain('Inferred, not fitted (the record cannot separate them): each takes its ' +
+      'separated neighbour\'s phase lag and the amplitude ratio of the equilibrium tide (Foreman 1977; Pugh 1987): K2 from S2 (ratio 0.2721)');
+    expect(stdout).toMatch(/\n {2}K2: +\{ amplitude: 0\.1\d{3}, phase: 1\d\d\.\d\d \}  # inferred from S2\n/);
+    expect(stderr).toMatch(/; inferred from a neighbour by the equilibrium ratio: [^;]*\bK2\b/);
+    expect(stdout.replace(/\n# /g, ' ')).toMatch(/ Not separable with a record of 30\.0 days, so left out: .*MU2 \(from N2: needs 31\.8 days\)/);
   });
 
   it('writes --output and an HTML --report, with id, name and datum as given', async () => {

@@ -80,11 +80,15 @@ describe('uncertainties and residual statistics', () => {
     expect(k1.phaseError).toBeGreaterThan(20);
   });
 
-  it('notes the constituents a 30-day record cannot separate', () => {
+  it('notes the constituents a 30-day record cannot separate, and infers those it can', () => {
     const a = analyseRecord(cosineRecord(30, 0.01, 4));
     const names = a.excluded.map((e) => e.name);
-    expect(names).toEqual(expect.arrayContaining(['K2', 'P1', 'Sa', 'Ssa']));
-    expect(a.excluded.find((e) => e.name === 'K2')).toMatchObject({ conflictsWith: 'S2' });
+    expect(names).toEqual(expect.arrayContaining(['MU2', 'Sa', 'Ssa']));
+    expect(a.excluded.find((e) => e.name === 'MU2')).toMatchObject({ conflictsWith: 'N2' });
+    expect(names).not.toContain('K2');
+    expect(a.constituents.find((c) => c.name === 'K2')).toMatchObject({ inferred: { from: 'S2' } });
+    expect(a.constituents.find((c) => c.name === 'P1')).toMatchObject({ inferred: { from: 'K1' } });
+    expect(analyseRecord(cosineRecord(30, 0.01, 4), { infer: false }).excluded.map((e) => e.name)).toContain('K2');
     expect(a.summary.spanHours).toBe(720);
   });
 });

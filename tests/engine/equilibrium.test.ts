@@ -2,6 +2,7 @@
 // positions (astronomy-engine, Laplace's degree-2 formula; tests/fixtures/engine-equilibrium.ts) against
 // the engine's harmonic sum. It pins the arguments, node factors, phase conventions and time handling.
 import { beforeAll, describe, expect, it } from 'vitest';
+import { INFERENCE_RULES } from '../../engine/analysis/inference.js';
 import { CONSTITUENTS, findConstituent } from '../../engine/constituents.js';
 import { compileAstronomicalTerms } from '../../engine/nodal.js';
 import { compilePredictor } from '../../engine/predict.js';
@@ -156,6 +157,18 @@ describe('equilibrium tide from Moon and Sun positions', () => {
         expect(angleError(g, equilibriumPhase(k, latitude, longitude)), `${name} phase lag`).toBeLessThan(10);
       }
       expect(checked).toBeGreaterThanOrEqual(28);
+    });
+
+    it('has the amplitude ratios and equal phase lags the short-record inference assumes', () => {
+      // engine/analysis/inference.ts takes its ratios from Cartwright–Tayler–Edden amplitudes recalled
+      // from memory (REFERENCE-VALUES §7); here the tide from astronomy-engine's Moon and Sun checks them.
+      for (const r of INFERENCE_RULES) {
+        const result = findConstituent(r.name)!.doodson[0] === 1 ? midLatitude : equator;
+        const y = result.get(r.name)!;
+        const x = result.get(r.from)!;
+        expect(Math.abs(y.H / x.H / r.ratio - 1), `${r.name}/${r.from}`).toBeLessThan(0.03);
+        expect(angleError(y.g, x.g), `${r.name} and ${r.from} phase lags`).toBeLessThan(3);
+      }
     });
 
     it('finds the Moon raising about two thirds of the tide and the Sun one third', () => {

@@ -75,9 +75,10 @@ describe('renderAnalysisReport', () => {
     expect(html).toContain(`Mean level Z0 = ${month.meanLevel.toFixed(4)} m`);
   });
 
-  it('lists what the record could not separate, with the record length needed', () => {
-    expect(html).toMatch(/<th scope="row">K2<\/th><td>S2<\/td><td>182\.6<\/td>/); // REFERENCE-VALUES §5
-    expect(html).toMatch(/<th scope="row">P1<\/th><td>K1<\/td><td>182\.6<\/td>/);
+  it('lists what the record could not separate, with the record length needed, and what it inferred', () => {
+    expect(html).toMatch(/<th scope="row">MSf<\/th><td>Mf<\/td><td>182\.6<\/td>/); // REFERENCE-VALUES §5
+    expect(html).toMatch(/<th scope="row">K2<\/th><td>S2<\/td><td>0\.2721<\/td>/); // REFERENCE-VALUES §7
+    expect(html).toMatch(/<th scope="row">P1<\/th><td>K1<\/td><td>0\.3309<\/td>/);
     expect(html).toMatch(/<th scope="row">Sa<\/th><td>the mean level<\/td>/);
   });
 
