@@ -3,7 +3,12 @@ import { describe, expect, it } from 'vitest';
 import { analyseRecord } from '../../engine/analysis/harmonic.js';
 import { compilePredictor } from '../../engine/predict.js';
 import type { ReferenceStation } from '../../engine/types.js';
-import { renderAnalysisReport, type ReportStation } from '../../templates/report/analysis-report.js';
+import { mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { reliability, renderAnalysisReport, type ReportStation } from '../../templates/report/analysis-report.js';
+import { rootCustomProperties, sitePaletteCss } from '../../templates/report/palette.js';
+import { projectRoot } from '../../templates/site/paths.js';
 import { niceTicks } from '../../templates/report/chart.js';
 import { escapeHtml } from '../../templates/report/escape.js';
 import { DAY, degrade, evenTimes, recordOf } from '../fixtures/analysis-records.js';
@@ -80,6 +85,44 @@ describe('renderAnalysisReport', () => {
     expect(html).toMatch(/<th scope="row">K2<\/th><td>S2<\/td><td>0\.2721<\/td>/); // REFERENCE-VALUES §7
     expect(html).toMatch(/<th scope="row">P1<\/th><td>K1<\/td><td>0\.3309<\/td>/);
     expect(html).toMatch(/<th scope="row">Sa<\/th><td>the mean level<\/td>/);
+  });
+
+  it('words each fitted line\'s reliability from amplitude ÷ 95 % half-width, the ratio printed, and marks inferred lines', () => {
+    expect(reliability(2)).toBe('firm');
+    expect(reliability(1.99)).toBe('fair');
+    expect(reliability(1)).toBe('fair');
+    expect(reliability(0.99)).toBe('weak');
+    for (const c of month.constituents.filter((k) => k.inferred === undefined)) {
+      const ratio = c.amplitude / c.amplitudeError;
+      expect(html).toContain(`<th scope="row">${c.name}</th><td>${c.speed.toFixed(7)}</td><td>${c.amplitude.toFixed(4)}</td>` +
+        `<td>${c.amplitudeError.toFixed(4)}</td><td>${c.phase.toFixed(2)}</td><td>${c.phaseError.toFixed(2)}</td>` +
+        `<td>${ratio.toFixed(1)}</td><td class="word reliability-${reliability(ratio)}">${reliability(ratio)}</td></tr>`);
+    }
+    // 3 cm of noise over a month: M2 firm, and some small line weak
+    expect(html).toMatch(/<th scope="row">M2<\/th>.*reliability-firm">firm</);
+    expect(html).toMatch(/reliability-weak">weak</);
+    expect(html).toMatch(/<tr class="inferred"><th scope="row">K2<\/th>.*inferred from S2<\/td><\/tr>/);
+    // no symbol marks a line: the words say it
+    expect(html).not.toMatch(/<th scope="row">[^<]*[*†‡]/);
+  });
+
+  it('takes its colours from the site\'s stylesheet, the one source of the palette', () => {
+    const site = rootCustomProperties(readFileSync(join(projectRoot(), 'templates/assets/site.css'), 'utf8'));
+    expect(site.length).toBeGreaterThanOrEqual(8);
+    const style = /<style>([\s\S]*?)<\/style>/.exec(html)![1]!;
+    expect(rootCustomProperties(style)).toEqual(site);
+    // outside that copied block the report names no colour of its own
+    const own = style.replace(/:root \{[^}]*\}/, '');
+    expect(own).not.toMatch(/#[0-9a-f]{3,8}\b|rgba?\(|hsla?\(/i);
+    // a publisher who changes the site's palette changes the report's
+    const root = mkdtempSync(join(tmpdir(), 'tidewright-palette-'));
+    try {
+      mkdirSync(join(root, 'templates/assets'), { recursive: true });
+      writeFileSync(join(root, 'templates/assets/site.css'), ':root {\n  --ink: #101010;\n  --sea: #123456;\n}\n.x { color: red; }');
+      expect(sitePaletteCss(root)).toBe(':root { --ink: #101010; --sea: #123456; }');
+    } finally {
+      rmSync(root, { recursive: true, force: true });
+    }
   });
 
   it('gives the residual statistics and the caution', () => {
