@@ -21,6 +21,10 @@ interface StationCommon {
   datum: string; // label of the zero for heights, e.g. "Chart Datum"
   provenance: string;
   datum_epoch?: number; // first year of the 19-year span for LAT/HAT (default 2020)
+  number?: string; // the publisher's station number
+  levelling?: { datum: string; chart_datum_below: number }; // metres chart datum lies below the land datum
+  observations?: { from: string; to: string; source: string }; // YYYY-MM-DD, the record the constants come from
+  datum_authority?: string;
   sourceFile?: string; // path of the file it was loaded from (for error messages)
   windows?: WindowSpec[]; // access windows (a sill, a bar, a bridge) the almanac times for every day
 }

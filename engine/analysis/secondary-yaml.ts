@@ -5,7 +5,7 @@ import { basename } from 'node:path';
 import { CAUTION } from '../almanac/caution.js';
 import type { SecondaryStation } from '../types.js';
 import type { DifferenceAnalysis } from './differences.js';
-import { commentLines, day, yamlString, type StationMeta } from './station-yaml.js';
+import { commentLines, day, observationsLine, recordObservations, yamlString, type StationMeta } from './station-yaml.js';
 
 const clean = (v: number): number => (Object.is(v, -0) ? 0 : v);
 const minutes = (v: number): number => clean(Math.round(v));
@@ -35,6 +35,7 @@ export function secondaryStationFrom(a: DifferenceAnalysis, meta: StationMeta): 
       low_water: { springs: pair(d.low_water.springs), neaps: pair(d.low_water.neaps) },
     },
     provenance: differencesProvenance(a),
+    observations: recordObservations(a),
   };
 }
 
@@ -73,6 +74,7 @@ export function secondaryStationYaml(a: DifferenceAnalysis, meta: StationMeta, n
     `  high_water: { springs: ${pair(st.differences.high_water.springs)}, neaps: ${pair(st.differences.high_water.neaps)} }`,
     `  low_water: { springs: ${pair(st.differences.low_water.springs)}, neaps: ${pair(st.differences.low_water.neaps)} }`,
     `provenance: ${yamlString(st.provenance)}`,
+    observationsLine(st.observations!),
   ];
   return `${lines.join('\n')}\n`;
 }

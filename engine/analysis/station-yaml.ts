@@ -60,6 +60,15 @@ export function analysisProvenance(a: HarmonicAnalysis): string {
     `Schureman nodal corrections; ${a.constituents.length} constituents chosen by the Rayleigh criterion (R = ${a.rayleigh})`;
 }
 
+/** The span of the record analysed, as the station file's observations: key. */
+export function recordObservations(a: Pick<HarmonicAnalysis, 'record' | 'summary'>): { from: string; to: string; source: string } {
+  return { from: day(a.summary.start), to: day(a.summary.end), source: `Gauge record ${basename(a.record.file)}` };
+}
+
+export function observationsLine(o: { from: string; to: string; source: string }): string {
+  return `observations: { from: ${o.from}, to: ${o.to}, source: ${JSON.stringify(o.source)} }`;
+}
+
 /** The fitted constants as a reference station, rounded as the file writes them. */
 export function referenceStationFrom(a: HarmonicAnalysis, meta: StationMeta): ReferenceStation {
   const constituents: ReferenceStation['constituents'] = {};
@@ -76,6 +85,7 @@ export function referenceStationFrom(a: HarmonicAnalysis, meta: StationMeta): Re
     mean_level: round(a.meanLevel, 4),
     constituents,
     provenance: analysisProvenance(a),
+    observations: recordObservations(a),
   };
 }
 
@@ -125,5 +135,6 @@ export function referenceStationYaml(a: HarmonicAnalysis, meta: StationMeta): st
       : `${body}  # inferred from ${c.inferred.from}`);
   }
   lines.push(`provenance: ${yamlString(station.provenance)}`);
+  lines.push(observationsLine(station.observations!));
   return `${lines.join('\n')}\n`;
 }

@@ -80,6 +80,32 @@ export function checkConstituentName(ctx: CheckContext): void {
   fail(ctx, `"${name}" is not a constituent tidewright knows`, fix);
 }
 
+function checkDay(ctx: CheckContext): void {
+  const day = ctx.value;
+  const valid = /^\d{4}-\d{2}-\d{2}$/.test(day) && new Date(`${day}T00:00:00Z`).toISOString().slice(0, 10) === day;
+  if (!valid) fail(ctx, `"${day}" is not a date written YYYY-MM-DD`, 'write a date such as 2019-03-01');
+}
+
+// The station's records (all optional): the publisher's number, chart datum against the land-levelling
+// datum, the observations the constants come from, and the authority for the datum.
+const stationRecords = {
+  number: z.string().check(checkText).check((ctx) => {
+    if (ctx.value.length > 16) fail(ctx, `"${ctx.value.slice(0, 20)}" is ${ctx.value.length} characters long`, 'write a short number of at most 16 characters, e.g. number: "0412"');
+  }).optional(),
+  levelling: z.strictObject({
+    datum: text,
+    chart_datum_below: z.number().min(-100).max(100),
+  }).optional(),
+  observations: z.strictObject({
+    from: z.string().check(checkDay),
+    to: z.string().check(checkDay),
+    source: text,
+  }).refine((o) => o.from <= o.to, {
+    params: { problem: 'ends before it starts', fix: 'write the first day as from: and the last day as to:' },
+  }).optional(),
+  datum_authority: text.optional(),
+};
+
 export const positionSchema = z.strictObject({
   latitude: z.number().min(-90).max(90),
   longitude: z.number().min(-180).max(180),
@@ -146,6 +172,7 @@ export const referencePortSchema = z.strictObject({
   provenance: text,
   datum_epoch: z.int().min(1900).max(2100).default(DEFAULT_DATUM_EPOCH),
   windows: windowsSchema.optional(),
+  ...stationRecords,
 });
 
 // Half a day either way: beyond that a secondary event would pair with the wrong tide.
@@ -168,6 +195,7 @@ export const secondaryPortSchema = z.strictObject({
   provenance: text,
   datum_epoch: z.int().min(1900).max(2100).default(DEFAULT_DATUM_EPOCH),
   windows: windowsSchema.optional(),
+  ...stationRecords,
 });
 
 export const STATION_KINDS = ['reference', 'secondary', 'stream', 'stream-secondary'] as const;
@@ -193,6 +221,8 @@ export function allowedKeysAt(path: readonly PropertyKey[], kind: StationKind): 
     return Object.keys((kind === 'reference' ? referencePortSchema : secondaryPortSchema).shape);
   }
   if (first === 'position') return ['latitude', 'longitude'];
+  if (first === 'levelling') return ['datum', 'chart_datum_below'];
+  if (first === 'observations') return ['from', 'to', 'source'];
   if (first === 'constituents' && second !== undefined) return ['amplitude', 'phase'];
   if (first === 'differences' && path.length === 1) return ['high_water', 'low_water'];
   if (first === 'differences' && third === undefined) return ['springs', 'neaps'];
@@ -230,6 +260,15 @@ export const FIELD_HELP: Readonly<Record<string, string>> = {
   'constituents.*': 'write { amplitude: metres, phase: degrees }, e.g. M2: { amplitude: 1.621, phase: 135.2 }',
   'constituents.*.amplitude': 'write the amplitude in metres, zero or more, e.g. amplitude: 1.621',
   'constituents.*.phase': 'write the Greenwich phase lag in degrees from 0 up to (not including) 360, e.g. phase: 135.2',
+  number: 'write the publisher\'s station number as quoted text, e.g. number: "0412", or leave it out',
+  levelling: 'write levelling: { datum: "Land Levelling Datum", chart_datum_below: 2.71 }, or leave it out',
+  'levelling.datum': 'write the name of the land-levelling datum, e.g. datum: "Land Levelling Datum"',
+  'levelling.chart_datum_below': 'write how many metres chart datum lies below the land-levelling datum, e.g. chart_datum_below: 2.71',
+  observations: 'write observations: { from: 2019-03-01, to: 2020-02-29, source: "Harbour gauge" }, or leave it out',
+  'observations.from': 'write the first day of the observations, e.g. from: 2019-03-01',
+  'observations.to': 'write the last day of the observations, e.g. to: 2020-02-29',
+  'observations.source': 'write where the observations come from, e.g. source: "Harbour gauge"',
+  datum_authority: 'write who sets the chart datum here, e.g. datum_authority: "Hydrographic Office", or leave it out',
   reference: 'write the id of a reference port in the same folder, e.g. reference: gannet-head',
   differences: 'write differences: with high_water: and low_water:, each with springs: and neaps: { time: minutes, height: metres }',
   'differences.*': 'write e.g. { springs: { time: 25, height: -0.30 }, neaps: { time: 15, height: -0.20 } }',

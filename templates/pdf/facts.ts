@@ -57,6 +57,12 @@ export function factsPage(view: StationView): LogicalPage {
         ['Tide type', `${model.tideType.label} (form number ${model.tideType.formNumber.toFixed(2)})`],
         ['Mean ranges', `springs ${formatLength(model.meanSpringRange, units)}, neaps ${formatLength(model.meanNeapRange, units)}`],
         ['Age of the tide', `${age.toFixed(0)} hours (${(age / 24).toFixed(1)} days): spring and neap tides come this long after new or full moon and the quarters`],
+        ...(st.number === undefined ? [] : [['Station number', printable(st.number)] as [string, string]]),
+        ...(st.levelling === undefined ? [] : [['Levelling', `${printable(st.datum)} lies ${formatLength(st.levelling.chart_datum_below, units)} ` +
+          `below ${printable(st.levelling.datum)}`] as [string, string]]),
+        ...(st.datum_authority === undefined ? [] : [['Datum authority', printable(st.datum_authority)] as [string, string]]),
+        ...(st.observations === undefined ? [] : [['Observations', `${formatDate(st.observations.from)} to ` +
+          `${formatDate(st.observations.to)}, ${printable(st.observations.source)}`] as [string, string]]),
         ['Provenance', printable(st.provenance)],
       ], y, 62 * s);
 
@@ -67,11 +73,21 @@ export function factsPage(view: StationView): LogicalPage {
       const tableTop = y;
       const datumRows = [...DATUM_ROWS.map((r) => ({ key: r.key as string, name: r.name, v: model.datums[r.key] })),
         { key: 'CD', name: printable(st.datum), v: 0 }];
+      // With a levelling datum, a second column gives each level above it (a column, not a replacement).
+      const land = st.levelling;
+      const landW = land === undefined ? 0 : 44 * s;
+      if (land !== undefined) {
+        const head = { font: 'narrow', size: 6.8 * s, color: MID } as const;
+        put(doc, `above ${printable(st.datum)}`, box.x + tableW - landW, y - 1 * s, head, 'right');
+        putFitted(doc, `above ${printable(land.datum)}`, box.x + tableW, y + 7 * s, head, tableW * 0.6, 5 * s, 'right');
+        y += 18 * s;
+      }
       for (const r of datumRows) {
         const bold = r.key === 'CD';
         put(doc, r.key, box.x, y, { font: bold ? 'bold' : 'narrow-bold', size: 8.2 * s });
-        putFitted(doc, r.name, box.x + 32 * s, y, { font: 'narrow', size: 8.2 * s, color: DARK }, tableW - 70 * s, 5 * s);
-        put(doc, formatHeight(r.v, units), box.x + tableW, y, { font: bold ? 'bold' : 'regular', size: 8.6 * s }, 'right');
+        putFitted(doc, r.name, box.x + 32 * s, y, { font: 'narrow', size: 8.2 * s, color: DARK }, tableW - 70 * s - landW, 5 * s);
+        put(doc, formatHeight(r.v, units), box.x + tableW - landW, y, { font: bold ? 'bold' : 'regular', size: 8.6 * s }, 'right');
+        if (land !== undefined) put(doc, formatHeight(r.v - land.chart_datum_below, units), box.x + tableW, y, { font: 'regular', size: 8.6 * s, color: DARK }, 'right');
         doc.save().lineWidth(HAIRLINE).strokeColor(RULE)
           .moveTo(box.x, y + 3.8 * s).lineTo(box.x + tableW, y + 3.8 * s).stroke().restore();
         y += rowH;

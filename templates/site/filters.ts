@@ -70,6 +70,8 @@ export function siteFilters(units: Units): Record<string, (...args: never[]) => 
       return byDate.get(date) ?? null;
     },
     datumLadder: (datums: Datums): DatumRow[] => datumLadder(datums),
+    // a height above chart datum as a height above the land-levelling datum, which lies chart_datum_below higher
+    aboveLand: (metres: number, levelling: { chart_datum_below: number }): number => metres - levelling.chart_datum_below,
     ladderSpan: (rows: DatumRow[]): number => ladderSpan(rows),
   };
 }

@@ -26,6 +26,7 @@ export interface IndexStation {
   timezone: string;
   tideType: string;
   invented: boolean;
+  number?: string; // the publisher's station number
   years: IndexYear[];
 }
 
@@ -87,7 +88,7 @@ function indexGroups(models: StationYear[]): IndexGroup[] {
     let entry = stations.get(st.id);
     if (!entry) {
       entry = { id: st.id, name: st.name, kind: st.kind, position: st.position, timezone: m.timezone,
-        tideType: m.tideType.label, invented: m.invented, years: [] };
+        tideType: m.tideType.label, invented: m.invented, ...(st.number === undefined ? {} : { number: st.number }), years: [] };
       stations.set(st.id, entry);
       referenceOf.set(st.id, st.kind === 'secondary' ? (m.reference ?? { id: st.reference, name: st.reference }) : null);
     }

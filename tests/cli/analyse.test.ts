@@ -84,6 +84,7 @@ describe('tidewright analyse', () => {
     expect(code).toBe(0);
     expect(stderr).toMatch(/^tidewright: \d+ readings over 30\.0 days: \d+ constituents, residual RMS 0\.0\d\d m/);
     expect(stdout).toMatch(/^# Harmonic constants of gull-gauge/);
+    expect(stdout).toMatch(/\nobservations: \{ from: 2027-03-01, to: 2027-03-(30|31), source: "Gauge record gull-gauge\.csv" \}\n$/);
     expect(stdout).toContain('\nid: gull-gauge\n');
     expect(stdout).toContain('\nposition: { latitude: 50, longitude: -4 }\n');
     expect(stdout).toMatch(/\n {2}M2: +\{ amplitude: 1\.60\d\d, phase: 1[23]\d\.\d\d \}/);
