@@ -2,7 +2,7 @@
 // renderSite (templates/site/render.ts) registers the filters and hands over the models before this
 // runs; started on its own (npx @11ty/eleventy) it takes the compiled filters from dist/ (npm ci builds
 // them), templates/_data asks the engine for the demo, and the site goes to out/site.
-import { dirname, join } from 'node:path';
+import { dirname, join, relative, sep } from 'node:path';
 import { fileURLToPath } from 'node:url';
 
 const root = dirname(fileURLToPath(import.meta.url));
@@ -15,7 +15,10 @@ export default async function (eleventyConfig) {
   }
   eleventyConfig.setUseGitIgnore(false);
   eleventyConfig.setNunjucksEnvironmentOptions({ autoescape: true, trimBlocks: true, lstripBlocks: true });
-  for (const folder of ['pdf', 'site', 'exports', 'report']) eleventyConfig.ignores.add(join(root, 'templates', folder, '**'));
+  // Eleventy matches ignore globs against paths relative to the working folder, not absolute ones.
+  for (const folder of ['pdf', 'site', 'exports', 'report']) {
+    eleventyConfig.ignores.add(`./${relative(process.cwd(), join(root, 'templates', folder)).split(sep).join('/')}/**`);
+  }
   eleventyConfig.addPassthroughCopy({ [join(root, 'templates', 'assets')]: 'assets' });
   return {
     // Absolute, so a build started from any folder finds the templates; renderSite chooses the output.
