@@ -15,6 +15,7 @@ interface CommandInfo {
 }
 
 export const COMMANDS: Readonly<Record<string, CommandInfo>> = {
+  init: { usage: 'init DIR', summary: 'a new almanac folder to start from: settings, example stations, README' },
   build: { usage: 'build [--stations DIR] [--year YYYY] [--out DIR]', summary: 'the website, PDF books and downloads for a whole station set' },
   check: { usage: 'check [--stations DIR]', summary: 'validate a station set and list every problem' },
   predict: { usage: 'predict STATION.yaml --from DATE --to DATE', summary: 'high and low waters (or heights every few minutes) for any span' },

@@ -1,0 +1,109 @@
+// The starter folder `tidewright init` writes: settings, one invented reference port and one secondary
+// port at sea (mid-ocean, far from any coast, with a time zone that fits the longitude), and a short
+// README for the publisher. Every file here must pass `tidewright check` (tests/cli/init.test.ts).
+
+export const STARTER_FILES: Readonly<Record<string, string>> = {
+  'tidewright.yaml': `# tidewright.yaml: the settings of this almanac. Every key is optional; delete a line to use the
+# default shown in its comment. Options given to \`tidewright build\` win over these.
+
+# Title on the book covers and the website.
+title: "Storm Petrel Bank Tide Tables (invented example)"
+
+# Who publishes it: printed on the covers and at the top of every web page.
+publisher: "Storm Petrel Bank Harbour Office (invented)"
+
+# Year of the almanac; leave it out to build next calendar year.
+# year: 2027
+
+# Page size of the PDF books: a5, a6, a4, letter or half-letter (default a5).
+page: a5
+
+# Heights in metres (m) or feet (ft) (default m).
+units: m
+
+# Language tag for dates and numbers, e.g. en-GB, en-US, fr, pt-PT.
+locale: en-GB
+
+# none, or saddle-stitch to print the books as fold-and-staple booklets (default none).
+imposition: none
+`,
+
+  'storm-petrel-bank.yaml': `# INVENTED example reference port, in open ocean far from any coast: replace it with your own.
+# Harmonic constants: amplitude in metres, Greenwich phase lag in degrees (UTC).
+id: storm-petrel-bank
+name: Storm Petrel Bank (invented)
+kind: reference
+position: { latitude: 36.5, longitude: -38.0 }
+timezone: America/Noronha
+datum: Chart Datum
+mean_level: 2.3
+constituents:
+  M2: { amplitude: 1.200, phase: 60.0 }
+  S2: { amplitude: 0.420, phase: 95.0 }
+  N2: { amplitude: 0.250, phase: 40.0 }
+  K2: { amplitude: 0.115, phase: 95.0 }
+  K1: { amplitude: 0.090, phase: 200.0 }
+  O1: { amplitude: 0.065, phase: 190.0 }
+  P1: { amplitude: 0.030, phase: 200.0 }
+  Q1: { amplitude: 0.013, phase: 180.0 }
+  M4: { amplitude: 0.030, phase: 120.0 }
+  MS4: { amplitude: 0.020, phase: 170.0 }
+provenance: "Invented for the tidewright starter folder: not a real place, not real constants"
+number: "0001"
+datum_authority: "Invented Hydrographic Service"
+`,
+
+  'shearwater-shoal.yaml': `# INVENTED example secondary port: its tides are those of the reference port, shifted by the time
+# differences (minutes, + later) and height differences (metres) at springs and neaps.
+id: shearwater-shoal
+name: Shearwater Shoal (invented)
+kind: secondary
+reference: storm-petrel-bank
+position: { latitude: 36.7, longitude: -38.3 }
+timezone: America/Noronha
+datum: Chart Datum
+differences:
+  high_water: { springs: { time: 20, height: -0.25 }, neaps: { time: 12, height: -0.15 } }
+  low_water: { springs: { time: 35, height: -0.05 }, neaps: { time: 25, height: -0.02 } }
+provenance: "Invented for the tidewright starter folder: not a real place, not real differences"
+number: "0002"
+`,
+
+  'README.md': `# Your tide almanac
+
+This folder is a tidewright almanac to start from. The two stations in it are **invented** and lie in
+open ocean: replace them with your own before you publish anything.
+
+## What is here
+
+- \`tidewright.yaml\`: the title, publisher, page size, units and language of your almanac, each line
+  explained.
+- \`storm-petrel-bank.yaml\`: an example *reference port*: harmonic constants of the tide there.
+- \`shearwater-shoal.yaml\`: an example *secondary port*: time and height differences from the reference
+  port.
+
+## Put in your own stations
+
+1. For each reference port write a file like \`storm-petrel-bank.yaml\` with its constants, from your
+   hydrographic office or from a year of gauge readings: \`npx tidewright analyse gauge.csv --latitude …
+   --longitude … --timezone … --output my-port.yaml\` writes one for you.
+2. For each secondary port write a file like \`shearwater-shoal.yaml\`, or get its differences from a
+   few weeks of readings: \`npx tidewright differences cove.csv --reference my-port.yaml --output cove.yaml\`.
+3. Delete the two example files.
+4. \`npx tidewright check --stations .\` lists every problem in every file, with the fix.
+
+## Build
+
+    npx tidewright build --stations . --out out
+
+The website goes to \`out/site/\` (open \`out/site/index.html\`, or upload the folder), the PDF books to
+\`out/pdf/\`, and the data files (CSV, JSON, calendar) to \`out/data/\`. A build replaces \`out/\` whole,
+and only when it succeeds.
+
+## Caution
+
+The predictions are astronomical only: wind, atmospheric pressure and river flow change real heights
+and times. They do not replace the official tide tables or local notices; defer to the harbour
+authority and licensed practice. Every page and book tidewright makes says so.
+`,
+};
