@@ -42,7 +42,7 @@ equilibrium tide and the neighbour's phase lag. The file and the report say whic
                      with 95 % intervals and the constituents the record could not separate
   --force            replace --output or --report if the file exists (never an input of this run)
 
-Example: tidewright analyse quay-gauge.csv --latitude 50.12 --longitude -4.87 --timezone Europe/Lisbon --report fit.html
+Example: tidewright analyse quay-gauge.csv --latitude 47.6 --longitude -15.8 --timezone Europe/Lisbon --report fit.html
 `;
 
 export async function runAnalyse(argv: string[]): Promise<number> {
@@ -87,7 +87,7 @@ export async function runAnalyse(argv: string[]): Promise<number> {
 
 // ---- shared with cli/differences.ts ------------------------------------------------------------
 
-/** `--longitude -4.87` as `--longitude=-4.87`, so a negative number is read as the value, not an option. */
+/** `--longitude -15.8` as `--longitude=-15.8`, so a negative number is read as the value, not an option. */
 export function withNegativeNumbers(argv: readonly string[]): string[] {
   const out: string[] = [];
   for (let i = 0; i < argv.length; i++) {
@@ -128,8 +128,8 @@ export function stationMeta(
     if (fallback !== undefined) return String(fallback);
     throw new UsageError(`--${option}`, `is missing (tidewright ${command} needs it for the station file)`, `add --${option} ${example}`);
   };
-  const latitude = numberOption('--latitude', required('latitude', values.latitude, defaults.latitude, '50.12'), -90, 90, 'degrees north positive, e.g. --latitude 50.12');
-  const longitude = numberOption('--longitude', required('longitude', values.longitude, defaults.longitude, '-4.87'), -180, 180, 'degrees east positive, e.g. --longitude -4.87');
+  const latitude = numberOption('--latitude', required('latitude', values.latitude, defaults.latitude, '47.6'), -90, 90, 'degrees north positive, e.g. --latitude 47.6');
+  const longitude = numberOption('--longitude', required('longitude', values.longitude, defaults.longitude, '-15.8'), -180, 180, 'degrees east positive, e.g. --longitude -15.8');
   const timezone = required('timezone', values.timezone, defaults.timezone, 'Europe/Lisbon');
   if (!IANAZone.isValidZone(timezone)) {
     throw new UsageError('--timezone', `"${timezone}" is not a known IANA time zone`, 'write a name such as Europe/Lisbon or Pacific/Auckland');
@@ -142,7 +142,7 @@ export function stationMeta(
   const name = values.name ?? stem;
   const datum = values.datum ?? defaults.datum;
   for (const [option, text] of [['--name', name], ['--datum', datum]] as const) {
-    if (text.trim() === '') throw new UsageError(option, 'is empty', `write some text, e.g. ${option} "Gannet Head"`);
+    if (text.trim() === '') throw new UsageError(option, 'is empty', `write some text, e.g. ${option} "Brinewold Head"`);
   }
   return { id, name, latitude, longitude, timezone, datum };
 }

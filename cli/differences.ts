@@ -31,7 +31,7 @@ heights in metres on the secondary port's datum).
   --output FILE      write the station file there instead of printing it
   --force            replace --output if the file exists (never an input of this run)
 
-Example: tidewright differences cove-gauge.csv --reference stations-demo/gannet-head.yaml --latitude 50.21 --longitude -4.95
+Example: tidewright differences cove-gauge.csv --reference stations-demo/brinewold-head.yaml --latitude 47.7 --longitude -15.95
 `;
 
 export async function runDifferences(argv: string[]): Promise<number> {
@@ -53,7 +53,7 @@ export async function runDifferences(argv: string[]): Promise<number> {
   }
   const [file] = positionalArguments('differences', positionals, ['SECONDARY.csv']) as [string];
   if (values.reference === undefined) {
-    throw new UsageError('--reference', 'is missing', 'add --reference with the reference port\'s station file, e.g. --reference stations-demo/gannet-head.yaml');
+    throw new UsageError('--reference', 'is missing', 'add --reference with the reference port\'s station file, e.g. --reference stations-demo/brinewold-head.yaml');
   }
   const targets = outputTargets({ output: values.output });
   const inputs = [file, values.reference];

@@ -35,7 +35,7 @@ ebb (rates in knots, directions in degrees true), or with --every the stream's v
   --stations DIR    the station set a secondary port's reference port is found in
                     (default: the folder of STATION.yaml)
 
-Example: tidewright predict stations-demo/gannet-head.yaml --from 2027-01-01 --to 2027-02-01 --format json
+Example: tidewright predict stations-demo/brinewold-head.yaml --from 2027-01-01 --to 2027-02-01 --format json
 `;
 
 interface PredictRequest {

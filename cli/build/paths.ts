@@ -22,7 +22,7 @@ export function stationYearFile(dir: string, id: string, year: number, ext: stri
   return path;
 }
 
-/** A name for the combined book from the project title: "Gannet Bay Almanac" → "gannet-bay-almanac". */
+/** A name for the combined book from the project title: "Brinewold Bay Almanac" → "brinewold-bay-almanac". */
 export function slugOf(text: string): string {
   return text
     .normalize('NFKD')

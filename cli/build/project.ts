@@ -22,8 +22,8 @@ export interface ProjectSettings {
 }
 
 const FIELD_FIX: Readonly<Record<keyof ProjectSettings, string>> = {
-  title: 'write the almanac title as text, e.g. title: Gannet Bay Tide Almanac',
-  publisher: 'write who publishes it as text, e.g. publisher: Gannet Bay Harbour Office',
+  title: 'write the almanac title as text, e.g. title: Brinewold Bay Tide Almanac',
+  publisher: 'write who publishes it as text, e.g. publisher: Brinewold Bay Harbour Office',
   year: `write a whole year from ${FIRST_YEAR} to ${LAST_YEAR}, e.g. year: 2027, or leave the key out for next year`,
   page: `write one of ${PAGE_SIZES.join(', ')}, e.g. page: a5`,
   units: 'write units: m (metres) or units: ft (feet)',

@@ -19,7 +19,7 @@ function fail(ctx: CheckContext, problem: string, fix: string): void {
   ctx.issues.push({ code: 'custom', input: ctx.value, message: problem, params: { problem, fix } });
 }
 
-/** Turns free text into a plausible id: "Gannet Head" → "gannet-head". */
+/** Turns free text into a plausible id: "Brinewold Head" → "brinewold-head". */
 export function idFromText(text: string): string {
   const slug = text
     .normalize('NFKD')
@@ -34,7 +34,7 @@ export function idFromText(text: string): string {
 function checkId(ctx: CheckContext): void {
   const id = ctx.value;
   if (id === '') {
-    fail(ctx, 'is empty', 'write lower-case letters, digits and hyphens, e.g. gannet-head');
+    fail(ctx, 'is empty', 'write lower-case letters, digits and hyphens, e.g. brinewold-head');
   } else if (id.length > 64) {
     fail(ctx, `"${id.slice(0, 20)}…" is ${id.length} characters long`, 'write a short id of at most 64 characters');
   } else if (!STATION_ID_PATTERN.test(id)) {
@@ -245,21 +245,21 @@ export function keyOfOtherKind(key: string, kind: StationKind): StationKind | un
 /** What to write, for each field (`*` stands for a constituent name). */
 export const FIELD_HELP: Readonly<Record<string, string>> = {
   '': 'write the station as key: value lines starting with id:, name:, kind:',
-  id: 'write lower-case letters, digits and hyphens, e.g. id: gannet-head',
-  name: 'write the station name as text, e.g. name: Gannet Head',
+  id: 'write lower-case letters, digits and hyphens, e.g. id: brinewold-head',
+  name: 'write the station name as text, e.g. name: Brinewold Head',
   kind: 'write kind: reference (a port with harmonic constants), kind: secondary (a port with time and height differences), kind: stream or kind: stream-secondary (tidal streams)',
-  position: 'write position: { latitude: 50.12, longitude: -4.87 }',
-  'position.latitude': 'write degrees from -90 to 90, north positive, e.g. latitude: 50.12',
-  'position.longitude': 'write degrees from -180 to 180, east positive, e.g. longitude: -4.87',
+  position: 'write position: { latitude: 47.60, longitude: -15.80 }',
+  'position.latitude': 'write degrees from -90 to 90, north positive, e.g. latitude: 47.6',
+  'position.longitude': 'write degrees from -180 to 180, east positive, e.g. longitude: -15.8',
   timezone: 'write an IANA time zone name such as Europe/Lisbon or Pacific/Auckland',
   datum: 'write the name of the zero for heights, e.g. datum: Chart Datum',
   provenance: 'write where the constants came from, e.g. provenance: "Harbour gauge 2019-2020"',
   datum_epoch: 'write the first year of the 19-year span for LAT and HAT as a whole year, e.g. datum_epoch: 2020, or leave it out',
-  mean_level: 'write Z0, the mean level in metres above the datum, e.g. mean_level: 2.41',
-  constituents: 'write one line per constituent, e.g. M2: { amplitude: 1.621, phase: 135.2 }',
-  'constituents.*': 'write { amplitude: metres, phase: degrees }, e.g. M2: { amplitude: 1.621, phase: 135.2 }',
-  'constituents.*.amplitude': 'write the amplitude in metres, zero or more, e.g. amplitude: 1.621',
-  'constituents.*.phase': 'write the Greenwich phase lag in degrees from 0 up to (not including) 360, e.g. phase: 135.2',
+  mean_level: 'write Z0, the mean level in metres above the datum, e.g. mean_level: 2.52',
+  constituents: 'write one line per constituent, e.g. M2: { amplitude: 1.734, phase: 211.6 }',
+  'constituents.*': 'write { amplitude: metres, phase: degrees }, e.g. M2: { amplitude: 1.734, phase: 211.6 }',
+  'constituents.*.amplitude': 'write the amplitude in metres, zero or more, e.g. amplitude: 1.734',
+  'constituents.*.phase': 'write the Greenwich phase lag in degrees from 0 up to (not including) 360, e.g. phase: 211.6',
   number: 'write the publisher\'s station number as quoted text, e.g. number: "0412", or leave it out',
   levelling: 'write levelling: { datum: "Land Levelling Datum", chart_datum_below: 2.71 }, or leave it out',
   'levelling.datum': 'write the name of the land-levelling datum, e.g. datum: "Land Levelling Datum"',
@@ -269,7 +269,7 @@ export const FIELD_HELP: Readonly<Record<string, string>> = {
   'observations.to': 'write the last day of the observations, e.g. to: 2020-02-29',
   'observations.source': 'write where the observations come from, e.g. source: "Harbour gauge"',
   datum_authority: 'write who sets the chart datum here, e.g. datum_authority: "Hydrographic Office", or leave it out',
-  reference: 'write the id of a reference port in the same folder, e.g. reference: gannet-head',
+  reference: 'write the id of a reference port in the same folder, e.g. reference: brinewold-head',
   differences: 'write differences: with high_water: and low_water:, each with springs: and neaps: { time: minutes, height: metres }',
   'differences.*': 'write e.g. { springs: { time: 25, height: -0.30 }, neaps: { time: 15, height: -0.20 } }',
   'differences.*.*': 'write e.g. { time: 25, height: -0.30 }',

@@ -40,7 +40,7 @@ export function unitWord(units: HeightUnits): string {
   return units === 'ft' ? 'feet' : 'metres';
 }
 
-/** Latitude or longitude as degrees and decimal minutes: 50°07.20′ N. */
+/** Latitude or longitude as degrees and decimal minutes: 47°36.00′ N. */
 export function formatAngle(deg: number, positive: string, negative: string): string {
   const abs = Math.abs(deg);
   let d = Math.floor(abs);

@@ -33,7 +33,7 @@ export function unitName(units: Units): string {
   return units === 'ft' ? 'feet' : 'metres';
 }
 
-/** One coordinate as degrees and decimal minutes with a hemisphere letter, e.g. 50°07.2′ N. */
+/** One coordinate as degrees and decimal minutes with a hemisphere letter, e.g. 47°36.0′ N. */
 export function coordinate(value: number, positive: string, negative: string): string {
   const hemi = value < 0 ? negative : positive;
   let tenths = Math.round(Math.abs(value) * 600); // tenths of a minute

@@ -20,7 +20,7 @@ export function projectRoot(): string {
 }
 
 /**
- * A link from the page at `fromUrl` to the site path `to` (both root-relative, e.g. "/gannet-head/2027/").
+ * A link from the page at `fromUrl` to the site path `to` (both root-relative, e.g. "/brinewold-head/2027/").
  * Folder targets get an explicit index.html so links also work when the site is opened from disk.
  */
 export function relativeUrl(to: string, fromUrl: string): string {

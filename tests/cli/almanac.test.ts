@@ -19,36 +19,36 @@ afterAll(() => rmSync(scratch, { recursive: true, force: true }));
 
 describe('almanac --format json', () => {
   it('prints exactly the engine model of a secondary port, found through its own folder', async () => {
-    const { code, stdout, stderr } = await runCli(['almanac', join(DEMO, 'pilchard-cove.yaml'), '--year', '2027', '--format', 'json']);
+    const { code, stdout, stderr } = await runCli(['almanac', join(DEMO, 'saltgrist-cove.yaml'), '--year', '2027', '--format', 'json']);
     expect(stderr).toBe('');
     expect(code).toBe(0);
     const printed = JSON.parse(stdout) as StationYear;
     const set = loadStationSet(DEMO);
-    const model = buildStationYear(set.byId.get('pilchard-cove')!, set, 2027);
+    const model = buildStationYear(set.byId.get('saltgrist-cove')!, set, 2027);
     expect(printed).toEqual(JSON.parse(JSON.stringify(model)));
-    expect(printed.reference).toEqual({ id: 'gannet-head', name: 'Gannet Head (invented)' });
+    expect(printed.reference).toEqual({ id: 'brinewold-head', name: 'Brinewold Head (invented)' });
     expect(printed.events[0]).toEqual(model.events[0]);
     expect(Object.keys(printed.events[0]!)).toEqual(['time', 'local', 'clock', 'offset', 'type', 'height', 'belowDatum']);
   });
 
   it('finds the reference port through --stations when the file stands alone', async () => {
-    cpSync(join(DEMO, 'limpet-harbour.yaml'), join(scratch, 'limpet-harbour.yaml'));
-    const alone = await runCli(['almanac', join(scratch, 'limpet-harbour.yaml'), '--year', '2027', '--format', 'json']);
+    cpSync(join(DEMO, 'kelpmoor-harbour.yaml'), join(scratch, 'kelpmoor-harbour.yaml'));
+    const alone = await runCli(['almanac', join(scratch, 'kelpmoor-harbour.yaml'), '--year', '2027', '--format', 'json']);
     expect(alone.code).toBe(1);
-    expect(alone.stderr).toMatch(/^tidewright: .*limpet-harbour\.yaml: reference: .*gannet-head/);
+    expect(alone.stderr).toMatch(/^tidewright: .*kelpmoor-harbour\.yaml: reference: .*brinewold-head/);
     expect(alone.stderr.trim().split('\n').length).toBe(1);
-    const found = await runCli(['almanac', join(scratch, 'limpet-harbour.yaml'), '--year', '2027', '--stations', DEMO, '--format', 'json']);
+    const found = await runCli(['almanac', join(scratch, 'kelpmoor-harbour.yaml'), '--year', '2027', '--stations', DEMO, '--format', 'json']);
     expect(found.stderr).toBe('');
     expect(found.code).toBe(0);
-    expect((JSON.parse(found.stdout) as StationYear).reference?.id).toBe('gannet-head');
+    expect((JSON.parse(found.stdout) as StationYear).reference?.id).toBe('brinewold-head');
   });
 });
 
 describe('almanac table and errors', () => {
   it('prints a short summary with datums, months, warnings and the caution', async () => {
-    const { code, stdout } = await runCli(['almanac', join(DEMO, 'gannet-head.yaml'), '--year', '2027']);
+    const { code, stdout } = await runCli(['almanac', join(DEMO, 'brinewold-head.yaml'), '--year', '2027']);
     expect(code).toBe(0);
-    expect(stdout).toMatch(/Gannet Head \(invented\).*2027.*Europe\/Lisbon.*INVENTED/);
+    expect(stdout).toMatch(/Brinewold Head \(invented\).*2027.*Europe\/Lisbon.*INVENTED/);
     expect(stdout).toMatch(/LAT -?\d+\.\d\d m/);
     expect(stdout).toMatch(/^January +\d+ +\d+/m);
     expect(stdout).toMatch(/^December +\d+ +\d+/m);
@@ -59,9 +59,9 @@ describe('almanac table and errors', () => {
   it('answers bad input with one line and exit code 1', async () => {
     const cases: [string[], RegExp][] = [
       [['almanac', join(DEMO, 'nowhere.yaml')], /nowhere\.yaml: \(file\): does not exist/],
-      [['almanac', join(DEMO, 'gannet-head.yaml'), '--year', '27'], /--year: "27" is not a year/],
-      [['almanac', join(DEMO, 'gannet-head.yaml'), '--format', 'csv'], /--format/],
-      [['almanac', join(DEMO, 'gannet-head.yaml'), '--yeer', '2027'], /did you mean --year/],
+      [['almanac', join(DEMO, 'brinewold-head.yaml'), '--year', '27'], /--year: "27" is not a year/],
+      [['almanac', join(DEMO, 'brinewold-head.yaml'), '--format', 'csv'], /--format/],
+      [['almanac', join(DEMO, 'brinewold-head.yaml'), '--yeer', '2027'], /did you mean --year/],
       [['almanac'], /STATION\.yaml: is missing/],
     ];
     for (const [argv, pattern] of cases) {

@@ -24,7 +24,7 @@ const STEP = 10 * 60_000;
 // Invented ports, realistic in magnitude; the lines a month cannot separate (K2, P1, NU2, 2N2, L2, T2)
 // stand to their neighbours as in the equilibrium tide, as at most real ports.
 const reference: ReferenceStation = {
-  id: 'gull-point', name: 'Gull Point (invented)', kind: 'reference', position: { latitude: 50, longitude: -4 },
+  id: 'gull-point', name: 'Gull Point (invented)', kind: 'reference', position: { latitude: 47, longitude: -16 },
   timezone: 'Europe/London', datum: 'Chart Datum', mean_level: 3,
   constituents: {
     M2: { amplitude: 1.6, phase: 130 }, S2: { amplitude: 0.55, phase: 175 }, N2: { amplitude: 0.3, phase: 110 },
@@ -37,7 +37,7 @@ const reference: ReferenceStation = {
 const REFERENCE_YAML = `id: gull-point
 name: Gull Point (invented)
 kind: reference
-position: { latitude: 50, longitude: -4 }
+position: { latitude: 47, longitude: -16 }
 timezone: Europe/London
 datum: Chart Datum
 mean_level: 3
@@ -58,7 +58,7 @@ provenance: Invented for the command-line test
 `;
 const secondary: SecondaryStation = {
   id: 'pipit-creek', name: 'Pipit Creek (invented)', kind: 'secondary', reference: 'gull-point',
-  position: { latitude: 50.1, longitude: -4.1 }, timezone: 'Europe/London', datum: 'Chart Datum',
+  position: { latitude: 47.1, longitude: -16.1 }, timezone: 'Europe/London', datum: 'Chart Datum',
   differences: {
     high_water: { springs: { time: 25, height: -0.3 }, neaps: { time: 15, height: -0.2 } },
     low_water: { springs: { time: 40, height: -0.1 }, neaps: { time: 30, height: -0.05 } },
@@ -80,13 +80,13 @@ writeFileSync(creekCsv, recordCsv(degrade(
 
 describe('tidewright analyse', () => {
   it('prints a station file the loader accepts, with the constants of the record', async () => {
-    const { code, stdout, stderr } = await runCli(['analyse', gaugeCsv, '--latitude', '50', '--longitude', '-4', '--timezone', 'Europe/London']);
+    const { code, stdout, stderr } = await runCli(['analyse', gaugeCsv, '--latitude', '47', '--longitude', '-16', '--timezone', 'Europe/London']);
     expect(code).toBe(0);
     expect(stderr).toMatch(/^tidewright: \d+ readings over 30\.0 days: \d+ constituents, residual RMS 0\.0\d\d m/);
     expect(stdout).toMatch(/^# Harmonic constants of gull-gauge/);
     expect(stdout).toMatch(/\nobservations: \{ from: 2027-03-01, to: 2027-03-(30|31), source: "Gauge record gull-gauge\.csv" \}\n$/);
     expect(stdout).toContain('\nid: gull-gauge\n');
-    expect(stdout).toContain('\nposition: { latitude: 50, longitude: -4 }\n');
+    expect(stdout).toContain('\nposition: { latitude: 47, longitude: -16 }\n');
     expect(stdout).toMatch(/\n {2}M2: +\{ amplitude: 1\.60\d\d, phase: 1[23]\d\.\d\d \}/);
     expect(stdout.replace(/\n# /g, ' ')).toContain('Inferred, not fitted (the record cannot separate them): each takes its ' +
       'separated neighbour\'s phase lag and the amplitude ratio of the equilibrium tide (Foreman 1977; Pugh 1987): K2 from S2 (ratio 0.2721)');
@@ -98,7 +98,7 @@ describe('tidewright analyse', () => {
   it('writes --output and an HTML --report, with id, name and datum as given', async () => {
     const output = join(dir, 'out', 'gull.yaml');
     const report = join(dir, 'out', 'gull.html');
-    const { code, stdout } = await runCli(['analyse', gaugeCsv, '--latitude=50.0', '--longitude', '-4.0', '--timezone', 'Europe/London',
+    const { code, stdout } = await runCli(['analyse', gaugeCsv, '--latitude=47.0', '--longitude', '-16.0', '--timezone', 'Europe/London',
       '--id', 'gull-gauge-2027', '--name', 'Gull Point gauge', '--datum', 'Chart Datum', '--rayleigh', '1.5', '--output', output, '--report', report]);
     expect(code).toBe(0);
     expect(stdout).toBe('');
@@ -108,7 +108,7 @@ describe('tidewright analyse', () => {
     // R = 1.5: 30 days < 1.5 × 27.55 days, so N2 is left out (and its energy leaks into M2 nearby)
     expect(station.constituents['N2']).toBeUndefined();
     expect(readFileSync(output, 'utf8')).toContain('N2 (from M2: needs 41.3 days)');
-    expect(station.constituents['S2']!.amplitude).toBeCloseTo(0.55, 1);
+    expect(station.constituents['S2']!.amplitude).toBeCloseTo(0.58, 1);
     expect(station.provenance).toMatch(/^Derived by tidewright from the gauge record gull-gauge\.csv .* \(R = 1\.5\)$/);
     const html = readFileSync(report, 'utf8');
     expect(html).toContain('<h1>Harmonic analysis: Gull Point gauge</h1>');
@@ -116,13 +116,13 @@ describe('tidewright analyse', () => {
   });
 
   it.each([
-    [['--longitude', '-4', '--timezone', 'Europe/London'], /^tidewright: --latitude: is missing .*; add --latitude 50\.12\n$/],
-    [['--latitude', '95', '--longitude', '-4', '--timezone', 'Europe/London'], /^tidewright: --latitude: "95" is not a number from -90 to 90; /],
-    [['--latitude', '50', '--longitude', '-4', '--timezone', 'Europe/Londn'], /^tidewright: --timezone: "Europe\/Londn" is not a known IANA time zone; /],
-    [['--latitude', '50', '--longitude', '-4', '--timezone', 'UTC', '--id', 'Gull Point'], /^tidewright: --id: "Gull Point" may only hold .*; write --id gull-point\n$/],
-    [['--latitude', '50', '--longitude', '-4', '--timezone', 'UTC', '--rayleigh', 'lots'], /^tidewright: --rayleigh: "lots" is not a number/],
-    [['--latitude', '50', '--longitude', '-4', '--timezone', 'UTC', '--rayleigh', '0.2'], /^tidewright: --rayleigh: "0\.2" is not a number from 0\.5 to 10; /],
-    [['--latitude', '50', '--longitude', '-4', '--timezone', 'UTC', '--colour', 'red'], /^tidewright: --colour: is not an option of tidewright analyse/],
+    [['--longitude', '-16', '--timezone', 'Europe/London'], /^tidewright: --latitude: is missing .*; add --latitude 47\.6\n$/],
+    [['--latitude', '95', '--longitude', '-16', '--timezone', 'Europe/London'], /^tidewright: --latitude: "95" is not a number from -90 to 90; /],
+    [['--latitude', '47', '--longitude', '-16', '--timezone', 'Europe/Londn'], /^tidewright: --timezone: "Europe\/Londn" is not a known IANA time zone; /],
+    [['--latitude', '47', '--longitude', '-16', '--timezone', 'UTC', '--id', 'Gull Point'], /^tidewright: --id: "Gull Point" may only hold .*; write --id gull-point\n$/],
+    [['--latitude', '47', '--longitude', '-16', '--timezone', 'UTC', '--rayleigh', 'lots'], /^tidewright: --rayleigh: "lots" is not a number/],
+    [['--latitude', '47', '--longitude', '-16', '--timezone', 'UTC', '--rayleigh', '0.2'], /^tidewright: --rayleigh: "0\.2" is not a number from 0\.5 to 10; /],
+    [['--latitude', '47', '--longitude', '-16', '--timezone', 'UTC', '--colour', 'red'], /^tidewright: --colour: is not an option of tidewright analyse/],
   ])('refuses bad options in one line, exit code 1: %j', async (options, message) => {
     const output = join(dir, 'never.yaml');
     const { code, stdout, stderr } = await runCli(['analyse', gaugeCsv, ...options, '--output', output]);
@@ -144,7 +144,7 @@ describe('tidewright analyse', () => {
     ['no-such-file.csv', /^tidewright: .*no-such-file\.csv: file: no such file; give the path of a CSV file/],
   ])('refuses the bad record %s in one line naming file, field and fix', async (name, message) => {
     const report = join(dir, 'never.html');
-    const { code, stdout, stderr } = await runCli(['analyse', join(FIXTURES, name), '--latitude', '50', '--longitude', '-4',
+    const { code, stdout, stderr } = await runCli(['analyse', join(FIXTURES, name), '--latitude', '47', '--longitude', '-16',
       '--timezone', 'UTC', '--report', report]);
     expect(code).toBe(1);
     expect(stdout).toBe('');
@@ -164,14 +164,14 @@ describe('tidewright analyse', () => {
 describe('tidewright differences', () => {
   it('prints the secondary station file with the differences of the record', async () => {
     const { code, stdout, stderr } = await runCli(['differences', creekCsv, '--reference', referenceFile,
-      '--latitude', '50.1', '--longitude', '-4.1', '--name', 'Pipit Creek (invented)']);
+      '--latitude', '47.1', '--longitude', '-16.1', '--name', 'Pipit Creek (invented)']);
     expect(code).toBe(0);
     expect(stderr).toMatch(/^tidewright: \d+ high and \d+ low waters matched to gull-point; RMS of the fit: high water \d\.\d min/);
     const file = join(dir, 'pipit-creek.yaml');
     writeFileSync(file, stdout);
     const station = loadStationFile(file);
     if (station.kind !== 'secondary') throw new Error('expected a secondary port');
-    expect(station).toMatchObject({ id: 'pipit-creek', reference: 'gull-point', position: { latitude: 50.1, longitude: -4.1 }, timezone: 'Europe/London' });
+    expect(station).toMatchObject({ id: 'pipit-creek', reference: 'gull-point', position: { latitude: 47.1, longitude: -16.1 }, timezone: 'Europe/London' });
     const d = station.differences;
     expect(Math.abs(d.high_water.springs.time - 25)).toBeLessThanOrEqual(2);
     expect(Math.abs(d.low_water.neaps.time - 30)).toBeLessThanOrEqual(2);
@@ -182,8 +182,8 @@ describe('tidewright differences', () => {
   it('takes position and time zone from the reference port when not given, and says so', async () => {
     const { code, stdout } = await runCli(['differences', creekCsv, '--reference', referenceFile]);
     expect(code).toBe(0);
-    expect(stdout).toContain('position: { latitude: 50, longitude: -4 }');
-    expect(stdout).toMatch(/# The position is the reference port's \(50, -4\); replace it with this port's own\./);
+    expect(stdout).toContain('position: { latitude: 47, longitude: -16 }');
+    expect(stdout).toMatch(/# The position is the reference port's \(47, -16\); replace it with this port's own\./);
     expect(stdout).toMatch(/# The record's heights are taken to be above this port's Chart Datum;/);
   });
 
@@ -196,7 +196,7 @@ describe('tidewright differences', () => {
 name: Pipit Creek (invented)
 kind: secondary
 reference: gull-point
-position: { latitude: 50.1, longitude: -4.1 }
+position: { latitude: 47.1, longitude: -16.1 }
 timezone: Europe/London
 datum: Chart Datum
 differences:

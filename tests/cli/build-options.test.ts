@@ -67,12 +67,12 @@ describe('project file', () => {
 
   it('holds what a publisher sets once', () => {
     const dir = stationsWithProject([
-      'title: Gannet Bay Tide Almanac', 'publisher: Gannet Bay Harbour Office', 'year: 2028', 'page: a6',
+      'title: Brinewold Bay Tide Almanac', 'publisher: Brinewold Bay Harbour Office', 'year: 2028', 'page: a6',
       'units: ft', 'locale: en-GB', 'imposition: saddle-stitch', '',
     ].join('\n'));
     expect(loadProjectFile(dir)).toEqual({
       file: join(dir, 'tidewright.yaml'),
-      settings: { title: 'Gannet Bay Tide Almanac', publisher: 'Gannet Bay Harbour Office', year: 2028, page: 'a6',
+      settings: { title: 'Brinewold Bay Tide Almanac', publisher: 'Brinewold Bay Harbour Office', year: 2028, page: 'a6',
         units: 'ft', locale: 'en-GB', imposition: 'saddle-stitch' },
     });
   });

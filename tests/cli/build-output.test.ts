@@ -160,7 +160,7 @@ describe('recoverStale', () => {
 
 describe('file names from station ids', () => {
   it('stay inside their folder', () => {
-    expect(stationYearFile('/o/pdf', 'gannet-head', 2027, 'pdf')).toBe('/o/pdf/gannet-head-2027.pdf');
+    expect(stationYearFile('/o/pdf', 'brinewold-head', 2027, 'pdf')).toBe('/o/pdf/brinewold-head-2027.pdf');
     for (const id of ['../evil', 'a/b', '..', 'A', 'x\u0000', '', 'é']) {
       expect(() => stationYearFile('/o/pdf', id, 2027, 'pdf')).toThrow(/refusing/);
       expect(() => assertSafeId(id)).toThrow(/refusing/);
@@ -168,10 +168,10 @@ describe('file names from station ids', () => {
   });
 
   it('give the combined book a name of its own', () => {
-    expect(combinedBookName(undefined, ['gannet-head'])).toBe('almanac');
-    expect(combinedBookName('Gannet Bay: Tides & Times', [])).toBe('gannet-bay-tides-times');
+    expect(combinedBookName(undefined, ['brinewold-head'])).toBe('almanac');
+    expect(combinedBookName('Brinewold Bay: Tides & Times', [])).toBe('brinewold-bay-tides-times');
     expect(combinedBookName('../../etc', [])).toBe('etc');
-    expect(combinedBookName('Gannet Head', ['gannet-head'])).toBe('gannet-head-all');
+    expect(combinedBookName('Brinewold Head', ['brinewold-head'])).toBe('brinewold-head-all');
     expect(combinedBookName(undefined, ['almanac', 'almanac-all'])).toBe('almanac-all-all');
     expect(combinedBookName('***', [])).toBe('almanac');
   });

@@ -97,7 +97,7 @@ describe('workerExecArgv', () => {
 
 describe('errors crossing threads', () => {
   it('keep their class and fields', () => {
-    const original = new StationFileError('a.yaml', 'id', 'has a slash', 'write gannet-head');
+    const original = new StationFileError('a.yaml', 'id', 'has a slash', 'write brinewold-head');
     const back = deserializeError(structuredClone(serializeError(original)));
     expect(back).toBeInstanceOf(StationFileError);
     expect(back.message).toBe(original.message);

@@ -157,9 +157,9 @@ describe('buildAlmanac', () => {
   });
 
   it('names the combined book after the project title', async () => {
-    const p = plan({ render: { units: 'm', page: 'a5', imposition: 'none', title: 'Gannet Bay Almanac' } });
+    const p = plan({ render: { units: 'm', page: 'a5', imposition: 'none', title: 'Brinewold Bay Almanac' } });
     await buildAlmanac(p, stubs(SET), quietEvents());
-    expect(existsSync(join(p.outDir, 'pdf', 'gannet-bay-almanac-2027.pdf'))).toBe(true);
+    expect(existsSync(join(p.outDir, 'pdf', 'brinewold-bay-almanac-2027.pdf'))).toBe(true);
   });
 
   it('lists every station problem and writes nothing', async () => {

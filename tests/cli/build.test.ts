@@ -50,12 +50,12 @@ function treeHash(dir: string): Record<string, string> {
 }
 
 let n = 0;
-/** A small station set: the demo's Gannet Head and its secondary port Pilchard Cove, as given or edited. */
+/** A small station set: the demo's Brinewold Head and its secondary port Saltgrist Cove, as given or edited. */
 function stationSet(edit: (dir: string) => void = () => {}): string {
   const dir = join(work, `stations-${n++}`);
   mkdirSync(dir);
-  copyFileSync(join(DEMO, 'gannet-head.yaml'), join(dir, 'gannet-head.yaml'));
-  copyFileSync(join(DEMO, 'pilchard-cove.yaml'), join(dir, 'pilchard-cove.yaml'));
+  copyFileSync(join(DEMO, 'brinewold-head.yaml'), join(dir, 'brinewold-head.yaml'));
+  copyFileSync(join(DEMO, 'saltgrist-cove.yaml'), join(dir, 'saltgrist-cove.yaml'));
   edit(dir);
   return dir;
 }
@@ -66,11 +66,11 @@ function editFile(file: string, from: RegExp, to: string): void {
   writeFileSync(file, text.replace(from, to));
 }
 
-const HOSTILE = '<script>alert(1)</script> & Pilchard Cove (invented)';
+const HOSTILE = '<script>alert(1)</script> & Saltgrist Cove (invented)';
 const HOSTILE_PROVENANCE = 'Invented <img src=x onerror=alert(2)> & not real';
 const hostileSet = (dir: string): void => {
-  editFile(join(dir, 'pilchard-cove.yaml'), /^name: .*$/m, `name: "${HOSTILE}"`);
-  editFile(join(dir, 'pilchard-cove.yaml'), /^provenance: .*$/m, `provenance: "${HOSTILE_PROVENANCE}"`);
+  editFile(join(dir, 'saltgrist-cove.yaml'), /^name: .*$/m, `name: "${HOSTILE}"`);
+  editFile(join(dir, 'saltgrist-cove.yaml'), /^provenance: .*$/m, `provenance: "${HOSTILE_PROVENANCE}"`);
 };
 
 // One good build shared by several checks: the output a broken build must leave alone.
@@ -97,8 +97,8 @@ describe('a good build', () => {
     expect(goodRun.code).toBe(0);
     expect(goodRun.stdout).toMatch(/^built 2 stations for 2027: \d+ web pages, \d+ PDF pages, \d+ files \([\d.]+ MiB\) in \d+:\d\d with \d workers? → .*out\/\n$/);
     const files = Object.keys(goodHash);
-    for (const f of ['pdf/gannet-head-2027.pdf', 'pdf/pilchard-cove-2027.pdf', 'pdf/almanac-2027.pdf', 'site/index.html',
-      'data/gannet-head-2027.ics', 'data/pilchard-cove-2027-events.csv', 'data/pilchard-cove-2027-events.json']) {
+    for (const f of ['pdf/brinewold-head-2027.pdf', 'pdf/saltgrist-cove-2027.pdf', 'pdf/almanac-2027.pdf', 'site/index.html',
+      'data/brinewold-head-2027.ics', 'data/saltgrist-cove-2027-events.csv', 'data/saltgrist-cove-2027-events.json']) {
       expect(files).toContain(f);
     }
     expect(tempFoldersBeside(goodOut)).toEqual([]);
@@ -112,7 +112,7 @@ describe('a good build', () => {
       const html = readFileSync(join(goodOut, page), 'utf8');
       expect(html, page).not.toContain('<script>alert(1)');
       expect(html, page).not.toContain('<img src=x');
-      if (html.includes('&lt;script&gt;alert(1)&lt;/script&gt; &amp; Pilchard Cove')) names++;
+      if (html.includes('&lt;script&gt;alert(1)&lt;/script&gt; &amp; Saltgrist Cove')) names++;
       if (html.includes('Invented &lt;img src=x onerror=alert(2)&gt; &amp; not real')) provenances++;
     }
     expect(names).toBeGreaterThan(0);
@@ -120,9 +120,9 @@ describe('a good build', () => {
   });
 
   it.skipIf(!hasPdftotext)('prints the same texts literally in the PDF books', () => {
-    for (const book of ['pilchard-cove-2027.pdf', 'almanac-2027.pdf']) {
+    for (const book of ['saltgrist-cove-2027.pdf', 'almanac-2027.pdf']) {
       const text = execFileSync('pdftotext', [join(goodOut, 'pdf', book), '-'], { encoding: 'utf8' }).replace(/\s+/g, ' ');
-      expect(text, book).toContain('<script>alert(1)</script> & Pilchard Cove');
+      expect(text, book).toContain('<script>alert(1)</script> & Saltgrist Cove');
       expect(text, book).toContain(HOSTILE_PROVENANCE);
     }
   });
@@ -137,18 +137,18 @@ describe('a good build', () => {
 
 describe('a broken station set', () => {
   const faults: [string, (dir: string) => void, RegExp][] = [
-    ['YAML syntax', (d) => writeFileSync(join(d, 'tern-reach.yaml'), 'id: tern-reach\nname: [Tern Reach\nkind: reference\n'),
-      /tern-reach\.yaml: line \d+, column \d+: YAML syntax error/],
-    ['an unknown constituent', (d) => editFile(join(d, 'gannet-head.yaml'), /^ {2}M8: /m, '  MX8: '),
-      /gannet-head\.yaml: constituents\.MX8: .*not a constituent/],
-    ['an unknown time zone', (d) => editFile(join(d, 'gannet-head.yaml'), /^timezone: .*$/m, 'timezone: Europe/Lisbn'),
-      /gannet-head\.yaml: timezone: .*Europe\/Lisbn.*did you mean Europe\/Lisbon/],
-    ['a duplicate id', (d) => copyFileSync(join(d, 'gannet-head.yaml'), join(d, 'gannet-head-copy.yaml')),
-      /gannet-head(-copy)?\.yaml: id: "gannet-head" is also the id of .*gannet-head(-copy)?\.yaml/],
-    ['a missing reference port', (d) => editFile(join(d, 'pilchard-cove.yaml'), /^reference: .*$/m, 'reference: gannet-hed'),
-      /pilchard-cove\.yaml: reference: .*"gannet-hed".*did you mean gannet-head/],
-    ['an id with path characters', (d) => editFile(join(d, 'pilchard-cove.yaml'), /^id: .*$/m, 'id: ../evil'),
-      /pilchard-cove\.yaml: id: "\.\.\/evil" may only hold lower-case letters/],
+    ['YAML syntax', (d) => writeFileSync(join(d, 'palmsward-reach.yaml'), 'id: palmsward-reach\nname: [Palmsward Reach\nkind: reference\n'),
+      /palmsward-reach\.yaml: line \d+, column \d+: YAML syntax error/],
+    ['an unknown constituent', (d) => editFile(join(d, 'brinewold-head.yaml'), /^ {2}M8: /m, '  MX8: '),
+      /brinewold-head\.yaml: constituents\.MX8: .*not a constituent/],
+    ['an unknown time zone', (d) => editFile(join(d, 'brinewold-head.yaml'), /^timezone: .*$/m, 'timezone: Europe/Lisbn'),
+      /brinewold-head\.yaml: timezone: .*Europe\/Lisbn.*did you mean Europe\/Lisbon/],
+    ['a duplicate id', (d) => copyFileSync(join(d, 'brinewold-head.yaml'), join(d, 'brinewold-head-copy.yaml')),
+      /brinewold-head(-copy)?\.yaml: id: "brinewold-head" is also the id of .*brinewold-head(-copy)?\.yaml/],
+    ['a missing reference port', (d) => editFile(join(d, 'saltgrist-cove.yaml'), /^reference: .*$/m, 'reference: brinewold-hed'),
+      /saltgrist-cove\.yaml: reference: .*"brinewold-hed".*did you mean brinewold-head/],
+    ['an id with path characters', (d) => editFile(join(d, 'saltgrist-cove.yaml'), /^id: .*$/m, 'id: ../evil'),
+      /saltgrist-cove\.yaml: id: "\.\.\/evil" may only hold lower-case letters/],
   ];
 
   it.each(faults)('(%s) is refused with file and field, exit 1, and the previous output untouched', (_fault, edit, message) => {
@@ -191,7 +191,7 @@ describe('bad options', () => {
     const run = tidewright(['build', '--stations', goodStations, '--out', goodStations]);
     expect(run.code).toBe(1);
     expect(run.stderr).toMatch(/is the stations folder/);
-    expect(readdirSync(goodStations).sort()).toEqual(['gannet-head.yaml', 'pilchard-cove.yaml']);
+    expect(readdirSync(goodStations).sort()).toEqual(['brinewold-head.yaml', 'saltgrist-cove.yaml']);
   });
 });
 

@@ -18,11 +18,11 @@ describe('tidewright check', () => {
     const lines = stdout.trimEnd().split('\n').map((l) => l.replace(`${dir}/`, ''));
     // Schema problems, set problems and suspicious constants, grouped by file in name order.
     expect(lines.map((l) => l.split(': ').slice(0, 2).join(': '))).toEqual([
+      'brinewold-head.yaml: timezone',
+      'brinewold-head.yaml: constituents.M2.phase',
       'deep-steps.yaml: differences.low_water.springs.height',
-      'gannet-head.yaml: timezone',
-      'gannet-head.yaml: constituents.M2.phase',
       'no-m2.yaml: constituents.M2',
-      'pilchard-cove.yaml: reference',
+      'saltgrist-cove.yaml: reference',
       'slow-steps.yaml: differences.high_water.springs.time',
       'sunken-datum.yaml: mean_level',
       'tall-tales.yaml: constituents.M2.amplitude',

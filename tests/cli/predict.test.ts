@@ -16,9 +16,9 @@ import type { ReferenceStation } from '../../engine/types.js';
 const ROOT = join(import.meta.dirname, '..', '..');
 const GOOD = join(ROOT, 'tests', 'fixtures', 'stations-good');
 const DEMO = join(ROOT, 'stations-demo');
-const GANNET = join(GOOD, 'gannet-head.yaml'); // Europe/Lisbon: +00:00 in winter, +01:00 in summer
-const PILCHARD = join(GOOD, 'pilchard-cove.yaml'); // its secondary port
-const SKUA = join(DEMO, 'skua-fjord.yaml'); // Europe/Oslo: +01:00 in winter
+const BRINEWOLD = join(GOOD, 'brinewold-head.yaml'); // Europe/Lisbon: +00:00 in winter, +01:00 in summer
+const SALTGRIST = join(GOOD, 'saltgrist-cove.yaml'); // its secondary port
+const RIMESKERRY = join(DEMO, 'rimeskerry-fjord.yaml'); // Europe/Oslo: +01:00 in winter
 
 afterEach(() => vi.restoreAllMocks());
 
@@ -27,10 +27,10 @@ const isoSecond = (t: number): string => new Date(Math.round(t / 1000) * 1000).t
 
 describe('predict --format json', () => {
   it('prints the high and low waters of findExtrema, UTC to the second, metres to the mm, keys in order', async () => {
-    const { code, stdout, stderr } = await runCli(['predict', GANNET, '--from', '2027-01-01', '--to', '2027-01-08', '--format', 'json']);
+    const { code, stdout, stderr } = await runCli(['predict', BRINEWOLD, '--from', '2027-01-01', '--to', '2027-01-08', '--format', 'json']);
     expect(stderr).toBe('');
     expect(code).toBe(0);
-    const station = loadStationFile(GANNET) as ReferenceStation;
+    const station = loadStationFile(BRINEWOLD) as ReferenceStation;
     // Lisbon is on +00:00 in January: the dates are UTC midnights.
     const expected = findExtrema(compilePredictor(station), ms('2027-01-01T00:00:00Z'), ms('2027-01-08T00:00:00Z'));
     expect(expected.length).toBeGreaterThan(20);
@@ -43,39 +43,39 @@ describe('predict --format json', () => {
   });
 
   it('reads a date in a +01:00 zone as 23:00Z the day before', async () => {
-    const { stdout } = await runCli(['predict', SKUA, '--from', '2027-01-01', '--to', '2027-01-01T02:00Z', '--every', '60', '--format', 'json']);
+    const { stdout } = await runCli(['predict', RIMESKERRY, '--from', '2027-01-01', '--to', '2027-01-01T02:00Z', '--every', '60', '--format', 'json']);
     const rows = JSON.parse(stdout) as { time: string; height: number }[];
     expect(rows.map((r) => r.time)).toEqual(['2026-12-31T23:00:00Z', '2027-01-01T00:00:00Z', '2027-01-01T01:00:00Z']);
     const set = loadStationSet(DEMO);
-    const skua = set.byId.get('skua-fjord')!;
-    const heights = tideHeights(skua, set, ms('2026-12-31T23:00:00Z'), 3_600_000, 3);
+    const rimeskerry = set.byId.get('rimeskerry-fjord')!;
+    const heights = tideHeights(rimeskerry, set, ms('2026-12-31T23:00:00Z'), 3_600_000, 3);
     expect(rows.map((r) => r.height)).toEqual([...heights].map((h) => Math.round(h * 1000) / 1000));
   });
 
   it('accepts ISO instants with an offset, and a local time without one', async () => {
-    const a = await runCli(['predict', SKUA, '--from', '2027-06-01T12:00+02:00', '--to', '2027-06-01T12:30+02:00', '--every', '10', '--format', 'json']);
-    const b = await runCli(['predict', SKUA, '--from', '2027-06-01T12:00', '--to', '2027-06-01T10:30Z', '--every', '10', '--format', 'json']);
+    const a = await runCli(['predict', RIMESKERRY, '--from', '2027-06-01T12:00+02:00', '--to', '2027-06-01T12:30+02:00', '--every', '10', '--format', 'json']);
+    const b = await runCli(['predict', RIMESKERRY, '--from', '2027-06-01T12:00', '--to', '2027-06-01T10:30Z', '--every', '10', '--format', 'json']);
     const times = (JSON.parse(a.stdout) as { time: string }[]).map((r) => r.time);
     expect(times).toEqual(['2027-06-01T10:00:00Z', '2027-06-01T10:10:00Z', '2027-06-01T10:20:00Z']);
     expect(b.stdout).toBe(a.stdout);
   });
 
   it('heights with --every: the end is not included, steps may be fractions of a minute', async () => {
-    const { stdout } = await runCli(['predict', GANNET, '--from', '2027-01-01T00:00Z', '--to', '2027-01-01T00:02Z', '--every', '0.5', '--format', 'json']);
+    const { stdout } = await runCli(['predict', BRINEWOLD, '--from', '2027-01-01T00:00Z', '--to', '2027-01-01T00:02Z', '--every', '0.5', '--format', 'json']);
     expect((JSON.parse(stdout) as { time: string }[]).map((r) => r.time.slice(11))).toEqual(['00:00:00Z', '00:00:30Z', '00:01:00Z', '00:01:30Z']);
   });
 
   it('works for a secondary port, taking its reference port from the file\'s folder', async () => {
-    const { code, stdout } = await runCli(['predict', PILCHARD, '--from', '2027-01-01', '--to', '2027-01-04', '--format', 'json']);
+    const { code, stdout } = await runCli(['predict', SALTGRIST, '--from', '2027-01-01', '--to', '2027-01-04', '--format', 'json']);
     expect(code).toBe(0);
     const set = loadStationSet(GOOD);
-    const events = tideEvents(set.byId.get('pilchard-cove')!, set, ms('2027-01-01T00:00Z'), ms('2027-01-04T00:00Z'));
+    const events = tideEvents(set.byId.get('saltgrist-cove')!, set, ms('2027-01-01T00:00Z'), ms('2027-01-04T00:00Z'));
     expect(events.length).toBeGreaterThan(8);
     expect(JSON.parse(stdout)).toEqual(events.map((e) => ({ time: isoSecond(e.time), type: e.type, height: Math.round(e.height * 1000) / 1000 })));
   });
 
   it('finds a secondary port\'s reference port in --stations DIR', async () => {
-    const { code, stdout, stderr } = await runCli(['predict', join(DEMO, 'eider-sound.yaml'), '--stations', DEMO, '--from', '2027-01-01', '--to', '2027-01-02', '--format', 'json']);
+    const { code, stdout, stderr } = await runCli(['predict', join(DEMO, 'whitespume-sound.yaml'), '--stations', DEMO, '--from', '2027-01-01', '--to', '2027-01-02', '--format', 'json']);
     expect(stderr).toBe('');
     expect(code).toBe(0);
     expect((JSON.parse(stdout) as unknown[]).length).toBeGreaterThanOrEqual(3);
@@ -84,17 +84,17 @@ describe('predict --format json', () => {
 
 describe('predict --format table and csv', () => {
   it('table: a header naming station, datum and zone, the caution, local times with their offsets, heights to cm', async () => {
-    const { code, stdout } = await runCli(['predict', GANNET, '--from', '2027-03-27', '--to', '2027-03-30']);
+    const { code, stdout } = await runCli(['predict', BRINEWOLD, '--from', '2027-03-27', '--to', '2027-03-30']);
     expect(code).toBe(0);
     const [title, where, what, units, provenance, caution] = stdout.split('\n');
-    expect(title).toBe('Gannet Head (invented): reference port (id gannet-head)');
-    expect(where).toBe('50.120° N, 4.870° W; time zone Europe/Lisbon');
+    expect(title).toBe('Brinewold Head (invented): reference port (id brinewold-head)');
+    expect(where).toBe('47.600° N, 15.800° W; time zone Europe/Lisbon');
     expect(what).toContain('High and low waters, 2027-03-27 00:00 to 2027-03-30 00:00');
     expect(units).toContain('metres above Chart Datum');
     expect(provenance).toBe('Constants: Invented test fixture');
     expect(caution).toMatch(/^Caution: Astronomical predictions only\./);
     // Daylight saving starts on 2027-03-28 at 01:00 UTC (EU rule): +00:00 before, +01:00 after.
-    const station = loadStationFile(GANNET) as ReferenceStation;
+    const station = loadStationFile(BRINEWOLD) as ReferenceStation;
     const events = findExtrema(compilePredictor(station), ms('2027-03-27T00:00Z'), ms('2027-03-29T23:00Z'));
     const rows = stdout.split('\n').filter((l) => /\d\d:\d\d {2}[+-]\d\d:\d\d/.test(l));
     expect(rows).toHaveLength(events.length);
@@ -108,10 +108,10 @@ describe('predict --format table and csv', () => {
   });
 
   it('csv: a header line, then UTC, local time with offset, type and height per event', async () => {
-    const { stdout } = await runCli(['predict', GANNET, '--from', '2027-07-01', '--to', '2027-07-02', '--format', 'csv']);
+    const { stdout } = await runCli(['predict', BRINEWOLD, '--from', '2027-07-01', '--to', '2027-07-02', '--format', 'csv']);
     const [header, ...rows] = stdout.trimEnd().split('\n');
     expect(header).toBe('time_utc,time_local,type,height_m');
-    const station = loadStationFile(GANNET) as ReferenceStation;
+    const station = loadStationFile(BRINEWOLD) as ReferenceStation;
     // Lisbon is on +01:00 in July: the day starts at 23:00Z.
     const events = findExtrema(compilePredictor(station), ms('2027-06-30T23:00Z'), ms('2027-07-01T23:00Z'));
     expect(rows).toEqual(
@@ -123,10 +123,10 @@ describe('predict --format table and csv', () => {
   });
 
   it('csv and table of heights', async () => {
-    const csv = await runCli(['predict', GANNET, '--from', '2027-01-01', '--to', '2027-01-01T01:00Z', '--every', '30', '--format', 'csv']);
+    const csv = await runCli(['predict', BRINEWOLD, '--from', '2027-01-01', '--to', '2027-01-01T01:00Z', '--every', '30', '--format', 'csv']);
     expect(csv.stdout.split('\n')[0]).toBe('time_utc,time_local,height_m');
     expect(csv.stdout.split('\n')[1]).toMatch(/^2027-01-01T00:00:00Z,2027-01-01T00:00:00\+00:00,\d+\.\d{3}$/);
-    const table = await runCli(['predict', GANNET, '--from', '2027-01-01', '--to', '2027-01-01T01:00Z', '--every', '30']);
+    const table = await runCli(['predict', BRINEWOLD, '--from', '2027-01-01', '--to', '2027-01-01T01:00Z', '--every', '30']);
     expect(table.stdout).toContain('Heights every 30 minutes');
     expect(table.stdout).toMatch(/2027-01-01 {2}Fri {2}00:00 {2}\+00:00 +\d+\.\d\d m\n {17}00:30/);
   });
@@ -145,7 +145,7 @@ describe('predict refuses bad input with one line and exit 1', () => {
     ['an unknown option', ['--form', '2027-01-01'], 'tidewright: --form: is not an option of tidewright predict; did you mean --from? (see tidewright predict --help)\n'],
   ];
   it.each(cases)('%s', async (_, args, message) => {
-    const { code, stdout, stderr } = await runCli(['predict', GANNET, ...args]);
+    const { code, stdout, stderr } = await runCli(['predict', BRINEWOLD, ...args]);
     expect(code).toBe(1);
     expect(stdout).toBe('');
     expect(stderr).toBe(message);
@@ -165,10 +165,10 @@ describe('predict refuses bad input with one line and exit 1', () => {
   });
 
   it('a secondary port whose reference port is not in the set', async () => {
-    const file = join(ROOT, 'tests', 'fixtures', 'stations-reference-missing', 'pilchard-cove.yaml');
+    const file = join(ROOT, 'tests', 'fixtures', 'stations-reference-missing', 'saltgrist-cove.yaml');
     const { code, stderr } = await runCli(['predict', file, '--from', '2027-01-01']);
     expect(code).toBe(1);
-    expect(stderr).toMatch(/^tidewright: .*pilchard-cove\.yaml: reference: no station in .* has the id "ganet-head"; did you mean gannet-head\? write reference: gannet-head\n$/);
+    expect(stderr).toMatch(/^tidewright: .*saltgrist-cove\.yaml: reference: no station in .* has the id "brinwold-head"; did you mean brinewold-head\? write reference: brinewold-head\n$/);
   });
 
   it('--help prints the usage', async () => {
@@ -204,12 +204,12 @@ describe('the compiled command (node bin/tidewright.js)', () => {
 
   it('exits 0 with JSON on stdout, and 1 with one line and no stack trace on bad input', () => {
     expect(existsSync(join(ROOT, 'dist', 'cli', 'main.js'))).toBe(true);
-    const good = spawnSync('node', ['bin/tidewright.js', 'predict', GANNET, '--from', '2027-01-01', '--to', '2027-01-02', '--format', 'json'], { cwd: ROOT, encoding: 'utf8' });
+    const good = spawnSync('node', ['bin/tidewright.js', 'predict', BRINEWOLD, '--from', '2027-01-01', '--to', '2027-01-02', '--format', 'json'], { cwd: ROOT, encoding: 'utf8' });
     expect(good.stderr).toBe('');
     expect(good.status).toBe(0);
     expect((JSON.parse(good.stdout) as unknown[]).length).toBeGreaterThanOrEqual(3);
 
-    const bad = spawnSync('node', ['bin/tidewright.js', 'predict', GANNET, '--from', '2027-02-30'], { cwd: ROOT, encoding: 'utf8' });
+    const bad = spawnSync('node', ['bin/tidewright.js', 'predict', BRINEWOLD, '--from', '2027-02-30'], { cwd: ROOT, encoding: 'utf8' });
     expect(bad.status).toBe(1);
     expect(bad.stdout).toBe('');
     expect(bad.stderr.trimEnd().split('\n')).toHaveLength(1);

@@ -12,7 +12,7 @@ const single = (s: Station) => ({ byId: new Map([[s.id, s]]) });
 
 const base: ReferenceStation = {
   id: 'clock-quay', name: 'Clock Quay', kind: 'reference',
-  position: { latitude: 50.1, longitude: -4.9 }, timezone: 'Europe/Lisbon', datum: 'Chart Datum',
+  position: { latitude: 47.2, longitude: -15.9 }, timezone: 'Europe/Lisbon', datum: 'Chart Datum',
   mean_level: 3.1,
   constituents: {
     M2: { amplitude: 1.5, phase: 140 }, S2: { amplitude: 0.5, phase: 185 },
@@ -94,7 +94,7 @@ describe('daylight saving in the model', () => {
   it('handles a southern-hemisphere zone (Pacific/Auckland) as well', () => {
     // New Zealand daylight time, tz database via luxon (rule from memory: ends the first Sunday of
     // April, starts the last Sunday of September): 2027-04-04 has 25 hours, 2027-09-26 has 23.
-    const nz = { ...base, id: 'nz-quay', timezone: 'Pacific/Auckland', position: { latitude: -41.2, longitude: 174.8 } };
+    const nz = { ...base, id: 'nz-quay', timezone: 'Pacific/Auckland', position: { latitude: -39.6, longitude: 165.8 } };
     const m = buildStationYear(nz, single(nz), 2027);
     expect(dayOf(m, '2027-04-04').hours).toBe(25);
     expect(dayOf(m, '2027-04-04').curve.length).toBe(51);

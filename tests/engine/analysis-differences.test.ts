@@ -17,7 +17,7 @@ const reference: ReferenceStation = {
   id: 'gull-point',
   name: 'Gull Point (invented)',
   kind: 'reference',
-  position: { latitude: 50.0, longitude: -4.0 },
+  position: { latitude: 47.0, longitude: -16.0 },
   timezone: 'Europe/London',
   datum: 'Chart Datum',
   mean_level: 3.0,
@@ -32,7 +32,7 @@ const known: SecondaryStation = {
   name: 'Pipit Creek (invented)',
   kind: 'secondary',
   reference: 'gull-point',
-  position: { latitude: 50.1, longitude: -4.1 },
+  position: { latitude: 47.1, longitude: -16.1 },
   timezone: 'Europe/London',
   datum: 'Chart Datum',
   differences: {
@@ -149,7 +149,7 @@ describe('analyseDifferences: a synthetic secondary built from known differences
 
   it('writes a secondary station file the loader accepts, fit quality in comments', () => {
     const a = analyseDifferences(secondaryRecord(30, 10), reference);
-    const meta = { id: 'pipit-creek', name: 'Pipit Creek (invented)', latitude: 50.1, longitude: -4.1, timezone: 'Europe/London', datum: 'Chart Datum' };
+    const meta = { id: 'pipit-creek', name: 'Pipit Creek (invented)', latitude: 47.1, longitude: -16.1, timezone: 'Europe/London', datum: 'Chart Datum' };
     const text = secondaryStationYaml(a, meta);
     const loaded = parseStation(text, 'pipit-creek.yaml');
     expect(loaded).toMatchObject({ ...secondaryStationFrom(a, meta), sourceFile: 'pipit-creek.yaml' });
@@ -162,7 +162,7 @@ describe('analyseDifferences: a synthetic secondary built from known differences
   it('a record of three days gives one value for springs and neaps, and says so', () => {
     const a = analyseDifferences(secondaryRecord(3, 10), reference);
     expect(a.fits.highTime.constant).toBe(true);
-    const meta = { id: 'pipit-creek', name: 'Pipit Creek', latitude: 50.1, longitude: -4.1, timezone: 'Europe/London', datum: 'Chart Datum' };
+    const meta = { id: 'pipit-creek', name: 'Pipit Creek', latitude: 47.1, longitude: -16.1, timezone: 'Europe/London', datum: 'Chart Datum' };
     expect(secondaryStationYaml(a, meta)).toContain('# The record covers too little of the spring-neap cycle');
   });
 

@@ -11,7 +11,7 @@ const DAY = 86_400_000;
 function reference(constituents: ReferenceStation['constituents'], extra: Partial<ReferenceStation> = {}): ReferenceStation {
   return {
     id: 'test-port', name: 'Test Port (invented)', kind: 'reference',
-    position: { latitude: 50, longitude: -4 }, timezone: 'UTC', datum: 'Chart Datum',
+    position: { latitude: 47, longitude: -16 }, timezone: 'UTC', datum: 'Chart Datum',
     mean_level: 3, constituents, provenance: 'Invented for a test', ...extra,
   };
 }
@@ -74,7 +74,7 @@ describe('levels from the constants (Pugh 1987)', () => {
   it('secondary port: reference levels plus the spring and neap height differences', () => {
     const sec: SecondaryStation = {
       id: 'side-creek', name: 'Side Creek (invented)', kind: 'secondary', reference: 'test-port',
-      position: { latitude: 50, longitude: -4 }, timezone: 'UTC', datum: 'Chart Datum',
+      position: { latitude: 47, longitude: -16 }, timezone: 'UTC', datum: 'Chart Datum',
       differences: {
         high_water: { springs: { time: 30, height: -0.4 }, neaps: { time: 20, height: -0.2 } },
         low_water: { springs: { time: 50, height: 0.1 }, neaps: { time: 40, height: 0.2 } },

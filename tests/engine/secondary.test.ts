@@ -8,7 +8,7 @@ import type { ReferenceStation, SecondaryStation, Station, TideEvent } from '../
 // A tiny reference port with only M2 and S2, chosen so the mean ranges are round numbers.
 const reference: ReferenceStation = {
   id: 'round-harbour', name: 'Round Harbour (invented)', kind: 'reference',
-  position: { latitude: 50, longitude: -4 }, timezone: 'UTC', datum: 'Chart Datum',
+  position: { latitude: 47.5, longitude: -15.5 }, timezone: 'UTC', datum: 'Chart Datum',
   mean_level: 3.0,
   constituents: { M2: { amplitude: 1.5, phase: 100 }, S2: { amplitude: 0.5, phase: 140 } },
   provenance: 'Invented for a test',
@@ -16,7 +16,7 @@ const reference: ReferenceStation = {
 
 const secondary: SecondaryStation = {
   id: 'square-cove', name: 'Square Cove (invented)', kind: 'secondary', reference: 'round-harbour',
-  position: { latitude: 50.1, longitude: -4.1 }, timezone: 'UTC', datum: 'Chart Datum',
+  position: { latitude: 47.6, longitude: -15.6 }, timezone: 'UTC', datum: 'Chart Datum',
   differences: {
     high_water: { springs: { time: 40, height: -0.4 }, neaps: { time: 20, height: -0.2 } },
     low_water: { springs: { time: 60, height: -0.2 }, neaps: { time: 20, height: 0.0 } },

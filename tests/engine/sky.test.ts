@@ -77,7 +77,7 @@ describe('moon quarters', () => {
 
 interface Place { name: string; position: Position; zone: string }
 const MID_LATITUDES: Place[] = [
-  { name: 'Cornwall-like coast 50.1°N', position: { latitude: 50.12, longitude: -4.87 }, zone: 'Europe/Lisbon' },
+  { name: 'Brinewold Head (invented) 47.6°N', position: { latitude: 47.6, longitude: -15.8 }, zone: 'Europe/Lisbon' },
   { name: 'Hobart 42.9°S', position: { latitude: -42.88, longitude: 147.33 }, zone: 'Australia/Hobart' },
   { name: 'San Francisco 37.8°N', position: { latitude: 37.81, longitude: -122.47 }, zone: 'America/Los_Angeles' },
   { name: 'Equator 0.3°N', position: { latitude: 0.3, longitude: 32.6 }, zone: 'Africa/Kampala' },

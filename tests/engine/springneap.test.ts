@@ -12,7 +12,7 @@ const HOUR = 3_600_000;
 function station(constituents: ReferenceStation['constituents']): ReferenceStation {
   return {
     id: 'envelope-test', name: 'Envelope Test (invented)', kind: 'reference',
-    position: { latitude: 50, longitude: 0 }, timezone: 'UTC', datum: 'Chart Datum',
+    position: { latitude: 47, longitude: -14 }, timezone: 'UTC', datum: 'Chart Datum',
     mean_level: 3, constituents, provenance: 'Invented for a test',
   };
 }

@@ -44,22 +44,22 @@ const BAD_FILES: [string, string, string, string][] = [
   ['key-of-secondary', 'reference', 'is a key of secondary ports', 'write kind: secondary'],
   ['missing-kind', 'kind', 'is missing', 'kind: reference'],
   ['misspelt-kind', 'kind', '"referance" is not a kind of station', 'write kind: reference'],
-  ['bad-id', 'id', '"Gannet Head" may only hold lower-case letters a-z, digits and hyphens', 'write gannet-head'],
+  ['bad-id', 'id', '"Brinewold Head" may only hold lower-case letters a-z, digits and hyphens', 'write brinewold-head'],
   ['id-escape', 'id', '"../../etc/passwd" may only hold', 'write etc-passwd'],
   ['unknown-constituent', 'constituents.X9', '"X9" is not a constituent tidewright knows', 'tidewright help constituents'],
   ['lowercase-constituent', 'constituents.m2', '"m2" is not a constituent', 'did you mean M2? write M2'],
   ['misspelt-constituent', 'constituents.SS2', '"SS2" is not a constituent', 'did you mean S2?'],
   ['unknown-constituent-key', 'constituents.S2.speed', 'is not a key tidewright knows', 'amplitude, phase'],
   ['no-constituents', 'constituents', 'lists no constituents', 'add at least M2'],
-  // A negative amplitude is the same wave turned by 180°: 178 + 180 = 358.
-  ['negative-amplitude', 'constituents.S2.amplitude', '-0.553 is negative', 'write amplitude: 0.553 with phase: 358'],
+  // A negative amplitude is the same wave turned by 180°: 258 + 180 = 438, that is 78.
+  ['negative-amplitude', 'constituents.S2.amplitude', '-0.592 is negative', 'write amplitude: 0.592 with phase: 78'],
   ['phase-360', 'constituents.M2.phase', '360 is outside 0 to 360 degrees', 'write 0,'],
   ['phase-negative', 'constituents.M2.phase', '-20 is outside 0 to 360 degrees', 'write 340,'],
   ['unknown-timezone', 'timezone', '"Europe/Lisbn" is not a known IANA time zone', 'did you mean Europe/Lisbon?'],
   ['timezone-case', 'timezone', 'wrong capitals', 'write timezone: Europe/Lisbon'],
   ['latitude-range', 'position.latitude', '95 is above the largest allowed value 90', 'from -90 to 90'],
-  ['longitude-range', 'position.longitude', '355.13 is outside -180 to 180', 'write -4.87'],
-  ['text-for-number', 'mean_level', 'should be a number but is the text "2.41 m"', 'mean_level: 2.41'],
+  ['longitude-range', 'position.longitude', '344.2 is outside -180 to 180', 'write -15.8'],
+  ['text-for-number', 'mean_level', 'should be a number but is the text "2.52 m"', 'mean_level: 2.52'],
   ['number-for-text', 'name', 'should be text but is 2027', 'write it in quotes'],
   ['empty-value', 'datum', 'is empty', 'datum: Chart Datum'],
   ['datum-epoch-fraction', 'datum_epoch', 'should be a whole number but is 2020.5', 'datum_epoch: 2020'],
@@ -121,17 +121,17 @@ describe('a bad station file is rejected with one line naming file, field, probl
 
 describe('a good station file', () => {
   it('loads a reference port with exactly the keys of the file, the default datum epoch and its source file', () => {
-    const file = join(FIXTURES, 'stations-good', 'gannet-head.yaml');
+    const file = join(FIXTURES, 'stations-good', 'brinewold-head.yaml');
     const station = loadStationFile(file) as ReferenceStation;
     expect(station).toEqual({
-      id: 'gannet-head',
-      name: 'Gannet Head (invented)',
+      id: 'brinewold-head',
+      name: 'Brinewold Head (invented)',
       kind: 'reference',
-      position: { latitude: 50.12, longitude: -4.87 },
+      position: { latitude: 47.60, longitude: -15.80 },
       timezone: 'Europe/Lisbon',
       datum: 'Chart Datum',
-      mean_level: 2.41,
-      constituents: { M2: { amplitude: 1.621, phase: 135.2 }, S2: { amplitude: 0.553, phase: 178.0 } },
+      mean_level: 2.52,
+      constituents: { M2: { amplitude: 1.734, phase: 211.6 }, S2: { amplitude: 0.592, phase: 258.0 } },
       provenance: 'Invented test fixture',
       datum_epoch: 2020,
       sourceFile: file,
@@ -177,30 +177,30 @@ describe('a station set', () => {
     const dir = join(FIXTURES, 'stations-good');
     const set = loadStationSet(dir);
     expect(set.dir).toBe(dir);
-    expect(set.stations.map((s) => s.id)).toEqual(['gannet-head', 'pilchard-cove']);
-    expect(set.byId.get('pilchard-cove')?.kind).toBe('secondary');
+    expect(set.stations.map((s) => s.id)).toEqual(['brinewold-head', 'saltgrist-cove']);
+    expect(set.byId.get('saltgrist-cove')?.kind).toBe('secondary');
   });
 
   it('rejects two stations with the same id, naming both files', () => {
     const dir = join(FIXTURES, 'stations-duplicate-id');
     const error = rejection(() => loadStationSet(dir));
-    expect(error.file).toBe(join(dir, 'b-gannet-head-copy.yaml'));
+    expect(error.file).toBe(join(dir, 'b-brinewold-head-copy.yaml'));
     expect(error.field).toBe('id');
-    expect(error.problem).toContain(join(dir, 'a-gannet-head.yaml'));
+    expect(error.problem).toContain(join(dir, 'a-brinewold-head.yaml'));
   });
 
   it('rejects a reference that does not exist, suggesting the near one', () => {
     const error = rejection(() => loadStationSet(join(FIXTURES, 'stations-reference-missing')));
     expect(error.field).toBe('reference');
-    expect(error.problem).toContain('has the id "ganet-head"');
-    expect(error.fix).toContain('write reference: gannet-head');
+    expect(error.problem).toContain('has the id "brinwold-head"');
+    expect(error.fix).toContain('write reference: brinewold-head');
   });
 
   it('rejects a reference that is itself a secondary port, naming the reference port to use', () => {
     const error = rejection(() => loadStationSet(join(FIXTURES, 'stations-reference-secondary')));
     expect(error.file).toMatch(/mackerel-quay\.yaml$/);
-    expect(error.problem).toContain('"pilchard-cove" is itself a secondary port');
-    expect(error.fix).toContain('write reference: gannet-head');
+    expect(error.problem).toContain('"saltgrist-cove" is itself a secondary port');
+    expect(error.fix).toContain('write reference: brinewold-head');
   });
 
   it('rejects references that go round in a loop, and a station naming itself', () => {
@@ -222,9 +222,9 @@ describe('a station set', () => {
 
   it('does not report a reference to a file that has problems of its own a second time', () => {
     const { problems } = checkStationSet(join(FIXTURES, 'stations-check-many'));
-    const pilchard = problems.filter((p) => p.file.endsWith('pilchard-cove.yaml'));
-    // gannet-head.yaml fails on its own; the typo "gannet-hed" is still caught and matched to it.
-    expect(pilchard.map((p) => p.fix)).toEqual(['did you mean gannet-head? write reference: gannet-head']);
+    const saltgrist = problems.filter((p) => p.file.endsWith('saltgrist-cove.yaml'));
+    // brinewold-head.yaml fails on its own; the typo "brinewold-hed" is still caught and matched to it.
+    expect(saltgrist.map((p) => p.fix)).toEqual(['did you mean brinewold-head? write reference: brinewold-head']);
   });
 
   it('loads the demo scenario: invented, at least two reference ports and four secondary ports', () => {
@@ -242,7 +242,7 @@ describe('a station set', () => {
 
 describe('suspicious constants', () => {
   const base: ReferenceStation = {
-    id: 'x', name: 'X (invented)', kind: 'reference', position: { latitude: 50, longitude: -4 },
+    id: 'x', name: 'X (invented)', kind: 'reference', position: { latitude: 47, longitude: -16 },
     timezone: 'UTC', datum: 'Chart Datum', provenance: 'test', mean_level: 2.3,
     constituents: { M2: { amplitude: 1.6, phase: 100 }, S2: { amplitude: 0.55, phase: 140 } },
     sourceFile: 'x.yaml',

@@ -11,7 +11,7 @@ const MINUTE = 60_000;
 
 const reference: ReferenceStation = {
   id: 'harbour', name: 'Harbour (invented)', kind: 'reference',
-  position: { latitude: 50, longitude: -4 }, timezone: 'Europe/Lisbon', datum: 'Chart Datum',
+  position: { latitude: 47.5, longitude: -15.5 }, timezone: 'Europe/Lisbon', datum: 'Chart Datum',
   mean_level: 3.2,
   constituents: {
     M2: { amplitude: 1.6, phase: 130 }, S2: { amplitude: 0.55, phase: 175 },
@@ -22,7 +22,7 @@ const reference: ReferenceStation = {
 };
 const secondary: SecondaryStation = {
   id: 'creek', name: 'Creek (invented)', kind: 'secondary', reference: 'harbour',
-  position: { latitude: 50.1, longitude: -4.1 }, timezone: 'Europe/Lisbon', datum: 'Chart Datum',
+  position: { latitude: 47.6, longitude: -15.6 }, timezone: 'Europe/Lisbon', datum: 'Chart Datum',
   differences: {
     high_water: { springs: { time: 25, height: -0.3 }, neaps: { time: 15, height: -0.2 } },
     low_water: { springs: { time: 40, height: -0.1 }, neaps: { time: 30, height: -0.05 } },

@@ -62,7 +62,7 @@ describe.skipIf(!hasChromium)('the site in chromium', () => {
   beforeAll(async () => {
     tmp = mkdtempSync(join(tmpdir(), 'tidewright-browser-'));
     // A reference port with one of its secondary ports, as the engine builds them (Europe/Lisbon, DST).
-    await renderSite(demoModels(['gannet-head', 'pilchard-cove']), join(tmp, 'site'), { units: 'm', quiet: true });
+    await renderSite(demoModels(['brinewold-head', 'saltgrist-cove']), join(tmp, 'site'), { units: 'm', quiet: true });
     server = await serve(join(tmp, 'site'));
     const address = server.address();
     base = `http://127.0.0.1:${typeof address === 'object' && address ? address.port : 0}/`;
@@ -88,14 +88,14 @@ describe.skipIf(!hasChromium)('the site in chromium', () => {
       await page.screenshot({ path: join(ARTIFACTS, `site-index-${label}.png`), fullPage: true });
       await noSidewaysScroll(page);
 
-      await page.getByRole('link', { name: 'Gannet Head (invented)', exact: true }).click();
-      await page.waitForURL(/gannet-head\/2027\/index\.html$/);
-      expect(await page.locator('h1').innerText()).toContain('Gannet Head (invented)');
+      await page.getByRole('link', { name: 'Brinewold Head (invented)', exact: true }).click();
+      await page.waitForURL(/brinewold-head\/2027\/index\.html$/);
+      expect(await page.locator('h1').innerText()).toContain('Brinewold Head (invented)');
       await page.screenshot({ path: join(ARTIFACTS, `site-station-${label}.png`), fullPage: true });
       await noSidewaysScroll(page);
 
       await page.locator('a.glance-link', { hasText: 'March' }).click();
-      await page.waitForURL(/gannet-head\/2027\/03\/index\.html$/);
+      await page.waitForURL(/brinewold-head\/2027\/03\/index\.html$/);
       expect(await page.locator('tbody tr.day').count()).toBe(31);
       expect(await page.locator('#day-28 .clock-change').isVisible()).toBe(true);
       await page.screenshot({ path: join(ARTIFACTS, `site-month-${label}.png`), fullPage: true });
@@ -113,7 +113,7 @@ describe.skipIf(!hasChromium)('the site in chromium', () => {
 
   it('prints a 31-day month with a clock change on a single page of A4 and of US Letter', async () => {
     const { page } = await watchedPage(1280, 900);
-    await page.goto(`${base}gannet-head/2027/03/index.html`);
+    await page.goto(`${base}brinewold-head/2027/03/index.html`);
     await page.emulateMedia({ media: 'print' });
     await page.screenshot({ path: join(ARTIFACTS, 'site-month-print.png'), fullPage: true });
     for (const format of ['A4', 'Letter']) {
@@ -142,7 +142,7 @@ describe.skipIf(!hasChromium)('the site in chromium', () => {
       }
       return low;
     })()`;
-    for (const path of ['gannet-head/2027/03/index.html', 'gannet-head/2027/index.html', 'index.html']) {
+    for (const path of ['brinewold-head/2027/03/index.html', 'brinewold-head/2027/index.html', 'index.html']) {
       await page.goto(`${base}${path}`);
       const low = await page.evaluate<{ ratio: number; text: string }>(worst);
       expect(low.ratio, `${path}: ${low.text}`).toBeGreaterThanOrEqual(4.5);
@@ -152,7 +152,7 @@ describe.skipIf(!hasChromium)('the site in chromium', () => {
 
   it('has no sideways scrolling at 360 px, the narrowest common phone', async () => {
     const { page, errors } = await watchedPage(360, 740);
-    for (const path of ['index.html', 'gannet-head/2027/index.html', 'pilchard-cove/2027/10/index.html', 'datums/index.html']) {
+    for (const path of ['index.html', 'brinewold-head/2027/index.html', 'saltgrist-cove/2027/10/index.html', 'datums/index.html']) {
       await page.goto(`${base}${path}`);
       await noSidewaysScroll(page);
     }

@@ -15,7 +15,7 @@ import { demoModels } from './site-build.js';
 let model: StationYear;
 
 beforeAll(() => {
-  [model] = demoModels(['gannet-head']);
+  [model] = demoModels(['brinewold-head']);
 });
 
 /** The data rows of our CSV: note lines (#) dropped, split on commas (no field of ours is quoted). */
@@ -35,7 +35,7 @@ describe('CSV', () => {
     expect(rows).toHaveLength(model.events.length);
     rows.forEach((row, i) => {
       const e = model.events[i];
-      expect(row).toEqual(['gannet-head', e.local.slice(0, 10), e.clock, e.offset, e.time, e.type, e.height.toFixed(3), e.belowDatum ? 'yes' : 'no']);
+      expect(row).toEqual(['brinewold-head', e.local.slice(0, 10), e.clock, e.offset, e.time, e.type, e.height.toFixed(3), e.belowDatum ? 'yes' : 'no']);
     });
     expect(notes.join(' ')).toContain(model.caution);
     expect(notes.join(' ')).toContain('INVENTED');
@@ -62,7 +62,7 @@ describe('JSON', () => {
       station: { id: string; name: string; datum: string; timezone: string }; year: number; units: string;
       invented: boolean; caution: string; events: { time: string; local: string; type: string; height: number; belowDatum: boolean }[];
     };
-    expect(doc.station).toMatchObject({ id: 'gannet-head', name: model.station.name, datum: model.station.datum, timezone: 'Europe/Lisbon' });
+    expect(doc.station).toMatchObject({ id: 'brinewold-head', name: model.station.name, datum: model.station.datum, timezone: 'Europe/Lisbon' });
     expect(doc.year).toBe(2027);
     expect(doc.units).toBe('m');
     expect(doc.invented).toBe(true);
@@ -86,11 +86,11 @@ describe('iCalendar', () => {
     expect(first.startDate.toJSDate().toISOString().replace('.000', '')).toBe(e.time);
     expect(first.startDate.zone?.tzid).toBe('UTC');
     expect(first.summary).toBe(`${e.type === 'high' ? 'High' : 'Low'} water ${e.height.toFixed(2)} m`);
-    expect(first.uid).toBe('gannet-head-2027-1@tidewright');
+    expect(first.uid).toBe('brinewold-head-2027-1@tidewright');
     expect(first.description).toContain(model.caution);
     expect(first.description).toContain(`${e.clock} local time (UTC${e.offset})`);
     const last = new ICAL.Event(events[events.length - 1]);
-    expect(last.uid).toBe(`gannet-head-2027-${model.events.length}@tidewright`);
+    expect(last.uid).toBe(`brinewold-head-2027-${model.events.length}@tidewright`);
   });
 
   it('uses CRLF only, folds at 75 octets, and is the same on every build (fixed DTSTAMP, stable UIDs)', () => {

@@ -52,11 +52,11 @@ function lowered(model: StationYear, by: number): StationYear {
   return m;
 }
 
-// Real demo station-years: Gannet Head (reference port, Europe/Lisbon with two clock changes) and
-// Albatross Point (reference port in the southern hemisphere) for the combined book.
+// Real demo station-years: Brinewold Head (reference port, Europe/Lisbon with two clock changes) and
+// Galewrack Point (reference port in the southern hemisphere) for the combined book.
 const set = loadStationSet('stations-demo');
 const demo = (id: string) => buildStationYear(set.byId.get(id)!, set, 2027);
-const model = demo('gannet-head');
+const model = demo('brinewold-head');
 // A5 book: cover, facts, caution, two facing pages per month, the year overview
 const expectedPages = 3 + 2 * model.months.length + 1;
 let book: Buffer;
@@ -185,7 +185,7 @@ describe('saddle-stitched book', () => {
 
 describe('combined book', () => {
   it.skipIf(!POPPLER)('lists every station on the contents page with the page its section starts on', async () => {
-    const second = demo('pilchard-cove'); // a secondary port of Gannet Head
+    const second = demo('saltgrist-cove'); // a secondary port of Brinewold Head
     const buf = await renderCombinedBook([second, model], { units: 'm', page: 'a5', title: 'Club tide book' });
     const file = write('combined.pdf', buf);
     const pages = pagesText(file);
@@ -193,7 +193,8 @@ describe('combined book', () => {
     for (const st of [model, second]) {
       const line = pages[1].split('\n').find((l) => l.includes(st.station.name))!;
       const page = Number(line.trim().split(/\s+/).pop());
-      expect(pages[page - 1]).toContain(st.station.name);
+      // the section's title page sets the name large and may break it over two lines
+      expect(pages[page - 1].replace(/\s+/g, ' ')).toContain(st.station.name);
       expect(pages[page]).toContain('Station facts');
     }
     expect(pageCount(buf)).toBe(pages.filter((p) => p.trim()).length);

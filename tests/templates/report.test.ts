@@ -16,7 +16,7 @@ import { DAY, degrade, evenTimes, recordOf } from '../fixtures/analysis-records.
 const START = Date.UTC(2027, 0, 1);
 // Invented constants, realistic in magnitude.
 const station: ReferenceStation = {
-  id: 'report-quay', name: 'Report Quay (invented)', kind: 'reference', position: { latitude: 50.1, longitude: -4.9 },
+  id: 'report-quay', name: 'Report Quay (invented)', kind: 'reference', position: { latitude: 47.2, longitude: -15.9 },
   timezone: 'Europe/Lisbon', datum: 'Chart Datum', mean_level: 2.4,
   constituents: {
     M2: { amplitude: 1.6, phase: 135 }, S2: { amplitude: 0.55, phase: 178 }, N2: { amplitude: 0.3, phase: 117 },
@@ -33,7 +33,7 @@ function analysis(days: number, stepMinutes: number) {
 }
 
 const hostile: ReportStation = {
-  id: 'report-quay', name: 'Quay <script>alert("x")</script> & Sons', latitude: 50.1, longitude: -4.9,
+  id: 'report-quay', name: 'Quay <script>alert("x")</script> & Sons', latitude: 47.2, longitude: -15.9,
   timezone: 'Europe/Lisbon', datum: 'Gauge "zero"',
 };
 

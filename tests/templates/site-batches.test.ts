@@ -21,7 +21,7 @@ function tree(dir: string): Map<string, string> {
 }
 
 it('one station-year per Eleventy run writes exactly the files of a single run', async () => {
-  const models = demoModels(['gannet-head', 'pilchard-cove', 'tern-reach']);
+  const models = demoModels(['brinewold-head', 'saltgrist-cove', 'palmsward-reach']);
   const whole = join(tmp, 'whole');
   const batched = join(tmp, 'batched');
   await renderSite(models, whole, { units: 'm', quiet: true });

@@ -15,25 +15,25 @@ let tmp: string;
 let site: string;
 let dataDir: string;
 let feetSite: string;
-let reference: StationYear; // skua-fjord: reference port, Europe/Oslo, polar day and night
-let secondary: StationYear; // eider-sound: secondary port of skua-fjord
+let reference: StationYear; // rimeskerry-fjord: reference port, Europe/Oslo, polar day and night
+let secondary: StationYear; // whitespume-sound: secondary port of rimeskerry-fjord
 
 const MINUS = '\u2212';
 /** Metres as the month tables print them, written out here independently of the site's formatter. */
 const cm = (m: number): string => `${m < 0 ? MINUS : ''}${Math.abs(m).toFixed(2)}`;
 const signed = (n: number, digits: number, unit: string): string =>
   `${n > 0 ? '+' : n < 0 ? MINUS : ''}${Math.abs(n).toFixed(digits)} ${unit}`;
-const ids = ['skua-fjord', 'eider-sound', 'odd-name'];
+const ids = ['rimeskerry-fjord', 'whitespume-sound', 'odd-name'];
 
 beforeAll(async () => {
   tmp = mkdtempSync(join(tmpdir(), 'tidewright-site-'));
   site = join(tmp, 'site');
   dataDir = join(tmp, 'data');
   feetSite = join(tmp, 'site-ft');
-  const [skua, eider] = demoModels(['skua-fjord', 'eider-sound']);
-  reference = withLowWaterBelowDatum(skua, '2027-01-14');
-  secondary = eider;
-  await renderSite([secondary, withHostileText(skua), reference], site, {
+  const [rimeskerry, whitespume] = demoModels(['rimeskerry-fjord', 'whitespume-sound']);
+  reference = withLowWaterBelowDatum(rimeskerry, '2027-01-14');
+  secondary = whitespume;
+  await renderSite([secondary, withHostileText(rimeskerry), reference], site, {
     units: 'm', quiet: true, dataDir, locale: 'nb', title: 'Harbour tides', publisher: 'Test Club',
   });
   await renderSite([reference], feetSite, { units: 'ft', quiet: true });
@@ -85,21 +85,21 @@ describe('index', () => {
     expect(groups).toHaveLength(2);
     // Sorted by reference port name: the hostile name starts with "<", before "S".
     expect(textOf(groups[0])).toContain(HOSTILE_NAME);
-    const skua = textOf(groups[1]);
-    expect(skua.indexOf('Skua Fjord (invented) reference port')).toBeGreaterThanOrEqual(0);
-    expect(skua.indexOf('Skua Fjord (invented)')).toBeLessThan(skua.indexOf('Eider Sound (invented) secondary port'));
-    expect(skua).toContain(`Tide ${reference.tideType.label} Position`);
+    const rimeskerry = textOf(groups[1]);
+    expect(rimeskerry.indexOf('Rimeskerry Fjord (invented) reference port')).toBeGreaterThanOrEqual(0);
+    expect(rimeskerry.indexOf('Rimeskerry Fjord (invented)')).toBeLessThan(rimeskerry.indexOf('Whitespume Sound (invented) secondary port'));
+    expect(rimeskerry).toContain(`Tide ${reference.tideType.label} Position`);
     // Degrees and decimal minutes worked by hand from the station's decimal degrees.
     const { latitude, longitude } = secondary.station.position;
     const dm = (v: number): string => `${Math.trunc(Math.abs(v))}°${((Math.abs(v) % 1) * 60).toFixed(1).padStart(4, '0')}′`;
-    expect(skua).toContain(`${dm(latitude)} ${latitude >= 0 ? 'N' : 'S'}, ${dm(longitude)} ${longitude >= 0 ? 'E' : 'W'}`);
-    expect(groups[1]).toContain('href="eider-sound/2027/index.html"');
+    expect(rimeskerry).toContain(`${dm(latitude)} ${latitude >= 0 ? 'N' : 'S'}, ${dm(longitude)} ${longitude >= 0 ? 'E' : 'W'}`);
+    expect(groups[1]).toContain('href="whitespume-sound/2027/index.html"');
   });
 });
 
 describe('month pages against the model', () => {
   it('prints a day’s high and low waters with local clock and height, in order', () => {
-    const html = read(site, 'skua-fjord/2027/03/index.html');
+    const html = read(site, 'rimeskerry-fjord/2027/03/index.html');
     const day = reference.days.find((d) => d.date === '2027-03-10')!;
     const text = textOf(rowById(html, 'day-10'));
     const printed = day.events.map((e) => `${e.type === 'high' ? 'HW' : 'LW'} ${e.clock} ${cm(e.height)}`);
@@ -109,7 +109,7 @@ describe('month pages against the model', () => {
   });
 
   it('states the UTC offset and the clock change on the day it happens, with offsets on that day’s times', () => {
-    const html = read(site, 'skua-fjord/2027/03/index.html');
+    const html = read(site, 'rimeskerry-fjord/2027/03/index.html');
     // Europe/Oslo goes from UTC+01:00 to UTC+02:00 at 01:00 UTC on the last Sunday of March
     // (EU rule, tz database): 28 March 2027, at 02:00 on the clocks of the morning.
     expect(textOf(html)).toContain('local clock time, Europe/Oslo, UTC+01:00 until the clocks change at 02:00 on Sunday 28 March 2027, then UTC+02:00.');
@@ -121,13 +121,13 @@ describe('month pages against the model', () => {
   });
 
   it('marks a height below chart datum in bold, boxed, with a minus sign and words for screen readers', () => {
-    const row = rowById(read(site, 'skua-fjord/2027/01/index.html'), 'day-14');
+    const row = rowById(read(site, 'rimeskerry-fjord/2027/01/index.html'), 'day-14');
     expect(row).toContain('<strong class="height below-datum">−0.12<span class="visually-hidden"> (below chart datum)</span></strong>');
     expect(row).toMatch(/curve-dot-below/);
   });
 
   it('marks springs, neaps and moon quarters in words on the model’s days, and draws a curve', () => {
-    const html = read(site, 'skua-fjord/2027/02/index.html');
+    const html = read(site, 'rimeskerry-fjord/2027/02/index.html');
     const feb = reference.days.filter((d) => d.month === 2);
     const spring = feb.find((d) => d.springNeap === 'spring')!;
     const neap = feb.find((d) => d.springNeap === 'neap')!;
@@ -151,16 +151,16 @@ describe('month pages against the model', () => {
     const december = reference.days.filter((d) => d.month === 12 && d.sunNote === 'sun-down-all-day');
     expect(june.length).toBeGreaterThan(20); // 69.7° N: midnight sun all June, polar night in December
     expect(december.length).toBeGreaterThan(20);
-    expect(textOf(rowById(read(site, 'skua-fjord/2027/06/index.html'), `day-${june[0].dayOfMonth}`))).toContain('Sun up all day');
-    expect(textOf(rowById(read(site, 'skua-fjord/2027/12/index.html'), `day-${december[0].dayOfMonth}`))).toContain('Sun down all day');
+    expect(textOf(rowById(read(site, 'rimeskerry-fjord/2027/06/index.html'), `day-${june[0].dayOfMonth}`))).toContain('Sun up all day');
+    expect(textOf(rowById(read(site, 'rimeskerry-fjord/2027/12/index.html'), `day-${december[0].dayOfMonth}`))).toContain('Sun down all day');
     const mar10 = reference.days.find((d) => d.date === '2027-03-10')!;
-    expect(textOf(rowById(read(site, 'skua-fjord/2027/03/index.html'), 'day-10'))).toContain(`Rise ${mar10.sunriseClock} Set ${mar10.sunsetClock}`);
+    expect(textOf(rowById(read(site, 'rimeskerry-fjord/2027/03/index.html'), 'day-10'))).toContain(`Rise ${mar10.sunriseClock} Set ${mar10.sunsetClock}`);
   });
 });
 
 describe('station-year page', () => {
   it('shows the datums, the year at a glance linking every month, and the downloads', () => {
-    const html = read(site, 'skua-fjord/2027/index.html');
+    const html = read(site, 'rimeskerry-fjord/2027/index.html');
     const text = textOf(html);
     expect(text).toContain(`MHWS Mean high water springs ${cm(reference.datums.MHWS)}`);
     expect(text).toContain(`LAT Lowest astronomical tide ${cm(reference.datums.LAT)}`);
@@ -169,17 +169,17 @@ describe('station-year page', () => {
     expect(html.match(/class="glance-month"/g) ?? []).toHaveLength(12);
     const springs = reference.days.filter((d) => d.month === 5 && d.springNeap === 'spring').map((d) => d.dayOfMonth);
     expect(text).toContain(`Springs ${springs.join(springs.length === 2 ? ' and ' : ', ')}`);
-    expect(html).toContain('href="../../data/skua-fjord-2027.ics"');
-    expect(html).toContain('href="../../data/skua-fjord-2027-events.csv"');
-    expect(html).toContain('href="../../data/skua-fjord-2027-events.json"');
+    expect(html).toContain('href="../../data/rimeskerry-fjord-2027.ics"');
+    expect(html).toContain('href="../../data/rimeskerry-fjord-2027-events.csv"');
+    expect(html).toContain('href="../../data/rimeskerry-fjord-2027-events.json"');
     for (const c of reference.offsetChanges) expect(text).toContain(c.note);
   });
 
   it('for a secondary port names and links its reference port and prints its differences', () => {
-    const html = read(site, 'eider-sound/2027/index.html');
-    expect(html).toContain('Secondary port of <a href="../../skua-fjord/2027/index.html">Skua Fjord (invented)</a>');
+    const html = read(site, 'whitespume-sound/2027/index.html');
+    expect(html).toContain('Secondary port of <a href="../../rimeskerry-fjord/2027/index.html">Rimeskerry Fjord (invented)</a>');
     const st = secondary.station;
-    if (st.kind !== 'secondary') throw new Error('eider-sound should be a secondary port');
+    if (st.kind !== 'secondary') throw new Error('whitespume-sound should be a secondary port');
     const text = textOf(html);
     for (const [label, d] of [['High water', st.differences.high_water], ['Low water', st.differences.low_water]] as const) {
       expect(text).toContain(`${label} ${signed(d.springs.time, 0, 'min').replace(/^0 min$/, '0 min')} ${signed(d.neaps.time, 0, 'min')} ${signed(d.springs.height, 2, 'm')} ${signed(d.neaps.height, 2, 'm')}`);
@@ -196,8 +196,8 @@ describe('footer, escaping and units', () => {
       expect(text, file).toContain('Provenance of the data:');
       expect(text, file).toMatch(/Invented data: (this station|stations marked invented)/);
     }
-    const eider = textOf(read(site, 'eider-sound/2027/05/index.html').split('<footer')[1]);
-    expect(eider).toContain(secondary.station.provenance);
+    const whitespume = textOf(read(site, 'whitespume-sound/2027/05/index.html').split('<footer')[1]);
+    expect(whitespume).toContain(secondary.station.provenance);
   });
 
   it('shows station text with markup as text, never as markup', () => {
@@ -212,14 +212,14 @@ describe('footer, escaping and units', () => {
   });
 
   it('with units ft prints feet (international foot) and says so', () => {
-    const html = read(feetSite, 'skua-fjord/2027/03/index.html');
+    const html = read(feetSite, 'rimeskerry-fjord/2027/03/index.html');
     const day = reference.days.find((d) => d.date === '2027-03-10')!;
     const e = day.events[0];
     const feet = (e.height / 0.3048).toFixed(1); // 1 ft = 0.3048 m exactly
     expect(textOf(rowById(html, 'day-10'))).toContain(`${e.clock} ${feet}`);
     expect(html).toContain('(time, ft)');
     expect(textOf(html)).toContain('Heights: feet above Chart Datum');
-    const year = textOf(read(feetSite, 'skua-fjord/2027/index.html'));
+    const year = textOf(read(feetSite, 'rimeskerry-fjord/2027/index.html'));
     expect(year).toContain(`springs ${(reference.meanSpringRange / 0.3048).toFixed(1)} ft`);
     expect(year).toContain(`MHWS Mean high water springs ${(reference.datums.MHWS / 0.3048).toFixed(1)}`);
   });
