@@ -16,19 +16,19 @@ afterAll(() => rmSync(dir, { recursive: true, force: true }));
 const REFERENCE_YAML = `id: stint-rock
 name: Stint Rock (invented)
 kind: reference
-position: { latitude: 50, longitude: -4 }
+position: { latitude: 47, longitude: -16 }
 timezone: UTC
 datum: Chart Datum
 mean_level: 3
 constituents:
-  M2: { amplitude: 1.6, phase: 130 }
-  S2: { amplitude: 0.55, phase: 175 }
+  M2: { amplitude: 1.6, phase: 205 }
+  S2: { amplitude: 0.55, phase: 250 }
 provenance: Invented for the output-file test
 `;
 const reference: ReferenceStation = {
-  id: 'stint-rock', name: 'Stint Rock (invented)', kind: 'reference', position: { latitude: 50, longitude: -4 },
+  id: 'stint-rock', name: 'Stint Rock (invented)', kind: 'reference', position: { latitude: 47, longitude: -16 },
   timezone: 'UTC', datum: 'Chart Datum', mean_level: 3,
-  constituents: { M2: { amplitude: 1.6, phase: 130 }, S2: { amplitude: 0.55, phase: 175 } },
+  constituents: { M2: { amplitude: 1.6, phase: 205 }, S2: { amplitude: 0.55, phase: 250 } },
   provenance: 'Invented',
 };
 const START = Date.UTC(2027, 2, 1);
@@ -47,7 +47,7 @@ function workspace(name: string): { folder: string; record: string; station: str
   return { folder, record, station };
 }
 
-const POSITION = ['--latitude', '50', '--longitude', '-4', '--timezone', 'UTC'];
+const POSITION = ['--latitude', '47', '--longitude', '-16', '--timezone', 'UTC'];
 
 function oneLine(stderr: string): string {
   const lines = stderr.trim().split('\n');

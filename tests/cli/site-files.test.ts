@@ -19,13 +19,13 @@ afterAll(() => rmSync(root, { recursive: true, force: true }));
 const STATION = `id: stint-rock
 name: Stint Rock (invented)
 kind: reference
-position: { latitude: 50, longitude: -4 }
+position: { latitude: 47, longitude: -16 }
 timezone: UTC
 datum: Chart Datum
 mean_level: 2.2
 constituents:
-  M2: { amplitude: 1.6, phase: 130 }
-  S2: { amplitude: 0.55, phase: 175 }
+  M2: { amplitude: 1.6, phase: 205 }
+  S2: { amplitude: 0.55, phase: 250 }
 provenance: Invented for the site-files test
 `;
 
@@ -58,11 +58,11 @@ describe('the publisher\'s site files', () => {
   it.each([
     ['index.html', /site-files\/index\.html: \(file\): the website has its own index\.html; rename or remove it/],
     ['assets/site.css', /site-files\/assets: \(file\): the website has its own assets; /],
-    ['gannet-head/2027/index.html', /site-files\/gannet-head: \(file\): the website has its own gannet-head \(a station's pages\); /],
+    ['brinewold-head/2027/index.html', /site-files\/brinewold-head: \(file\): the website has its own brinewold-head \(a station's pages\); /],
   ])('refuses %s, which would replace what the build writes, in one line', (name, message) => {
     const dir = stationsWith({ [`site-files/${name}`]: 'mine' });
-    expect(() => siteFilesFolder(dir, ['gannet-head'])).toThrow(StationFileError);
-    expect(() => siteFilesFolder(dir, ['gannet-head'])).toThrow(message);
+    expect(() => siteFilesFolder(dir, ['brinewold-head'])).toThrow(StationFileError);
+    expect(() => siteFilesFolder(dir, ['brinewold-head'])).toThrow(message);
   });
 
   it('refuses links and devices (a link to /dev/zero would never end)', () => {
