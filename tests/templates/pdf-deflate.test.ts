@@ -25,7 +25,7 @@ describe('PDF writing', () => {
   it('compresses a whole book without calling node\u2019s zlib', async () => {
     for (const name of ['deflateSync', 'deflate', 'inflate', 'inflateSync']) expect(originals.has(name)).toBe(true);
     const set = loadStationSet('stations-demo');
-    const model = buildStationYear(set.byId.get('gannet-head')!, set, 2027);
+    const model = buildStationYear(set.byId.get('brinewold-head')!, set, 2027);
     const pdf = await renderStationBook(model, { units: 'm', page: 'a6' });
     expect(pdf.subarray(0, 8).toString('latin1')).toBe('%PDF-1.7');
     expect(pdf.toString('latin1')).toMatch(/\/Filter \/FlateDecode/);
