@@ -25,7 +25,7 @@ tide is rising or falling then.
 
 Secondary ports take the height from the half-cosine curve between their own high and low waters.
 
-Example: tidewright height stations-demo/gannet-head.yaml --at 2027-03-14T15:20
+Example: tidewright height stations-demo/brinewold-head.yaml --at 2027-03-14T15:20
 `;
 
 export async function runHeight(argv: string[]): Promise<number> {

@@ -38,7 +38,7 @@ Reference ports: each crossing of the level is found on the harmonic prediction 
 consecutive high and low waters (where the curve is monotone). Secondary ports: on the half-cosine curve
 between the port's own high and low waters, an approximation; leave a margin.
 
-Example: tidewright windows stations-demo/gannet-head.yaml --above 2.4 --from 2027-06-01 --to 2027-06-08
+Example: tidewright windows stations-demo/brinewold-head.yaml --above 2.4 --from 2027-06-01 --to 2027-06-08
 `;
 
 interface WindowsRequest {

@@ -18,7 +18,7 @@ afterAll(() => rmSync(DIR, { recursive: true, force: true }));
 const SOLAR = `id: solar-invented
 name: Solar Point (invented)
 kind: reference
-position: { latitude: 50.0, longitude: -5.0 }
+position: { latitude: 47.0, longitude: -17.0 }
 timezone: Europe/Lisbon
 datum: Chart Datum
 mean_level: 2.0
@@ -31,7 +31,7 @@ provenance: Invented for the window tests
 const HARBOUR = `id: harbour-invented
 name: Harbour (invented)
 kind: reference
-position: { latitude: 50.0, longitude: -5.0 }
+position: { latitude: 47.0, longitude: -17.0 }
 timezone: Europe/Lisbon
 datum: Chart Datum
 mean_level: 2.6
@@ -49,7 +49,7 @@ const COVE = `id: cove-invented
 name: Cove (invented)
 kind: secondary
 reference: harbour-invented
-position: { latitude: 50.1, longitude: -5.1 }
+position: { latitude: 47.1, longitude: -17.1 }
 timezone: Europe/Lisbon
 datum: Chart Datum
 differences:

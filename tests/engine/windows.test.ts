@@ -14,7 +14,7 @@ const DEG = Math.PI / 180;
 
 function referenceStation(id: string, meanLevel: number, constituents: ReferenceStation['constituents']): ReferenceStation {
   return {
-    id, name: `${id} (invented)`, kind: 'reference', position: { latitude: 50, longitude: -5 }, timezone: 'UTC',
+    id, name: `${id} (invented)`, kind: 'reference', position: { latitude: 47, longitude: -17 }, timezone: 'UTC',
     datum: 'Chart Datum', mean_level: meanLevel, constituents, provenance: 'Invented for the window tests',
   };
 }

@@ -137,8 +137,8 @@ describe('writeExports', () => {
     const dir = mkdtempSync(join(tmpdir(), 'tidewright-exports-'));
     try {
       const names = await writeExports(model, dir);
-      expect(names).toEqual({ csv: 'gannet-head-2027-events.csv', json: 'gannet-head-2027-events.json', ics: 'gannet-head-2027.ics',
-        hourly: 'gannet-head-2027-hourly.csv', windows: null });
+      expect(names).toEqual({ csv: 'brinewold-head-2027-events.csv', json: 'brinewold-head-2027-events.json', ics: 'brinewold-head-2027.ics',
+        hourly: 'brinewold-head-2027-hourly.csv', windows: null });
       expect(readFileSync(join(dir, names.csv), 'utf8')).toBe(eventsCsv(model));
       expect(readFileSync(join(dir, names.json), 'utf8')).toBe(eventsJson(model));
       expect(readFileSync(join(dir, names.ics), 'utf8')).toBe(eventsICalendar(model));
