@@ -4,14 +4,17 @@
 import { dirname, resolve } from 'node:path';
 import { buildStationYear } from '../engine/almanac.js';
 import { UsageError } from '../engine/errors.js';
-import { loadStationFile, loadStationSet } from '../engine/stations.js';
+import { loadAnyStationFile, loadStationSet } from '../engine/stations.js';
 import type { Station, StationYear } from '../engine/types.js';
 import { oneOf, parseCommandLine, positionalArguments } from './args.js';
+import { streamSummary, streamYearFor } from './almanac-stream.js';
 
 const HELP = `usage: tidewright almanac STATION.yaml [--year YYYY] [--stations DIR] [--format table|json]
 
 Builds one station-year: every high and low water in the station's local time, the daily curves,
 sun and moon, springs and neaps, datums and warnings, as the model the website and books print.
+For a tidal stream station: every slack and strongest flood and ebb, the daily stream curves, sun and
+moon, springs and neaps (from its tide_reference, else from its own rates).
   --year YYYY      the calendar year (default: next year)
   --stations DIR   folder of the station set, to find a secondary port's reference port
                    (default: the station file's own folder)
@@ -47,8 +50,7 @@ function parseAlmanacArgs(argv: readonly string[]): AlmanacArgs | 'help' {
 
 // The station and the set its reference port is looked up in: the --stations folder, else the
 // station file's own folder for a secondary port, else the station alone.
-function loadStation(args: AlmanacArgs): { station: Station; set: { byId: ReadonlyMap<string, Station> } } {
-  const loaded = loadStationFile(args.file);
+function loadStation(args: AlmanacArgs, loaded: Station): { station: Station; set: { byId: ReadonlyMap<string, Station> } } {
   if (args.stations === null && loaded.kind === 'reference') {
     return { station: loaded, set: { byId: new Map([[loaded.id, loaded]]) } };
   }
@@ -74,7 +76,14 @@ export async function runAlmanac(argv: readonly string[]): Promise<number> {
     process.stdout.write(HELP);
     return 0;
   }
-  const { station, set } = loadStation(args);
+  const loaded = loadAnyStationFile(args.file);
+  if (loaded.kind === 'stream' || loaded.kind === 'stream-secondary') {
+    const model = streamYearFor(args.file, loaded, args.stations, args.year);
+    ignoreClosedPipe();
+    process.stdout.write(args.format === 'json' ? `${JSON.stringify(model)}\n` : streamSummary(model));
+    return 0;
+  }
+  const { station, set } = loadStation(args, loaded);
   const model = buildStationYear(station, set, args.year);
   ignoreClosedPipe();
   process.stdout.write(args.format === 'json' ? `${JSON.stringify(model)}\n` : summary(model));

@@ -6,7 +6,8 @@
 import { streamEvents } from './streams/events.js';
 import { streamPredictorFor } from './streams/predict.js';
 import {
-  referenceStreamOf, STREAM_SECONDARY_PAD_MS, streamSecondaryEventsFrom, streamSecondarySeries, type StreamLookup,
+  referenceStreamOf, STREAM_SECONDARY_PAD_MS, streamSecondaryAlong, streamSecondaryEventsFrom, streamSecondarySeries,
+  type StreamLookup,
 } from './streams/secondary.js';
 import type { AnyStreamStation, StreamEvent } from './streams/types.js';
 
@@ -39,5 +40,26 @@ export function streamVelocities(
   const events = streamEventsFor(station, set, Math.min(start, end) - DAY, Math.max(start, end) + DAY);
   return streamSecondarySeries(events, station, start, stepMs, count);
 }
+export { buildStreamYear, streamAlmanacEvent, type StreamYearLookup } from './streams/almanac.js';
 export { suspiciousStream, MAX_PLAUSIBLE_MAJOR_KNOTS } from './streams/check.js';
 export { STREAM_CAUTION } from './streams/caution.js';
+
+/**
+ * The stream toward the flood direction, knots (ebb negative), at start + i·stepMs: for a stream station
+ * its component along the flood direction, for a stream-secondary station its drawn rate.
+ */
+export function streamAlongFlood(
+  station: AnyStreamStation, set: StreamLookup, start: number, stepMs: number, count: number,
+): Float64Array {
+  if (station.kind === 'stream-secondary') {
+    const end = start + stepMs * Math.max(0, count - 1);
+    const events = streamEventsFor(station, set, Math.min(start, end) - DAY, Math.max(start, end) + DAY);
+    return streamSecondaryAlong(events, start, stepMs, count);
+  }
+  const { east, north } = streamPredictorFor(station).series(start, stepMs, count);
+  const fx = Math.sin((station.flood_direction * Math.PI) / 180);
+  const fy = Math.cos((station.flood_direction * Math.PI) / 180);
+  const out = new Float64Array(count);
+  for (let i = 0; i < count; i++) out[i] = east[i]! * fx + north[i]! * fy;
+  return out;
+}

@@ -63,7 +63,7 @@ export function dayEntries(input: DayInputs): DayEntry[] {
 }
 
 /** Month entries pointing into the days. */
-export function monthEntries(days: readonly DayEntry[]): MonthEntry[] {
+export function monthEntries(days: readonly Pick<DayEntry, 'month'>[]): MonthEntry[] {
   const months: MonthEntry[] = [];
   days.forEach((d, i) => {
     const last = months[months.length - 1];

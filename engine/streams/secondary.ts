@@ -61,16 +61,21 @@ export function streamSecondaryEventsFrom(reference: readonly StreamEvent[], sta
   return out.sort((a, b) => a.time - b.time);
 }
 
-/** East and north velocity (knots) of a secondary station at start + i·stepMs, from its events. */
-export function streamSecondarySeries(
-  events: readonly StreamEvent[], station: StreamSecondaryStation, start: number, stepMs: number, count: number,
-): { east: Float64Array; north: Float64Array } {
+/** The drawn rate of a secondary station at start + i·stepMs: + flood, − ebb, 0 at slack (knots). */
+export function streamSecondaryAlong(events: readonly StreamEvent[], start: number, stepMs: number, count: number): Float64Array {
   const signed: TideEvent[] = events.map((e) => ({
     time: e.time,
     type: e.type === 'ebb' ? 'low' : 'high',
     height: e.type === 'flood' ? e.speed : e.type === 'ebb' ? -e.speed : 0,
   }));
-  const along = cosineCurve(signed, start, stepMs, count);
+  return cosineCurve(signed, start, stepMs, count);
+}
+
+/** East and north velocity (knots) of a secondary station at start + i·stepMs, from its events. */
+export function streamSecondarySeries(
+  events: readonly StreamEvent[], station: StreamSecondaryStation, start: number, stepMs: number, count: number,
+): { east: Float64Array; north: Float64Array } {
+  const along = streamSecondaryAlong(events, start, stepMs, count);
   const flood = station.flood_direction * DEG;
   const ebb = ebbDirectionOf(station) * DEG;
   const east = new Float64Array(count);

@@ -2,7 +2,9 @@
 // engine computes. Plain data, like ../types.ts; speeds in knots, directions in degrees true (the
 // direction the stream sets toward, clockwise from north).
 
-import type { Position } from '../types.js';
+import type {
+  DayEntry, MonthEntry, MoonPhaseEntry, Position, SpringNeapEntry, SpringNeapKind,
+} from '../types.js';
 
 /** One constituent's tidal current ellipse (axes in the station's `unit`). */
 export interface CurrentEllipse {
@@ -72,4 +74,62 @@ export interface StreamVelocity {
   north: number;
   speed: number;
   direction: number | null; // null when the speed is zero
+}
+
+// ---------------------------------------------------------------------------------------------
+// The StreamYear model: a stream station's year in the same shape as a tide station's StationYear
+// (events, days with sun and moon, moon phases, springs and neaps, months), speeds instead of heights.
+// Speeds in knots to the hundredth, directions in degrees true to the tenth.
+// ---------------------------------------------------------------------------------------------
+
+
+export interface StreamAlmanacEvent {
+  time: string; // ISO UTC to the second
+  local: string; // ISO with the station's offset
+  clock: string; // local "HH:mm" of the nearest minute
+  offset: string; // "+01:00"
+  type: StreamEventType;
+  speed: number; // knots
+  direction: number | null; // degrees true toward which the stream sets; null at a slack without set
+}
+
+type SharedDayFields = Pick<DayEntry,
+  | 'date' | 'weekday' | 'month' | 'dayOfMonth' | 'hours' | 'offsetStart' | 'offsetEnd' | 'offsetChange'
+  | 'sunrise' | 'sunset' | 'sunriseClock' | 'sunsetClock' | 'sunNote' | 'moonrise' | 'moonset'
+  | 'moonriseClock' | 'moonsetClock' | 'moonPhase' | 'moonIllumination'>;
+
+export interface StreamDayEntry extends SharedDayFields {
+  events: StreamAlmanacEvent[]; // this day's slacks and strongest floods and ebbs, in time order
+  /** Component toward the flood direction (knots, ebb negative) every `curveStepMinutes` from local midnight to the next. */
+  curve: number[];
+  springNeap: SpringNeapKind | null;
+  strongestFlood: number | null; // the day's greatest flood rate, knots
+  strongestEbb: number | null;
+}
+
+export interface StreamYear {
+  kind: 'stream';
+  station: AnyStreamStation; // as loaded
+  year: number;
+  timezone: string;
+  invented: boolean;
+  caution: string; // the general caution
+  streamCaution: string; // streams vary across a channel, with wind and river flow
+  reference: null | { id: string; name: string }; // a stream-secondary station's reference stream station
+  tideReference: null | { id: string; name: string }; // the tide station springs and neaps come from
+  floodDirection: number;
+  ebbDirection: number;
+  rotary: boolean; // slack is the least speed, not a turn through zero
+  /** Where springs and neaps come from: the tide reference's range, or the stream's own (flood + ebb rate, knots). */
+  springNeapFrom: 'tide-reference' | 'stream';
+  events: StreamAlmanacEvent[];
+  moonPhases: MoonPhaseEntry[];
+  springNeap: SpringNeapEntry[]; // range: metres from a tide reference, knots (flood + ebb rate) from the stream
+  curveStepMinutes: number;
+  days: StreamDayEntry[];
+  months: MonthEntry[];
+  offsetChanges: NonNullable<DayEntry['offsetChange']>[];
+  extremes: { strongestFlood: StreamAlmanacEvent | null; strongestEbb: StreamAlmanacEvent | null };
+  warnings: string[];
+  generator: { name: 'tidewright'; version: string };
 }

@@ -104,3 +104,20 @@ describe('stream station files', () => {
     has('zero-rate.yaml', 'differences.flood.rate', 'write the ratio');
   });
 });
+
+describe('almanac on a stream station', () => {
+  it('--format json prints the StreamYear model; the table sums up each month with both cautions', async () => {
+    const json = await runCli(['almanac', GUT, '--year', '2027', '--format', 'json']);
+    expect(json.code).toBe(0);
+    const model = JSON.parse(json.stdout) as { kind: string; reference: { id: string }; days: unknown[]; events: { type: string }[] };
+    expect(model.kind).toBe('stream');
+    expect(model.reference.id).toBe('wrackrun-narrows');
+    expect(model.days).toHaveLength(365);
+    expect(new Set(model.events.map((e) => e.type))).toEqual(new Set(['slack', 'flood', 'ebb']));
+    const table = await runCli(['almanac', NARROWS, '--year', '2027']);
+    expect(table.code).toBe(0);
+    expect(table.stdout).toContain('Wrackrun Narrows (invented)');
+    expect(table.stdout).toMatch(/^January +\d+ +\d\.\d kn 0\d\d°/m);
+    expect(table.stdout).toContain('Streams: Tidal streams vary across a channel');
+  }, 60_000);
+});

@@ -1,0 +1,216 @@
+// Build the StreamYear model: a stream station's year in the shape of a tide station's StationYear
+// (events, local days with sun and moon, moon phases, springs and neaps, months), plain data that the
+// renderers read and never recompute.
+//
+// Springs and neaps come from the tide station named by `tide_reference` (its own predicted range, as
+// for any tide station), else from the stream's own range: each strongest flood counts as a "high" of
+// its rate and each strongest ebb as a "low" of minus its rate, so the fortnightly envelope of flood
+// plus ebb rate takes the place of the tidal range; the age that pairs markers with syzygies is the
+// age of the tide (Pugh 1987) from the M2 and S2 ellipse phases.
+
+import { basename } from 'node:path';
+import { CAUTION, isInvented } from '../almanac/caution.js';
+import { monthEntries } from '../almanac/days.js';
+import { generator } from '../almanac/generator.js';
+import { ageOfTideHours } from '../datums.js';
+import { UsageError } from '../errors.js';
+import {
+  clock, dayIndexOf, isoLocal, isoUtc, localDate, localDays, offsetString, parseDateInZone, roundToMinute,
+  type LocalDay,
+} from '../localtime.js';
+import { moonQuarters, skyForDays, type DaySpan, type MoonQuarter } from '../sky.js';
+import { dayRange, springNeapMarkers } from '../springneap.js';
+import { harmonicStationOf, tideEvents, type StationLookup } from '../tides.js';
+import type { MoonPhaseEntry, MoonPhaseName, SpringNeapEntry, SpringNeapKind, Station, TideEvent } from '../types.js';
+import { STREAM_CAUTION } from './caution.js';
+import { isRotary } from './predict.js';
+import { ebbDirectionOf, referenceStreamOf, type StreamLookup } from './secondary.js';
+import type {
+  AnyStreamStation, StreamAlmanacEvent, StreamDayEntry, StreamEvent, StreamYear,
+} from './types.js';
+import { streamAlongFlood, streamEventsFor } from '../streams.js';
+
+const MINUTE = 60_000;
+const DAY = 86_400_000;
+const SPRING_NEAP_PAD_DAYS = 20;
+
+export type StreamYearLookup = StreamLookup & Partial<StationLookup>;
+
+const knots = (x: number): number => Math.round(x * 100) / 100 + 0;
+const degrees = (x: number | null): number | null => (x === null ? null : (Math.round(x * 10) / 10) % 360 + 0);
+
+/** One event for the model: instants as the tide events print them, knots and degrees rounded. */
+export function streamAlmanacEvent(e: StreamEvent, zone: string): StreamAlmanacEvent {
+  return {
+    time: isoUtc(e.time),
+    local: isoLocal(e.time, zone),
+    clock: clock(e.time, zone),
+    offset: offsetString(roundToMinute(e.time), zone),
+    type: e.type,
+    speed: knots(e.speed),
+    direction: degrees(e.direction),
+  };
+}
+
+function paddingDays(year: number, zone: string, side: -1 | 1): DaySpan[] {
+  const dates: string[] = [];
+  for (let i = 0; i <= SPRING_NEAP_PAD_DAYS; i++) {
+    const first = side < 0 ? Date.UTC(year, 0, 1 - SPRING_NEAP_PAD_DAYS) : Date.UTC(year + 1, 0, 1);
+    dates.push(new Date(first + i * DAY).toISOString().slice(0, 10));
+  }
+  const starts = dates.map((d) => parseDateInZone(d, zone));
+  return dates.slice(0, -1).map((date, i) => ({ date, start: starts[i]!, end: starts[i + 1]! }));
+}
+
+/** Stream events as the tide engine's events, for the spring–neap envelope: flood + rate, ebb − rate. */
+function asRangeEvents(events: readonly StreamEvent[]): TideEvent[] {
+  return events
+    .filter((e) => e.type !== 'slack')
+    .map((e) => ({ time: e.time, type: e.type === 'flood' ? 'high' : 'low', height: e.type === 'flood' ? e.speed : -e.speed }));
+}
+
+function tideReferenceOf(station: AnyStreamStation, set: StreamYearLookup): Station | null {
+  if (station.tide_reference === undefined) return null;
+  const found = set.byId?.get(station.tide_reference);
+  if (!found) {
+    throw new UsageError('--stations', `the tide station "${station.tide_reference}" named by tide_reference of ${station.id} is not in the station set`, 'give the folder that holds it with --stations, or leave tide_reference out');
+  }
+  return found;
+}
+
+/** The whole model of one stream station for one calendar year in the station's own time zone. */
+export function buildStreamYear(station: AnyStreamStation, set: StreamYearLookup, year: number, curveStepMinutes = 30): StreamYear {
+  if (!Number.isInteger(curveStepMinutes) || curveStepMinutes <= 0 || 60 % curveStepMinutes !== 0) {
+    throw new UsageError('curveStepMinutes', `${curveStepMinutes} does not divide an hour`, 'use 10, 15, 20 or 30');
+  }
+  const zone = station.timezone;
+  const days = localDays(year, zone);
+  const padDays = [...paddingDays(year, zone, -1), ...days, ...paddingDays(year, zone, 1)];
+  const allEvents = streamEventsFor(station, set, padDays[0]!.start - DAY, padDays[padDays.length - 1]!.end + DAY);
+  const yearEvents = allEvents.filter((e) => dayIndexOf(days, e.time) >= 0);
+  const events = yearEvents.map((e) => streamAlmanacEvent(e, zone));
+
+  const quarters = moonQuarters(padDays[0]!.start - 20 * DAY, padDays[padDays.length - 1]!.end + 5 * DAY);
+  const moonPhases: MoonPhaseEntry[] = quarters
+    .filter((q) => dayIndexOf(days, q.time) >= 0)
+    .map((q) => ({ time: isoUtc(q.time), local: isoLocal(q.time, zone), clock: clock(q.time, zone), date: localDate(q.time, zone), phase: q.phase }));
+
+  const tide = tideReferenceOf(station, set);
+  const harmonic = station.kind === 'stream' ? station : referenceStreamOf(station, set);
+  const rangeEvents = tide
+    ? tideEvents(tide, set as StationLookup, padDays[0]!.start - DAY, padDays[padDays.length - 1]!.end + DAY)
+    : asRangeEvents(allEvents);
+  const age = tide
+    ? ageOfTideHours(harmonicStationOf(tide, set as StationLookup).constituents)
+    : ageOfTideHours(Object.fromEntries(Object.entries(harmonic.constituents).map(([k, e]) => [k, { amplitude: e.major, phase: e.phase }])));
+  const springNeap = springNeapEntries(rangeEvents, padDays, days, quarters, age);
+
+  const step = curveStepMinutes * MINUTE;
+  const sky = skyForDays(days, station.position, zone);
+  const springNeapOn = new Map(springNeap.map((s) => [s.date, s.kind] as [string, SpringNeapKind]));
+  const perDay: StreamAlmanacEvent[][] = days.map(() => []);
+  yearEvents.forEach((e, i) => perDay[dayIndexOf(days, e.time)]!.push(events[i]!));
+  const moonPhaseOn = new Map(moonPhases.map((m) => [m.date, m.phase] as [string, MoonPhaseName]));
+  const dayList = days.map((day, i) => ({
+    ...streamDay(day, sky[i]!, perDay[i]!, dayCurve(station, set, day, step), springNeapOn, zone),
+    moonPhase: moonPhaseOn.get(day.date) ?? null,
+  }));
+
+  const strongest = (type: 'flood' | 'ebb') =>
+    events.filter((e) => e.type === type).reduce<StreamAlmanacEvent | null>((best, e) => (!best || e.speed > best.speed ? e : best), null);
+  const reference = station.kind === 'stream-secondary' ? harmonic : null;
+  return {
+    kind: 'stream',
+    station: modelStation(station),
+    year,
+    timezone: zone,
+    invented: isInvented(station),
+    caution: CAUTION,
+    streamCaution: STREAM_CAUTION,
+    reference: reference ? { id: reference.id, name: reference.name } : null,
+    tideReference: tide ? { id: tide.id, name: tide.name } : null,
+    floodDirection: station.flood_direction,
+    ebbDirection: ebbDirectionOf(station),
+    rotary: isRotary(harmonic),
+    springNeapFrom: tide ? 'tide-reference' : 'stream',
+    events,
+    moonPhases,
+    springNeap,
+    curveStepMinutes,
+    days: dayList,
+    months: monthEntries(dayList),
+    offsetChanges: dayList.flatMap((d) => (d.offsetChange ? [d.offsetChange] : [])),
+    extremes: { strongestFlood: strongest('flood'), strongestEbb: strongest('ebb') },
+    warnings: [],
+    generator: generator(),
+  };
+}
+
+function modelStation(station: AnyStreamStation): AnyStreamStation {
+  const copy = structuredClone(station);
+  if (copy.sourceFile !== undefined) copy.sourceFile = basename(copy.sourceFile);
+  return copy;
+}
+
+function dayCurve(station: AnyStreamStation, set: StreamYearLookup, day: LocalDay, stepMs: number): number[] {
+  const n = Math.floor((day.end - day.start) / stepMs) + 1;
+  const out = Array.from(streamAlongFlood(station, set, day.start, stepMs, n), knots);
+  if (day.start + (n - 1) * stepMs < day.end) out.push(knots(streamAlongFlood(station, set, day.end, stepMs, 1)[0]!));
+  return out;
+}
+
+const isoOrNull = (t: number | null): string | null => (t === null ? null : isoUtc(t));
+const clockOrNull = (t: number | null, zone: string): string | null => (t === null ? null : clock(t, zone));
+
+function streamDay(
+  day: LocalDay, sky: ReturnType<typeof skyForDays>[number], events: StreamAlmanacEvent[], curve: number[],
+  springNeapOn: ReadonlyMap<string, SpringNeapKind>, zone: string,
+): StreamDayEntry {
+  const most = (type: 'flood' | 'ebb') => events.filter((e) => e.type === type).reduce<number | null>((m, e) => (m === null || e.speed > m ? e.speed : m), null);
+  return {
+    date: day.date,
+    weekday: day.weekday,
+    month: day.month,
+    dayOfMonth: day.dayOfMonth,
+    hours: day.hours,
+    offsetStart: day.offsetStart,
+    offsetEnd: day.offsetEnd,
+    offsetChange: day.offsetChange ? { ...day.offsetChange } : null,
+    events,
+    curve,
+    sunrise: isoOrNull(sky.sunrise),
+    sunset: isoOrNull(sky.sunset),
+    sunriseClock: clockOrNull(sky.sunrise, zone),
+    sunsetClock: clockOrNull(sky.sunset, zone),
+    sunNote: sky.sunNote,
+    moonrise: isoOrNull(sky.moonrise),
+    moonset: isoOrNull(sky.moonset),
+    moonriseClock: clockOrNull(sky.moonrise, zone),
+    moonsetClock: clockOrNull(sky.moonset, zone),
+    moonPhase: null,
+    moonIllumination: sky.moonIllumination,
+    springNeap: springNeapOn.get(day.date) ?? null,
+    strongestFlood: most('flood'),
+    strongestEbb: most('ebb'),
+  };
+}
+
+function springNeapEntries(
+  events: readonly TideEvent[], padDays: readonly DaySpan[], days: readonly LocalDay[],
+  quarters: readonly MoonQuarter[], ageHours: number,
+): SpringNeapEntry[] {
+  const first = days[0]!.date;
+  const last = days[days.length - 1]!.date;
+  return springNeapMarkers(events, padDays, quarters, ageHours)
+    .filter((m) => m.date >= first && m.date <= last)
+    .map((m) => {
+      const day = padDays.find((d) => d.date === m.date)!;
+      return {
+        date: m.date,
+        kind: m.kind,
+        range: Math.round((dayRange(events, day.start, day.end) ?? m.envelope) * 1000) / 1000,
+        astronomical: isoUtc(m.astronomical),
+        lagHours: Math.round(m.lagHours * 10) / 10,
+      };
+    });
+}
