@@ -2,6 +2,7 @@
 // The renderers load only when needed, so a build refused for bad input answers at once.
 import { availableParallelism } from 'node:os';
 import { loadStationSet } from '../../engine/stations.js';
+import { buildStreamYear } from '../../engine/streams.js';
 import { checkStations } from '../check.js';
 import { combinedBookInWorker } from './combined.js';
 import { compiledWorkerUrl, computeStations } from './compute.js';
@@ -11,15 +12,21 @@ export const realBuildDeps: BuildDeps = {
   // The same verdict as `tidewright check`: schema, references, and suspicious constants.
   checkSet: (dir) => {
     const { problems } = checkStations(dir);
-    return problems.length > 0 ? { stations: [], problems } : { stations: loadStationSet(dir).stations, problems };
+    if (problems.length > 0) return { stations: [], problems };
+    const set = loadStationSet(dir);
+    return { stations: set.stations, streams: set.streams ?? [], problems };
+  },
+  computeStreams: (stations, streams, year) => {
+    const set = { byId: new Map(stations.map((s) => [s.id, s])), streams };
+    return streams.map((s) => buildStreamYear(s, set, year));
   },
   computeStations: async (request, onStation, signal) => {
     const { stationJobDeps } = await import('./engine-deps.js');
     return computeStations(request, onStation, stationJobDeps, signal);
   },
-  renderSite: async (models, siteDir, dataDir, options, siteFiles) => {
+  renderSite: async (models, siteDir, dataDir, options, siteFiles, streams) => {
     const { renderSite } = await import('../../templates/site/render.js');
-    return renderSite(models, siteDir, { ...options, dataDir, quiet: true, ...(siteFiles !== undefined && { siteFiles }) });
+    return renderSite(models, siteDir, { ...options, dataDir, quiet: true, ...(siteFiles !== undefined && { siteFiles }), ...(streams && { streams }) });
   },
   renderCombinedBook: (models, options, beside, signal) => {
     const workerUrl = beside ? compiledWorkerUrl() : null;

@@ -4,6 +4,7 @@ import { mkdir, readdir, stat, writeFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import type { StationFileError } from '../../engine/errors.js';
 import type { Station, StationYear } from '../../engine/types.js';
+import type { AnyStreamStation, StreamYear } from '../../engine/streams/types.js';
 import { BuildStepError, StationSetInvalid } from './failure.js';
 import { poolSize, workUnits } from './groups.js';
 import type { BuildPlan, RenderChoices } from './options.js';
@@ -24,10 +25,12 @@ export interface ComputeRequest {
 
 /** The pieces a build is made of; the CLI passes the real ones, tests may pass their own. */
 export interface BuildDeps {
-  checkSet(dir: string): { stations: Station[]; problems: StationFileError[] };
+  checkSet(dir: string): { stations: Station[]; streams?: AnyStreamStation[]; problems: StationFileError[] };
+  /** The stream-years of the set's tidal stream stations (few and quick: computed in this thread). */
+  computeStreams?(stations: Station[], streams: AnyStreamStation[], year: number): StreamYear[];
   computeStations(request: ComputeRequest, onStation: (outcome: StationOutcome) => void, signal?: AbortSignal): Promise<void>;
   /** The site into siteDir, and every station-year's downloads (CSV, JSON, iCalendar) into dataDir too. */
-  renderSite(models: StationYear[], siteDir: string, dataDir: string, options: RenderChoices, siteFiles?: string): Promise<unknown>;
+  renderSite(models: StationYear[], siteDir: string, dataDir: string, options: RenderChoices, siteFiles?: string, streams?: StreamYear[]): Promise<unknown>;
   /** `beside`: the caller is rendering the website at the same time (use another thread if there is one). */
   renderCombinedBook(models: StationYear[], options: RenderChoices, beside: boolean, signal?: AbortSignal): Promise<Buffer>;
   cores(): number;
@@ -104,7 +107,8 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
   if (checked.problems.length > 0) throw new StationSetInvalid(checked.problems);
   const stations = checked.stations;
   const year = plan.year;
-  const siteFiles = siteFilesFolder(plan.stationsDir, stations.map((s) => s.id));
+  const streamStations = checked.streams ?? [];
+  const siteFiles = siteFilesFolder(plan.stationsDir, [...stations, ...streamStations].map((s) => s.id));
 
   createTemp(target);
   events.tempCreated(target);
@@ -125,6 +129,9 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
     const missing = stations.filter((s) => !outcomes.has(s.id)).map((s) => s.id);
     if (missing.length > 0) throw new BuildStepError('computing the stations', new Error(`no result for ${missing.join(', ')}`));
     const models = stations.map((s) => outcomes.get(s.id)!.model);
+    const streamModels = streamStations.length > 0 && deps.computeStreams
+      ? await step('computing the stream stations', times, async () => deps.computeStreams!(stations, streamStations, year))
+      : [];
     let pdfPages = stations.reduce((n, s) => n + outcomes.get(s.id)!.pdfPages, 0);
     outcomes.clear();
 
@@ -135,7 +142,7 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
     const beside = workers > 1 && stations.length <= BESIDE_MAX_STATIONS;
     const name = combinedBookName(plan.render.title, stations.map((s) => s.id));
     const site = (): Promise<unknown> => step('rendering the website and downloads', times,
-      () => deps.renderSite(models, join(target.temp, 'site'), join(target.temp, 'data'), plan.render, siteFiles ?? undefined));
+      () => deps.renderSite(models, join(target.temp, 'site'), join(target.temp, 'data'), plan.render, siteFiles ?? undefined, streamModels));
     const book = (): Promise<void> => step('rendering the combined book', times, async () => {
       const pdf = await deps.renderCombinedBook(models, plan.render, beside, events.signal);
       await mkdir(join(target.temp, 'pdf'), { recursive: true });

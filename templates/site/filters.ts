@@ -50,6 +50,7 @@ export function siteFilters(units: Units): Record<string, (...args: never[]) => 
     eventName: (type: string): string => (type === 'high' ? 'High water' : 'Low water'),
     listWords: (items: (string | number)[]): string => listWords(items),
     fixed: (value: number, digits: number): string => value.toFixed(digits),
+    bearing: (degrees: number | null): string => (degrees === null ? '' : `${String(Math.round(degrees) % 360).padStart(3, '0')}°`),
     moonLit: (phase: MoonPhaseName, latitude: number): string => moonLitPath(phase, latitude < 0),
     tideCurve: (day: DayEntry, model: StationYear): DayCurve => dayCurve(day, model.curveStepMinutes, scaleOf(model)),
     glance: (model: StationYear): GlanceMonth[] => {

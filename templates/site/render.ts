@@ -12,6 +12,8 @@ import { copyFile, link, mkdir, rm } from 'node:fs/promises';
 import { join, resolve } from 'node:path';
 import Eleventy from '@11ty/eleventy';
 import type { StationYear } from '../../engine/types.js';
+import type { StreamYear } from '../../engine/streams/types.js';
+import { writeStreamExports } from '../exports/streams.js';
 import { writeExports } from '../exports/write.js';
 import { registerSiteFilters } from './filters.js';
 import { projectRoot } from './paths.js';
@@ -24,6 +26,8 @@ export interface RenderSiteOptions extends SiteOptions {
   stationYearsPerRun?: number;
   /** A publisher's own files (e.g. CNAME), copied into the site as they are; none may replace a page of the site. */
   siteFiles?: string;
+  /** The stream-years of the build's tidal stream stations (pages written with the shared pages). */
+  streams?: readonly StreamYear[];
 }
 
 /** The global-data name under which renderSite hands the site to templates/_data/site.js. */
@@ -33,7 +37,7 @@ export const HANDOFF_KEY = 'tidewrightSite';
 export const STATION_YEARS_PER_RUN = 25;
 
 // Which templates each kind of run leaves out.
-const SHARED_PAGES = ['index.njk', 'datums.njk'];
+const SHARED_PAGES = ['index.njk', 'datums.njk', 'stream-year.njk', 'stream-month.njk'];
 const STATION_PAGES = ['station-year.njk', 'month.njk'];
 
 async function linkOrCopy(from: string, to: string): Promise<void> {
@@ -84,7 +88,7 @@ export async function renderSite(models: StationYear[], outDir: string, options:
   const out = resolve(outDir);
   const size = options.stationYearsPerRun ?? STATION_YEARS_PER_RUN;
   if (!Number.isInteger(size) || size < 1) throw new RangeError(`stationYearsPerRun must be a whole number from 1, not ${size}`);
-  const site = buildSiteData(models, options, true);
+  const site = buildSiteData(models, options, true, options.streams ?? []);
   for (const batch of batches(site, size)) await runEleventy(root, out, { ...site, ...batch }, SHARED_PAGES, options);
   await runEleventy(root, out, { ...site, stationYears: [], monthPages: [] }, STATION_PAGES, options, options.siteFiles);
 
@@ -97,6 +101,13 @@ export async function renderSite(models: StationYear[], outDir: string, options:
       for (const name of [names.csv, names.json, names.ics]) {
         await linkOrCopy(join(siteData, name), join(options.dataDir, name));
       }
+    }
+  }
+  for (const model of options.streams ?? []) {
+    const names = await writeStreamExports(model, siteData);
+    if (options.dataDir) {
+      await mkdir(options.dataDir, { recursive: true });
+      for (const name of [names.csv, names.json]) await linkOrCopy(join(siteData, name), join(options.dataDir, name));
     }
   }
 }

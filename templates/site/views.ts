@@ -3,8 +3,10 @@
 // formatting and drawing happen in the filters while each page renders.
 import { CAUTION } from '../../engine/almanac/caution.js';
 import type { MonthEntry, Station, StationYear } from '../../engine/types.js';
+import type { StreamYear } from '../../engine/streams/types.js';
 import { exportFileNames } from '../exports/write.js';
 import type { Units } from './format.js';
+import { indexStreams, streamPages, type IndexStream, type StreamMonthPage, type StreamYearPage } from './stream-views.js';
 
 export interface SiteOptions {
   units: Units;
@@ -34,6 +36,8 @@ export interface IndexGroup {
   referenceName: string;
   reference: IndexStation | null; // null when the reference port itself is not in this build
   secondaries: IndexStation[];
+  streams: IndexStream[]; // tidal stream stations of the same area
+  streamsOnly: boolean; // a group of stream stations that name no tide station
 }
 
 export interface PageLink {
@@ -74,13 +78,16 @@ export interface SiteData {
   groups: IndexGroup[];
   stationYears: StationYearPage[];
   monthPages: MonthPage[];
+  streamYears: StreamYearPage[];
+  streamMonthPages: StreamMonthPage[];
+  streamCaution: string | null; // present when the build has stream stations
 }
 
 const byName = (a: { name: string }, b: { name: string }): number => a.name.localeCompare(b.name, 'en');
 
 export const stationYearUrl = (id: string, year: number): string => `/${id}/${year}/`;
 
-function indexGroups(models: StationYear[]): IndexGroup[] {
+function indexGroups(models: StationYear[], streams: readonly StreamYear[] = []): IndexGroup[] {
   const stations = new Map<string, IndexStation>();
   const referenceOf = new Map<string, { id: string; name: string } | null>();
   for (const m of models) {
@@ -100,7 +107,7 @@ function indexGroups(models: StationYear[]): IndexGroup[] {
     if (entry.kind === 'reference') {
       const g = groups.get(entry.id);
       if (g) g.reference = entry;
-      else groups.set(entry.id, { referenceName: entry.name, reference: entry, secondaries: [] });
+      else groups.set(entry.id, { referenceName: entry.name, reference: entry, secondaries: [], streams: [], streamsOnly: false });
     }
   }
   for (const entry of stations.values()) {
@@ -108,14 +115,25 @@ function indexGroups(models: StationYear[]): IndexGroup[] {
     if (!ref) continue;
     let g = groups.get(ref.id);
     if (!g) {
-      g = { referenceName: ref.name, reference: null, secondaries: [] };
+      g = { referenceName: ref.name, reference: null, secondaries: [], streams: [], streamsOnly: false };
       groups.set(ref.id, g);
     }
     g.secondaries.push(entry);
   }
+  const groupOf = (tideId: string): string | null => {
+    const key = referenceOf.get(tideId)?.id ?? tideId;
+    return groups.has(key) ? key : null;
+  };
+  let loose: IndexStream[] = [];
+  for (const [key, list] of indexStreams(streams, groupOf)) {
+    if (key === null) loose = list;
+    else groups.get(key)!.streams.push(...list);
+  }
   const list = [...groups.values()];
   for (const g of list) g.secondaries.sort(byName);
-  return list.sort((a, b) => a.referenceName.localeCompare(b.referenceName, 'en'));
+  list.sort((a, b) => a.referenceName.localeCompare(b.referenceName, 'en'));
+  if (loose.length > 0) list.push({ referenceName: 'Tidal streams', reference: null, secondaries: [], streams: loose, streamsOnly: true });
+  return list;
 }
 
 function monthPagesOf(model: StationYear, yearUrl: string): MonthPage[] {
@@ -133,7 +151,7 @@ function monthPagesOf(model: StationYear, yearUrl: string): MonthPage[] {
   return pages;
 }
 
-export function buildSiteData(models: StationYear[], options: SiteOptions, downloads = true): SiteData {
+export function buildSiteData(models: StationYear[], options: SiteOptions, downloads = true, streams: readonly StreamYear[] = []): SiteData {
   const sorted = [...models].sort((a, b) => a.station.id.localeCompare(b.station.id, 'en') || a.year - b.year);
   const built = new Set(sorted.map((m) => stationYearUrl(m.station.id, m.year)));
   const stationYears: StationYearPage[] = [];
@@ -155,6 +173,7 @@ export function buildSiteData(models: StationYear[], options: SiteOptions, downl
     monthPages.push(...months);
   }
   const first = sorted[0];
+  const stream = streamPages(streams);
   return {
     title: options.title ?? 'Tide almanac',
     publisher: options.publisher ?? null,
@@ -162,11 +181,13 @@ export function buildSiteData(models: StationYear[], options: SiteOptions, downl
     units: options.units,
     downloads,
     caution: first?.caution ?? CAUTION, // the engine's words, also for a build with no stations
-    anyInvented: sorted.some((m) => m.invented),
-    provenances: [...new Set(sorted.map((m) => m.station.provenance))].sort(),
+    anyInvented: sorted.some((m) => m.invented) || streams.some((m) => m.invented),
+    provenances: [...new Set([...sorted, ...streams].map((m) => m.station.provenance))].sort(),
     generator: first ? `${first.generator.name} ${first.generator.version}` : 'tidewright',
-    groups: indexGroups(sorted),
+    groups: indexGroups(sorted, streams),
     stationYears,
     monthPages,
+    ...stream,
+    streamCaution: streams[0]?.streamCaution ?? null,
   };
 }

@@ -1,0 +1,78 @@
+// The downloads of a stream-year: its slacks and strongest floods and ebbs as CSV and JSON, with the
+// same notes as the tide downloads (what the numbers are, both cautions, provenance, invented data).
+import { mkdir, writeFile } from 'node:fs/promises';
+import { join } from 'node:path';
+import type { StreamYear } from '../../engine/streams/types.js';
+import { csvField } from './csv.js';
+
+const SAFE_ID = /^[a-z0-9-]+$/;
+const oneLine = (text: string): string => text.replace(/[\r\n\t]+/g, ' ').trim();
+
+export interface StreamExportFileNames {
+  csv: string;
+  json: string;
+}
+
+/** File names of a stream-year's downloads; the id is checked so no name can leave the folder. */
+export function streamExportFileNames(model: StreamYear): StreamExportFileNames {
+  const id = model.station.id;
+  if (!SAFE_ID.test(id) || !Number.isInteger(model.year)) {
+    throw new Error(`station id "${id}" / year ${model.year}: ids may hold only a-z, 0-9 and "-"`);
+  }
+  return { csv: `${id}-${model.year}-streams.csv`, json: `${id}-${model.year}-streams.json` };
+}
+
+export function streamNotes(model: StreamYear): string[] {
+  const st = model.station;
+  const notes = [
+    `Tidal stream events for ${oneLine(st.name)} (${st.id}), ${model.year}: slack water and the strongest flood and ebb.`,
+    `Rates in knots; directions in degrees true toward which the stream sets (flood toward ${model.floodDirection}, ebb toward ${model.ebbDirection}); times in UTC and in local time (${model.timezone}).`,
+    `Caution: ${oneLine(model.caution)}`,
+    `Streams: ${oneLine(model.streamCaution)}`,
+  ];
+  if (model.invented) notes.push('These data are INVENTED for a demonstration: never use them for navigation.');
+  notes.push(`Provenance: ${oneLine(st.provenance)}`);
+  notes.push(`Made with ${model.generator.name} ${model.generator.version}.`);
+  return notes;
+}
+
+export function streamEventsCsv(model: StreamYear): string {
+  const lines = streamNotes(model).map((note) => `# ${note}`);
+  lines.push('station_id,date,local_time,utc_offset,time_utc,type,speed_kn,direction_deg_true');
+  for (const e of model.events) {
+    lines.push([model.station.id, e.local.slice(0, 10), e.clock, e.offset, e.time, e.type, e.speed.toFixed(2),
+      e.direction === null ? '' : e.direction.toFixed(1)].map(csvField).join(','));
+  }
+  return `${lines.join('\r\n')}\r\n`;
+}
+
+export function streamEventsJson(model: StreamYear): string {
+  const st = model.station;
+  const doc = {
+    kind: 'tidewright-stream-events',
+    version: 1,
+    station: {
+      id: st.id, name: st.name, type: st.kind, reference: model.reference, position: st.position, timezone: model.timezone,
+      floodDirection: model.floodDirection, ebbDirection: model.ebbDirection,
+    },
+    year: model.year,
+    units: { speed: 'kn', direction: 'degrees true' },
+    invented: model.invented,
+    caution: model.caution,
+    streamCaution: model.streamCaution,
+    provenance: st.provenance,
+    generator: model.generator,
+    events: model.events.map((e) => ({ time: e.time, local: e.local, type: e.type, speed: e.speed, direction: e.direction })),
+  };
+  return `${JSON.stringify(doc, null, 2)}\n`;
+}
+
+export async function writeStreamExports(model: StreamYear, dataDir: string): Promise<StreamExportFileNames> {
+  const names = streamExportFileNames(model);
+  await mkdir(dataDir, { recursive: true });
+  await Promise.all([
+    writeFile(join(dataDir, names.csv), streamEventsCsv(model)),
+    writeFile(join(dataDir, names.json), streamEventsJson(model)),
+  ]);
+  return names;
+}

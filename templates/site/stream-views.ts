@@ -1,0 +1,113 @@
+// The site's pages for tidal stream stations, built once from their StreamYear models: a page per
+// stream-year and one per month, with their URLs and neighbours. Stream stations are listed in the
+// index with the tide stations of their area: the group of their tide_reference (or of their
+// reference stream station's tide_reference); the others form a group of their own.
+import type { MonthEntry } from '../../engine/types.js';
+import type { StreamYear } from '../../engine/streams/types.js';
+import { streamExportFileNames } from '../exports/streams.js';
+import type { IndexYear, PageLink } from './views.js';
+
+export interface StreamYearPage {
+  url: string;
+  model: StreamYear;
+  referenceUrl: string | null; // a stream-secondary station's reference stream station, when in this build
+  months: { month: MonthEntry; url: string }[];
+  downloads: { csv: string; json: string };
+}
+
+export interface StreamMonthPage {
+  url: string;
+  yearUrl: string;
+  model: StreamYear;
+  month: MonthEntry;
+  days: StreamYear['days'];
+  prev: PageLink | null;
+  next: PageLink | null;
+  siblings: PageLink[];
+  clockChanges: NonNullable<StreamYear['days'][number]['offsetChange']>[];
+}
+
+export interface IndexStream {
+  id: string;
+  name: string;
+  kind: 'stream' | 'stream-secondary';
+  position: { latitude: number; longitude: number };
+  timezone: string;
+  floodDirection: number;
+  referenceName: string | null; // a stream-secondary station's reference stream station
+  invented: boolean;
+  years: IndexYear[];
+}
+
+export const streamYearUrl = (id: string, year: number): string => `/${id}/${year}/`;
+
+function monthPagesOf(model: StreamYear, yearUrl: string): StreamMonthPage[] {
+  const pages: StreamMonthPage[] = model.months.map((month) => {
+    const days = model.days.slice(month.firstDayIndex, month.firstDayIndex + month.dayCount);
+    const clockChanges = days.flatMap((d) => (d.offsetChange ? [d.offsetChange] : []));
+    return { url: `${yearUrl}${month.slug}/`, yearUrl, model, month, days, prev: null, next: null, siblings: [], clockChanges };
+  });
+  const siblings = pages.map((p) => ({ url: p.url, label: p.month.name }));
+  pages.forEach((p, i) => {
+    p.siblings = siblings;
+    if (i > 0) p.prev = { url: pages[i - 1]!.url, label: pages[i - 1]!.month.name };
+    if (i < pages.length - 1) p.next = { url: pages[i + 1]!.url, label: pages[i + 1]!.month.name };
+  });
+  return pages;
+}
+
+export function streamPages(models: readonly StreamYear[]): { streamYears: StreamYearPage[]; streamMonthPages: StreamMonthPage[] } {
+  const sorted = [...models].sort((a, b) => a.station.id.localeCompare(b.station.id, 'en') || a.year - b.year);
+  const built = new Set(sorted.map((m) => streamYearUrl(m.station.id, m.year)));
+  const streamYears: StreamYearPage[] = [];
+  const streamMonthPages: StreamMonthPage[] = [];
+  for (const model of sorted) {
+    const url = streamYearUrl(model.station.id, model.year);
+    const names = streamExportFileNames(model);
+    const months = monthPagesOf(model, url);
+    const ref = model.reference;
+    streamYears.push({
+      url, model,
+      referenceUrl: ref && built.has(streamYearUrl(ref.id, model.year)) ? streamYearUrl(ref.id, model.year) : null,
+      months: months.map((p) => ({ month: p.month, url: p.url })),
+      downloads: { csv: `/data/${names.csv}`, json: `/data/${names.json}` },
+    });
+    streamMonthPages.push(...months);
+  }
+  return { streamYears, streamMonthPages };
+}
+
+/**
+ * The index entries of the stream stations, keyed by the id of the reference port whose group they
+ * join (`tideGroupOf` maps a tide station's id to its group's reference id); null: a group of their own.
+ */
+export function indexStreams(models: readonly StreamYear[], tideGroupOf: (tideId: string) => string | null): Map<string | null, IndexStream[]> {
+  const entries = new Map<string, { entry: IndexStream; tide: string | null }>();
+  const tideOf = new Map<string, string | null>(models.map((m) => [m.station.id, m.tideReference?.id ?? null]));
+  for (const m of models) {
+    const st = m.station;
+    let found = entries.get(st.id);
+    if (!found) {
+      const ownTide = m.tideReference?.id ?? (m.reference ? tideOf.get(m.reference.id) ?? null : null);
+      found = {
+        entry: {
+          id: st.id, name: st.name, kind: st.kind, position: st.position, timezone: m.timezone, floodDirection: m.floodDirection,
+          referenceName: m.reference?.name ?? null, invented: m.invented, years: [],
+        },
+        tide: ownTide,
+      };
+      entries.set(st.id, found);
+    }
+    found.entry.years.push({ year: m.year, url: streamYearUrl(st.id, m.year) });
+  }
+  const groups = new Map<string | null, IndexStream[]>();
+  for (const { entry, tide } of entries.values()) {
+    entry.years.sort((a, b) => a.year - b.year);
+    const key = tide === null ? null : tideGroupOf(tide);
+    const list = groups.get(key) ?? [];
+    list.push(entry);
+    groups.set(key, list);
+  }
+  for (const list of groups.values()) list.sort((a, b) => a.name.localeCompare(b.name, 'en'));
+  return groups;
+}

@@ -1,0 +1,95 @@
+// The website's pages for tidal stream stations: listed in the index with the tide stations of their
+// area, a year page and month pages that print the model's slack times and strongest flood and ebb
+// (rate and an arrow turned to the direction), both cautions, downloads, and valid HTML.
+import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { HtmlValidate } from 'html-validate';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { loadStationSet } from '../../engine/stations.js';
+import { buildStreamYear, type StreamYear } from '../../engine/streams.js';
+import { renderSite } from '../../templates/site/render.js';
+import { demoModels, htmlFiles, read, textOf } from './site-build.js';
+
+const DEMO = join(import.meta.dirname, '..', '..', 'stations-demo');
+let tmp: string;
+let site: string;
+let dataDir: string;
+let narrows: StreamYear;
+let gut: StreamYear;
+
+beforeAll(async () => {
+  tmp = mkdtempSync(join(tmpdir(), 'tidewright-streams-'));
+  site = join(tmp, 'site');
+  dataDir = join(tmp, 'data');
+  const set = loadStationSet(DEMO);
+  const [narrowsStation, gutStation] = ['wrackrun-narrows', 'spindrift-gut'].map((id) => set.streams!.find((s) => s.id === id)!);
+  narrows = buildStreamYear(narrowsStation!, set, 2027);
+  gut = buildStreamYear(gutStation!, set, 2027);
+  await renderSite(demoModels(['gannet-head']), site, { units: 'm', quiet: true, dataDir, streams: [narrows, gut] });
+}, 120_000);
+
+afterAll(() => rmSync(tmp, { recursive: true, force: true }));
+
+describe('stream pages', () => {
+  it('the index lists the stream stations in the group of their tide reference, after its ports', () => {
+    const html = read(site, 'index.html');
+    const group = html.slice(html.indexOf('Gannet Head (invented)'), html.indexOf('</section>', html.indexOf('Gannet Head (invented)')));
+    expect(group).toContain('Wrackrun Narrows (invented)');
+    expect(group).toContain('Spindrift Gut (invented)');
+    expect(textOf(group)).toContain('tidal stream, from Wrackrun Narrows (invented)');
+    expect(textOf(html)).toContain('Tidal streams vary across a channel');
+  });
+
+  it('a month page prints every slack, flood and ebb of its days with rate and a turned arrow', () => {
+    const html = read(site, 'wrackrun-narrows/2027/03/index.html');
+    const march = narrows.days.filter((d) => d.month === 3);
+    for (const day of march) {
+      const row = html.slice(html.indexOf(`id="day-${day.dayOfMonth}"`), html.indexOf('</tr>', html.indexOf(`id="day-${day.dayOfMonth}"`)));
+      for (const e of day.events) {
+        expect(row).toContain(`<time datetime="${e.time}">${e.clock}</time>`);
+        if (e.type !== 'slack') {
+          expect(row).toContain(`${e.speed.toFixed(1)}&#8239;kn`);
+          expect(row).toContain(`rotate(${e.direction!.toFixed(1)})`);
+          expect(row).toContain(`${String(Math.round(e.direction!) % 360).padStart(3, '0')}°`);
+        }
+      }
+      if (day.springNeap === 'spring') expect(row).toContain('tag-springs');
+    }
+    const text = textOf(html);
+    expect(text).toContain('Tidal streams vary across a channel');
+    expect(text).toContain('Astronomical predictions only');
+    expect(text).toContain('Invented data');
+  });
+
+  it('the year page names the reference stream station, the directions and the downloads', () => {
+    const text = textOf(read(site, 'spindrift-gut/2027/index.html'));
+    expect(text).toMatch(/Secondary stream station of Wrackrun Narrows \(invented\) ?, by time differences and rate ratios/);
+    expect(text).toContain('Flood sets toward 095° true');
+    expect(text).toContain('Ebb sets toward 280° true');
+    const csv = readFileSync(join(dataDir, 'spindrift-gut-2027-streams.csv'), 'utf8');
+    expect(csv).toContain('# Caution: Astronomical predictions only.');
+    expect(csv).toContain('# Streams: Tidal streams vary across a channel');
+    expect(csv).toContain('# These data are INVENTED');
+    const rows = csv.trim().split('\r\n').filter((l) => !l.startsWith('#'));
+    expect(rows[0]).toBe('station_id,date,local_time,utc_offset,time_utc,type,speed_kn,direction_deg_true');
+    expect(rows).toHaveLength(gut.events.length + 1);
+    const json = JSON.parse(readFileSync(join(site, 'data', 'spindrift-gut-2027-streams.json'), 'utf8')) as { events: unknown[]; streamCaution: string };
+    expect(json.events).toEqual(gut.events.map((e) => ({ time: e.time, local: e.local, type: e.type, speed: e.speed, direction: e.direction })));
+  });
+
+  it('every stream page passes html-validate', async () => {
+    const validator = new HtmlValidate({
+      extends: ['html-validate:recommended'],
+      rules: { 'no-trailing-whitespace': 'off', 'void-style': 'off', 'long-title': 'off' },
+    });
+    const problems: string[] = [];
+    const files = htmlFiles(site).filter((f) => f.includes('wrackrun') || f.includes('spindrift') || f.endsWith(`site${'/'}index.html`));
+    expect(files.length).toBe(27);
+    for (const file of files) {
+      const report = await validator.validateFile(file);
+      for (const r of report.results) for (const m of r.messages) problems.push(`${file}:${m.line}:${m.column} ${m.ruleId} ${m.message}`);
+    }
+    expect(problems.slice(0, 30)).toEqual([]);
+  });
+});
