@@ -33,5 +33,6 @@ export const realBuildDeps: BuildDeps = {
     if (workerUrl) return combinedBookInWorker(workerUrl, models, options, signal);
     return import('../../templates/pdf/book.js').then(({ renderCombinedBook }) => renderCombinedBook(models, options));
   },
+  renderStreamBook: (model, options) => import('../../templates/pdf/stream-book.js').then(({ renderStreamBook }) => renderStreamBook(model, options)),
   cores: () => availableParallelism(),
 };

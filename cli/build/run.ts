@@ -33,6 +33,8 @@ export interface BuildDeps {
   renderSite(models: StationYear[], siteDir: string, dataDir: string, options: RenderChoices, siteFiles?: string, streams?: StreamYear[]): Promise<unknown>;
   /** `beside`: the caller is rendering the website at the same time (use another thread if there is one). */
   renderCombinedBook(models: StationYear[], options: RenderChoices, beside: boolean, signal?: AbortSignal): Promise<Buffer>;
+  /** The PDF book of one stream-year. */
+  renderStreamBook?(model: StreamYear, options: RenderChoices): Promise<Buffer>;
   cores(): number;
 }
 
@@ -134,6 +136,17 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
       : [];
     let pdfPages = stations.reduce((n, s) => n + outcomes.get(s.id)!.pdfPages, 0);
     outcomes.clear();
+    if (streamModels.length > 0 && deps.renderStreamBook) {
+      await step('rendering the stream books', times, async () => {
+        const pdfDir = join(target.temp, 'pdf');
+        await mkdir(pdfDir, { recursive: true });
+        for (const model of streamModels) {
+          const pdf = await deps.renderStreamBook!(model, plan.render);
+          await writeFile(stationYearFile(pdfDir, model.station.id, year, 'pdf'), pdf);
+          pdfPages += countPdfPages(pdf);
+        }
+      });
+    }
 
     // With more than one worker the combined book is drawn beside the website, else after it. The
     // combined book's worker holds its own copy of every model (about 0.85 MiB each) and the whole PDF,

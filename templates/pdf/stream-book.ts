@@ -1,0 +1,144 @@
+// The PDF book of a tidal stream station's year: a first page with the station, its directions and
+// both cautions, then one page per month of our own design: per day the slack times, and every
+// strongest flood and ebb with its time, rate and an arrow turned to the direction the water goes.
+import type { StreamAlmanacEvent, StreamDayEntry, StreamYear } from '../../engine/streams/types.js';
+import { editionDate } from './document.js';
+import { printable } from './format.js';
+import { contentBox, pageGeometry } from './geometry.js';
+import { springNeapBadge } from './glyphs.js';
+import { offsetStatement } from './month-page.js';
+import { notesPage } from './notes.js';
+import { checkBookOptions, type BookOptions } from './options.js';
+import type { BookSettings, LogicalPage, PageContext } from './page.js';
+import { renderBook } from './render.js';
+import { HAIRLINE, INK, MID, RULE } from './style.js';
+import { paragraph, put, putFitted } from './text.js';
+
+const HEADER = 46; // design points above the first day row
+
+/** A dart pointing the way the water goes: turned clockwise from north by the direction in degrees true. */
+export function streamArrow(doc: PDFKit.PDFDocument, direction: number, cx: number, cy: number, size: number): void {
+  const r = size / 2;
+  doc.save().translate(cx, cy).rotate(direction)
+    .polygon([0, -r], [r * 0.55, r * 0.45], [0, r * 0.15], [-r * 0.55, r * 0.45]).fill(INK)
+    .restore();
+}
+
+const bearing = (d: number): string => `${String(Math.round(d) % 360).padStart(3, '0')}\u00b0`;
+
+function firstPage(model: StreamYear, title: string): LogicalPage {
+  const st = model.station;
+  return {
+    kind: 'facts',
+    footer: { invented: model.invented, label: st.name },
+    outline: { title: st.name, level: 0 },
+    draw(ctx: PageContext) {
+      const { doc, box } = ctx;
+      const s = ctx.settings.geometry.scale;
+      let y = box.y + 20 * s;
+      putFitted(doc, st.name, box.x, y, { font: 'bold', size: 18 * s }, box.width, 9 * s);
+      y += 16 * s;
+      put(doc, `${title} \u00b7 tidal streams ${model.year}`, box.x, y, { font: 'regular', size: 11 * s, color: MID });
+      y += 22 * s;
+      const facts: [string, string][] = [
+        ['Station', st.kind === 'stream-secondary' ? `secondary stream station of ${model.reference?.name ?? ''}, by time differences and rate ratios` : `tidal stream station${model.rotary ? ' (rotary: slack is the least speed)' : ''}`],
+        ['Position', `${Math.abs(st.position.latitude).toFixed(3)}\u00b0 ${st.position.latitude < 0 ? 'S' : 'N'}, ${Math.abs(st.position.longitude).toFixed(3)}\u00b0 ${st.position.longitude < 0 ? 'W' : 'E'}`],
+        ['Local time', model.timezone],
+        ['Flood sets toward', `${bearing(model.floodDirection)} true`],
+        ['Ebb sets toward', `${bearing(model.ebbDirection)} true`],
+        ['Rates', 'knots'],
+        ['Springs and neaps', model.tideReference ? `as at ${model.tideReference.name}` : 'from this stream\u2019s own rates'],
+      ];
+      for (const [label, value] of facts) {
+        put(doc, label, box.x, y, { font: 'narrow-bold', size: 8.5 * s });
+        const arrow = label.startsWith('Flood') ? model.floodDirection : label.startsWith('Ebb') ? model.ebbDirection : null;
+        const vx = box.x + 100 * s + (arrow === null ? 0 : 12 * s);
+        if (arrow !== null) streamArrow(doc, arrow, box.x + 104 * s, y - 3 * s, 8 * s);
+        putFitted(doc, value, vx, y, { font: 'narrow', size: 8.5 * s }, box.x + box.width - vx, 6 * s);
+        y += 12 * s;
+      }
+      y += 14 * s;
+      put(doc, 'CAUTION', box.x, y, { font: 'bold', size: 10 * s });
+      y += 14 * s;
+      y = paragraph(doc, printable(`${model.caution} ${model.streamCaution}`), box.x, y, box.width, { font: 'regular', size: 8.5 * s });
+      if (model.invented) {
+        y += 10 * s;
+        paragraph(doc, 'INVENTED DATA: this station and its streams are made up for a demonstration; never use them for navigation.', box.x, y, box.width, { font: 'bold', size: 8.5 * s });
+      }
+      y += 18 * s;
+      paragraph(doc, 'How to read the month pages: slack water is the time the stream turns; flood and ebb give the time of the strongest stream, its rate in knots and an arrow pointing the way the water goes.', box.x, y + 12 * s, box.width, { font: 'oblique', size: 8 * s, color: MID });
+    },
+  };
+}
+
+function peak(doc: PDFKit.PDFDocument, e: StreamAlmanacEvent, x: number, y: number, u: number): number {
+  const w1 = put(doc, e.clock, x, y, { font: 'narrow', size: 7.4 * u });
+  const w2 = put(doc, e.speed.toFixed(1), x + w1 + 3 * u, y, { font: 'narrow-bold', size: 7.4 * u });
+  if (e.direction !== null) streamArrow(doc, e.direction, x + w1 + w2 + 9 * u, y - 2.6 * u, 7 * u);
+  return w1 + w2 + 16 * u;
+}
+
+function monthPage(model: StreamYear, monthIndex: number): LogicalPage {
+  const month = model.months[monthIndex]!;
+  const days: StreamDayEntry[] = model.days.slice(month.firstDayIndex, month.firstDayIndex + month.dayCount);
+  return {
+    kind: 'month',
+    footer: { invented: model.invented, label: model.station.name },
+    outline: { title: `${month.name} ${model.year}`, level: 1 },
+    draw(ctx: PageContext) {
+      const { doc, box } = ctx;
+      const u = ctx.settings.geometry.scale;
+      const right = box.x + box.width;
+      const y0 = box.y;
+      const mw = put(doc, month.name, box.x, y0 + 17 * u, { font: 'bold', size: 21 * u });
+      put(doc, String(model.year), box.x + mw + 6 * u, y0 + 17 * u, { font: 'regular', size: 21 * u, color: MID });
+      putFitted(doc, model.station.name, right, y0 + 8 * u, { font: 'bold', size: 9.5 * u }, box.width / 2, 6 * u, 'right');
+      put(doc, 'tidal streams', right, y0 + 17.5 * u, { font: 'narrow', size: 7.6 * u, color: MID }, 'right');
+      const info = `${offsetStatement(days as never)} \u00b7 rates in knots \u00b7 flood toward ${bearing(model.floodDirection)}, ebb toward ${bearing(model.ebbDirection)}`;
+      putFitted(doc, info, box.x, y0 + 29 * u, { font: 'narrow', size: 7.6 * u }, box.width, 5 * u);
+
+      const col = { day: box.x, slack: box.x + box.width * 0.12, flood: box.x + box.width * 0.41, ebb: box.x + box.width * 0.705 };
+      const hy = y0 + 41 * u;
+      const head = { font: 'narrow-bold' as const, size: 6.3 * u, color: MID };
+      put(doc, 'DAY', col.day, hy, head);
+      put(doc, 'SLACK WATER', col.slack, hy, head);
+      put(doc, 'FLOOD  time \u00b7 kn \u00b7 way', col.flood, hy, head);
+      put(doc, 'EBB  time \u00b7 kn \u00b7 way', col.ebb, hy, head);
+      doc.save().lineWidth(0.9 * u).strokeColor(INK).moveTo(box.x, y0 + HEADER * u - 3 * u).lineTo(right, y0 + HEADER * u - 3 * u).stroke().restore();
+
+      const row = (box.height - HEADER * u) / 31;
+      let top = y0 + HEADER * u;
+      for (const day of days) {
+        const base = top + row * 0.68;
+        put(doc, `${day.weekday.slice(0, 2)} ${day.dayOfMonth}`, col.day, base, { font: day.weekday === 'Sun' ? 'narrow-bold' : 'narrow', size: 7.6 * u });
+        if (day.springNeap) springNeapBadge(doc, day.springNeap, col.slack - 6 * u, top + row / 2, 7 * u, 7 * u, 5.2 * u);
+        let sx = col.slack;
+        for (const e of day.events.filter((x) => x.type === 'slack')) sx += put(doc, e.clock, sx, base, { font: 'narrow', size: 7.4 * u }) + 4.5 * u;
+        let fx = col.flood;
+        for (const e of day.events.filter((x) => x.type === 'flood')) fx += peak(doc, e, fx, base, u);
+        let ex = col.ebb;
+        for (const e of day.events.filter((x) => x.type === 'ebb')) ex += peak(doc, e, ex, base, u);
+        top += row;
+        const weekEnd = day.weekday === 'Sun';
+        doc.save().lineWidth(weekEnd ? 0.9 * u : HAIRLINE).strokeColor(weekEnd ? INK : RULE).moveTo(box.x, top).lineTo(right, top).stroke().restore();
+      }
+    },
+  };
+}
+
+export async function renderStreamBook(model: StreamYear, options: BookOptions): Promise<Buffer> {
+  checkBookOptions(options);
+  const g = pageGeometry(options.page);
+  contentBox(g, 1);
+  const title = printable(options.title ?? 'Tide predictions');
+  const settings: BookSettings = { units: options.units, geometry: g, title, publisher: options.publisher };
+  const pages = [firstPage(model, title), ...model.months.map((_, i) => monthPage(model, i))];
+  return renderBook(pages, settings, {
+    title: `${model.station.name}: tidal streams ${model.year}`,
+    author: options.publisher,
+    subject: `Slack water and the strongest flood and ebb at ${model.station.name} in ${model.year}${model.invented ? ' (invented demonstration data)' : ''}`,
+    keywords: 'tidal streams, slack water, flood, ebb',
+    date: editionDate(model.year),
+    lang: 'en',
+  }, options.imposition ?? 'none', () => notesPage({ invented: model.invented, label: model.station.name }));
+}

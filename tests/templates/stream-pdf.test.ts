@@ -1,0 +1,59 @@
+// The PDF book of a stream-year: a first page with both cautions and one page per month with every
+// slack, flood and ebb of the model (time and rate) — read back with poppler's pdftotext.
+import { execFileSync } from 'node:child_process';
+import { existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { loadStationSet } from '../../engine/stations.js';
+import { buildStreamYear, type StreamYear } from '../../engine/streams.js';
+import { renderStreamBook } from '../../templates/pdf/stream-book.js';
+
+const POPPLER = ['pdftotext', 'pdffonts', 'pdfinfo'].every((t) => existsSync(`/usr/bin/${t}`));
+if (!POPPLER) console.warn('poppler-utils not found in /usr/bin: the stream book checks are SKIPPED');
+const DEMO = join(import.meta.dirname, '..', '..', 'stations-demo');
+let tmp: string;
+let file: string;
+let model: StreamYear;
+let pdf: Buffer;
+
+beforeAll(async () => {
+  tmp = mkdtempSync(join(tmpdir(), 'tidewright-stream-pdf-'));
+  file = join(tmp, 'book.pdf');
+  const set = loadStationSet(DEMO);
+  model = buildStreamYear(set.streams!.find((s) => s.id === 'wrackrun-narrows')!, set, 2027);
+  pdf = await renderStreamBook(model, { units: 'm', page: 'a5' });
+  writeFileSync(file, pdf);
+}, 60_000);
+
+afterAll(() => rmSync(tmp, { recursive: true, force: true }));
+
+describe('renderStreamBook', () => {
+  it('is the same bytes every time', async () => {
+    expect((await renderStreamBook(model, { units: 'm', page: 'a5' })).equals(pdf)).toBe(true);
+  });
+
+  it.skipIf(!POPPLER)('a first page with both cautions, then the twelve months in order', () => {
+    const pages = execFileSync('pdftotext', ['-layout', file, '-'], { encoding: 'utf8' }).split('\f').filter((p) => p.trim() !== '');
+    expect(pages).toHaveLength(13);
+    const first = pages[0]!.replace(/\s+/g, ' ');
+    expect(first).toContain('Astronomical predictions only');
+    expect(first).toContain('Tidal streams vary across a channel');
+    expect(first).toContain('INVENTED DATA');
+    expect(first).toContain('070° true');
+    model.months.forEach((m, i) => expect(pages[i + 1]).toContain(m.name));
+  });
+
+  it.skipIf(!POPPLER)('prints every slack, flood and ebb of March with its clock time, floods and ebbs with their rate', () => {
+    const march = execFileSync('pdftotext', ['-layout', '-f', '4', '-l', '4', file, '-'], { encoding: 'utf8' });
+    const lines = march.split('\n');
+    for (const day of model.days.filter((d) => d.month === 3)) {
+      const line = lines.find((l) => new RegExp(`^\\s*${day.weekday.slice(0, 2)} ${day.dayOfMonth}\\b`).test(l));
+      expect(line, `${day.date}`).toBeDefined();
+      for (const e of day.events) {
+        expect(line).toContain(e.clock);
+        if (e.type !== 'slack') expect(line).toContain(`${e.clock} ${e.speed.toFixed(1)}`);
+      }
+    }
+  });
+});
