@@ -45,7 +45,7 @@ describe('buildStreamYear', () => {
 
   test('springs and neaps from the tide reference are the tide station\'s own', () => {
     expect(model.springNeapFrom).toBe('tide-reference');
-    const tide = buildStationYear(set.byId.get('gannet-head')!, set, 2027);
+    const tide = buildStationYear(set.byId.get('brinewold-head')!, set, 2027);
     expect(model.springNeap.map((s) => [s.date, s.kind])).toEqual(tide.springNeap.map((s) => [s.date, s.kind]));
     expect(model.days.filter((d) => d.springNeap !== null)).toHaveLength(model.springNeap.length);
   }, 60_000);

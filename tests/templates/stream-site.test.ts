@@ -26,7 +26,7 @@ beforeAll(async () => {
   const [narrowsStation, gutStation] = ['wrackrun-narrows', 'spindrift-gut'].map((id) => set.streams!.find((s) => s.id === id)!);
   narrows = buildStreamYear(narrowsStation!, set, 2027);
   gut = buildStreamYear(gutStation!, set, 2027);
-  await renderSite(demoModels(['gannet-head']), site, { units: 'm', quiet: true, dataDir, streams: [narrows, gut] });
+  await renderSite(demoModels(['brinewold-head']), site, { units: 'm', quiet: true, dataDir, streams: [narrows, gut] });
 }, 120_000);
 
 afterAll(() => rmSync(tmp, { recursive: true, force: true }));
@@ -34,7 +34,7 @@ afterAll(() => rmSync(tmp, { recursive: true, force: true }));
 describe('stream pages', () => {
   it('the index lists the stream stations in the group of their tide reference, after its ports', () => {
     const html = read(site, 'index.html');
-    const group = html.slice(html.indexOf('Gannet Head (invented)'), html.indexOf('</section>', html.indexOf('Gannet Head (invented)')));
+    const group = html.slice(html.indexOf('Brinewold Head (invented)'), html.indexOf('</section>', html.indexOf('Brinewold Head (invented)')));
     expect(group).toContain('Wrackrun Narrows (invented)');
     expect(group).toContain('Spindrift Gut (invented)');
     expect(textOf(group)).toContain('tidal stream, from Wrackrun Narrows (invented)');
