@@ -11,7 +11,8 @@ export default async function (eleventyConfig) {
   const standalone = !eleventyConfig.getFilter('tideCurve');
   if (standalone) {
     const { registerSiteFilters } = await import('./dist/templates/site/filters.js');
-    registerSiteFilters(eleventyConfig, 'm');
+    const { wordsFor } = await import('./dist/templates/locale/index.js');
+    registerSiteFilters(eleventyConfig, wordsFor());
   }
   eleventyConfig.setUseGitIgnore(false);
   eleventyConfig.setNunjucksEnvironmentOptions({ autoescape: true, trimBlocks: true, lstripBlocks: true });

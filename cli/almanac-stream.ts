@@ -2,6 +2,7 @@
 
 import { dirname } from 'node:path';
 import { loadStationSet } from '../engine/stations.js';
+import { wordsFor } from '../templates/locale/index.js';
 import { buildStreamYear, type AnyStreamStation, type StreamYear, type StreamYearLookup } from '../engine/streams.js';
 
 /** The set a stream station draws on: its reference stream station and its tide_reference. */
@@ -32,10 +33,10 @@ export function streamSummary(model: StreamYear): string {
     const events = model.days.slice(month.firstDayIndex, month.firstDayIndex + month.dayCount).flatMap((d) => d.events);
     const best = (type: 'flood' | 'ebb') => events.filter((e) => e.type === type).reduce<(typeof events)[number] | null>((a, e) => (!a || e.speed > a.speed ? e : a), null);
     const at = (e: (typeof events)[number] | null) => (e === null ? '—'.padEnd(25) : `${kn(e.speed)} ${deg(e.direction)} ${e.local.slice(5, 10)} ${e.clock}`.padEnd(25));
-    lines.push(`${month.name.padEnd(10)} ${String(events.filter((e) => e.type === 'slack').length).padStart(6)}  ${at(best('flood'))}  ${at(best('ebb'))}`);
+    lines.push(`${wordsFor().monthName(month.month).padEnd(10)} ${String(events.filter((e) => e.type === 'slack').length).padStart(6)}  ${at(best('flood'))}  ${at(best('ebb'))}`);
   }
   lines.push('');
-  for (const c of model.offsetChanges) lines.push(`Clock change: ${c.note}`);
+  for (const c of model.offsetChanges) lines.push(`Clock change: ${wordsFor().offsetChange(c)}`);
   for (const w of model.warnings) lines.push(`WARNING: ${w}`);
   lines.push(`Caution: ${model.caution}`, `Streams: ${model.streamCaution}`, '');
   return lines.join('\n');

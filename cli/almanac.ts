@@ -6,6 +6,7 @@ import { buildStationYear } from '../engine/almanac.js';
 import { UsageError } from '../engine/errors.js';
 import { loadAnyStationFile, loadStationSet } from '../engine/stations.js';
 import type { Station, StationYear } from '../engine/types.js';
+import { wordsFor, type Words } from '../templates/locale/index.js';
 import { oneOf, parseCommandLine, positionalArguments } from './args.js';
 import { streamSummary, streamYearFor } from './almanac-stream.js';
 
@@ -86,22 +87,24 @@ export async function runAlmanac(argv: readonly string[]): Promise<number> {
   const { station, set } = loadStation(args, loaded);
   const model = buildStationYear(station, set, args.year);
   ignoreClosedPipe();
-  process.stdout.write(args.format === 'json' ? `${JSON.stringify(model)}\n` : summary(model));
+  const words = wordsFor();
+  // the model holds facts only; the printed JSON also carries the caution every output carries
+  const json = (): string => `${JSON.stringify({ ...model, caution: words.caution })}\n`;
+  process.stdout.write(args.format === 'json' ? json() : summary(model, words));
   return 0;
 }
 
-const m = (x: number): string => `${x.toFixed(2)} m`;
-
 /** A short human summary of a model: station facts, datums, each month's extremes, warnings, caution. */
-export function summary(model: StationYear): string {
+export function summary(model: StationYear, words: Words = wordsFor()): string {
+  const m = (x: number): string => words.height(x);
   const s = model.station;
   const d = model.datums;
   const lines = [
     `${s.name} (${s.id}) — ${model.year}, times in ${model.timezone}${model.invented ? ' — INVENTED DEMO DATA' : ''}`,
     model.reference ? `Secondary port of ${model.reference.name} (${model.reference.id})` : 'Reference port',
-    `Tide type: ${model.tideType.label} (form number ${model.tideType.formNumber.toFixed(2)}); `
+    `Tide type: ${words.tideType(model.tideType.kind)} (form number ${words.number(model.tideType.formNumber, 2)}); `
       + `mean ranges springs ${m(model.meanSpringRange)}, neaps ${m(model.meanNeapRange)}; `
-      + `age of the tide ${model.ageOfTideHours.toFixed(1)} h`,
+      + `age of the tide ${words.hours(model.ageOfTideHours)}`,
     `Heights above ${s.datum}: HAT ${m(d.HAT)}  MHWS ${m(d.MHWS)}  MHWN ${m(d.MHWN)}  MSL ${m(d.MSL)}  `
       + `MLWN ${m(d.MLWN)}  MLWS ${m(d.MLWS)}  LAT ${m(d.LAT)}  (LAT/HAT ${d.epoch.from}–${d.epoch.to})`,
     '',
@@ -114,12 +117,12 @@ export function summary(model: StationYear): string {
     const lows = events.filter((e) => e.type === 'low');
     const top = highs.reduce((a, b) => (b.height > a.height ? b : a), highs[0]!);
     const bottom = lows.reduce((a, b) => (b.height < a.height ? b : a), lows[0]!);
-    const at = (e: typeof top) => `${m(e.height).padStart(7)} ${e.local.slice(5, 10)} ${e.clock}`;
-    lines.push(`${month.name.padEnd(10)} ${String(highs.length).padStart(11)} ${String(lows.length).padStart(11)}  ${at(top)}  ${at(bottom)}`);
+    const at = (e: typeof top) => `${m(e.height).padStart(7)} ${e.date.slice(5, 10)} ${e.clock}`;
+    lines.push(`${words.monthName(month.month).padEnd(10)} ${String(highs.length).padStart(11)} ${String(lows.length).padStart(11)}  ${at(top)}  ${at(bottom)}`);
   }
   lines.push('');
-  for (const c of model.offsetChanges) lines.push(`Clock change: ${c.note}`);
-  for (const w of model.warnings) lines.push(`WARNING: ${w}`);
-  lines.push(`Caution: ${model.caution}`, '');
+  for (const c of model.offsetChanges) lines.push(`Clock change: ${words.offsetChange(c)}`);
+  for (const w of model.warnings) lines.push(`WARNING: ${words.warning(w, s.datum)}`);
+  lines.push(`Caution: ${words.caution}`, '');
   return lines.join('\n');
 }

@@ -3,7 +3,7 @@
 
 import { dirname } from 'node:path';
 import { DateTime } from 'luxon';
-import { CAUTION } from '../engine/almanac/caution.js';
+import { wordsFor } from '../templates/locale/index.js';
 import { UsageError } from '../engine/errors.js';
 import { isoLocal, isoUtc } from '../engine/localtime.js';
 import { loadAnyStationFile, loadStationSet, type StationSet } from '../engine/stations.js';
@@ -138,15 +138,14 @@ function tableHeader(req: PredictRequest, what: string): string[] {
     station.kind === 'reference'
       ? 'reference port'
       : `secondary port of ${reference?.name ?? station.reference}, by time and height differences`;
-  const { latitude, longitude } = station.position;
-  const where = `${Math.abs(latitude).toFixed(3)}° ${latitude < 0 ? 'S' : 'N'}, ${Math.abs(longitude).toFixed(3)}° ${longitude < 0 ? 'W' : 'E'}`;
+  const where = wordsFor().position(station.position); // the same rule as the site and the books
   return [
     `${station.name}: ${kind} (id ${station.id})`,
     `${where}; time zone ${zone}`,
     `${what}, ${span} local time (end not included)`,
     `Times: local time at the station with its UTC offset. Heights: metres above ${station.datum}; "below datum" marks negative heights.`,
     `Constants: ${station.provenance}`,
-    `Caution: ${CAUTION}`,
+    `Caution: ${wordsFor().caution}`,
     '',
   ];
 }

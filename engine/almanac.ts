@@ -1,7 +1,7 @@
 // Build the StationYear model: everything a tide book prints about one station for one year, in
 // plain JSON-serialisable data that the website and the PDF books read and never recompute.
 import { basename } from 'node:path';
-import { CAUTION, isInvented } from './almanac/caution.js';
+import { isInvented } from './almanac/caution.js';
 import { dayEntries, monthEntries } from './almanac/days.js';
 import { almanacEvent, mm } from './almanac/format.js';
 import { generator } from './almanac/generator.js';
@@ -18,7 +18,7 @@ import {
   cosineCurve, harmonicStationOf, predictorFor, tideEvents, type StationLookup,
 } from './tides.js';
 import type {
-  AlmanacEvent, MoonPhaseEntry, MoonPhaseName, SpringNeapEntry, SpringNeapKind, Station, StationYear,
+  AlmanacEvent, ModelWarning, MoonPhaseEntry, MoonPhaseName, SpringNeapEntry, SpringNeapKind, Station, StationYear,
   TideEvent,
 } from './types.js';
 
@@ -72,12 +72,13 @@ export function buildStationYear(
     springNeapOn: new Map(springNeap.map((s) => [s.date, s.kind] as [string, SpringNeapKind])),
   });
 
-  const warnings = [...summary.warnings];
+  const warnings: ModelWarning[] = structuredClone(summary.warnings);
   const below = lowWaterBelowLat(yearEvents, summary.datums.LAT);
   if (below) {
-    warnings.push(`A predicted low water of ${mm(below.height).toFixed(2)} m (${isoLocal(below.time, zone)}) falls `
-      + `below LAT (${summary.datums.LAT.toFixed(2)} m, ${summary.datums.epoch.from}–${summary.datums.epoch.to}): `
-      + 'the LAT epoch or the datum label may be wrong.');
+    // the LAT epoch or the datum label may be wrong
+    const e = almanacEvent(below, zone);
+    warnings.push({ code: 'low-water-below-lat', height: e.height, time: e.time, date: e.date, clock: e.clock,
+      offset: e.offset, LAT: summary.datums.LAT, epoch: { ...summary.datums.epoch } });
   }
 
   const windows = yearWindows(station, set, days, allEvents, yearEvents);
@@ -91,7 +92,6 @@ export function buildStationYear(
     year,
     timezone: zone,
     invented: isInvented(station),
-    caution: CAUTION,
     reference: station.kind === 'secondary' ? { id: reference.id, name: reference.name } : null,
     events,
     moonPhases,

@@ -4,7 +4,7 @@ import { DEFAULT_DATUM_EPOCH } from './stations/schema.js';
 import { secondaryEventsFrom, secondaryPaddingMs } from './secondary.js';
 import { harmonicStationOf, tideEvents, type StationLookup } from './tides.js';
 import type {
-  ConstituentConstant, Datums, ReferenceStation, SecondaryStation, Station, TideEvent, TideType,
+  ConstituentConstant, Datums, ModelWarning, ReferenceStation, SecondaryStation, Station, TideEvent, TideType,
 } from './types.js';
 
 // At least one nodal cycle of 18.61 years (IHO resolution on chart datum, from memory).
@@ -22,7 +22,7 @@ export interface DatumSummary {
   meanSpringRange: number; // MHWS − MLWS, metres
   meanNeapRange: number; // MHWN − MLWN
   ageOfTideHours: number; // from the constants (Pugh 1987)
-  warnings: string[];
+  warnings: ModelWarning[];
 }
 
 type Levels = Pick<Datums, 'MHWS' | 'MHWN' | 'MLWN' | 'MLWS' | 'MSL'>;
@@ -67,10 +67,10 @@ export function formNumber(constituents: Record<string, ConstituentConstant>): n
 /** Tide type from the form number: < 0.25, 0.25–1.5, 1.5–3, > 3 (Courtier 1938, as given in Pugh 1987). */
 export function tideTypeOf(F: number): TideType {
   const formNumber = Math.round(F * 1000) / 1000;
-  if (F < 0.25) return { formNumber, kind: 'semidiurnal', label: 'Semidiurnal' };
-  if (F < 1.5) return { formNumber, kind: 'mixed-semidiurnal', label: 'Mixed, mainly semidiurnal' };
-  if (F <= 3) return { formNumber, kind: 'mixed-diurnal', label: 'Mixed, mainly diurnal' };
-  return { formNumber, kind: 'diurnal', label: 'Diurnal' };
+  if (F < 0.25) return { formNumber, kind: 'semidiurnal' };
+  if (F < 1.5) return { formNumber, kind: 'mixed-semidiurnal' };
+  if (F <= 3) return { formNumber, kind: 'mixed-diurnal' };
+  return { formNumber, kind: 'diurnal' };
 }
 
 /**
@@ -160,11 +160,9 @@ function computeDatums(station: Station, reference: ReferenceStation, set: Stati
     MSL: mm(levels.MSL),
     epoch: { from: epoch.from, to: epoch.to },
   };
-  const warnings: string[] = [];
-  if (datums.LAT > 0.1) {
-    warnings.push(`LAT is ${datums.LAT.toFixed(2)} m above ${station.datum}, so predicted heights never `
-      + `fall to the datum (${epoch.from}–${epoch.to}): check the datum label and the mean level.`);
-  }
+  const warnings: ModelWarning[] = [];
+  // predicted heights never fall to the datum: the datum label or the mean level is likely wrong
+  if (datums.LAT > 0.1) warnings.push({ code: 'lat-above-datum', LAT: datums.LAT, epoch: { ...datums.epoch } });
   return {
     datums,
     tideType: tideTypeOf(formNumber(reference.constituents)),

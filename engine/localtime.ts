@@ -16,26 +16,17 @@ import { zoneOffset } from './zone-offsets.js';
 const MINUTE = 60_000;
 const HOUR = 3_600_000;
 
-export const MONTH_NAMES = [
-  'January', 'February', 'March', 'April', 'May', 'June',
-  'July', 'August', 'September', 'October', 'November', 'December',
-] as const;
-
-export const WEEKDAY_NAMES = ['Mon', 'Tue', 'Wed', 'Thu', 'Fri', 'Sat', 'Sun'] as const;
-
 /** A change of UTC offset during a local day (daylight saving or a change of standard time). */
 export interface OffsetChange {
   time: string; // ISO UTC instant of the change, to the second
-  clock: string; // local "HH:mm" just after the change
-  from: string; // "+00:00"
-  to: string; // "+01:00"
-  note: string; // plain words, ready to print
+  from: string; // offset before, "+00:00" (with ":ss" where the zone has seconds)
+  to: string; // offset after, "+01:00"
 }
 
 /** One local calendar day: local midnight to the next local midnight, as UTC instants. */
 export interface LocalDay {
   date: string; // "YYYY-MM-DD"
-  weekday: string; // "Mon"
+  weekday: number; // ISO weekday: 1 = Monday … 7 = Sunday
   month: number; // 1..12
   dayOfMonth: number;
   start: number; // UTC ms of local midnight (or the first local instant of the day)
@@ -66,11 +57,16 @@ function zoneOf(name: string): IANAZone {
   return zone;
 }
 
-/** "+01:00" from an offset in minutes. */
+/**
+ * "+01:00" from an offset in minutes; "+05:41:16" where the offset has seconds (the local mean
+ * time some zones kept before standard time), so an offset is never cut or shown as a fraction.
+ */
 export function formatOffset(minutes: number): string {
   const sign = minutes < 0 ? '-' : '+';
-  const abs = Math.abs(Math.round(minutes));
-  return `${sign}${pad2(Math.floor(abs / 60))}:${pad2(abs % 60)}`;
+  const seconds = Math.abs(Math.round(minutes * 60));
+  const s = seconds % 60;
+  const m = Math.floor(seconds / 60);
+  return `${sign}${pad2(Math.floor(m / 60))}:${pad2(m % 60)}${s === 0 ? '' : `:${pad2(s)}`}`;
 }
 
 function pad2(n: number): string {
@@ -178,10 +174,10 @@ export function localDays(year: number, zone: string): LocalDay[] {
   for (let i = 0; i + 1 < dates.length; i++) {
     const { y, m, d, start } = dates[i];
     const end = dates[i + 1].start;
-    const weekday = (new Date(Date.UTC(y, m - 1, d)).getUTCDay() + 6) % 7; // 0 = Monday
+    const weekday = (new Date(Date.UTC(y, m - 1, d)).getUTCDay() + 6) % 7; // 0 = Monday here
     days.push({
       date: `${y}-${pad2(m)}-${pad2(d)}`,
-      weekday: WEEKDAY_NAMES[weekday],
+      weekday: weekday + 1,
       month: m,
       dayOfMonth: d,
       start,
@@ -220,7 +216,7 @@ function findOffsetChange(start: number, end: number, zone: IANAZone): OffsetCha
   if (end - start === 24 * HOUR && zoneOffset(zone, end - 1) === prevOffset) return null;
   for (let t = start; ; t = Math.min(t + HOUR / 2, end - 1)) {
     const offset = zoneOffset(zone, t);
-    if (offset !== prevOffset) return describeChange(bisectChange(prevT, t, zone), prevOffset, offset, zone);
+    if (offset !== prevOffset) return describeChange(bisectChange(prevT, t, zone), prevOffset, offset);
     if (t >= end - 1) return null;
     prevT = t;
     prevOffset = offset;
@@ -239,32 +235,6 @@ function bisectChange(lo: number, hi: number, zone: IANAZone): number {
   return b * 1000;
 }
 
-function describeChange(at: number, from: number, to: number, zone: IANAZone): OffsetChange {
-  const utcClock = DateTime.fromMillis(at, { zone: 'UTC' }).toFormat('HH:mm');
-  const wallBefore = DateTime.fromMillis(at, { zone: 'UTC' }).plus({ minutes: from }).toFormat('HH:mm');
-  const wallAfter = DateTime.fromMillis(at, { zone }).toFormat('HH:mm');
-  const direction = to > from ? 'forward' : 'back';
-  return {
-    time: isoUtc(at),
-    clock: wallAfter,
-    from: formatOffset(from),
-    to: formatOffset(to),
-    note: `Clocks go ${direction} ${durationWords(Math.abs(to - from))} at ${utcClock} UTC (${wallBefore} → ${wallAfter} local)`,
-  };
-}
-
-function durationWords(minutes: number): string {
-  const h = Math.floor(minutes / 60);
-  const m = minutes % 60;
-  const parts: string[] = [];
-  if (h > 0) parts.push(h === 1 ? '1 hour' : `${h} hours`);
-  if (m > 0) parts.push(m === 1 ? '1 minute' : `${m} minutes`);
-  return parts.join(' ');
-}
-
-/** "January" for 1; English names (the almanac's language). */
-export function monthName(month: number): string {
-  const name = MONTH_NAMES[month - 1];
-  if (name === undefined) throw new RangeError(`month ${month} is not 1..12`);
-  return name;
+function describeChange(at: number, from: number, to: number): OffsetChange {
+  return { time: isoUtc(at), from: formatOffset(from), to: formatOffset(to) };
 }

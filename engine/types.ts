@@ -85,7 +85,8 @@ export interface AlmanacEvent {
   time: string;
   local: string;
   clock: string;
-  offset: string; // "+01:00"
+  date: string; // local date "YYYY-MM-DD" of the printed minute (23:59:40 prints 00:00 on the next day)
+  offset: string; // "+01:00"; "+05:41:16" where the zone's offset has seconds
   type: EventType;
   height: number;
   belowDatum: boolean; // height < 0: dries below chart datum, printed unmistakably
@@ -95,7 +96,7 @@ export interface MoonPhaseEntry {
   time: string;
   local: string;
   clock: string;
-  date: string; // local date "YYYY-MM-DD"
+  date: string; // local date "YYYY-MM-DD" of the printed minute
   phase: MoonPhaseName;
 }
 
@@ -118,23 +119,44 @@ export interface Datums {
   epoch: { from: number; to: number }; // years spanned for LAT/HAT, e.g. 2020..2038
 }
 
+export type TideTypeCode = 'semidiurnal' | 'mixed-semidiurnal' | 'mixed-diurnal' | 'diurnal';
+
 export interface TideType {
   formNumber: number; // (K1 + O1) / (M2 + S2)
-  kind: 'semidiurnal' | 'mixed-semidiurnal' | 'mixed-diurnal' | 'diurnal';
-  label: string; // plain words, e.g. "Semidiurnal"
+  kind: TideTypeCode; // the renderers word it in the reader's language
 }
+
+/** A change of UTC offset within a local day: the instant and the offsets either side. */
+export interface OffsetChange {
+  time: string; // ISO UTC instant of the change, to the second
+  from: string; // "+00:00"
+  to: string; // "+01:00"
+}
+
+/**
+ * Something a publisher should check before printing, as a code with its numbers (the renderers
+ * word it). Heights in metres above the station's datum; `epoch` is the LAT/HAT span in years.
+ */
+export type ModelWarning =
+  | { code: 'lat-above-datum'; LAT: number; epoch: { from: number; to: number } }
+  | { code: 'low-water-below-lat'; height: number; time: string; date: string; clock: string;
+      offset: string; LAT: number; epoch: { from: number; to: number } }
+  | { code: 'window-never-opens' | 'window-never-closes'; window: string; side: WindowSide; level: number;
+      lowest: number; highest: number; year: number };
 
 export interface DayEntry {
   date: string; // local date "YYYY-MM-DD"
-  weekday: string; // "Mon"
+  weekday: number; // ISO weekday: 1 = Monday … 7 = Sunday
   month: number; // 1..12
   dayOfMonth: number;
+  start: string; // ISO UTC instant of the day's first local instant (local midnight, or after a skipped one)
+  end: string; // ISO UTC instant of the next day's start (exclusive)
   hours: number; // 24, or 23 / 25 on daylight-saving change days
-  offsetStart: string; // UTC offset at local midnight, "+00:00"
+  offsetStart: string; // UTC offset at the day's start, "+00:00"
   offsetEnd: string; // UTC offset at the end of the day
-  offsetChange: null | { time: string; clock: string; from: string; to: string; note: string };
+  offsetChange: null | OffsetChange;
   events: AlmanacEvent[]; // this day's high and low waters, in time order
-  curve: number[]; // heights every `curveStepMinutes` from local midnight to next local midnight (inclusive)
+  curve: number[]; // heights every `curveStepMinutes` from `start` to `end` (inclusive)
   sunrise: string | null; // ISO UTC; null = no sunrise this day (polar night or polar day: see sunNote)
   sunset: string | null;
   sunriseClock: string | null;
@@ -151,8 +173,7 @@ export interface DayEntry {
 }
 
 export interface MonthEntry {
-  month: number; // 1..12
-  name: string; // "January"
+  month: number; // 1..12 (the renderers name it)
   slug: string; // "01"
   firstDayIndex: number; // index into days
   dayCount: number;
@@ -162,8 +183,7 @@ export interface StationYear {
   station: Station; // as loaded
   year: number;
   timezone: string;
-  invented: boolean; // demo data: every output says so
-  caution: string; // the safety caution every output carries
+  invented: boolean; // demo data: every output says so (the caution itself is the renderers' words)
   reference: null | { id: string; name: string }; // for a secondary port, its reference port
   events: AlmanacEvent[];
   moonPhases: MoonPhaseEntry[];
@@ -176,9 +196,9 @@ export interface StationYear {
   curveStepMinutes: number;
   days: DayEntry[];
   months: MonthEntry[];
-  offsetChanges: NonNullable<DayEntry['offsetChange']>[];
+  offsetChanges: OffsetChange[];
   extremes: { highest: AlmanacEvent; lowest: AlmanacEvent }; // of this year
-  warnings: string[];
+  warnings: ModelWarning[];
   hourly: HourlyYear; // heights on every local hour
   windows: WindowYear[]; // one per window of the station file, in its order (empty when it has none)
   generator: { name: 'tidewright'; version: string };

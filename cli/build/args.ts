@@ -1,5 +1,6 @@
 // The command line of `tidewright build`: parsed and checked, nothing else decided here.
 import { UsageError } from '../../engine/errors.js';
+import { LANGUAGES, languageOf } from '../../templates/locale/catalogue.js';
 import { oneOf, parseCommandLine, positionalArguments } from '../args.js';
 import {
   FIRST_YEAR, IMPOSITIONS, LAST_YEAR, MAX_WORKERS, PAGE_SIZES, UNITS,
@@ -13,6 +14,7 @@ export interface BuildArgs {
   units?: Units;
   page?: PageSize;
   imposition?: Imposition;
+  locale?: string;
   workers?: number;
   quiet: boolean;
   help: boolean;
@@ -28,12 +30,16 @@ Builds the website, the PDF tide books and the data downloads for every station 
   --units m|ft        heights in metres or feet (default: m)
   --page SIZE         PDF page: ${PAGE_SIZES.join(', ')} (default: a5)
   --imposition KIND   none, or saddle-stitch for fold-and-staple booklets (default: none)
+  --locale TAG        language of the site, the books and the calendar text: ${LANGUAGES.join(', ')}
+                      (a regional tag such as fr-CA or pt-BR picks its dates and numbers; default: en)
   --workers N         worker threads for the station computations (default: one per core)
   --quiet             print nothing but errors
   --help              show this text
 
 Settings a publisher keeps can go in tidewright.yaml beside the station files
-(title, publisher, year, page, units, locale, imposition); options given here win.`;
+(title, publisher, year, page, units, locale, imposition, caution); options given here win.
+caution: replaces the translated safety caution with the publisher's own words (plain text).
+CSV and JSON downloads keep English field names and '.' decimals in every language.`;
 
 const OPTIONS = {
   stations: { type: 'string' },
@@ -42,6 +48,7 @@ const OPTIONS = {
   units: { type: 'string' },
   page: { type: 'string' },
   imposition: { type: 'string' },
+  locale: { type: 'string' },
   workers: { type: 'string' },
   quiet: { type: 'boolean', short: 'q' },
   help: { type: 'boolean', short: 'h' },
@@ -61,6 +68,15 @@ function folder(option: string, text: string | undefined): string | undefined {
   return text;
 }
 
+/** A language tidewright publishes in, or a UsageError listing them. */
+export function localeOption(option: string, text: string): string {
+  const language = languageOf(text);
+  if (language === null) {
+    throw new UsageError(option, `"${text}" is not a language tidewright publishes in`, `write one of ${LANGUAGES.join(', ')}`);
+  }
+  return Intl.getCanonicalLocales(text)[0]!;
+}
+
 /** Turns the arguments after `build` into checked values; a bad one is a UsageError. */
 export function parseBuildArgs(argv: readonly string[]): BuildArgs {
   const { values, positionals } = parseCommandLine('build', argv, OPTIONS);
@@ -72,6 +88,7 @@ export function parseBuildArgs(argv: readonly string[]): BuildArgs {
     units: values.units === undefined ? undefined : oneOf('--units', values.units, UNITS),
     page: values.page === undefined ? undefined : oneOf('--page', values.page, PAGE_SIZES),
     imposition: values.imposition === undefined ? undefined : oneOf('--imposition', values.imposition, IMPOSITIONS),
+    locale: values.locale === undefined ? undefined : localeOption('--locale', values.locale),
     workers: values.workers === undefined ? undefined : integer('--workers', values.workers, 1, MAX_WORKERS, '2'),
     quiet: values.quiet ?? false,
     help: values.help ?? false,

@@ -20,7 +20,8 @@ export interface RenderChoices {
   imposition: Imposition;
   title?: string;
   publisher?: string;
-  locale?: string;
+  locale?: string; // BCP 47 tag of a language with a catalogue (templates/locale)
+  caution?: string; // the publisher's own caution, replacing the catalogue's
 }
 
 /** Everything one build needs to know, after the command line, the project file and the defaults. */

@@ -5,6 +5,7 @@ import { isMap, parseDocument } from 'yaml';
 import * as z from 'zod';
 import { StationFileError } from '../../engine/errors.js';
 import { nearestName } from '../../engine/stations/suggest.js';
+import { LANGUAGES, languageOf } from '../../templates/locale/catalogue.js';
 import {
   FIRST_YEAR, IMPOSITIONS, LAST_YEAR, PAGE_SIZES, UNITS, type Imposition, type PageSize, type Units,
 } from './options.js';
@@ -19,6 +20,7 @@ export interface ProjectSettings {
   units?: Units;
   locale?: string;
   imposition?: Imposition;
+  caution?: string;
 }
 
 const FIELD_FIX: Readonly<Record<keyof ProjectSettings, string>> = {
@@ -27,8 +29,9 @@ const FIELD_FIX: Readonly<Record<keyof ProjectSettings, string>> = {
   year: `write a whole year from ${FIRST_YEAR} to ${LAST_YEAR}, e.g. year: 2027, or leave the key out for next year`,
   page: `write one of ${PAGE_SIZES.join(', ')}, e.g. page: a5`,
   units: 'write units: m (metres) or units: ft (feet)',
-  locale: 'write a language tag such as en-GB, en-US, fr or pt-PT',
+  locale: `write one of ${LANGUAGES.join(', ')} (a regional tag such as fr-CA or pt-BR also works)`,
   imposition: 'write imposition: none, or imposition: saddle-stitch for fold-and-staple booklets',
+  caution: 'write the caution as plain text, e.g. caution: Predictions only; check the official tables. Every output carries one, so it cannot be empty',
 };
 const KEYS = Object.keys(FIELD_FIX) as (keyof ProjectSettings)[];
 
@@ -41,6 +44,8 @@ function checkLocale(ctx: z.core.ParsePayload<string>): void {
   }
   if (canonical.length !== 1) {
     ctx.issues.push({ code: 'custom', input: ctx.value, message: `"${ctx.value}" is not a language tag` });
+  } else if (languageOf(ctx.value) === null) {
+    ctx.issues.push({ code: 'custom', input: ctx.value, message: `"${ctx.value}" is not a language tidewright publishes in` });
   }
 }
 
@@ -54,6 +59,7 @@ const projectSchema = z.strictObject({
   units: z.enum(UNITS).optional(),
   locale: z.string().check(checkLocale).optional(),
   imposition: z.enum(IMPOSITIONS).optional(),
+  caution: z.string().trim().min(1, 'is empty').max(2000, 'is longer than 2000 characters').optional(),
 });
 
 function describe(value: unknown): string {
@@ -95,7 +101,7 @@ export function loadProjectFile(stationsDir: string): { file: string | null; set
   if (doc.contents === null) return { file, settings: {} };
   if (!isMap(doc.contents)) {
     throw new StationFileError(file, '(file)', 'is not a list of key: value settings',
-      `write settings such as title:, publisher:, year:, page:, units:, locale:, imposition:`);
+      `write settings such as title:, publisher:, year:, page:, units:, locale:, imposition:, caution:`);
   }
   const data = doc.toJS() as Record<string, unknown>;
   const parsed = projectSchema.safeParse(data);

@@ -1,5 +1,5 @@
 // The model's days and months: one entry per local calendar day, everything a day prints.
-import { clock, dayIndexOf, isoUtc, monthName, type LocalDay } from '../localtime.js';
+import { clock, dayIndexOf, isoUtc, type LocalDay } from '../localtime.js';
 import type { SkyDay } from '../sky.js';
 import { dayRange } from '../springneap.js';
 import type {
@@ -39,6 +39,8 @@ export function dayEntries(input: DayInputs): DayEntry[] {
       weekday: day.weekday,
       month: day.month,
       dayOfMonth: day.dayOfMonth,
+      start: isoUtc(day.start),
+      end: isoUtc(day.end),
       hours: day.hours,
       offsetStart: day.offsetStart,
       offsetEnd: day.offsetEnd,
@@ -69,7 +71,7 @@ export function monthEntries(days: readonly Pick<DayEntry, 'month'>[]): MonthEnt
     const last = months[months.length - 1];
     if (last && last.month === d.month) last.dayCount++;
     else {
-      months.push({ month: d.month, name: monthName(d.month), slug: String(d.month).padStart(2, '0'),
+      months.push({ month: d.month, slug: String(d.month).padStart(2, '0'),
         firstDayIndex: i, dayCount: 1 });
     }
   });

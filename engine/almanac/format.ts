@@ -1,5 +1,5 @@
 // Tide events as the model prints them: UTC and local ISO instants, the local clock, mm heights.
-import { clock, isoLocal, isoUtc, offsetString, roundToMinute } from '../localtime.js';
+import { clock, isoLocal, isoUtc, localDate, offsetString, roundToMinute } from '../localtime.js';
 import type { AlmanacEvent, TideEvent } from '../types.js';
 
 /** Metres rounded to the millimetre, never −0. */
@@ -18,6 +18,7 @@ export function almanacEvent(e: TideEvent, zone: string): AlmanacEvent {
     time: isoUtc(e.time),
     local: isoLocal(e.time, zone),
     clock: clock(e.time, zone),
+    date: localDate(e.time, zone),
     offset: offsetString(roundToMinute(e.time), zone),
     type: e.type,
     height,

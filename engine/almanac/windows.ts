@@ -3,7 +3,7 @@
 import { clock, isoLocal, isoUtc, roundToMinute, type LocalDay } from '../localtime.js';
 import type { StationLookup } from '../tides.js';
 import type {
-  Station, TideEvent, WindowDay, WindowInterval, WindowPiece, WindowSpec, WindowYear,
+  ModelWarning, Station, TideEvent, WindowDay, WindowInterval, WindowPiece, WindowSpec, WindowYear,
 } from '../types.js';
 import { openIntervals, windowMethod, type OpenInterval } from '../windows.js';
 import { mm } from './format.js';
@@ -89,11 +89,9 @@ export function splitByDay(intervals: readonly OpenInterval[], days: readonly Lo
 }
 
 /** One line of plain words for a window whose level lies outside the year's range. */
-export function outOfRangeWarning(w: WindowYear, year: number): string | null {
+/** A window whose level the year's water never crosses, as a warning code with its numbers (the level may be wrong). */
+export function outOfRangeWarning(w: WindowYear, year: number): ModelWarning | null {
   if (!w.outOfRange) return null;
   const { code, lowest, highest } = w.outOfRange;
-  const level = `${w.side} ${w.level.toFixed(2)} m`;
-  return code === 'window-never-opens'
-    ? `Window "${w.name}" (${level}) never opens in ${year}: the year's water ranges from ${lowest.toFixed(2)} m to ${highest.toFixed(2)} m; check the level.`
-    : `Window "${w.name}" (${level}) never closes in ${year}: the year's water ranges from ${lowest.toFixed(2)} m to ${highest.toFixed(2)} m; check the level.`;
+  return { code, window: w.name, side: w.side, level: w.level, lowest, highest, year };
 }

@@ -2,7 +2,7 @@
 // CRLF line ends, lines folded at 75 octets, TEXT values escaped, times in UTC, stable UIDs and a
 // DTSTAMP taken from the model (not the clock) so two builds of the same input are identical.
 import type { StationYear } from '../../engine/types.js';
-import { heightNumber, type Units } from '../site/format.js';
+import { wordsFor, type Words } from '../locale/index.js';
 import { windowCalendarEvents } from './windows.js';
 
 /** Escape a TEXT value (RFC 5545 §3.3.11): backslash, semicolon, comma and line breaks. */
@@ -50,25 +50,27 @@ export function icalUtc(iso: string): string {
   return iso.replace(/[-:]/g, '').replace(/\.\d+/, '');
 }
 
-export function eventsICalendar(model: StationYear, units: Units = 'm'): string {
+export function eventsICalendar(model: StationYear, words: Words = wordsFor()): string {
   const st = model.station;
   const stamp = `${model.year}0101T000000Z`; // fixed by the edition's year: reproducible builds
-  const invented = model.invented ? ' These data are INVENTED for a demonstration: never use them for navigation.' : '';
+  const w = words;
+  const invented = model.invented ? ` ${w.t('export.invented')}` : '';
   const lines: string[] = [
     'BEGIN:VCALENDAR',
     'VERSION:2.0',
-    `PRODID:-//tidewright//tidewright ${model.generator.version}//EN`,
+    `PRODID:-//tidewright//tidewright ${model.generator.version}//${w.language.toUpperCase()}`,
     'CALSCALE:GREGORIAN',
     'METHOD:PUBLISH',
-    `X-WR-CALNAME:${escapeText(`Tides ${model.year}: ${st.name}`)}`,
-    `X-WR-CALDESC:${escapeText(`High and low waters at ${st.name}, heights above ${st.datum}. ${model.caution}${invented} Provenance: ${st.provenance}`)}`,
+    `X-WR-CALNAME:${escapeText(w.t('ical.name', { year: model.year, station: st.name }))}`,
+    `X-WR-CALDESC:${escapeText(`${w.t('ical.description', { station: st.name, datum: st.datum })} ${words.caution}${invented} `
+      + `${w.t('fact.provenance')}: ${st.provenance}`)}`,
   ];
   model.events.forEach((e, i) => {
-    const what = e.type === 'high' ? 'High water' : 'Low water';
-    const height = `${heightNumber(e.height, units)} ${units}`;
-    const below = e.belowDatum ? ` (below ${st.datum})` : '';
-    const description = `${what} at ${st.name}: ${e.clock} local time (UTC${e.offset}), ${height} above ${st.datum}${below}.`
-      + `\n\nCaution: ${model.caution}${invented}`;
+    const what = w.eventName(e.type);
+    const height = words.height(e.height).replace('\u00a0', ' '); // plain text: an ordinary space
+    const below = e.belowDatum ? ` (${w.t('ical.below', { datum: st.datum })})` : '';
+    const description = `${w.t('ical.event', { what, station: st.name, clock: e.clock, offset: w.offset(e.offset), height, datum: st.datum })}${below}.`
+      + `\n\n${w.t('caution.heading')}: ${words.caution}${invented}`;
     lines.push(
       'BEGIN:VEVENT',
       `UID:${st.id}-${model.year}-${i + 1}@tidewright`,
@@ -82,7 +84,7 @@ export function eventsICalendar(model: StationYear, units: Units = 'm'): string 
       'END:VEVENT',
     );
   });
-  lines.push(...windowCalendarEvents(model, units, stamp, invented));
+  lines.push(...windowCalendarEvents(model, words, stamp, invented));
   lines.push('END:VCALENDAR');
   return `${lines.map(foldLine).join('\r\n')}\r\n`;
 }

@@ -1,8 +1,9 @@
 // The events of a station-year as JSON: the station's identity, what the heights are measured from,
 // the caution, and every high and low water (UTC instant, local time, metres above datum).
 import type { StationYear } from '../../engine/types.js';
+import { wordsFor, type Words } from '../locale/index.js';
 
-export function eventsJson(model: StationYear): string {
+export function eventsJson(model: StationYear, words: Words = wordsFor()): string {
   const st = model.station;
   const doc = {
     kind: 'tidewright-events',
@@ -19,12 +20,13 @@ export function eventsJson(model: StationYear): string {
     year: model.year,
     units: 'm',
     invented: model.invented,
-    caution: model.caution,
+    caution: words.caution,
     provenance: st.provenance,
     generator: model.generator,
     events: model.events.map((e) => ({
       time: e.time,
       local: e.local,
+      date: e.date,
       type: e.type,
       height: e.height,
       belowDatum: e.belowDatum,

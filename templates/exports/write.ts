@@ -2,7 +2,7 @@
 import { mkdir, writeFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import type { StationYear } from '../../engine/types.js';
-import type { Units } from '../site/format.js';
+import { wordsFor, type Words } from '../locale/index.js';
 import { eventsCsv } from './csv.js';
 import { eventsICalendar } from './icalendar.js';
 import { eventsJson } from './json.js';
@@ -32,19 +32,18 @@ export function exportFileNames(model: StationYear): ExportFileNames {
 }
 
 export async function writeExports(
-  model: StationYear, dataDir: string, options: { units?: Units } = {},
+  model: StationYear, dataDir: string, words: Words = wordsFor(),
 ): Promise<ExportFileNames> {
   const names = exportFileNames(model);
-  const units = options.units ?? 'm';
   await mkdir(dataDir, { recursive: true });
   await Promise.all([
-    writeFile(join(dataDir, names.csv), eventsCsv(model, units)),
-    writeFile(join(dataDir, names.json), eventsJson(model)),
-    writeFile(join(dataDir, names.ics), eventsICalendar(model, units)),
-    writeFile(join(dataDir, names.hourly), hourlyCsv(model, units)),
+    writeFile(join(dataDir, names.csv), eventsCsv(model, words)),
+    writeFile(join(dataDir, names.json), eventsJson(model, words)),
+    writeFile(join(dataDir, names.ics), eventsICalendar(model, words)),
+    writeFile(join(dataDir, names.hourly), hourlyCsv(model, words)),
     ...(names.windows
-      ? [writeFile(join(dataDir, names.windows.csv), windowsCsv(model, units)),
-        writeFile(join(dataDir, names.windows.json), windowsJson(model))]
+      ? [writeFile(join(dataDir, names.windows.csv), windowsCsv(model, words)),
+        writeFile(join(dataDir, names.windows.json), windowsJson(model, words))]
       : []),
   ]);
   return names;

@@ -16,7 +16,8 @@ export function bookCoverPage(views: StationView[], text: BookCoverText, caution
       const { doc, box } = ctx;
       const s = unit(ctx);
       let y = box.y + 12 * s;
-      put(doc, 'TIDE PREDICTIONS', box.x, y, { font: 'bold', size: 9 * s, color: MID });
+      const w = ctx.settings.words;
+      put(doc, w.t('book.kicker').toLocaleUpperCase(w.tag), box.x, y, { font: 'bold', size: 9 * s, color: MID });
       y += 62 * s;
       put(doc, text.years, box.x - 3 * s, y, { font: 'bold', size: 70 * s });
       y += 36 * s;
@@ -26,8 +27,8 @@ export function bookCoverPage(views: StationView[], text: BookCoverText, caution
         y += title.style.size * 1.18;
       }
       const refs = views.filter((v) => v.model.station.kind === 'reference').length;
-      put(doc, `${views.length} station${views.length === 1 ? '' : 's'}: ${refs} reference port${refs === 1 ? '' : 's'}, `
-        + `${views.length - refs} secondary port${views.length - refs === 1 ? '' : 's'}`, box.x, y + 2 * s,
+      put(doc, w.t('book.stationCount', { count: views.length, references: w.t('book.referenceCount', { count: refs }),
+        secondaries: w.t('book.secondaryCount', { count: views.length - refs }) }), box.x, y + 2 * s,
       { font: 'regular', size: 10 * s, color: DARK });
       y += 40 * s;
       if (invented) inventedBanner(ctx, y);

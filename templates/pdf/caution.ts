@@ -2,7 +2,7 @@
 // each drawn with the same code that draws it on the months.
 import type { MoonPhaseName } from '../../engine/types.js';
 import { drawDayCurve } from './day-curve.js';
-import { formatHeight, printable, unitWord } from './format.js';
+import { printable } from './format.js';
 import { belowDatumMark, clockGlyph, laneMark, moonGlyph, springNeapBadge, sunGlyph, sunGlyphWidth } from './glyphs.js';
 import type { LogicalPage, PageContext } from './page.js';
 import { unit } from './page.js';
@@ -15,40 +15,40 @@ type KeyItem = { draw: (x: number, baseline: number) => void; text: string };
 function keyItems(ctx: PageContext, view: StationView, mixed: boolean): KeyItem[] {
   const { doc } = ctx;
   const s = unit(ctx);
-  const units = ctx.settings.units;
+  const words = ctx.settings.words;
   const t = (font: 'narrow' | 'narrow-bold', x: number, y: number, text: string, size = 9.4) =>
     x + put(doc, text, x, y, { font, size: size * s });
   const sampleLow = -0.12;
   const spring = view.model.days.find((d) => d.springNeap === 'spring') ?? view.model.days[0];
   return [
-    { text: 'High water: clock time and height, on the upper line of each day, in time order.',
-      draw: (x, y) => { laneMark(doc, 'high', x, y, 7.5 * s); t('narrow', t('narrow-bold', x + 8 * s, y, '06:29') + 2.5 * s, y, formatHeight(4.54, units), 8.6); } },
-    { text: 'Low water: on the lower line of each day.',
-      draw: (x, y) => { laneMark(doc, 'low', x, y, 7.5 * s); t('narrow', t('narrow', x + 8 * s, y, '12:17') + 2.5 * s, y, formatHeight(0.19, units), 8.6); } },
-    { text: `Below ${printable(view.model.station.datum)}: bold, with a minus sign, underlined and marked with a black triangle. There is less water than the chart shows.`,
+    { text: words.t('key.high'),
+      draw: (x, y) => { laneMark(doc, 'high', x, y, 7.5 * s); t('narrow', t('narrow-bold', x + 8 * s, y, '06:29') + 2.5 * s, y, words.heightNumber(4.54), 8.6); } },
+    { text: words.t('key.low'),
+      draw: (x, y) => { laneMark(doc, 'low', x, y, 7.5 * s); t('narrow', t('narrow', x + 8 * s, y, '12:17') + 2.5 * s, y, words.heightNumber(0.19), 8.6); } },
+    { text: words.t('key.below', { datum: printable(view.model.station.datum) }),
       draw: (x, y) => {
         laneMark(doc, 'low', x, y, 7.5 * s);
         const hx = t('narrow', x + 8 * s, y, '03:12') + 2.5 * s;
-        const w = put(doc, formatHeight(sampleLow, units, true), hx, y, { font: 'narrow-bold', size: 8.9 * s });
+        const w = put(doc, words.heightNumber(sampleLow, true), hx, y, { font: 'narrow-bold', size: 8.9 * s });
         belowDatumMark(doc, hx + w + 0.8 * s, y, 8.6 * s);
         doc.save().lineWidth(0.7 * s).moveTo(hx, y + 1.4 * s).lineTo(hx + w, y + 1.4 * s).stroke(INK).restore();
       } },
-    { text: 'Spring tide: the day of the largest range of the fortnight, after new and full moon.',
-      draw: (x, y) => springNeapBadge(doc, 'spring', x + 7 * s, y - 3.5 * s, 14 * s, 18 * s, 10.5 * s) },
-    { text: 'Neap tide: the day of the smallest range, after the moon\u2019s quarters.',
-      draw: (x, y) => springNeapBadge(doc, 'neap', x + 7 * s, y - 3.5 * s, 14 * s, 18 * s, 10.5 * s) },
-    { text: `New moon, first quarter, full moon, last quarter, with the time, as seen from ${mixed ? 'each station\u2019s' : `the ${view.southern ? 'southern' : 'northern'}`} hemisphere.`,
+    { text: words.t('key.spring'),
+      draw: (x, y) => springNeapBadge(doc, 'spring', x + 7 * s, y - 3.5 * s, 14 * s, 18 * s, 10.5 * s, words.t('tide.springMark')) },
+    { text: words.t('key.neap'),
+      draw: (x, y) => springNeapBadge(doc, 'neap', x + 7 * s, y - 3.5 * s, 14 * s, 18 * s, 10.5 * s, words.t('tide.neapMark')) },
+    { text: words.t(mixed ? 'key.moonEach' : view.southern ? 'key.moonSouth' : 'key.moonNorth'),
       draw: (x, y) => (['new', 'first-quarter', 'full', 'last-quarter'] as MoonPhaseName[]).forEach((p, i) =>
         moonGlyph(doc, p, x + 5 * s + i * 13 * s, y - 3.5 * s, 4.6 * s, view.southern)) },
-    { text: 'The day\u2019s tide from midnight to midnight on one scale for the whole year: grey is night, the dashed line is chart datum, solid black is water below it.',
+    { text: words.t('key.curve'),
       draw: (x, y) => drawDayCurve(doc, spring, { x, y: y - 14 * s, width: 48 * s, height: 20 * s }, view.curve, s) },
-    { text: 'Sunrise and sunset; near the poles \u201csun up all day\u201d or \u201csun down all day\u201d.',
+    { text: words.t('key.sun', { up: words.t('sun.upAllDay'), down: words.t('sun.downAllDay') }),
       draw: (x, y) => { sunGlyph(doc, true, x, y, 7.4 * s); const w = sunGlyphWidth(7.4 * s); t('narrow', x + w + 1.5 * s, y, '07:12', 7.4);
         sunGlyph(doc, false, x + 34 * s, y, 7.4 * s); t('narrow', x + 34 * s + w + 1.5 * s, y, '19:03', 7.4); } },
-    { text: 'The clocks change: a note under the day; that day every time carries its UTC offset.',
+    { text: words.t('key.clock'),
       draw: (x, y) => clockGlyph(doc, x + 5 * s, y - 3.5 * s, 4.8 * s) },
-    { text: 'Saturdays and Sundays are shaded; a heavy rule ends each week.',
-      draw: (x, y) => { doc.save().rect(x, y - 12 * s, 30 * s, 16 * s).fill(FAINT).restore(); put(doc, 'Sat', x + 15 * s, y, { font: 'narrow-bold', size: 7 * s }, 'center'); } },
+    { text: words.t('key.weekend'),
+      draw: (x, y) => { doc.save().rect(x, y - 12 * s, 30 * s, 16 * s).fill(FAINT).restore(); put(doc, words.weekdayShort(6), x + 15 * s, y, { font: 'narrow-bold', size: 7 * s }, 'center'); } },
   ];
 }
 
@@ -61,35 +61,32 @@ export function cautionPage(view: StationView, scope: CautionScope = { combined:
   return {
     kind: 'caution',
     footer: { invented: model.invented },
-    outline: { title: 'Caution and key', level: 1 },
+    outline: { title: view.words.t('book.cautionAndKey'), level: 1 },
     draw(ctx) {
       const { doc, box } = ctx;
       const s = unit(ctx);
       let y = box.y + 14 * s;
-      put(doc, 'Caution', box.x, y, { font: 'bold', size: 16 * s });
+      put(doc, view.words.t('caution.heading'), box.x, y, { font: 'bold', size: 16 * s });
       y += 18 * s;
       const barTop = y - 10 * s;
-      y = paragraph(doc, model.caution, box.x + 9 * s, y, box.width - 9 * s, { font: 'regular', size: 10 * s }, 13.4 * s);
+      y = paragraph(doc, ctx.settings.words.caution, box.x + 9 * s, y, box.width - 9 * s, { font: 'regular', size: 10 * s }, 13.4 * s);
       if (model.invented) {
-        y = paragraph(doc, 'The stations and data in this book are invented for demonstration. Never use them for navigation.',
+        y = paragraph(doc, view.words.t('book.inventedCaution'),
           box.x + 9 * s, y + 2 * s, box.width - 9 * s, { font: 'bold', size: 10 * s }, 13.4 * s);
       }
       doc.save().rect(box.x, barTop, 3 * s, y - barTop - 8 * s).fill(INK).restore();
       y += 4 * s;
-      y = paragraph(doc, `Times are local clock times. Heights are in ${unitWord(ctx.settings.units)} above `
-        + `${printable(model.station.datum)}, the zero of the chart. Depth available = charted depth + predicted height.`,
+      y = paragraph(doc, view.words.t('book.timesHeights', { unit: view.words.unitName(), datum: printable(model.station.datum) }),
       box.x, y, box.width, { font: 'regular', size: 8.4 * s, color: DARK }, 11 * s);
 
       const derived = model.station.kind === 'secondary' || scope.combined
-        ? 'A secondary port\u2019s times and heights come from its reference port\u2019s predictions and the time and '
-          + 'height differences on its facts page. '
+        ? `${view.words.t('book.secondaryNote')} `
         : '';
-      y = paragraph(doc, `${derived}Spring and neap tides are marked on the days of the station\u2019s own largest and `
-        + 'smallest predicted range, which follow new and full moon and the quarters by the age of the tide.',
+      y = paragraph(doc, `${derived}${view.words.t('book.springNeapNote')}`,
       box.x, y + 3 * s, box.width, { font: 'regular', size: 8.4 * s, color: DARK }, 11 * s);
 
       y += 10 * s;
-      put(doc, 'How to read the month pages', box.x, y, { font: 'bold', size: 11.5 * s });
+      put(doc, view.words.t('book.howToRead'), box.x, y, { font: 'bold', size: 11.5 * s });
       y += 8 * s;
       const textX = box.x + 74 * s;
       const items = keyItems(ctx, view, mixedHemispheres);

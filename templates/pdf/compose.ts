@@ -49,19 +49,19 @@ export function combinedPages(views: StationView[], g: PageGeometry, row: number
   const invented = views.some((v) => v.model.invented);
   const years = [...new Set(views.map((v) => v.model.year))].sort((a, b) => a - b);
   const yearText = years.length === 1 ? String(years[0]) : `${years[0]}\u2013${years[years.length - 1]}`;
-  const front: LogicalPage[] = [bookCoverPage(views, { ...text, years: yearText }, views[0].model.caution, invented)];
+  const front: LogicalPage[] = [bookCoverPage(views, { ...text, years: yearText }, views[0].words.caution, invented)];
   const contentsCount = contentsPageCount(views.length, contentBox(g, 1).height, g.scale);
   const mixed = views.some((v) => v.southern) && views.some((v) => !v.southern);
   const caution = cautionPage(views[0], { combined: true, mixedHemispheres: mixed });
   let next = 1 + contentsCount + 2; // after the cover, the contents and the caution page
   const sections: LogicalPage[] = [];
   const entries = views.map((view) => {
-    const kicker = view.model.station.kind === 'secondary' ? 'Secondary port' : 'Reference port';
+    const kicker = view.words.t(view.model.station.kind === 'secondary' ? 'port.secondary' : 'port.reference');
     const pages = stationPages(view, next, row, { kicker: `${kicker} \u00b7 ${text.title}` }, true);
     const entry = { view, page: next };
     next += pages.length;
     sections.push(...pages);
     return entry;
   });
-  return [...front, ...contentsPages(entries, contentBox(g, 1).height, g.scale, invented), caution, ...sections];
+  return [...front, ...contentsPages(entries, contentBox(g, 1).height, g.scale, invented, views[0]!.words), caution, ...sections];
 }

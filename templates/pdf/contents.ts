@@ -1,4 +1,5 @@
 // The front of a combined book: its cover, and the contents listing every station with its page.
+import type { Words } from '../locale/index.js';
 import { printable } from './format.js';
 import type { LogicalPage, PageContext } from './page.js';
 import { unit } from './page.js';
@@ -25,8 +26,10 @@ export function contentsPageCount(count: number, boxHeight: number, s: number): 
 
 function describe(view: StationView, underReference: boolean): string {
   const st = view.model.station;
-  if (st.kind === 'reference') return `reference port \u00b7 ${view.model.tideType.label.toLowerCase()}`;
-  return underReference ? 'secondary port' : `secondary port of ${printable(view.model.reference?.name ?? st.reference)}`;
+  const w = view.words;
+  if (st.kind === 'reference') return `${w.t('port.referenceLower')} \u00b7 ${w.tideType(view.model.tideType.kind).toLocaleLowerCase(w.tag)}`;
+  return underReference ? w.t('port.secondaryLower')
+    : `${w.t('port.secondaryOfLower')} ${printable(view.model.reference?.name ?? st.reference)}`;
 }
 
 /**
@@ -48,7 +51,7 @@ export function bookOrder<T extends { station: { id: string; kind: string }; ref
   return out;
 }
 
-export function contentsPages(entries: ContentsEntry[], boxHeight: number, s: number, invented: boolean): LogicalPage[] {
+export function contentsPages(entries: ContentsEntry[], boxHeight: number, s: number, invented: boolean, words: Words): LogicalPage[] {
   const pages: LogicalPage[] = [];
   let i = 0;
   while (i < entries.length || pages.length === 0) {
@@ -60,11 +63,11 @@ export function contentsPages(entries: ContentsEntry[], boxHeight: number, s: nu
     pages.push({
       kind: 'contents',
       footer: { invented },
-      outline: first ? { title: 'Contents', level: 0 } : undefined,
+      outline: first ? { title: words.t('book.contents'), level: 0 } : undefined,
       draw(ctx: PageContext) {
         const { doc, box } = ctx;
         let y = box.y + (first ? 14 : 0) * s;
-        if (first) put(doc, 'Contents', box.x, y, { font: 'bold', size: 16 * s });
+        if (first) put(doc, words.t('book.contents'), box.x, y, { font: 'bold', size: 16 * s });
         y = box.y + (first ? FIRST_TOP : NEXT_TOP) * s;
         for (const [k, e] of chunk.entries()) {
           const num = String(e.page);

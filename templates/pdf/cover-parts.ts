@@ -10,9 +10,9 @@ export function inventedBanner(ctx: PageContext, y: number): number {
   const s = unit(ctx);
   const h = 30 * s;
   doc.save().rect(box.x, y, box.width, h).fill(INK).restore();
-  putFitted(doc, 'INVENTED DATA', box.x + 10 * s, y + 13 * s, { font: 'bold', size: 11 * s, color: WHITE },
+  putFitted(doc, ctx.settings.words.t('book.inventedBanner'), box.x + 10 * s, y + 13 * s, { font: 'bold', size: 11 * s, color: WHITE },
     box.width - 20 * s, 7 * s);
-  putFitted(doc, 'A demonstration book: these stations and their tides do not exist. Never navigate by it.',
+  putFitted(doc, ctx.settings.words.t('book.inventedBannerText'),
     box.x + 10 * s, y + 24 * s, { font: 'narrow', size: 7.5 * s, color: WHITE }, box.width - 20 * s, 5 * s);
   return y + h;
 }

@@ -1,12 +1,12 @@
 // The cover of a station book, also used (as a section title page) for each station of a combined
 // book: station, year, position, datum, the kind of port, a real fortnight of its tide, the caution.
-import { formatDate, formatPosition, printable } from './format.js';
+import { printable } from './format.js';
 import type { LogicalPage, PageContext } from './page.js';
 import { unit } from './page.js';
 import type { StationView } from './station-view.js';
 import { cautionBlock, inventedBanner } from './cover-parts.js';
 import { DARK, INK, LIGHT, MID } from './style.js';
-import { fitLines, put, putFitted } from './text.js';
+import { fitLines, paragraph, put, putFitted } from './text.js';
 
 export interface GuideEntry { label: string; page: number }
 
@@ -23,7 +23,7 @@ function drawGuide(ctx: PageContext, guide: NonNullable<CoverText['guide']>, top
   const line = 10.8 * s;
   const monthRows = Math.ceil(guide.months.length / 3);
   if (bottom - top < (2.2 + 1 + monthRows) * line) return;
-  put(doc, 'IN THIS BOOK', box.x, top, { font: 'bold', size: 7.5 * s, color: MID });
+  put(doc, ctx.settings.words.t('book.inThisBook').toLocaleUpperCase(ctx.settings.words.tag), box.x, top, { font: 'bold', size: 7.5 * s, color: MID });
   let y = top + line * 1.2;
   const colW = box.width / 3;
   const cell = (e: GuideEntry, i: number, yy: number) => {
@@ -57,7 +57,7 @@ function drawFortnight(ctx: PageContext, view: StationView, x: number, y: number
   doc.restore();
   const first = days[0].date;
   const last = days[days.length - 1].date;
-  put(doc, `The predicted tide, ${formatDate(first, false)} to ${formatDate(last)}`, x, y + h + 10 * s,
+  put(doc, view.words.t('book.fortnight', { from: view.words.date(first, { year: false }), to: view.words.date(last) }), x, y + h + 10 * s,
     { font: 'narrow', size: 7 * s, color: MID });
 }
 
@@ -82,20 +82,20 @@ export function coverPage(view: StationView, text: CoverText, kind: 'cover' | 's
       y += 4 * s;
       const station = model.station;
       const kindLine = station.kind === 'secondary'
-        ? `Secondary port, predicted from ${printable(model.reference?.name ?? station.reference)}`
-        : 'Reference port, predicted from its own harmonic constants';
+        ? view.words.t('book.secondaryFrom', { station: printable(model.reference?.name ?? station.reference) })
+        : view.words.t('book.referenceOwn');
       putFitted(doc, kindLine, box.x, y, { font: 'regular', size: 10 * s, color: DARK }, box.width, 6 * s);
       y += 20 * s;
 
       const facts: [string, string][] = [
-        ['Position', formatPosition(station.position)],
-        ['Heights above', printable(station.datum)],
-        ['Local time', printable(model.timezone)],
+        [view.words.t('fact.position'), view.words.position(station.position)],
+        [view.words.t('book.heightsAbove'), printable(station.datum)],
+        [view.words.t('fact.localTime'), view.words.zoneSummary(model)],
       ];
       for (const [k, v] of facts) {
-        put(doc, k, box.x, y, { font: 'narrow', size: 8.5 * s, color: MID });
-        putFitted(doc, v, box.x + 62 * s, y, { font: 'regular', size: 9.5 * s }, box.width - 62 * s, 6 * s);
-        y += 14 * s;
+        putFitted(doc, k, box.x, y, { font: 'narrow', size: 8.5 * s, color: MID }, 58 * s, 5.5 * s);
+        // the value wraps onto a second line rather than shrinking out of reach (a zone described in words)
+        y = paragraph(doc, v, box.x + 62 * s, y, box.width - 62 * s, { font: 'regular', size: 9.5 * s }, 11.5 * s, 2) + 2.5 * s;
       }
 
       y += 16 * s;
@@ -103,7 +103,7 @@ export function coverPage(view: StationView, text: CoverText, kind: 'cover' | 's
       y += 70 * s + 26 * s;
 
       if (model.invented) y = inventedBanner(ctx, y) + 20 * s;
-      const cautionTop = cautionBlock(ctx, model.caution, text.publisher);
+      const cautionTop = cautionBlock(ctx, view.words.caution, text.publisher);
       if (text.guide) drawGuide(ctx, text.guide, y, cautionTop - 4 * s);
     },
   };

@@ -2,19 +2,14 @@
 // chart datum heavy, labels spread apart where datums lie close together.
 import type { Datums } from '../../engine/types.js';
 import type { Box } from './geometry.js';
-import { formatHeight, inUnits } from './format.js';
+import { inUnits, type Words } from '../locale/index.js';
 import type { HeightUnits } from './options.js';
 import { INK, MID, WHITE } from './style.js';
 import { put, putFitted } from './text.js';
 
-export const DATUM_ROWS: { key: keyof Omit<Datums, 'epoch'>; name: string }[] = [
-  { key: 'HAT', name: 'Highest astronomical tide' },
-  { key: 'MHWS', name: 'Mean high water springs' },
-  { key: 'MHWN', name: 'Mean high water neaps' },
-  { key: 'MSL', name: 'Mean sea level' },
-  { key: 'MLWN', name: 'Mean low water neaps' },
-  { key: 'MLWS', name: 'Mean low water springs' },
-  { key: 'LAT', name: 'Lowest astronomical tide' },
+// The levels in height order, named in the reader's language by the catalogue (`datum.HAT` …).
+export const DATUM_ROWS: { key: keyof Omit<Datums, 'epoch'> }[] = [
+  { key: 'HAT' }, { key: 'MHWS' }, { key: 'MHWN' }, { key: 'MSL' }, { key: 'MLWN' }, { key: 'MLWS' }, { key: 'LAT' },
 ];
 
 /** Spreads label positions (sorted top to bottom) so neighbours are at least `gap` apart. */
@@ -33,8 +28,9 @@ function staffStep(span: number, units: HeightUnits): number {
   return span > 8 ? 2 : span > 3 ? 1 : 0.5;
 }
 
-export function drawDatumScale(doc: PDFKit.PDFDocument, datums: Datums, datumLabel: string, units: HeightUnits,
+export function drawDatumScale(doc: PDFKit.PDFDocument, datums: Datums, datumLabel: string, words: Words,
   box: Box, s: number): void {
+  const units = words.units;
   // every datum and the chart datum inside the staff, even if the model's datums are out of order
   const values = DATUM_ROWS.map((r) => inUnits(datums[r.key], units));
   const lo = Math.min(0, ...values);
@@ -53,7 +49,7 @@ export function drawDatumScale(doc: PDFKit.PDFDocument, datums: Datums, datumLab
   doc.restore();
   const tick = { font: 'narrow' as const, size: 6.5 * s, color: MID };
   for (let v = bottom; v <= top + 1e-9; v += step) {
-    const label = Math.abs(v) < 1e-9 ? '0' : formatHeight(v, 'm').replace(/\.0+$/, '').replace(/(\.\d*?)0+$/, '$1');
+    const label = Math.abs(v) < 1e-9 ? '0' : words.number(v, Number.isInteger(Math.round(v * 100) / 100) ? 0 : Number.isInteger(Math.round(v * 10) / 10) ? 1 : 2);
     put(doc, label, staffX - 3 * s, y(v) + 2.2 * s, tick, 'right');
   }
 
@@ -72,6 +68,6 @@ export function drawDatumScale(doc: PDFKit.PDFDocument, datums: Datums, datumLab
     putFitted(doc, r.label, labelX, ys[i] + 2.4 * s,
       { font: isDatum ? 'narrow-bold' : 'narrow', size: 7 * s }, box.x + box.width - labelX, 5 * s);
   });
-  put(doc, units === 'ft' ? 'feet' : 'metres', staffX + staffW / 2, box.y - 5 * s,
+  put(doc, words.unitName(), staffX + staffW / 2, box.y - 5 * s,
     { font: 'narrow', size: 6.5 * s, color: MID }, 'center');
 }

@@ -1,13 +1,12 @@
 // The small tide curve of one day: heights from the model's curve, night shaded from sunset to
 // sunrise, chart datum dashed, water below chart datum filled solid.
 import type { DayEntry } from '../../engine/types.js';
+import { instant } from '../locale/index.js';
 import type { Box } from './geometry.js';
 import { INK, LIGHT, NIGHT } from './style.js';
 
-const HOUR = 3_600_000;
-
 export function dayStartMs(day: DayEntry): number {
-  return Date.parse(`${day.date}T00:00:00${day.offsetStart}`);
+  return instant(day.start);
 }
 
 /** Night intervals of the day as fractions [from, to] of the day. */
@@ -15,7 +14,7 @@ export function nightSpans(day: DayEntry): [number, number][] {
   if (day.sunNote === 'sun-up-all-day') return [];
   if (day.sunNote === 'sun-down-all-day') return [[0, 1]];
   const start = dayStartMs(day);
-  const len = day.hours * HOUR;
+  const len = instant(day.end) - start;
   const frac = (iso: string) => Math.min(1, Math.max(0, (Date.parse(iso) - start) / len));
   const rise = day.sunrise ? frac(day.sunrise) : null;
   const set = day.sunset ? frac(day.sunset) : null;

@@ -1,8 +1,8 @@
 // One day of a month page: spring/neap badge, date, moon, the high-water lane above the low-water
 // lane (each in time order), the day's curve, and sunrise/sunset.
 import type { AlmanacEvent, DayEntry } from '../../engine/types.js';
+import type { Words } from '../locale/index.js';
 import { drawDayCurve } from './day-curve.js';
-import { formatHeight } from './format.js';
 import { belowDatumMark, clockGlyph, laneMark, moonGlyph, springNeapBadge, sunGlyph, sunGlyphWidth } from './glyphs.js';
 import type { Columns } from './month-layout.js';
 import { NOTE_BAND } from './month-layout.js';
@@ -18,6 +18,7 @@ export interface RowFrame {
   height: number; // the day itself, without the clock-change band
   u: number;
   units: HeightUnits;
+  words: Words;
 }
 
 /** Where the two lanes' baselines sit within a row. */
@@ -27,8 +28,8 @@ export function laneBaselines(top: number, height: number): { high: number; low:
 
 interface LaneEntry { clock: string; offset: string | null; height: string; below: boolean }
 
-function drawLane(doc: PDFKit.PDFDocument, events: AlmanacEvent[], type: 'high' | 'low', day: DayEntry,
-  f: RowFrame, baseline: number): void {
+function drawLane(doc: PDFKit.PDFDocument, view: StationView, events: AlmanacEvent[], type: 'high' | 'low',
+  day: DayEntry, f: RowFrame, baseline: number): void {
   const { lanes } = f.cols;
   const u = f.u;
   const markSize = 7.5 * u;
@@ -39,8 +40,8 @@ function drawLane(doc: PDFKit.PDFDocument, events: AlmanacEvent[], type: 'high' 
   // on a clock-change day each time carries its own offset, so the repeated hour is never ambiguous
   const entries: LaneEntry[] = events.map((e) => ({
     clock: e.clock,
-    offset: day.offsetChange ? e.offset.slice(0, 3).replace('-', '\u2212') : null,
-    height: formatHeight(e.height, f.units, e.belowDatum),
+    offset: day.offsetChange ? view.words.offset(e.offset) : null,
+    height: view.words.heightNumber(e.height, e.belowDatum),
     below: e.belowDatum,
   }));
   const styles = (k: number) => ({
@@ -75,18 +76,19 @@ function drawLane(doc: PDFKit.PDFDocument, events: AlmanacEvent[], type: 'high' 
 
 export function drawDayRow(doc: PDFKit.PDFDocument, view: StationView, day: DayEntry, f: RowFrame): number {
   const { cols, top, height, u } = f;
-  const weekend = day.weekday === 'Sat' || day.weekday === 'Sun';
+  const weekend = day.weekday >= 6;
   const lanesY = laneBaselines(top, height);
   if (weekend) doc.save().rect(cols.day.x, top, cols.day.w + cols.moon.w, height).fill(FAINT).restore();
 
   if (day.springNeap) {
     springNeapBadge(doc, day.springNeap, cols.badge.x + cols.badge.w / 2, top + height / 2,
-      cols.badge.w, Math.min(height - 4 * u, 21 * u), 10.5 * u);
+      cols.badge.w, Math.min(height - 4 * u, 21 * u), 10.5 * u,
+      f.words.t(day.springNeap === 'spring' ? 'tide.springMark' : 'tide.neapMark'));
   }
 
   const dayRight = cols.day.x + cols.day.w - 2 * u;
   put(doc, String(day.dayOfMonth), dayRight, top + height * 0.52, { font: 'bold', size: 13.5 * u }, 'right');
-  put(doc, day.weekday, dayRight, top + height * 0.52 + 8.2 * u,
+  put(doc, view.words.weekdayShort(day.weekday), dayRight, top + height * 0.52 + 8.2 * u,
     { font: weekend ? 'narrow-bold' : 'narrow', size: 6.6 * u, color: weekend ? INK : MID }, 'right');
 
   if (day.moonPhase) {
@@ -98,8 +100,8 @@ export function drawDayRow(doc: PDFKit.PDFDocument, view: StationView, day: DayE
     if (phase) put(doc, phase.clock, cx, cy + r + 6 * u, { font: 'narrow', size: 5.6 * u, color: MID }, 'center');
   }
 
-  drawLane(doc, day.events.filter((e) => e.type === 'high'), 'high', day, f, lanesY.high);
-  drawLane(doc, day.events.filter((e) => e.type === 'low'), 'low', day, f, lanesY.low);
+  drawLane(doc, view, day.events.filter((e) => e.type === 'high'), 'high', day, f, lanesY.high);
+  drawLane(doc, view, day.events.filter((e) => e.type === 'low'), 'low', day, f, lanesY.low);
 
   const pad = 2.2 * u;
   drawDayCurve(doc, day, { x: cols.curve.x, y: top + pad, width: cols.curve.w, height: height - 2 * pad },
@@ -112,7 +114,7 @@ export function drawDayRow(doc: PDFKit.PDFDocument, view: StationView, day: DayE
     const band = NOTE_BAND * u;
     const r = 3.3 * u;
     clockGlyph(doc, cols.day.x + r + 1 * u, y + band / 2 - 0.5 * u, r);
-    putFitted(doc, day.offsetChange.note, cols.day.x + 2 * r + 4 * u, y + band * 0.62,
+    putFitted(doc, view.words.offsetChange(day.offsetChange), cols.day.x + 2 * r + 4 * u, y + band * 0.62,
       { font: 'narrow-bold', size: 7 * u }, cols.sun.x + cols.sun.w - cols.day.x - 2 * r - 4 * u, 5 * u);
     return height + band;
   }
@@ -124,7 +126,8 @@ function drawSun(doc: PDFKit.PDFDocument, day: DayEntry, f: RowFrame, y: { high:
   const u = f.u;
   const style: TextStyle = { font: 'narrow', size: 7.4 * u };
   if (day.sunNote) {
-    const words = day.sunNote === 'sun-up-all-day' ? ['sun up', 'all day'] : ['sun down', 'all day'];
+    const w = f.words;
+    const words = day.sunNote === 'sun-up-all-day' ? [w.t('sun.upShort'), w.t('sun.allDayShort')] : [w.t('sun.downShort'), w.t('sun.allDayShort')];
     putFitted(doc, words[0], sun.x, y.high, { ...style, font: 'narrow-bold' }, sun.w, 4.5 * u);
     putFitted(doc, words[1], sun.x, y.low, { ...style, font: 'narrow-bold' }, sun.w, 4.5 * u);
     return;

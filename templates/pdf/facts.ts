@@ -4,9 +4,7 @@ import type { SecondaryStation } from '../../engine/types.js';
 import { DATUM_ROWS, drawDatumScale } from './datum-scale.js';
 import { drawConstants } from './constants.js';
 import { drawDifferences } from './differences.js';
-import {
-  formatDate, formatHeight, formatLength, formatPosition, printable, unitLabel,
-} from './format.js';
+import { printable } from './format.js';
 import type { LogicalPage, PageContext } from './page.js';
 import { unit } from './page.js';
 import type { StationView } from './station-view.js';
@@ -26,9 +24,10 @@ function keyValues(ctx: PageContext, rows: [string, string][], y: number, labelW
   const s = unit(ctx);
   const { doc, box } = ctx;
   for (const [k, v] of rows) {
-    put(doc, k, box.x, y, { font: 'narrow', size: 7.8 * s, color: MID });
+    // a long label (some languages' words are long) wraps in its own column instead of running into the value
+    const labelEnd = paragraph(doc, k, box.x, y, labelW - 4 * s, { font: 'narrow', size: 7.8 * s, color: MID }, 9 * s, 2);
     y = paragraph(doc, v, box.x + labelW, y, box.width - labelW, { font: 'regular', size: 8.4 * s }, 10.6 * s, 3);
-    y += 1.5 * s;
+    y = Math.max(y, labelEnd) + 1.5 * s;
   }
   return y;
 }
@@ -38,87 +37,86 @@ export function factsPage(view: StationView): LogicalPage {
   return {
     kind: 'facts',
     footer: { invented: model.invented, label: view.name },
-    outline: { title: 'Station facts', level: 1 },
+    outline: { title: view.words.t('book.facts'), level: 1 },
     draw(ctx) {
       const { doc, box } = ctx;
       const s = unit(ctx);
-      const units = ctx.settings.units;
+      const w = view.words;
       const st = model.station;
       let y = box.y + 14 * s;
-      put(doc, 'Station facts', box.x, y, { font: 'bold', size: 16 * s });
+      put(doc, w.t('book.facts'), box.x, y, { font: 'bold', size: 16 * s });
       y += 14 * s;
       putFitted(doc, view.name, box.x, y, { font: 'regular', size: 10 * s, color: DARK }, box.width, 6 * s);
       y += 18 * s;
 
       const age = model.ageOfTideHours;
       y = keyValues(ctx, [
-        ['Position', formatPosition(st.position)],
-        ['Time zone', `${printable(model.timezone)} (local clock time; each month states its UTC offset)`],
-        ['Tide type', `${model.tideType.label} (form number ${model.tideType.formNumber.toFixed(2)})`],
-        ['Mean ranges', `springs ${formatLength(model.meanSpringRange, units)}, neaps ${formatLength(model.meanNeapRange, units)}`],
-        ['Age of the tide', `${age.toFixed(0)} hours (${(age / 24).toFixed(1)} days): spring and neap tides come this long after new or full moon and the quarters`],
-        ...(st.number === undefined ? [] : [['Station number', printable(st.number)] as [string, string]]),
-        ...(st.levelling === undefined ? [] : [['Levelling', `${printable(st.datum)} lies ${formatLength(st.levelling.chart_datum_below, units)} ` +
-          `below ${printable(st.levelling.datum)}`] as [string, string]]),
-        ...(st.datum_authority === undefined ? [] : [['Datum authority', printable(st.datum_authority)] as [string, string]]),
-        ...(st.observations === undefined ? [] : [['Observations', `${formatDate(st.observations.from)} to ` +
-          `${formatDate(st.observations.to)}, ${printable(st.observations.source)}`] as [string, string]]),
-        ['Provenance', printable(st.provenance)],
+        [w.t('fact.position'), w.position(st.position)],
+        [w.t('fact.timeZone'), `${w.zoneSummary(model)} (${printable(model.timezone)})`],
+        [w.t('fact.tideType'), `${w.tideType(model.tideType.kind)} (${w.t('fact.formNumber', { value: w.number(model.tideType.formNumber, 2) })})`],
+        [w.t('fact.meanRanges'), w.t('fact.rangesValue', { springs: w.height(model.meanSpringRange), neaps: w.height(model.meanNeapRange) })],
+        [w.t('fact.ageOfTide'), w.t('fact.ageValue', { age: w.hours(age) })],
+        ...(st.number === undefined ? [] : [[w.t('station.numberLabel'), printable(st.number)] as [string, string]]),
+        ...(st.levelling === undefined ? [] : [[w.t('station.levelling'), w.t('station.levellingValue', {
+          datum: printable(st.datum), depth: w.height(st.levelling.chart_datum_below), land: printable(st.levelling.datum) })] as [string, string]]),
+        ...(st.datum_authority === undefined ? [] : [[w.t('station.datumAuthority'), printable(st.datum_authority)] as [string, string]]),
+        ...(st.observations === undefined ? [] : [[w.t('station.observations'), w.t('station.observationsValue', {
+          from: w.date(st.observations.from), to: w.date(st.observations.to), source: printable(st.observations.source) })] as [string, string]]),
+        [w.t('fact.provenance'), printable(st.provenance)],
       ], y, 62 * s);
 
       y += 8 * s;
-      y = sectionTitle(ctx, `Datums, ${unitLabel(units)} above ${printable(st.datum)}`, y);
+      y = sectionTitle(ctx, w.t('book.datumsAbove', { unit: w.unit(), datum: printable(st.datum) }), y);
       const tableW = Math.min(box.width * 0.58, 210 * s);
       const rowH = 12.5 * s;
       const tableTop = y;
-      const datumRows = [...DATUM_ROWS.map((r) => ({ key: r.key as string, name: r.name, v: model.datums[r.key] })),
+      const datumRows = [...DATUM_ROWS.map((r) => ({ key: r.key as string, name: w.t(`datum.${r.key}`), v: model.datums[r.key] })),
         { key: 'CD', name: printable(st.datum), v: 0 }];
       // With a levelling datum, a second column gives each level above it (a column, not a replacement).
       const land = st.levelling;
       const landW = land === undefined ? 0 : 44 * s;
       if (land !== undefined) {
         const head = { font: 'narrow', size: 6.8 * s, color: MID } as const;
-        put(doc, `above ${printable(st.datum)}`, box.x + tableW - landW, y - 1 * s, head, 'right');
-        putFitted(doc, `above ${printable(land.datum)}`, box.x + tableW, y + 7 * s, head, tableW * 0.6, 5 * s, 'right');
+        put(doc, w.t('station.aboveDatum', { datum: printable(st.datum) }), box.x + tableW - landW, y - 1 * s, head, 'right');
+        putFitted(doc, w.t('station.aboveDatum', { datum: printable(land.datum) }), box.x + tableW, y + 7 * s, head, tableW * 0.6, 5 * s, 'right');
         y += 18 * s;
       }
       for (const r of datumRows) {
         const bold = r.key === 'CD';
         put(doc, r.key, box.x, y, { font: bold ? 'bold' : 'narrow-bold', size: 8.2 * s });
         putFitted(doc, r.name, box.x + 32 * s, y, { font: 'narrow', size: 8.2 * s, color: DARK }, tableW - 70 * s - landW, 5 * s);
-        put(doc, formatHeight(r.v, units), box.x + tableW - landW, y, { font: bold ? 'bold' : 'regular', size: 8.6 * s }, 'right');
-        if (land !== undefined) put(doc, formatHeight(r.v - land.chart_datum_below, units), box.x + tableW, y, { font: 'regular', size: 8.6 * s, color: DARK }, 'right');
+        put(doc, w.heightNumber(r.v), box.x + tableW - landW, y, { font: bold ? 'bold' : 'regular', size: 8.6 * s }, 'right');
+        if (land !== undefined) put(doc, w.heightNumber(r.v - land.chart_datum_below), box.x + tableW, y, { font: 'regular', size: 8.6 * s, color: DARK }, 'right');
         doc.save().lineWidth(HAIRLINE).strokeColor(RULE)
           .moveTo(box.x, y + 3.8 * s).lineTo(box.x + tableW, y + 3.8 * s).stroke().restore();
         y += rowH;
       }
-      y = paragraph(doc, `LAT and HAT from predictions over ${model.datums.epoch.from}\u2013${model.datums.epoch.to}; `
-        + 'the others from the harmonic constants.', box.x, y + 2 * s, tableW, { font: 'narrow', size: 7 * s, color: MID }, 8.6 * s);
+      y = paragraph(doc, w.t('book.latHatNote', { epoch: `${model.datums.epoch.from}\u2013${model.datums.epoch.to}` }), box.x, y + 2 * s, tableW, { font: 'narrow', size: 7 * s, color: MID }, 8.6 * s);
       const diagramX = box.x + tableW + 8 * s;
-      drawDatumScale(doc, model.datums, printable(st.datum), units,
+      drawDatumScale(doc, model.datums, printable(st.datum), w,
         { x: diagramX, y: tableTop + 2 * s, width: box.x + box.width - diagramX, height: Math.max(rowH * 8, y - tableTop - 6 * s) }, s);
       y = Math.max(y, tableTop + rowH * 8 + 12 * s) + 10 * s;
 
       if (st.kind === 'secondary') {
-        y = sectionTitle(ctx, `Secondary port of ${printable(model.reference?.name ?? st.reference)}`, y);
+        y = sectionTitle(ctx, `${w.t('port.secondaryOf')} ${printable(model.reference?.name ?? st.reference)}`, y);
         y = drawDifferences(ctx, st as SecondaryStation, y);
       } else {
-        y = sectionTitle(ctx, 'Harmonic constants', y);
+        y = sectionTitle(ctx, w.t('book.constants'), y);
         y = drawConstants(ctx, st, y, 12);
       }
 
-      y = sectionTitle(ctx, `The year ${model.year}`, y + 4 * s);
+      y = sectionTitle(ctx, w.t('book.theYear', { year: model.year }), y + 4 * s);
       const { highest, lowest } = model.extremes;
-      const at = (e: typeof highest) => `${formatDate(e.local.slice(0, 10))} at ${e.clock} (UTC${e.offset})`;
+      const at = (e: typeof highest) => w.t('book.dateAt', { date: w.date(e.date), clock: e.clock, offset: w.offset(e.offset) });
       y = keyValues(ctx, [
-        ['Highest water', `${formatLength(highest.height, units)}, ${at(highest)}`],
-        ['Lowest water', `${formatLength(lowest.height, units)}${lowest.belowDatum ? ' (below chart datum)' : ''}, ${at(lowest)}`],
+        [w.t('fact.highest'), `${w.height(highest.height)}, ${at(highest)}`],
+        [w.t('fact.lowest'), `${w.height(lowest.height)}${lowest.belowDatum ? ` (${w.t('height.belowDatum')})` : ''}, ${at(lowest)}`],
       ], y, 62 * s);
 
       if (model.warnings.length > 0) {
-        y = sectionTitle(ctx, 'Warnings', y + 6 * s);
-        for (const w of model.warnings) {
-          y = paragraph(doc, `\u2022 ${w}`, box.x, y, box.width, { font: 'bold', size: 8 * s }, 10 * s, 3);
+        y = sectionTitle(ctx, w.t('site.warnings'), y + 6 * s);
+        for (const warning of model.warnings) {
+          y = paragraph(doc, `\u2022 ${w.warning(warning, printable(st.datum))}`, box.x, y, box.width, { font: 'bold', size: 8 * s }, 10 * s, 3);
         }
       }
     },

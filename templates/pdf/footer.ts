@@ -4,11 +4,6 @@ import { unit } from './page.js';
 import { INK, MID } from './style.js';
 import { clipText, put, widthOf, wrapLines } from './text.js';
 
-export const FOOTER_CAUTION = 'Astronomical predictions only: wind, air pressure and river flow change real '
-  + 'heights and times. Not a substitute for official tide tables or local notices; defer to the harbour '
-  + 'authority.';
-
-const INVENTED_LABEL = 'INVENTED DATA, for demonstration only.';
 
 export function drawFooter(ctx: PageContext, page: LogicalPage): void {
   const { doc, box, number } = ctx;
@@ -31,10 +26,10 @@ export function drawFooter(ctx: PageContext, page: LogicalPage): void {
   let y = top + 4 * s + size;
 
   const label = page.footer.label ? `${clipText(doc, page.footer.label, regular, width * 0.4)} · ` : '';
-  const lead = page.footer.invented ? `${INVENTED_LABEL} ` : '';
+  const lead = page.footer.invented ? `${ctx.settings.words.t('book.inventedFooter')} ` : '';
   // first line: the bold notice, then the caution continuing on the same line
   const leadWidth = lead ? widthOf(doc, lead, bold) : 0;
-  const words = `${label}${FOOTER_CAUTION}`;
+  const words = `${label}${ctx.settings.words.cautionShort}`;
   const firstLines = wrapLines(doc, words, regular, width - leadWidth);
   if (lead) put(doc, lead, textX, y, bold);
   const first = firstLines[0] ?? '';

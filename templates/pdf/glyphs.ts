@@ -2,7 +2,7 @@
 // triangles, sunrise/sunset and clock-change signs. All drawn as paths, none taken from a font.
 import type { MoonPhaseName, SpringNeapKind } from '../../engine/types.js';
 import { INK, WHITE } from './style.js';
-import { put } from './text.js';
+import { put, putFitted } from './text.js';
 
 /** Half of a disc as an SVG path: the left half when `left`, else the right half. */
 function halfDisc(cx: number, cy: number, r: number, left: boolean): string {
@@ -34,7 +34,7 @@ export function moonGlyph(doc: PDFKit.PDFDocument, phase: MoonPhaseName, cx: num
 
 /** A spring (solid black, white S) or neap (white, black frame, N) badge centred on (cx, cy). */
 export function springNeapBadge(doc: PDFKit.PDFDocument, kind: SpringNeapKind, cx: number, cy: number,
-  width: number, height: number, letterSize: number): void {
+  width: number, height: number, letterSize: number, letter: string): void {
   const x = cx - width / 2;
   const y = cy - height / 2;
   const radius = Math.min(width, height) * 0.18;
@@ -46,9 +46,9 @@ export function springNeapBadge(doc: PDFKit.PDFDocument, kind: SpringNeapKind, c
     doc.lineWidth(lw).roundedRect(x + lw / 2, y + lw / 2, width - lw, height - lw, radius).fillAndStroke(WHITE, INK);
   }
   doc.restore();
-  put(doc, kind === 'spring' ? 'S' : 'N', cx, cy + letterSize * 0.36, {
+  putFitted(doc, letter, cx, cy + letterSize * 0.36, {
     font: 'bold', size: letterSize, color: kind === 'spring' ? WHITE : INK,
-  }, 'center');
+  }, width * 0.9, letterSize * 0.3, 'center');
 }
 
 /** A solid downward triangle: marks a height below chart datum (drawn after the number). */

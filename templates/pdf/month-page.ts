@@ -1,9 +1,9 @@
 // A month page: heading with the month, the station, the clock offsets in force and the height
 // unit; column heads; then one row per day.
 import type { DayEntry } from '../../engine/types.js';
+import type { Words } from '../locale/index.js';
 import { drawDayRow } from './day-row.js';
 import { laneMark } from './glyphs.js';
-import { formatDate, formatOffset, unitWord } from './format.js';
 import type { MonthPart } from './month-layout.js';
 import { columns, HEADER_HEIGHT, monthUnit } from './month-layout.js';
 import type { LogicalPage, PageContext } from './page.js';
@@ -12,15 +12,12 @@ import { HAIRLINE, INK, MID, RULE } from './style.js';
 import { put, putFitted, widthOf } from './text.js';
 
 /** "Times UTC+00:00, UTC+01:00 from 28 March" — the offsets of the month (the day itself says when). */
-export function offsetStatement(days: DayEntry[]): string {
-  const first = days[0].offsetStart;
+export function offsetStatement(days: DayEntry[], w: Words): string {
+  const first = days[0]!.offsetStart;
   const changes = days.filter((d) => d.offsetChange !== null);
-  if (changes.length === 0) return `All times ${formatOffset(first)}`;
-  const pieces = [`Times ${formatOffset(first)}`];
-  for (const d of changes) {
-    pieces.push(`${formatOffset(d.offsetChange!.to)} from ${formatDate(d.date, false)}`);
-  }
-  return `${pieces.join(', ')} (clock mark on the day)`;
+  if (changes.length === 0) return w.t('book.allTimes', { offset: w.offset(first) });
+  const pieces = changes.map((d) => w.t('zone.fromDate', { offset: w.offset(d.offsetChange!.to), date: w.date(d.date, { year: false }) }));
+  return w.t('book.timesChanging', { offset: w.offset(first), changes: pieces.join(', ') });
 }
 
 export function monthPage(view: StationView, part: MonthPart, row: number): LogicalPage {
@@ -29,7 +26,7 @@ export function monthPage(view: StationView, part: MonthPart, row: number): Logi
   return {
     kind: 'month',
     footer: { invented: model.invented, label: view.name },
-    outline: part.partIndex === 0 ? { title: `${part.month.name} ${model.year}`, level: 1 } : undefined,
+    outline: part.partIndex === 0 ? { title: `${view.words.monthName(part.month.month)} ${model.year}`, level: 1 } : undefined,
     draw(ctx: PageContext) {
       const { doc, box } = ctx;
       const u = monthUnit(ctx.settings.geometry);
@@ -39,33 +36,36 @@ export function monthPage(view: StationView, part: MonthPart, row: number): Logi
 
       // heading: month and year large on the left; station and day span on the right
       const monthStyle = { font: 'bold' as const, size: 21 * u };
-      const mw = put(doc, part.month.name, box.x, y0 + 17 * u, monthStyle);
+      const mw = put(doc, view.words.monthName(part.month.month), box.x, y0 + 17 * u, monthStyle);
       put(doc, String(model.year), box.x + mw + 6 * u, y0 + 17 * u, { font: 'regular', size: 21 * u, color: MID });
       const rightX = box.x + box.width;
       const headW = box.width - mw - widthOf(doc, ` ${model.year}`, { font: 'regular', size: 21 * u }) - 14 * u;
       putFitted(doc, view.name, rightX, y0 + 8 * u, { font: 'bold', size: 9.5 * u }, headW, 6 * u, 'right');
       const first = part.days[0].dayOfMonth;
       const last = part.days[part.days.length - 1].dayOfMonth;
-      const span = part.partCount > 1 ? `days ${first}\u2013${last} of ${part.month.dayCount}` : `${part.month.dayCount} days`;
+      const w = view.words;
+      const span = part.partCount > 1
+        ? w.t('book.daySpan', { first, last, count: part.month.dayCount })
+        : w.t('book.dayCount', { count: part.month.dayCount });
       put(doc, span, rightX, y0 + 17.5 * u, { font: 'narrow', size: 7.6 * u, color: MID }, 'right');
 
-      const info = `${offsetStatement(monthDays)} \u00b7 heights in ${unitWord(units)} above ${model.station.datum}`;
+      const info = `${offsetStatement(monthDays, w)} \u00b7 ${w.t('site.heightsAbove', { unit: w.unitName(), datum: model.station.datum })}`;
       putFitted(doc, info, box.x, y0 + 29 * u, { font: 'narrow', size: 7.6 * u }, box.width, 5 * u);
 
       // column heads
       const hy = y0 + 42 * u;
       const head = { font: 'narrow-bold' as const, size: 6.3 * u, color: MID };
-      put(doc, 'DAY', cols.day.x + cols.day.w - 2 * u, hy, head, 'right');
+      put(doc, w.t('site.colDay').toLocaleUpperCase(w.tag), cols.day.x + cols.day.w - 2 * u, hy, head, 'right');
       const mark = 7.5 * u;
       let hx = cols.lanes.x;
       laneMark(doc, 'high', hx, hy, mark);
       hx += mark * 0.55 + 3.5 * u;
-      hx += put(doc, 'HIGH WATER', hx, hy, head) + 8 * u;
+      hx += put(doc, w.eventName('high').toLocaleUpperCase(w.tag), hx, hy, head) + 8 * u;
       laneMark(doc, 'low', hx, hy, mark);
       hx += mark * 0.55 + 3 * u;
-      hx += put(doc, 'LOW WATER', hx, hy, head) + 8 * u;
-      put(doc, 'time \u00b7 height', hx, hy, { ...head, font: 'narrow' });
-      put(doc, 'SUN', cols.sun.x, hy, head);
+      hx += put(doc, w.eventName('low').toLocaleUpperCase(w.tag), hx, hy, head) + 8 * u;
+      put(doc, w.t('book.timeHeight'), hx, hy, { ...head, font: 'narrow' });
+      put(doc, w.t('site.colSun').toLocaleUpperCase(w.tag), cols.sun.x, hy, head);
       const tick = { font: 'narrow' as const, size: 5.6 * u, color: MID };
       ['0', '6', '12', '18', '24'].forEach((label, i) => {
         const tx = cols.curve.x + (i / 4) * cols.curve.w;
@@ -76,9 +76,9 @@ export function monthPage(view: StationView, part: MonthPart, row: number): Logi
 
       let top = y0 + HEADER_HEIGHT * u;
       for (const day of part.days) {
-        const h = drawDayRow(doc, view, day, { cols, top, height: row, u, units });
+        const h = drawDayRow(doc, view, day, { cols, top, height: row, u, units, words: w });
         top += h;
-        const weekEnd = day.weekday === 'Sun';
+        const weekEnd = day.weekday === 7;
         doc.save().lineWidth(weekEnd ? 0.9 * u : HAIRLINE).strokeColor(weekEnd ? INK : RULE)
           .moveTo(cols.day.x, top).lineTo(rightX, top).stroke().restore();
       }

@@ -9,7 +9,8 @@ export interface BookOptions {
   imposition?: 'none' | 'saddle-stitch';
   title?: string;
   publisher?: string;
-  locale?: string; // BCP 47 tag; the words printed are English, so only an English variant is used
+  locale?: string; // BCP 47 tag: the language of the book (templates/locale)
+  caution?: string; // the publisher's own caution, replacing the catalogue's
 }
 
 export const PAGE_SIZE_NAMES: readonly PageSizeName[] = ['a5', 'a6', 'a4', 'letter', 'half-letter'];

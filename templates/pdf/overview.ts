@@ -1,6 +1,6 @@
 // The year at a glance: for every month a strip of daily ranges drawn to scale, springs and neaps
 // lettered, the moon's quarters above, mean spring and neap ranges as reference lines.
-import { formatLength, inUnits, shortMonth, unitLabel } from './format.js';
+import { inUnits } from '../locale/index.js';
 import { clockGlyph, moonGlyph } from './glyphs.js';
 import type { LogicalPage } from './page.js';
 import { unit } from './page.js';
@@ -13,18 +13,18 @@ export function overviewPage(view: StationView): LogicalPage {
   return {
     kind: 'overview',
     footer: { invented: model.invented, label: view.name },
-    outline: { title: 'The year at a glance', level: 1 },
+    outline: { title: view.words.t('site.glance'), level: 1 },
     draw(ctx) {
       const { doc, box } = ctx;
       const s = unit(ctx);
       const units = ctx.settings.units;
+      const w = view.words;
       let y = box.y + 14 * s;
-      put(doc, `${model.year} at a glance`, box.x, y, { font: 'bold', size: 16 * s });
+      put(doc, w.t('book.yearGlance', { year: model.year }), box.x, y, { font: 'bold', size: 16 * s });
       putFitted(doc, view.name, box.x + box.width, y - 5 * s, { font: 'bold', size: 8.5 * s }, box.width * 0.45, 5 * s, 'right');
       y += 6 * s;
-      y = paragraph(doc, `Each bar is one day\u2019s largest range from high to low water, all on one scale. `
-        + `Dashed lines: mean spring range ${formatLength(model.meanSpringRange, units)}, mean neap range `
-        + `${formatLength(model.meanNeapRange, units)}. S spring tide, N neap tide; the moon\u2019s quarters above the bars.`,
+      y = paragraph(doc, w.t('book.glanceHelp', { springs: w.height(model.meanSpringRange), neaps: w.height(model.meanNeapRange),
+        springMark: w.t('tide.springMark'), neapMark: w.t('tide.neapMark') }),
       box.x, y + 8 * s, box.width, { font: 'narrow', size: 7.6 * s, color: DARK }, 9.6 * s) + 2 * s;
 
       const maxRange = Math.max(0.01, model.meanSpringRange, ...model.days.map((d) => d.range ?? 0)) * 1.05;
@@ -41,7 +41,7 @@ export function overviewPage(view: StationView): LogicalPage {
       for (const m of model.months) {
         const base = y + barTop + barH;
         const yr = (r: number) => base - (r / maxRange) * barH;
-        put(doc, shortMonth(m.month), box.x, base - barH / 2 + 3 * s, { font: 'bold', size: 9 * s });
+        put(doc, w.monthShort(m.month), box.x, base - barH / 2 + 3 * s, { font: 'bold', size: 9 * s });
         doc.save().lineWidth(0.5 * s).strokeColor(INK).moveTo(plotX, base).lineTo(plotX + plotW, base).stroke();
         doc.lineWidth(0.5 * s).strokeColor(MID).dash(2 * s, { space: 1.5 * s });
         for (const r of [model.meanSpringRange, model.meanNeapRange]) {
@@ -49,8 +49,8 @@ export function overviewPage(view: StationView): LogicalPage {
         }
         doc.undash().restore();
         const scaleStyle = { font: 'narrow' as const, size: 5.6 * s, color: MID };
-        put(doc, inUnits(model.meanSpringRange, units).toFixed(1), plotX + plotW + 2 * s, yr(model.meanSpringRange) + 2 * s, scaleStyle);
-        put(doc, inUnits(model.meanNeapRange, units).toFixed(1), plotX + plotW + 2 * s, yr(model.meanNeapRange) + 2 * s, scaleStyle);
+        put(doc, w.number(inUnits(model.meanSpringRange, units), 1), plotX + plotW + 2 * s, yr(model.meanSpringRange) + 2 * s, scaleStyle);
+        put(doc, w.number(inUnits(model.meanNeapRange, units), 1), plotX + plotW + 2 * s, yr(model.meanNeapRange) + 2 * s, scaleStyle);
         for (let i = 0; i < m.dayCount; i++) {
           const d = model.days[m.firstDayIndex + i];
           const cx = plotX + (i + 0.5) * slot;
@@ -60,7 +60,7 @@ export function overviewPage(view: StationView): LogicalPage {
               .fill(marked ? INK : d.offsetChange ? RULE : LIGHT).restore();
           }
           if (d.springNeap) {
-            put(doc, d.springNeap === 'spring' ? 'S' : 'N', cx, base + letterRow, { font: 'bold', size: 7.4 * s }, 'center');
+            put(doc, w.t(d.springNeap === 'spring' ? 'tide.springMark' : 'tide.neapMark'), cx, base + letterRow, { font: 'bold', size: 7.4 * s }, 'center');
           } else if (d.offsetChange) {
             clockGlyph(doc, cx, base + letterRow - 2.6 * s, 2.6 * s);
           }
@@ -68,7 +68,7 @@ export function overviewPage(view: StationView): LogicalPage {
         }
         y += stripH;
       }
-      put(doc, unitLabel(units), plotX + plotW + 2 * s, box.y + box.height, { font: 'narrow', size: 5.6 * s, color: MID });
+      put(doc, w.unit(), plotX + plotW + 2 * s, box.y + box.height, { font: 'narrow', size: 5.6 * s, color: MID });
     },
   };
 }

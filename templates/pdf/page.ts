@@ -1,6 +1,7 @@
 // A book is laid out first as a list of logical pages, each a drawing callback; the renderer then
 // draws page k at any position on any sheet (one per PDF page, or two-up for saddle stitching).
 import type { Box, PageGeometry } from './geometry.js';
+import type { Words } from '../locale/index.js';
 import type { HeightUnits } from './options.js';
 
 export interface BookSettings {
@@ -8,6 +9,7 @@ export interface BookSettings {
   geometry: PageGeometry;
   title: string;
   publisher?: string;
+  words: Words; // the reader's language and the one formatter
 }
 
 export interface PageContext {

@@ -1,6 +1,7 @@
 // What the pages of one station need beyond the model itself, worked out once per book (layout
 // choices only: scales and page splits, never tide arithmetic).
 import type { StationYear } from '../../engine/types.js';
+import type { Words } from '../locale/index.js';
 import type { PageGeometry } from './geometry.js';
 import type { CurveScale } from './day-curve.js';
 import type { MonthPart } from './month-layout.js';
@@ -13,9 +14,10 @@ export interface StationView {
   southern: boolean; // the moon's lit side is drawn as seen from the southern hemisphere
   curve: CurveScale; // one vertical scale for every day curve of the station, so days compare
   parts: MonthPart[];
+  words: Words;
 }
 
-export function stationView(model: StationYear, g: PageGeometry): StationView {
+export function stationView(model: StationYear, g: PageGeometry, words: Words): StationView {
   let low = Math.min(0, model.datums.LAT);
   let high = model.datums.HAT;
   for (const d of model.days) {
@@ -28,5 +30,6 @@ export function stationView(model: StationYear, g: PageGeometry): StationView {
     southern: model.station.position.latitude < 0,
     curve: { low: low - pad, high: high + pad },
     parts: monthParts(model, g),
+    words,
   };
 }

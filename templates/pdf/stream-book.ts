@@ -2,6 +2,7 @@
 // both cautions, then one page per month of our own design: per day the slack times, and every
 // strongest flood and ebb with its time, rate and an arrow turned to the direction the water goes.
 import type { StreamAlmanacEvent, StreamDayEntry, StreamYear } from '../../engine/streams/types.js';
+import { wordsFor, type Words } from '../locale/index.js';
 import { editionDate } from './document.js';
 import { printable } from './format.js';
 import { contentBox, pageGeometry } from './geometry.js';
@@ -78,23 +79,23 @@ function peak(doc: PDFKit.PDFDocument, e: StreamAlmanacEvent, x: number, y: numb
   return w1 + w2 + 16 * u;
 }
 
-function monthPage(model: StreamYear, monthIndex: number): LogicalPage {
+function monthPage(model: StreamYear, monthIndex: number, words: Words): LogicalPage {
   const month = model.months[monthIndex]!;
   const days: StreamDayEntry[] = model.days.slice(month.firstDayIndex, month.firstDayIndex + month.dayCount);
   return {
     kind: 'month',
     footer: { invented: model.invented, label: model.station.name },
-    outline: { title: `${month.name} ${model.year}`, level: 1 },
+    outline: { title: `${words.monthName(month.month)} ${model.year}`, level: 1 },
     draw(ctx: PageContext) {
       const { doc, box } = ctx;
       const u = ctx.settings.geometry.scale;
       const right = box.x + box.width;
       const y0 = box.y;
-      const mw = put(doc, month.name, box.x, y0 + 17 * u, { font: 'bold', size: 21 * u });
+      const mw = put(doc, words.monthName(month.month), box.x, y0 + 17 * u, { font: 'bold', size: 21 * u });
       put(doc, String(model.year), box.x + mw + 6 * u, y0 + 17 * u, { font: 'regular', size: 21 * u, color: MID });
       putFitted(doc, model.station.name, right, y0 + 8 * u, { font: 'bold', size: 9.5 * u }, box.width / 2, 6 * u, 'right');
       put(doc, 'tidal streams', right, y0 + 17.5 * u, { font: 'narrow', size: 7.6 * u, color: MID }, 'right');
-      const info = `${offsetStatement(days as never)} \u00b7 rates in knots \u00b7 flood toward ${bearing(model.floodDirection)}, ebb toward ${bearing(model.ebbDirection)}`;
+      const info = `${offsetStatement(days as never, words)} \u00b7 rates in knots \u00b7 flood toward ${bearing(model.floodDirection)}, ebb toward ${bearing(model.ebbDirection)}`;
       putFitted(doc, info, box.x, y0 + 29 * u, { font: 'narrow', size: 7.6 * u }, box.width, 5 * u);
 
       const col = { day: box.x, slack: box.x + box.width * 0.12, flood: box.x + box.width * 0.41, ebb: box.x + box.width * 0.705 };
@@ -110,8 +111,9 @@ function monthPage(model: StreamYear, monthIndex: number): LogicalPage {
       let top = y0 + HEADER * u;
       for (const day of days) {
         const base = top + row * 0.68;
-        put(doc, `${day.weekday.slice(0, 2)} ${day.dayOfMonth}`, col.day, base, { font: day.weekday === 'Sun' ? 'narrow-bold' : 'narrow', size: 7.6 * u });
-        if (day.springNeap) springNeapBadge(doc, day.springNeap, col.slack - 6 * u, top + row / 2, 7 * u, 7 * u, 5.2 * u);
+        put(doc, `${words.weekdayShort(day.weekday)} ${day.dayOfMonth}`, col.day, base, { font: day.weekday === 7 ? 'narrow-bold' : 'narrow', size: 7.6 * u });
+        if (day.springNeap) springNeapBadge(doc, day.springNeap, col.slack - 6 * u, top + row / 2, 7 * u, 7 * u, 5.2 * u,
+          words.t(day.springNeap === 'spring' ? 'tide.springMark' : 'tide.neapMark'));
         let sx = col.slack;
         for (const e of day.events.filter((x) => x.type === 'slack')) sx += put(doc, e.clock, sx, base, { font: 'narrow', size: 7.4 * u }) + 4.5 * u;
         let fx = col.flood;
@@ -119,7 +121,7 @@ function monthPage(model: StreamYear, monthIndex: number): LogicalPage {
         let ex = col.ebb;
         for (const e of day.events.filter((x) => x.type === 'ebb')) ex += peak(doc, e, ex, base, u);
         top += row;
-        const weekEnd = day.weekday === 'Sun';
+        const weekEnd = day.weekday === 7;
         doc.save().lineWidth(weekEnd ? 0.9 * u : HAIRLINE).strokeColor(weekEnd ? INK : RULE).moveTo(box.x, top).lineTo(right, top).stroke().restore();
       }
     },
@@ -131,8 +133,9 @@ export async function renderStreamBook(model: StreamYear, options: BookOptions):
   const g = pageGeometry(options.page);
   contentBox(g, 1);
   const title = printable(options.title ?? 'Tide predictions');
-  const settings: BookSettings = { units: options.units, geometry: g, title, publisher: options.publisher };
-  const pages = [firstPage(model, title), ...model.months.map((_, i) => monthPage(model, i))];
+  const words = wordsFor({ locale: options.locale, units: options.units, caution: options.caution });
+  const settings: BookSettings = { units: options.units, geometry: g, title, publisher: options.publisher, words };
+  const pages = [firstPage(model, title), ...model.months.map((_, i) => monthPage(model, i, words))];
   return renderBook(pages, settings, {
     title: `${model.station.name}: tidal streams ${model.year}`,
     author: options.publisher,

@@ -2,6 +2,7 @@
 // `curve` heights (local midnight to next local midnight), the chart-datum line, event dots and
 // clock ticks. One vertical scale per station-year so that days can be compared at a glance.
 import type { DayEntry, StationYear } from '../../engine/types.js';
+import { instant, offsetSeconds } from '../locale/index.js';
 
 export const CURVE_WIDTH = 300;
 export const CURVE_HEIGHT = 56;
@@ -50,24 +51,27 @@ function yOf(h: number, scale: HeightScale): number {
   return r1(PAD_TOP + ((scale.max - h) / (scale.max - scale.min)) * (CURVE_HEIGHT - PAD_TOP - PAD_BOTTOM));
 }
 
-function dayStartMs(day: DayEntry): number {
-  return Date.parse(`${day.date}T00:00:00${day.offsetStart}`);
-}
-
-/** Elapsed minutes from local midnight to a wall-clock hour of this day, across a clock change. */
+/**
+ * Elapsed minutes from the day's start to a wall-clock hour of this day, across a clock change. Read
+ * from the day's own start instant and offsets, so a day whose midnight was skipped (it starts at
+ * 01:00) still puts 06:00 five hours in, not six.
+ */
 function elapsedToClock(day: DayEntry, hour: number): number {
-  const clock = `${String(hour).padStart(2, '0')}:00`;
+  const start = instant(day.start);
+  const w = new Date(start + offsetSeconds(day.offsetStart) * 1000);
+  const wallAtStart = w.getUTCHours() * 60 + w.getUTCMinutes() + w.getUTCSeconds() / 60;
+  const before = hour * 60 - wallAtStart;
   const change = day.offsetChange;
-  const offset = change && clock >= change.clock ? day.offsetEnd : day.offsetStart;
-  return (Date.parse(`${day.date}T${clock}:00${offset}`) - dayStartMs(day)) / 60_000;
+  if (!change || start + before * 60_000 < instant(change.time)) return before;
+  return before - (offsetSeconds(day.offsetEnd) - offsetSeconds(day.offsetStart)) / 60;
 }
 
 /** Dark spans of the day in elapsed minutes, from sunrise/sunset or the polar note. */
 function nightSpans(day: DayEntry, start: number, minutes: number): [number, number][] {
   if (day.sunNote === 'sun-down-all-day') return [[0, minutes]];
   if (day.sunNote === 'sun-up-all-day') return [];
-  const rise = day.sunrise === null ? null : (Date.parse(day.sunrise) - start) / 60_000;
-  const set = day.sunset === null ? null : (Date.parse(day.sunset) - start) / 60_000;
+  const rise = day.sunrise === null ? null : (instant(day.sunrise) - start) / 60_000;
+  const set = day.sunset === null ? null : (instant(day.sunset) - start) / 60_000;
   if (rise !== null && set !== null && set < rise) return [[set, rise]]; // sets after midnight, rises again
   const spans: [number, number][] = [];
   if (rise !== null) spans.push([0, rise]);
@@ -76,7 +80,8 @@ function nightSpans(day: DayEntry, start: number, minutes: number): [number, num
 }
 
 export function dayCurve(day: DayEntry, stepMinutes: number, scale: HeightScale): DayCurve {
-  const minutes = day.hours * 60;
+  const start = instant(day.start);
+  const minutes = (instant(day.end) - start) / 60_000;
   const xOf = (elapsed: number): number => r1((elapsed / minutes) * CURVE_WIDTH);
   const parts: string[] = [];
   for (let i = 0; i < day.curve.length; i++) {
@@ -85,9 +90,8 @@ export function dayCurve(day: DayEntry, stepMinutes: number, scale: HeightScale)
   const line = parts.join('');
   const lastX = xOf((day.curve.length - 1) * stepMinutes);
   const water = day.curve.length > 0 ? `${line}L${lastX} ${CURVE_HEIGHT}L0 ${CURVE_HEIGHT}Z` : '';
-  const start = dayStartMs(day);
   const dots = day.events.map((e) => ({
-    x: xOf((Date.parse(e.time) - start) / 60_000),
+    x: xOf((instant(e.time) - start) / 60_000),
     y: yOf(e.height, scale),
     type: e.type,
     belowDatum: e.belowDatum,

@@ -15,19 +15,11 @@ export interface DatumRow {
   labelY: number; // where its label sits (may differ from y when crowded)
 }
 
-const NAMES: [keyof Omit<Datums, 'epoch'> | 'CD', string][] = [
-  ['HAT', 'Highest astronomical tide'],
-  ['MHWS', 'Mean high water springs'],
-  ['MHWN', 'Mean high water neaps'],
-  ['MSL', 'Mean sea level'],
-  ['MLWN', 'Mean low water neaps'],
-  ['MLWS', 'Mean low water springs'],
-  ['LAT', 'Lowest astronomical tide'],
-  ['CD', 'Chart datum (zero of all heights)'],
-];
+// The levels and chart datum; their names come from the catalogue (the site's filter adds them).
+const KEYS: (keyof Omit<Datums, 'epoch'> | 'CD')[] = ['HAT', 'MHWS', 'MHWN', 'MSL', 'MLWN', 'MLWS', 'LAT', 'CD'];
 
 export function datumLadder(datums: Datums): DatumRow[] {
-  const rows = NAMES.map(([key, name]) => ({ key, name, value: key === 'CD' ? 0 : datums[key] }));
+  const rows = KEYS.map((key) => ({ key, name: key as string, value: key === 'CD' ? 0 : datums[key] }));
   rows.sort((a, b) => b.value - a.value); // highest first; chart datum lands where it belongs
   const hi = rows[0].value;
   const lo = rows[rows.length - 1].value;

@@ -1,12 +1,10 @@
 // The filters templates use: every number is formatted and every drawing computed here, so the
 // templates only place what these return. Registered by renderSite (or by .eleventy.js on its own).
 import type { DayEntry, Datums, MoonPhaseEntry, MoonPhaseName, StationYear } from '../../engine/types.js';
+import type { ModelWarning, OffsetChange, TideTypeCode } from '../../engine/types.js';
+import type { MessageKey, Words } from '../locale/index.js';
 import { dayCurve, heightScale, type DayCurve, type HeightScale } from './curve.js';
 import { datumLadder, ladderSpan, type DatumRow } from './datums.js';
-import {
-  clockIn, heightNumber, localLongDate, heightSigned, heightText, hoursText, minutesSigned, offsetText,
-  phaseName, positionText, unitName, type Units,
-} from './format.js';
 import { glanceMonth, yearMaxRange, type GlanceMonth } from './glance.js';
 import { moonLitPath } from './moon.js';
 import { relativeUrl } from './paths.js';
@@ -15,14 +13,7 @@ export interface FilterHost {
   addFilter(name: string, fn: (...args: never[]) => unknown): unknown;
 }
 
-/** "3", "3 and 17", "3, 17 and 31". */
-export function listWords(items: (string | number)[]): string {
-  const words = items.map(String);
-  if (words.length <= 1) return words.join('');
-  return `${words.slice(0, -1).join(', ')} and ${words[words.length - 1]}`;
-}
-
-export function siteFilters(units: Units): Record<string, (...args: never[]) => unknown> {
+export function siteFilters(w: Words): Record<string, (...args: never[]) => unknown> {
   const scales = new WeakMap<StationYear, HeightScale>();
   const glances = new WeakMap<StationYear, GlanceMonth[]>();
   const moons = new WeakMap<StationYear, Map<string, MoonPhaseEntry>>();
@@ -36,20 +27,33 @@ export function siteFilters(units: Units): Record<string, (...args: never[]) => 
   };
   return {
     rel: (to: string, fromUrl: string): string => relativeUrl(to, fromUrl),
-    height: (metres: number): string => heightText(metres, units),
-    heightNumber: (metres: number): string => heightNumber(metres, units),
-    heightSigned: (metres: number): string => heightSigned(metres, units),
-    unitName: (): string => unitName(units),
-    position: (p: { latitude: number; longitude: number }): string => positionText(p),
-    offset: (offset: string): string => offsetText(offset),
-    localLongDate: (iso: string, zone: string): string => localLongDate(iso, zone),
-    clockIn: (iso: string, offset: string): string => clockIn(iso, offset),
-    hours: (h: number): string => hoursText(h),
-    minutesSigned: (m: number): string => minutesSigned(m),
-    phaseName: (p: string): string => phaseName(p),
-    eventName: (type: string): string => (type === 'high' ? 'High water' : 'Low water'),
-    listWords: (items: (string | number)[]): string => listWords(items),
-    fixed: (value: number, digits: number): string => value.toFixed(digits),
+    t: (key: MessageKey, params?: Record<string, string | number>): string => w.t(key, params),
+    height: (metres: number): string => w.height(metres),
+    heightNumber: (metres: number): string => w.heightNumber(metres),
+    heightSigned: (metres: number): string => w.heightSigned(metres),
+    unit: (): string => w.unit(),
+    unitName: (): string => w.unitName(),
+    position: (p: { latitude: number; longitude: number }): string => w.position(p),
+    offset: (offset: string): string => w.offset(offset),
+    date: (date: string, year = true): string => w.date(date, { year }),
+    longDate: (date: string): string => w.date(date, { weekday: true }),
+    monthName: (month: number): string => w.monthName(month),
+    monthShort: (month: number): string => w.monthShort(month),
+    weekday: (weekday: number): string => w.weekdayShort(weekday),
+    clockIn: (iso: string, offset: string): string => w.clockAt(iso, offset),
+    hours: (h: number): string => w.hours(h),
+    minutesSigned: (m: number): string => w.minutesSigned(m),
+    phaseName: (p: MoonPhaseName): string => w.phaseName(p),
+    eventName: (type: 'high' | 'low'): string => w.eventName(type),
+    eventShort: (type: 'high' | 'low'): string => w.eventShort(type),
+    tideType: (code: TideTypeCode): string => w.tideType(code),
+    offsetChange: (c: OffsetChange): string => w.offsetChange(c),
+    zoneSummary: (model: StationYear): string => w.zoneSummary(model),
+    warning: (warning: ModelWarning, datum: string): string => w.warning(warning, datum),
+    listWords: (items: (string | number)[]): string => w.list(items.map(String)),
+    fixed: (value: number, digits: number): string => w.number(value, digits),
+    // numbers inside SVG attributes: always '.' and '-', whatever the language of the page
+    svgNumber: (value: number, digits: number): string => value.toFixed(digits),
     bearing: (degrees: number | null): string => (degrees === null ? '' : `${String(Math.round(degrees) % 360).padStart(3, '0')}°`),
     moonLit: (phase: MoonPhaseName, latitude: number): string => moonLitPath(phase, latitude < 0),
     tideCurve: (day: DayEntry, model: StationYear): DayCurve => dayCurve(day, model.curveStepMinutes, scaleOf(model)),
@@ -70,13 +74,13 @@ export function siteFilters(units: Units): Record<string, (...args: never[]) => 
       }
       return byDate.get(date) ?? null;
     },
-    datumLadder: (datums: Datums): DatumRow[] => datumLadder(datums),
+    datumLadder: (datums: Datums): DatumRow[] => datumLadder(datums).map((r) => ({ ...r, name: w.t(`datum.${r.key}` as MessageKey) })),
     // a height above chart datum as a height above the land-levelling datum, which lies chart_datum_below higher
     aboveLand: (metres: number, levelling: { chart_datum_below: number }): number => metres - levelling.chart_datum_below,
     ladderSpan: (rows: DatumRow[]): number => ladderSpan(rows),
   };
 }
 
-export function registerSiteFilters(config: FilterHost, units: Units): void {
-  for (const [name, fn] of Object.entries(siteFilters(units))) config.addFilter(name, fn);
+export function registerSiteFilters(config: FilterHost, words: Words): void {
+  for (const [name, fn] of Object.entries(siteFilters(words))) config.addFilter(name, fn);
 }

@@ -29,7 +29,7 @@ export interface GlanceMoon {
 
 export interface GlanceMonth {
   month: number;
-  name: string;
+
   slug: string;
   bars: GlanceBar[];
   moons: GlanceMoon[];
@@ -65,7 +65,7 @@ export function glanceMonth(model: StationYear, month: MonthEntry, maxRange: num
     if (day.moonPhase) moons.push({ day: day.dayOfMonth, cx, phase: day.moonPhase });
   }
   return {
-    month: month.month, name: month.name, slug: month.slug, bars, moons,
+    month: month.month, slug: month.slug, bars, moons,
     barsTop: BARS_TOP, barsBottom: BARS_BOTTOM, markY: GLANCE_HEIGHT - 2, moonY: 7,
     springDays, neapDays,
   };

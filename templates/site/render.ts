@@ -17,7 +17,7 @@ import { writeStreamExports } from '../exports/streams.js';
 import { writeExports } from '../exports/write.js';
 import { registerSiteFilters } from './filters.js';
 import { projectRoot } from './paths.js';
-import { buildSiteData, type MonthPage, type SiteData, type SiteOptions, type StationYearPage } from './views.js';
+import { buildSiteData, siteWords, type MonthPage, type SiteData, type SiteOptions, type StationYearPage } from './views.js';
 
 export interface RenderSiteOptions extends SiteOptions {
   quiet?: boolean;
@@ -60,7 +60,7 @@ async function runEleventy(root: string, out: string, site: SiteData, skip: stri
       // Eleventy times every filter and warns on stderr when one takes a large share; drawing the
       // curves always does, by design, so the warning only adds noise to the build's output.
       config.benchmarks?.config?.setIsVerbose(false);
-      registerSiteFilters(config, options.units);
+      registerSiteFilters(config, siteWords(options));
       for (const name of skip) config.ignores.add(join(root, 'templates', name));
       if (copy) config.addPassthroughCopy({ [copy]: '/' });
       config.addGlobalData(HANDOFF_KEY, handoff);
@@ -95,7 +95,7 @@ export async function renderSite(models: StationYear[], outDir: string, options:
   const siteData = join(out, 'data');
   await mkdir(siteData, { recursive: true });
   for (const model of models) {
-    const names = await writeExports(model, siteData, { units: options.units });
+    const names = await writeExports(model, siteData, siteWords(options));
     if (options.dataDir) {
       await mkdir(options.dataDir, { recursive: true });
       for (const name of [names.csv, names.json, names.ics]) {

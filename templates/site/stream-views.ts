@@ -4,8 +4,9 @@
 // reference stream station's tide_reference); the others form a group of their own.
 import type { MonthEntry } from '../../engine/types.js';
 import type { StreamYear } from '../../engine/streams/types.js';
+import type { Words } from '../locale/index.js';
 import { streamExportFileNames } from '../exports/streams.js';
-import type { IndexYear, PageLink } from './views.js';
+import type { DatedChange, IndexYear, PageLink } from './views.js';
 
 export interface StreamYearPage {
   url: string;
@@ -24,7 +25,7 @@ export interface StreamMonthPage {
   prev: PageLink | null;
   next: PageLink | null;
   siblings: PageLink[];
-  clockChanges: NonNullable<StreamYear['days'][number]['offsetChange']>[];
+  clockChanges: DatedChange[];
 }
 
 export interface IndexStream {
@@ -41,22 +42,23 @@ export interface IndexStream {
 
 export const streamYearUrl = (id: string, year: number): string => `/${id}/${year}/`;
 
-function monthPagesOf(model: StreamYear, yearUrl: string): StreamMonthPage[] {
+function monthPagesOf(model: StreamYear, yearUrl: string, words: Words): StreamMonthPage[] {
   const pages: StreamMonthPage[] = model.months.map((month) => {
     const days = model.days.slice(month.firstDayIndex, month.firstDayIndex + month.dayCount);
-    const clockChanges = days.flatMap((d) => (d.offsetChange ? [d.offsetChange] : []));
+    const clockChanges = days.flatMap((d) => (d.offsetChange ? [{ date: d.date, change: d.offsetChange }] : []));
     return { url: `${yearUrl}${month.slug}/`, yearUrl, model, month, days, prev: null, next: null, siblings: [], clockChanges };
   });
-  const siblings = pages.map((p) => ({ url: p.url, label: p.month.name }));
+  const link = (p: StreamMonthPage): PageLink => ({ url: p.url, label: words.monthName(p.month.month), short: words.monthShort(p.month.month) });
+  const siblings = pages.map(link);
   pages.forEach((p, i) => {
     p.siblings = siblings;
-    if (i > 0) p.prev = { url: pages[i - 1]!.url, label: pages[i - 1]!.month.name };
-    if (i < pages.length - 1) p.next = { url: pages[i + 1]!.url, label: pages[i + 1]!.month.name };
+    if (i > 0) p.prev = link(pages[i - 1]!);
+    if (i < pages.length - 1) p.next = link(pages[i + 1]!);
   });
   return pages;
 }
 
-export function streamPages(models: readonly StreamYear[]): { streamYears: StreamYearPage[]; streamMonthPages: StreamMonthPage[] } {
+export function streamPages(models: readonly StreamYear[], words: Words): { streamYears: StreamYearPage[]; streamMonthPages: StreamMonthPage[] } {
   const sorted = [...models].sort((a, b) => a.station.id.localeCompare(b.station.id, 'en') || a.year - b.year);
   const built = new Set(sorted.map((m) => streamYearUrl(m.station.id, m.year)));
   const streamYears: StreamYearPage[] = [];
@@ -64,7 +66,7 @@ export function streamPages(models: readonly StreamYear[]): { streamYears: Strea
   for (const model of sorted) {
     const url = streamYearUrl(model.station.id, model.year);
     const names = streamExportFileNames(model);
-    const months = monthPagesOf(model, url);
+    const months = monthPagesOf(model, url, words);
     const ref = model.reference;
     streamYears.push({
       url, model,

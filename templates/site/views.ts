@@ -1,11 +1,10 @@
 // The site's page structure, built once from the models: the grouped index, one entry per
 // station-year page and per month page (with their URLs and neighbours). Numbers stay in the models;
 // formatting and drawing happen in the filters while each page renders.
-import { CAUTION } from '../../engine/almanac/caution.js';
-import type { MonthEntry, Station, StationYear } from '../../engine/types.js';
+import type { MonthEntry, OffsetChange, Station, StationYear, TideTypeCode } from '../../engine/types.js';
 import type { StreamYear } from '../../engine/streams/types.js';
 import { exportFileNames } from '../exports/write.js';
-import type { Units } from './format.js';
+import { wordsFor, type Units, type Words } from '../locale/index.js';
 import { indexStreams, streamPages, type IndexStream, type StreamMonthPage, type StreamYearPage } from './stream-views.js';
 
 export interface SiteOptions {
@@ -13,6 +12,13 @@ export interface SiteOptions {
   title?: string;
   publisher?: string;
   locale?: string;
+  caution?: string; // the publisher's own caution, replacing the catalogue's
+}
+
+/** A clock change with the local date of the day it happens on. */
+export interface DatedChange {
+  date: string;
+  change: OffsetChange;
 }
 
 export interface IndexYear {
@@ -26,7 +32,7 @@ export interface IndexStation {
   kind: Station['kind'];
   position: Station['position'];
   timezone: string;
-  tideType: string;
+  tideType: TideTypeCode;
   invented: boolean;
   number?: string; // the publisher's station number
   years: IndexYear[];
@@ -43,6 +49,7 @@ export interface IndexGroup {
 export interface PageLink {
   url: string;
   label: string;
+  short: string; // the label in a narrow strip (a month's short name)
 }
 
 export interface StationYearPage {
@@ -50,6 +57,7 @@ export interface StationYearPage {
   model: StationYear;
   referenceUrl: string | null;
   months: { month: MonthEntry; url: string }[];
+  clockChanges: DatedChange[];
   downloads: { csv: string; json: string; ics: string };
 }
 
@@ -62,13 +70,13 @@ export interface MonthPage {
   prev: PageLink | null;
   next: PageLink | null;
   siblings: PageLink[]; // every month of the same station-year, for the month strip
-  clockChanges: NonNullable<StationYear['days'][number]['offsetChange']>[];
+  clockChanges: DatedChange[];
 }
 
 export interface SiteData {
   title: string;
   publisher: string | null;
-  locale: string;
+  locale: string; // BCP 47 tag of the pages' language (the html lang attribute)
   units: Units;
   downloads: boolean; // false when Eleventy runs on its own and no exports were written
   caution: string;
@@ -95,7 +103,7 @@ function indexGroups(models: StationYear[], streams: readonly StreamYear[] = [])
     let entry = stations.get(st.id);
     if (!entry) {
       entry = { id: st.id, name: st.name, kind: st.kind, position: st.position, timezone: m.timezone,
-        tideType: m.tideType.label, invented: m.invented, ...(st.number === undefined ? {} : { number: st.number }), years: [] };
+        tideType: m.tideType.kind, invented: m.invented, ...(st.number === undefined ? {} : { number: st.number }), years: [] };
       stations.set(st.id, entry);
       referenceOf.set(st.id, st.kind === 'secondary' ? (m.reference ?? { id: st.reference, name: st.reference }) : null);
     }
@@ -136,22 +144,35 @@ function indexGroups(models: StationYear[], streams: readonly StreamYear[] = [])
   return list;
 }
 
-function monthPagesOf(model: StationYear, yearUrl: string): MonthPage[] {
+function clockChangesOf(days: StationYear['days']): DatedChange[] {
+  return days.flatMap((d) => (d.offsetChange ? [{ date: d.date, change: d.offsetChange }] : []));
+}
+
+function monthPagesOf(model: StationYear, yearUrl: string, words: Words): MonthPage[] {
   const pages: MonthPage[] = model.months.map((month) => {
     const days = model.days.slice(month.firstDayIndex, month.firstDayIndex + month.dayCount);
-    const clockChanges = days.flatMap((d) => (d.offsetChange ? [d.offsetChange] : []));
+    const clockChanges = clockChangesOf(days);
     return { url: `${yearUrl}${month.slug}/`, yearUrl, model, month, days, prev: null, next: null, siblings: [], clockChanges };
   });
-  const siblings = pages.map((p) => ({ url: p.url, label: p.month.name }));
+  const label = (p: MonthPage): string => words.monthName(p.month.month);
+  const siblings = pages.map((p) => ({ url: p.url, label: label(p), short: words.monthShort(p.month.month) }));
   pages.forEach((p, i) => {
     p.siblings = siblings;
-    if (i > 0) p.prev = { url: pages[i - 1].url, label: pages[i - 1].month.name };
-    if (i < pages.length - 1) p.next = { url: pages[i + 1].url, label: pages[i + 1].month.name };
+    const prev = pages[i - 1];
+    const next = pages[i + 1];
+    if (prev) p.prev = { url: prev.url, label: label(prev), short: words.monthShort(prev.month.month) };
+    if (next) p.next = { url: next.url, label: label(next), short: words.monthShort(next.month.month) };
   });
   return pages;
 }
 
+/** The words of a site: its language, units and caution. */
+export function siteWords(options: SiteOptions): Words {
+  return wordsFor({ locale: options.locale, units: options.units, caution: options.caution });
+}
+
 export function buildSiteData(models: StationYear[], options: SiteOptions, downloads = true, streams: readonly StreamYear[] = []): SiteData {
+  const words = siteWords(options);
   const sorted = [...models].sort((a, b) => a.station.id.localeCompare(b.station.id, 'en') || a.year - b.year);
   const built = new Set(sorted.map((m) => stationYearUrl(m.station.id, m.year)));
   const stationYears: StationYearPage[] = [];
@@ -162,25 +183,26 @@ export function buildSiteData(models: StationYear[], options: SiteOptions, downl
     const url = stationYearUrl(model.station.id, model.year);
     if (seen.has(url)) throw new Error(`two models for ${model.station.id} ${model.year}: each station-year may appear once`);
     seen.add(url);
-    const months = monthPagesOf(model, url);
+    const months = monthPagesOf(model, url, words);
     const ref = model.reference;
     stationYears.push({
       url, model,
       referenceUrl: ref && built.has(stationYearUrl(ref.id, model.year)) ? stationYearUrl(ref.id, model.year) : null,
       months: months.map((p) => ({ month: p.month, url: p.url })),
+      clockChanges: clockChangesOf(model.days),
       downloads: { csv: `/data/${names.csv}`, json: `/data/${names.json}`, ics: `/data/${names.ics}` },
     });
     monthPages.push(...months);
   }
   const first = sorted[0];
-  const stream = streamPages(streams);
+  const stream = streamPages(streams, words);
   return {
-    title: options.title ?? 'Tide almanac',
+    title: options.title ?? words.t('site.defaultTitle'),
     publisher: options.publisher ?? null,
-    locale: options.locale ?? 'en',
+    locale: words.tag,
     units: options.units,
     downloads,
-    caution: first?.caution ?? CAUTION, // the engine's words, also for a build with no stations
+    caution: words.caution,
     anyInvented: sorted.some((m) => m.invented) || streams.some((m) => m.invented),
     provenances: [...new Set([...sorted, ...streams].map((m) => m.station.provenance))].sort(),
     generator: first ? `${first.generator.name} ${first.generator.version}` : 'tidewright',

@@ -8,6 +8,7 @@ import { runCli } from '../fixtures/run-cli.js';
 import { buildStationYear } from '../../engine/almanac.js';
 import { loadStationSet } from '../../engine/stations.js';
 import type { StationYear } from '../../engine/types.js';
+import { wordsFor } from '../../templates/locale/index.js';
 
 const ROOT = join(import.meta.dirname, '..', '..');
 const DEMO = join(ROOT, 'stations-demo');
@@ -25,10 +26,13 @@ describe('almanac --format json', () => {
     const printed = JSON.parse(stdout) as StationYear;
     const set = loadStationSet(DEMO);
     const model = buildStationYear(set.byId.get('saltgrist-cove')!, set, 2027);
-    expect(printed).toEqual(JSON.parse(JSON.stringify(model)));
+    // the model's facts, plus the caution every output carries (the model itself holds no sentence)
+    expect(printed).toEqual(JSON.parse(JSON.stringify({ ...model, caution: wordsFor().caution })));
     expect(printed.reference).toEqual({ id: 'brinewold-head', name: 'Brinewold Head (invented)' });
     expect(printed.events[0]).toEqual(model.events[0]);
-    expect(Object.keys(printed.events[0]!)).toEqual(['time', 'local', 'clock', 'offset', 'type', 'height', 'belowDatum']);
+    expect(Object.keys(printed.events[0]!)).toEqual(['time', 'local', 'clock', 'date', 'offset', 'type', 'height', 'belowDatum']);
+    expect(printed.days[0]).toMatchObject({ date: '2027-01-01', weekday: 5, start: '2027-01-01T00:00:00Z' });
+    expect(printed.tideType).toEqual({ formNumber: model.tideType.formNumber, kind: model.tideType.kind });
   });
 
   it('finds the reference port through --stations when the file stands alone', async () => {
@@ -49,7 +53,7 @@ describe('almanac table and errors', () => {
     const { code, stdout } = await runCli(['almanac', join(DEMO, 'brinewold-head.yaml'), '--year', '2027']);
     expect(code).toBe(0);
     expect(stdout).toMatch(/Brinewold Head \(invented\).*2027.*Europe\/Lisbon.*INVENTED/);
-    expect(stdout).toMatch(/LAT -?\d+\.\d\d m/);
+    expect(stdout).toMatch(/LAT \u2212?\d+\.\d\d\u00a0m/);
     expect(stdout).toMatch(/^January +\d+ +\d+/m);
     expect(stdout).toMatch(/^December +\d+ +\d+/m);
     expect(stdout).toMatch(/Clocks go back/);

@@ -82,7 +82,10 @@ describe('project file', () => {
     ['units: feet\n', 'units', /units: ft/],
     ['year: 27.5\n', 'year', /whole year/],
     ['year: "2027"\n', 'year', /whole year/],
-    ['locale: "en_GB!"\n', 'locale', /language tag/],
+    ['locale: "en_GB!"\n', 'locale', /en, fr, es, pt, de, nl, nb/],
+    ['locale: it\n', 'locale', /en, fr, es, pt, de, nl, nb/],
+    ['caution: ""\n', 'caution', /cannot be empty/],
+    ['caution:\n', 'caution', /cannot be empty/],
     ['title: "  "\n', 'title', /title/],
     ['pagesize: a5\n', 'pagesize', /did you mean page\?/],
     ['imposition: [a, b]\n', 'imposition', /saddle-stitch/],
@@ -97,6 +100,22 @@ describe('project file', () => {
     expect(e.field).toBe(field);
     expect(e.fix).toMatch(fix);
     expect(e.message).not.toContain('\n');
+  });
+});
+
+describe('language and caution', () => {
+  it('--locale takes a supported language (a regional tag too) and wins over the project file', () => {
+    const dir = stationsWithProject('locale: fr\ncaution: Predictions only; check the harbour office.\n');
+    const plan = makePlan(parseBuildArgs(['--stations', dir, '--locale', 'de-AT']), root);
+    expect(plan.render).toMatchObject({ locale: 'de-AT', caution: 'Predictions only; check the harbour office.' });
+    expect(makePlan(parseBuildArgs(['--stations', dir]), root).render.locale).toBe('fr');
+  });
+
+  it('refuses an unsupported --locale in one line listing the supported ones', () => {
+    const error = thrown(() => parseBuildArgs(['--locale', 'it']));
+    expect(error).toBeInstanceOf(UsageError);
+    expect((error as Error).message).toMatch(/--locale.*"it" is not a language tidewright publishes in.*en, fr, es, pt, de, nl, nb/);
+    expect((error as Error).message).not.toContain('\n');
   });
 });
 

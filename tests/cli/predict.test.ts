@@ -88,7 +88,8 @@ describe('predict --format table and csv', () => {
     expect(code).toBe(0);
     const [title, where, what, units, provenance, caution] = stdout.split('\n');
     expect(title).toBe('Brinewold Head (invented): reference port (id brinewold-head)');
-    expect(where).toBe('47.600° N, 15.800° W; time zone Europe/Lisbon');
+    // degrees and minutes to the tenth, as on the site and in the books: 47.6° = 47°36.0′, 15.8° = 15°48.0′
+    expect(where).toBe('47°36.0′\u00a0N, 15°48.0′\u00a0W; time zone Europe/Lisbon');
     expect(what).toContain('High and low waters, 2027-03-27 00:00 to 2027-03-30 00:00');
     expect(units).toContain('metres above Chart Datum');
     expect(provenance).toBe('Constants: Invented test fixture');

@@ -113,7 +113,7 @@ describe('tide type, age of the tide, warnings', () => {
     expect(tideTypeOf(1.5).kind).toBe('mixed-diurnal');
     expect(tideTypeOf(3).kind).toBe('mixed-diurnal');
     expect(tideTypeOf(3.01).kind).toBe('diurnal');
-    expect(tideTypeOf(withRatio(5)).label).toBe('Diurnal');
+    expect(tideTypeOf(withRatio(5))).toEqual({ formNumber: 5, kind: 'diurnal' });
     expect(formNumber({ K1: { amplitude: 0.3, phase: 0 } })).toBe(999);
   });
 
@@ -131,7 +131,7 @@ describe('tide type, age of the tide, warnings', () => {
       { id: 'high-datum', mean_level: 3.0 + 2.2 });
     const s = stationDatums(high, lookup(high));
     expect(s.datums.LAT).toBeGreaterThan(0.1);
-    expect(s.warnings.join(' ')).toMatch(/LAT is .* above Chart Datum/);
+    expect(s.warnings.map((w) => w.code).join(' ')).toMatch(/lat-above-datum/);
     // Chart datum 2 cm below LAT: no warning (Z0 − (1.0378·1.5 + 0.5) ≈ Z0 − 2.057).
     const low = reference(pure.constituents, { id: 'low-datum', mean_level: 2.08 });
     expect(stationDatums(low, lookup(low)).warnings).toEqual([]);

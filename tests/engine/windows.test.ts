@@ -217,7 +217,7 @@ describe('StationYear.windows', () => {
     expect(sill.openDays).toBe(365);
     expect(roof.outOfRange?.code).toBe('window-never-opens');
     expect(roof.days.every((d) => d.state === 'closed')).toBe(true);
-    expect(model.warnings.some((w) => w.startsWith('Window "Roof" (above 20.00 m) never opens in 2027'))).toBe(true);
+    expect(model.warnings).toContainEqual(expect.objectContaining({ code: 'window-never-opens', window: 'Roof', side: 'above', level: 20, year: 2027 }));
     expect(JSON.parse(JSON.stringify(model.windows))).toEqual(model.windows);
   });
 });

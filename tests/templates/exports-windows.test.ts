@@ -12,6 +12,7 @@ import { eventsICalendar } from '../../templates/exports/icalendar.js';
 import { hourlyCsv, windowsCsv, windowsJson } from '../../templates/exports/windows.js';
 import { writeExports } from '../../templates/exports/write.js';
 import { standStation } from '../fixtures/engine-stations.js';
+import { wordsFor } from '../../templates/locale/index.js';
 
 const station: ReferenceStation = {
   ...standStation(), timezone: 'Europe/Lisbon',
@@ -24,7 +25,7 @@ const rows = (csv: string): string[][] => csv.trimEnd().split('\r\n').filter((l)
 describe('window downloads', () => {
   it('CSV: one row per whole interval, UTC and local, with the notes and caution first', () => {
     const csv = windowsCsv(model);
-    expect(csv).toContain(`# Caution: ${model.caution}`);
+    expect(csv).toContain(`# Caution: ${wordsFor().caution}`);
     expect(csv).toContain('# sill: Marina sill, east gate, open while the tide is at or above 2.00 m.');
     const [header, ...body] = rows(csv);
     expect(header).toEqual(['station_id', 'window_id', 'side', 'level_m', 'start_utc', 'start_local', 'end_utc', 'end_local', 'minutes']);
@@ -36,7 +37,7 @@ describe('window downloads', () => {
 
   it('JSON: the intervals of the model', () => {
     const doc = JSON.parse(windowsJson(model)) as { windows: { id: string; intervals: unknown[] }[]; caution: string; secondaryNote: string | null };
-    expect(doc.caution).toBe(model.caution);
+    expect(doc.caution).toBe(wordsFor().caution);
     expect(doc.secondaryNote).toBeNull();
     expect(doc.windows.map((w) => [w.id, w.intervals])).toEqual(model.windows.map((w) => [w.id, w.intervals]));
   });
@@ -52,7 +53,7 @@ describe('window downloads', () => {
     expect(first.summary).toBe('Marina sill, east gate open');
     expect(first.startDate.toJSDate().toISOString().replace('.000', '')).toBe(interval.start);
     expect(first.endDate.toJSDate().toISOString().replace('.000', '')).toBe(interval.end);
-    expect(first.description).toContain(model.caution);
+    expect(first.description).toContain(wordsFor().caution);
     expect(first.uid).toBe(`${station.id}-2027-sill-1@tidewright`);
   });
 });

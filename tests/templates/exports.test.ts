@@ -9,8 +9,13 @@ import type { StationYear } from '../../engine/types.js';
 import { csvField, eventsCsv } from '../../templates/exports/csv.js';
 import { escapeText, eventsICalendar, foldLine } from '../../templates/exports/icalendar.js';
 import { eventsJson } from '../../templates/exports/json.js';
+import { wordsFor } from '../../templates/locale/index.js';
 import { exportFileNames, writeExports } from '../../templates/exports/write.js';
 import { demoModels } from './site-build.js';
+
+// Intl is the reference for printed numbers (it rounds the shortest decimal form of a tie away from zero).
+const fixed = (v: number, digits: number): string =>
+  new Intl.NumberFormat('en-GB', { minimumFractionDigits: digits, maximumFractionDigits: digits, useGrouping: false }).format(v);
 
 let model: StationYear;
 
@@ -28,22 +33,22 @@ function csvRows(text: string): { header: string[]; rows: string[][]; notes: str
 
 describe('CSV', () => {
   it('has one row per event, matching the model, with CRLF line ends and the caution in its notes', () => {
-    const text = eventsCsv(model, 'm');
+    const text = eventsCsv(model, wordsFor({ units: 'm' }));
     expect(text.replace(/\r\n/g, '')).not.toMatch(/[\r\n]/); // RFC 4180: every line ends in CRLF
     const { header, rows, notes } = csvRows(text);
     expect(header).toEqual(['station_id', 'date', 'local_time', 'utc_offset', 'time_utc', 'type', 'height_m', 'below_chart_datum']);
     expect(rows).toHaveLength(model.events.length);
     rows.forEach((row, i) => {
       const e = model.events[i];
-      expect(row).toEqual(['brinewold-head', e.local.slice(0, 10), e.clock, e.offset, e.time, e.type, e.height.toFixed(3), e.belowDatum ? 'yes' : 'no']);
+      expect(row).toEqual(['brinewold-head', e.date, e.clock, e.offset, e.time, e.type, e.height.toFixed(3), e.belowDatum ? 'yes' : 'no']);
     });
-    expect(notes.join(' ')).toContain(model.caution);
+    expect(notes.join(' ')).toContain(wordsFor().caution);
     expect(notes.join(' ')).toContain('INVENTED');
     expect(notes.join(' ')).toContain(model.station.provenance);
   });
 
   it('in feet converts with the international foot and names the column so', () => {
-    const { header, rows } = csvRows(eventsCsv(model, 'ft'));
+    const { header, rows } = csvRows(eventsCsv(model, wordsFor({ units: 'ft' })));
     expect(header[6]).toBe('height_ft');
     expect(Number(rows[0][6])).toBeCloseTo(model.events[0].height / 0.3048, 2); // 1 ft = 0.3048 m exactly
   });
@@ -66,8 +71,8 @@ describe('JSON', () => {
     expect(doc.year).toBe(2027);
     expect(doc.units).toBe('m');
     expect(doc.invented).toBe(true);
-    expect(doc.caution).toBe(model.caution);
-    expect(doc.events).toEqual(model.events.map(({ time, local, type, height, belowDatum }) => ({ time, local, type, height, belowDatum })));
+    expect(doc.caution).toBe(wordsFor().caution);
+    expect(doc.events).toEqual(model.events.map(({ time, local, date, type, height, belowDatum }) => ({ time, local, date, type, height, belowDatum })));
   });
 });
 
@@ -85,9 +90,9 @@ describe('iCalendar', () => {
     const e = model.events[0];
     expect(first.startDate.toJSDate().toISOString().replace('.000', '')).toBe(e.time);
     expect(first.startDate.zone?.tzid).toBe('UTC');
-    expect(first.summary).toBe(`${e.type === 'high' ? 'High' : 'Low'} water ${e.height.toFixed(2)} m`);
+    expect(first.summary).toBe(`${e.type === 'high' ? 'High' : 'Low'} water ${fixed(e.height, 2)} m`);
     expect(first.uid).toBe('brinewold-head-2027-1@tidewright');
-    expect(first.description).toContain(model.caution);
+    expect(first.description).toContain(wordsFor().caution);
     expect(first.description).toContain(`${e.clock} local time (UTC${e.offset})`);
     const last = new ICAL.Event(events[events.length - 1]);
     expect(last.uid).toBe(`brinewold-head-2027-${model.events.length}@tidewright`);
@@ -125,10 +130,10 @@ describe('iCalendar', () => {
   });
 
   it('in feet says feet in each summary', () => {
-    const calendar = new ICAL.Component(ICAL.parse(eventsICalendar(model, 'ft')));
+    const calendar = new ICAL.Component(ICAL.parse(eventsICalendar(model, wordsFor({ units: 'ft' }))));
     const e = model.events[0];
     expect(new ICAL.Event(calendar.getAllSubcomponents('vevent')[0]).summary)
-      .toBe(`${e.type === 'high' ? 'High' : 'Low'} water ${(e.height / 0.3048).toFixed(1)} ft`);
+      .toBe(`${e.type === 'high' ? 'High' : 'Low'} water ${fixed(e.height / 0.3048, 1)} ft`);
   });
 });
 

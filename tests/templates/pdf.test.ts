@@ -9,6 +9,13 @@ import { buildStationYear } from '../../engine/almanac.js';
 import { loadStationSet } from '../../engine/stations.js';
 import type { AlmanacEvent, StationYear } from '../../engine/types.js';
 import { renderCombinedBook, renderStationBook } from '../../templates/pdf/book.js';
+import { wordsFor } from '../../templates/locale/index.js';
+
+// Intl is the reference for printed numbers (it rounds the shortest decimal form of a tie away from zero).
+const fixed = (v: number, digits: number): string =>
+  new Intl.NumberFormat('en-GB', { minimumFractionDigits: digits, maximumFractionDigits: digits, useGrouping: false }).format(v);
+
+const en = wordsFor();
 
 const POPPLER = ['pdftotext', 'pdffonts', 'pdfinfo'].every((t) => existsSync(`/usr/bin/${t}`));
 if (!POPPLER) console.warn('poppler-utils (pdftotext, pdffonts, pdfinfo) not found in /usr/bin: PDF text and font checks are SKIPPED');
@@ -23,15 +30,15 @@ const pageCount = (buf: Buffer) => (buf.toString('latin1').match(/\/Type \/Page\
 /** Heights as a reader sees them, written here independently of the renderer: cm or tenths of a foot, true minus. */
 function printed(e: AlmanacEvent, units: 'm' | 'ft'): string {
   const v = units === 'ft' ? e.height / 0.3048 : e.height;
-  const s = Math.abs(v).toFixed(units === 'ft' ? 1 : 2);
+  const s = fixed(Math.abs(v), units === 'ft' ? 1 : 2);
   return e.belowDatum ? `\u2212${s}` : s;
 }
 
 /** All "clock height" pairs in the text (a clock-change day adds a small offset such as +01 after the clock). */
 function pairs(text: string, units: 'm' | 'ft'): string[] {
   const re = units === 'ft'
-    ? /(\d\d:\d\d)(?:\s*[+\u2212]\d\d)?\s+(\u2212?\d+\.\d)(?!\d)/g
-    : /(\d\d:\d\d)(?:\s*[+\u2212]\d\d)?\s+(\u2212?\d+\.\d\d)(?!\d)/g;
+    ? /(\d\d:\d\d)(?:\s*UTC[+\u2212]\d\d:\d\d(?::\d\d)?)?\s+(\u2212?\d+\.\d)(?!\d)/g
+    : /(\d\d:\d\d)(?:\s*UTC[+\u2212]\d\d:\d\d(?::\d\d)?)?\s+(\u2212?\d+\.\d\d)(?!\d)/g;
   return [...text.matchAll(re)].map((m) => `${m[1]} ${m[2]}`).sort();
 }
 
@@ -99,9 +106,9 @@ describe('station book (A5, metres)', () => {
     model.months.forEach((m, i) => {
       const left = pages[3 + 2 * i];
       const right = pages[4 + 2 * i];
-      expect(left).toContain(`${m.name} ${model.year}`);
+      expect(left).toContain(`${en.monthName(m.month)} ${model.year}`);
       expect(left).toContain(`days 1\u2013${Math.ceil(m.dayCount / 2)} of ${m.dayCount}`);
-      expect(right).toContain(`${m.name} ${model.year}`);
+      expect(right).toContain(`${en.monthName(m.month)} ${model.year}`);
       expect(right).toContain(`of ${m.dayCount}`);
     });
   });
@@ -122,7 +129,7 @@ describe('station book (A5, metres)', () => {
     for (const change of model.offsetChanges) {
       const day = model.days.find((d) => d.offsetChange?.time === change.time)!;
       const page = pages[3 + 2 * (day.month - 1) + (day.dayOfMonth > 16 ? 1 : 0)];
-      expect(page).toContain(change.note);
+      expect(page).toContain(en.offsetChange(change));
       expect(page).toContain(`UTC${change.to}`);
     }
     expect(pages[3]).toContain(`All times UTC${model.days[0].offsetStart}`);
@@ -136,7 +143,7 @@ describe('station book (A5, metres)', () => {
       expect(flat).toContain('Astronomical predictions only');
       expect(flat).toContain('INVENTED DATA');
     }
-    expect(pages[0].replace(/\s+/g, ' ')).toContain(model.caution);
+    expect(pages[0].replace(/\s+/g, ' ')).toContain(en.caution);
   });
 });
 
@@ -160,7 +167,7 @@ describe('station book in feet, with a hostile name and water below chart datum'
     const expected = monthEvents(low, 1, 'ft');
     expect(expected.some((e) => e.includes('\u2212'))).toBe(true);
     expect(pairs(text, 'ft')).toEqual(expected);
-    expect(pages[3]).toContain('heights in feet above Chart Datum');
+    expect(pages[3]).toContain('feet above Chart Datum');
   });
 });
 

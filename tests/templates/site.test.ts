@@ -10,6 +10,13 @@ import { renderSite } from '../../templates/site/render.js';
 import {
   HOSTILE_NAME, demoModels, htmlFiles, read, rowById, textOf, withHostileText, withLowWaterBelowDatum,
 } from './site-build.js';
+import { wordsFor } from '../../templates/locale/index.js';
+
+// Intl is the reference for printed numbers (it rounds the shortest decimal form of a tie away from zero).
+const fixed = (v: number, digits: number): string =>
+  new Intl.NumberFormat('en-GB', { minimumFractionDigits: digits, maximumFractionDigits: digits, useGrouping: false }).format(v);
+
+const en = wordsFor();
 
 let tmp: string;
 let site: string;
@@ -20,9 +27,9 @@ let secondary: StationYear; // whitespume-sound: secondary port of rimeskerry-fj
 
 const MINUS = '\u2212';
 /** Metres as the month tables print them, written out here independently of the site's formatter. */
-const cm = (m: number): string => `${m < 0 ? MINUS : ''}${Math.abs(m).toFixed(2)}`;
+const cm = (m: number): string => `${m < 0 ? MINUS : ''}${fixed(Math.abs(m), 2)}`;
 const signed = (n: number, digits: number, unit: string): string =>
-  `${n > 0 ? '+' : n < 0 ? MINUS : ''}${Math.abs(n).toFixed(digits)} ${unit}`;
+  `${n > 0 ? '+' : n < 0 ? MINUS : ''}${fixed(Math.abs(n), digits)} ${unit}`;
 const ids = ['rimeskerry-fjord', 'whitespume-sound', 'odd-name'];
 
 beforeAll(async () => {
@@ -34,7 +41,7 @@ beforeAll(async () => {
   reference = withLowWaterBelowDatum(rimeskerry, '2027-01-14');
   secondary = whitespume;
   await renderSite([secondary, withHostileText(rimeskerry), reference], site, {
-    units: 'm', quiet: true, dataDir, locale: 'nb', title: 'Harbour tides', publisher: 'Test Club',
+    units: 'm', quiet: true, dataDir, locale: 'en-GB', title: 'Harbour tides', publisher: 'Test Club',
   });
   await renderSite([reference], feetSite, { units: 'ft', quiet: true });
 });
@@ -72,7 +79,7 @@ describe('pages and URLs', () => {
 
   it('sets lang from the locale option and shows the title and publisher', () => {
     const html = read(site, 'index.html');
-    expect(html).toMatch(/<html lang="nb">/);
+    expect(html).toMatch(/<html lang="en-GB">/);
     expect(html).toContain('Harbour tides');
     expect(html).toContain('Test Club');
   });
@@ -88,7 +95,7 @@ describe('index', () => {
     const rimeskerry = textOf(groups[1]);
     expect(rimeskerry.indexOf('Rimeskerry Fjord (invented) reference port')).toBeGreaterThanOrEqual(0);
     expect(rimeskerry.indexOf('Rimeskerry Fjord (invented)')).toBeLessThan(rimeskerry.indexOf('Whitespume Sound (invented) secondary port'));
-    expect(rimeskerry).toContain(`Tide ${reference.tideType.label} Position`);
+    expect(rimeskerry).toContain(`Tide ${en.tideType(reference.tideType.kind)} Position`);
     // Degrees and decimal minutes worked by hand from the station's decimal degrees.
     const { latitude, longitude } = secondary.station.position;
     const dm = (v: number): string => `${Math.trunc(Math.abs(v))}°${((Math.abs(v) % 1) * 60).toFixed(1).padStart(4, '0')}′`;
@@ -112,10 +119,10 @@ describe('month pages against the model', () => {
     const html = read(site, 'rimeskerry-fjord/2027/03/index.html');
     // Europe/Oslo goes from UTC+01:00 to UTC+02:00 at 01:00 UTC on the last Sunday of March
     // (EU rule, tz database): 28 March 2027, at 02:00 on the clocks of the morning.
-    expect(textOf(html)).toContain('local clock time, Europe/Oslo, UTC+01:00 until the clocks change at 02:00 on Sunday 28 March 2027, then UTC+02:00.');
+    expect(textOf(html)).toContain(`local clock time, UTC+01:00 until the clocks change at 02:00 on ${en.date('2027-03-28', { weekday: true })}, then UTC+02:00. (Europe/Oslo)`);
     const change = reference.days.find((d) => d.date === '2027-03-28')!;
     const row = textOf(rowById(html, 'day-28'));
-    expect(row).toContain(`${change.offsetChange!.note}. This day has 23 hours.`);
+    expect(row).toContain(`${en.offsetChange(change.offsetChange!)}. This day has 23 hours.`);
     for (const e of change.events) expect(row).toContain(`${e.clock} ${cm(e.height)} UTC${e.offset}`);
     expect(textOf(rowById(html, 'day-27'))).not.toMatch(/Clocks|UTC\+/);
   });
@@ -164,7 +171,7 @@ describe('station-year page', () => {
     const text = textOf(html);
     expect(text).toContain(`MHWS Mean high water springs ${cm(reference.datums.MHWS)}`);
     expect(text).toContain(`LAT Lowest astronomical tide ${cm(reference.datums.LAT)}`);
-    expect(text).toContain(`Tide type ${reference.tideType.label} (form number ${reference.tideType.formNumber.toFixed(2)})`);
+    expect(text).toContain(`Tide type ${en.tideType(reference.tideType.kind)} (form number ${reference.tideType.formNumber.toFixed(2)})`);
     for (let m = 1; m <= 12; m++) expect(html).toContain(`href="${String(m).padStart(2, '0')}/index.html"`);
     expect(html.match(/class="glance-month"/g) ?? []).toHaveLength(12);
     const springs = reference.days.filter((d) => d.month === 5 && d.springNeap === 'spring').map((d) => d.dayOfMonth);
@@ -172,7 +179,7 @@ describe('station-year page', () => {
     expect(html).toContain('href="../../data/rimeskerry-fjord-2027.ics"');
     expect(html).toContain('href="../../data/rimeskerry-fjord-2027-events.csv"');
     expect(html).toContain('href="../../data/rimeskerry-fjord-2027-events.json"');
-    for (const c of reference.offsetChanges) expect(text).toContain(c.note);
+    for (const c of reference.offsetChanges) expect(text).toContain(en.offsetChange(c));
   });
 
   it('for a secondary port names and links its reference port and prints its differences', () => {
@@ -192,7 +199,7 @@ describe('footer, escaping and units', () => {
     for (const file of htmlFiles(site)) {
       const footer = readFileSync(file, 'utf8').split('<footer class="colophon">')[1];
       const text = textOf(footer);
-      expect(text, file).toContain(reference.caution);
+      expect(text, file).toContain(en.caution);
       expect(text, file).toContain('Provenance of the data:');
       expect(text, file).toMatch(/Invented data: (this station|stations marked invented)/);
     }
@@ -215,13 +222,13 @@ describe('footer, escaping and units', () => {
     const html = read(feetSite, 'rimeskerry-fjord/2027/03/index.html');
     const day = reference.days.find((d) => d.date === '2027-03-10')!;
     const e = day.events[0];
-    const feet = (e.height / 0.3048).toFixed(1); // 1 ft = 0.3048 m exactly
+    const feet = fixed(e.height / 0.3048, 1); // 1 ft = 0.3048 m exactly
     expect(textOf(rowById(html, 'day-10'))).toContain(`${e.clock} ${feet}`);
     expect(html).toContain('(time, ft)');
     expect(textOf(html)).toContain('Heights: feet above Chart Datum');
     const year = textOf(read(feetSite, 'rimeskerry-fjord/2027/index.html'));
-    expect(year).toContain(`springs ${(reference.meanSpringRange / 0.3048).toFixed(1)} ft`);
-    expect(year).toContain(`MHWS Mean high water springs ${(reference.datums.MHWS / 0.3048).toFixed(1)}`);
+    expect(year).toContain(`springs ${fixed(reference.meanSpringRange / 0.3048, 1)} ft`);
+    expect(year).toContain(`MHWS Mean high water springs ${fixed(reference.datums.MHWS / 0.3048, 1)}`);
   });
 });
 

@@ -81,7 +81,8 @@ describe('station records printed', () => {
     expect(page).toContain('<span class="station-number">No. 0412</span>');
     expect(page).toContain('<div><dt>Levelling</dt><dd>Chart Datum lies 2.71\u00a0m below Invented Land Datum</dd></div>');
     expect(page).toContain('<div><dt>Datum authority</dt><dd>Invented Hydrographic Service</dd></div>');
-    expect(page).toContain('<div><dt>Observations</dt><dd>2019-03-01 to 2020-02-29, Harbour gauge (invented)</dd></div>');
+    // dates as every date is printed (the one formatter): 1 March 2019
+    expect(page).toContain('<div><dt>Observations</dt><dd>1 March 2019 to 29 February 2020, Harbour gauge (invented)</dd></div>');
     expect(page).toContain('<th scope="col">Above Invented Land Datum (m)</th>');
     const land = [...page.matchAll(/<td class="land-height">([^<]+)<\/td>/g)].map((m) => m[1]);
     expect(land).toHaveLength(8); // HAT … LAT and chart datum itself

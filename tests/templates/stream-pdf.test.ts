@@ -8,6 +8,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { loadStationSet } from '../../engine/stations.js';
 import { buildStreamYear, type StreamYear } from '../../engine/streams.js';
 import { renderStreamBook } from '../../templates/pdf/stream-book.js';
+import { wordsFor } from '../../templates/locale/index.js';
 
 const POPPLER = ['pdftotext', 'pdffonts', 'pdfinfo'].every((t) => existsSync(`/usr/bin/${t}`));
 if (!POPPLER) console.warn('poppler-utils not found in /usr/bin: the stream book checks are SKIPPED');
@@ -41,14 +42,14 @@ describe('renderStreamBook', () => {
     expect(first).toContain('Tidal streams vary across a channel');
     expect(first).toContain('INVENTED DATA');
     expect(first).toContain('070° true');
-    model.months.forEach((m, i) => expect(pages[i + 1]).toContain(m.name));
+    model.months.forEach((m, i) => expect(pages[i + 1]).toContain(wordsFor().monthName(m.month)));
   });
 
   it.skipIf(!POPPLER)('prints every slack, flood and ebb of March with its clock time, floods and ebbs with their rate', () => {
     const march = execFileSync('pdftotext', ['-layout', '-f', '4', '-l', '4', file, '-'], { encoding: 'utf8' });
     const lines = march.split('\n');
     for (const day of model.days.filter((d) => d.month === 3)) {
-      const line = lines.find((l) => new RegExp(`^\\s*${day.weekday.slice(0, 2)} ${day.dayOfMonth}\\b`).test(l));
+      const line = lines.find((l) => new RegExp(`^\\s*${wordsFor().weekdayShort(day.weekday)} ${day.dayOfMonth}\\b`).test(l));
       expect(line, `${day.date}`).toBeDefined();
       for (const e of day.events) {
         expect(line).toContain(e.clock);

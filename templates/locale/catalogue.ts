@@ -1,0 +1,57 @@
+// Message catalogues: one per language, every key of the English one, words only (numbers, dates and
+// months come from Intl through format.ts). A message is a string with {placeholders}, or a set of
+// plural forms chosen by Intl.PluralRules on one numeric parameter named in `count`.
+import { en } from './messages/en.js';
+import { fr } from './messages/fr.js';
+import { es } from './messages/es.js';
+import { pt } from './messages/pt.js';
+import { de } from './messages/de.js';
+import { nl } from './messages/nl.js';
+import { nb } from './messages/nb.js';
+
+export type PluralMessage = { count: string; other: string } & Partial<Record<Intl.LDMLPluralRule, string>>;
+export type Message = string | PluralMessage;
+export type MessageKey = keyof typeof en;
+export type Catalogue = Readonly<Record<MessageKey, Message>>;
+export type Params = Readonly<Record<string, string | number>>;
+
+/** The languages tidewright publishes in, by their BCP 47 language subtag. */
+export const LANGUAGES = ['en', 'fr', 'es', 'pt', 'de', 'nl', 'nb'] as const;
+export type Language = (typeof LANGUAGES)[number];
+
+export const CATALOGUES: Readonly<Record<Language, Catalogue>> = { en, fr, es, pt, de, nl, nb };
+
+/** The catalogue language of a BCP 47 tag ("fr-CA" → fr, "no" → nb), or null when unsupported. */
+export function languageOf(tag: string): Language | null {
+  let canonical: string;
+  try {
+    canonical = Intl.getCanonicalLocales(tag)[0] ?? '';
+  } catch {
+    return null;
+  }
+  const lang = canonical.split('-')[0]!.toLowerCase();
+  if (lang === 'no' || lang === 'nn') return 'nb'; // written Norwegian: the Bokmål catalogue
+  return (LANGUAGES as readonly string[]).includes(lang) ? (lang as Language) : null;
+}
+
+const PLACEHOLDER = /\{(\w+)\}/g;
+
+/** A translator for one language: `t(key, params)` fills the placeholders; plural forms by Intl. */
+export function translator(language: Language, numberText: (n: number) => string): (key: MessageKey, params?: Params) => string {
+  const catalogue = CATALOGUES[language];
+  const plural = new Intl.PluralRules(language);
+  return (key, params = {}) => {
+    const message = catalogue[key] ?? en[key];
+    let text: string;
+    if (typeof message === 'string') text = message;
+    else {
+      const n = Number(params[message.count] ?? 0);
+      text = message[plural.select(n)] ?? message.other;
+    }
+    return text.replace(PLACEHOLDER, (all, name: string) => {
+      const v = params[name];
+      if (v === undefined) return all;
+      return typeof v === 'number' ? numberText(v) : v;
+    });
+  };
+}
