@@ -12,7 +12,7 @@ import { UsageError } from './errors.js';
 import {
   clock, dayIndexOf, isoLocal, isoUtc, localDate, localDays, parseDateInZone, type LocalDay,
 } from './localtime.js';
-import { moonQuarters, skyForDays, type DaySpan, type MoonQuarter } from './sky.js';
+import { moonQuarters, skyForDays, type DaySpan, type MoonQuarter, type SkyEphemeris } from './sky.js';
 import { dayRange, springNeapMarkers } from './springneap.js';
 import {
   cosineCurve, harmonicStationOf, predictorFor, tideEvents, type StationLookup,
@@ -27,6 +27,8 @@ export { CAUTION, isInvented } from './almanac/caution.js';
 export interface AlmanacOptions {
   /** Minutes between the points of each day's curve; must divide 60. Default 30 (fits half-hour clock changes). */
   curveStepMinutes?: number;
+  /** Sun and Moon positions shared by the stations of one build (created with createSkyEphemeris). */
+  sky?: SkyEphemeris;
 }
 
 const MINUTE = 60_000;
@@ -67,7 +69,7 @@ export function buildStationYear(
 
   const dayList = dayEntries({
     zone, days, events: yearEvents, formatted: events, rangeEvents: allEvents, curves,
-    sky: skyForDays(days, station.position, zone),
+    sky: skyForDays(days, station.position, zone, options.sky),
     moonPhaseOn: new Map(moonPhases.map((m) => [m.date, m.phase] as [string, MoonPhaseName])),
     springNeapOn: new Map(springNeap.map((s) => [s.date, s.kind] as [string, SpringNeapKind])),
   });

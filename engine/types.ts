@@ -144,6 +144,14 @@ export type ModelWarning =
   | { code: 'window-never-opens' | 'window-never-closes'; window: string; side: WindowSide; level: number;
       lowest: number; highest: number; year: number };
 
+/** One rise or set of the Sun or the Moon on a local day. */
+export interface SkyEntry {
+  body: 'sun' | 'moon';
+  type: 'rise' | 'set';
+  time: string; // ISO UTC instant to the second
+  clock: string; // local "HH:mm"
+}
+
 export interface DayEntry {
   date: string; // local date "YYYY-MM-DD"
   weekday: number; // ISO weekday: 1 = Monday … 7 = Sunday
@@ -166,6 +174,7 @@ export interface DayEntry {
   moonset: string | null;
   moonriseClock: string | null;
   moonsetClock: string | null;
+  sky: SkyEntry[]; // every sun and moon rise and set of this day, in time order (the single fields are the first of each)
   moonPhase: MoonPhaseName | null; // a quarter falls on this local day
   moonIllumination: number; // 0..1 at local noon
   springNeap: SpringNeapKind | null; // marker on this day

@@ -56,6 +56,7 @@ export function dayEntries(input: DayInputs): DayEntry[] {
       moonset: isoOrNull(sky.moonset),
       moonriseClock: clockOrNull(sky.moonrise, zone),
       moonsetClock: clockOrNull(sky.moonset, zone),
+      sky: sky.events.map((e) => ({ body: e.body, type: e.type, time: isoUtc(e.time), clock: clock(e.time, zone) })),
       moonPhase: input.moonPhaseOn.get(day.date) ?? null,
       moonIllumination: sky.moonIllumination,
       springNeap: input.springNeapOn.get(day.date) ?? null,

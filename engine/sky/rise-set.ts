@@ -1,16 +1,16 @@
-// Sun and moon rise and set for each local day of a station, from suncalc, plus the Moon's
-// illuminated fraction at local noon. suncalc answers per solar day (getTimes) and per UTC
-// calendar day (getMoonTimes); neither is the station's local day, so every crossing of the days
-// around the range is collected once and each local day keeps those whose printed minute lies
-// inside [start, end) (the rounding rule of ../localtime.ts).
-// A day may therefore print a sunset before its sunrise (high latitudes, far-off zones): that is
-// the order in which they happen on that local day. Moonrise and moonset use suncalc's Moon
-// position with getMoonTimes' own criterion (moonCrossings says why its search is not used as is).
+// Sun and moon rise and set for each local day of a station, plus the Moon's illuminated fraction
+// at local noon. Every rise and set is found by a root search on the body's height over the whole
+// range (./crossings.ts) and each local day keeps all of those whose printed minute lies inside
+// [start, end) (the rounding rule of ../localtime.ts), in time order. Near the polar circles a
+// day may hold two moonrises, or a sunset a few minutes after a sunrise at the edge of the
+// midnight sun; a day may print a set before its rise: that is the order in which they happen.
 
-import { DateTime } from 'luxon';
-import { getMoonIllumination, getPosition, getTimes } from 'suncalc';
+import { IANAZone } from 'luxon';
+import { getMoonIllumination } from 'suncalc';
 import { roundToMinute } from '../localtime.js';
-import { moonHeightAt, moonHeightsOnGrid, observer, type Observer } from './moon-grid.js';
+import { zoneOffset } from '../zone-offsets.js';
+import { crossings, type Crossing } from './crossings.js';
+import { createSkyEphemeris, skyHeight, skySite, type SkyBody, type SkyEphemeris } from './ephemeris.js';
 import type { Position } from '../types.js';
 
 const DAY = 86_400_000;
@@ -26,128 +26,88 @@ export interface DaySpan {
   end: number; // UTC ms, exclusive
 }
 
+/** One rise or set of the Sun or the Moon. Time in UTC ms. */
+export interface SkyEvent {
+  body: SkyBody;
+  type: 'rise' | 'set';
+  time: number;
+}
+
 /** Sun and moon for one local day. Times are UTC ms; null when the event does not happen that day. */
 export interface SkyDay {
+  events: SkyEvent[]; // every rise and set of the day, both bodies, in time order
   sunrise: number | null; // the day's first sunrise
   sunset: number | null; // the day's first sunset
   sunNote: SunNote; // set only when the day has neither sunrise nor sunset
-  moonrise: number | null;
-  moonset: number | null;
+  moonrise: number | null; // the day's first moonrise
+  moonset: number | null; // the day's first moonset
   moonNote: MoonNote; // set only when the day has neither moonrise nor moonset
   moonIllumination: number; // illuminated fraction 0..1 at local noon, to 0.001
 }
 
-/** A crossing of the rise/set altitude: +1 rising, −1 setting. */
-export interface Crossing {
-  time: number;
-  direction: 1 | -1;
-}
-
-/** Sun and moon for each local day, at the station's position (east longitude positive). */
-export function skyForDays(days: readonly DaySpan[], position: Position, zone: string): SkyDay[] {
+/**
+ * Sun and moon for each local day, at the station's position (east longitude positive). Pass
+ * one SkyEphemeris to every call of a build so the stations share the Sun's and Moon's positions.
+ */
+export function skyForDays(
+  days: readonly DaySpan[], position: Position, zone: string, eph: SkyEphemeris = createSkyEphemeris(),
+): SkyDay[] {
   if (days.length === 0) return [];
-  const from = days[0].start - MARGIN;
-  const to = days[days.length - 1].end + MARGIN;
-  const sun = sunCrossings(from, to, position);
-  const moon = moonCrossings(from, to, position);
+  const from = days[0]!.start - MARGIN;
+  const to = days[days.length - 1]!.end + MARGIN;
+  const site = skySite(position.latitude, position.longitude);
+  const sun = crossings(eph, 'sun', from, to, site);
+  const moon = crossings(eph, 'moon', from, to, site);
+  const upAtMidday = (body: SkyBody, day: DaySpan) => skyHeight(eph, body, (day.start + day.end) / 2, site) > 0;
+  const iana = IANAZone.create(zone);
   return days.map((day) => {
-    const s = pickDay(sun, day);
-    const m = pickDay(moon, day);
-    const noon = DateTime.fromISO(day.date, { zone }).set({ hour: 12 }).toMillis();
-    const fraction = getMoonIllumination(new Date(noon)).fraction;
+    const events = [...pickDay(sun, 'sun', day), ...pickDay(moon, 'moon', day)].sort((a, b) => a.time - b.time);
+    const first = (body: SkyBody, type: SkyEvent['type']) =>
+      events.find((e) => e.body === body && e.type === type)?.time ?? null;
+    const hasSun = events.some((e) => e.body === 'sun');
+    const hasMoon = events.some((e) => e.body === 'moon');
+    const fraction = getMoonIllumination(new Date(localNoon(iana, day))).fraction;
     return {
-      sunrise: s.rise,
-      sunset: s.set,
-      sunNote: s.rise === null && s.set === null ? (sunUpAt(day, position) ? 'sun-up-all-day' : 'sun-down-all-day') : null,
-      moonrise: m.rise,
-      moonset: m.set,
-      moonNote: m.rise === null && m.set === null ? (moonUpAt(day, position) ? 'moon-up-all-day' : 'moon-down-all-day') : null,
+      events,
+      sunrise: first('sun', 'rise'),
+      sunset: first('sun', 'set'),
+      // With no crossing in the day the body stays on one side of the horizon all day.
+      sunNote: hasSun ? null : upAtMidday('sun', day) ? 'sun-up-all-day' : 'sun-down-all-day',
+      moonrise: first('moon', 'rise'),
+      moonset: first('moon', 'set'),
+      moonNote: hasMoon ? null : upAtMidday('moon', day) ? 'moon-up-all-day' : 'moon-down-all-day',
       moonIllumination: Number.isFinite(fraction) ? Math.round(Math.min(1, Math.max(0, fraction)) * 1000) / 1000 : 0,
     };
   });
 }
 
-/** Every sunrise and sunset between two instants, in time order (suncalc getTimes, one call per solar day). */
-export function sunCrossings(fromMs: number, toMs: number, position: Position): Crossing[] {
-  const out: Crossing[] = [];
-  // getTimes answers for the solar day nearest the instant given; stepping by exactly one day
-  // from half a day before the range visits every solar day whose events can fall inside it.
-  for (let t = fromMs - DAY / 2; t <= toMs + DAY / 2; t += DAY) {
-    const r = getTimes(new Date(t), position.latitude, position.longitude);
-    pushIfIn(out, r.sunrise, 1, fromMs, toMs);
-    pushIfIn(out, r.sunset, -1, fromMs, toMs);
-  }
-  return out.sort((a, b) => a.time - b.time);
+/**
+ * Every rise (+1) and set (−1) of the body between two instants, in time order, at a position
+ * (east longitude positive).
+ */
+export function skyCrossings(
+  body: SkyBody, fromMs: number, toMs: number, position: Position, eph: SkyEphemeris = createSkyEphemeris(),
+): Crossing[] {
+  return crossings(eph, body, fromMs, toMs, skySite(position.latitude, position.longitude));
 }
 
-/**
- * Every moonrise and moonset between two instants, in time order. suncalc's getMoonTimes stops at
- * the first rise and set of each UTC day, which loses the second moonrise of a day at high
- * latitudes; so the same criterion (upper limb on the horizon, suncalc's own moon height) is
- * scanned here every 20 minutes and each sign change refined to about a second.
- */
-export function moonCrossings(fromMs: number, toMs: number, position: Position): Crossing[] {
-  const out: Crossing[] = [];
-  if (!(fromMs < toMs)) return out;
-  const o = observer(position.latitude, position.longitude);
-  // The 20-minute points come from the grid shared by all stations (moon-grid.ts); the last step,
-  // cut short at toMs, and any range not on whole milliseconds are computed directly.
-  const n = Math.ceil((toMs - fromMs) / MOON_STEP);
-  const shared = Number.isInteger(fromMs) && n < 1e6 ? moonHeightsOnGrid(fromMs, MOON_STEP, n + 1, o) : null;
-  let t0 = fromMs;
-  let h0 = shared ? shared(0) : moonHeightAt(t0, o);
-  for (let k = 1; t0 < toMs; k++) {
-    const t1 = Math.min(t0 + MOON_STEP, toMs);
-    const h1 = shared && t1 === fromMs + k * MOON_STEP ? shared(k) : moonHeightAt(t1, o);
-    if (h0 <= 0 !== h1 <= 0) out.push({ time: refineCrossing(t0, t1, h0, h1, o), direction: h0 <= 0 ? 1 : -1 });
-    t0 = t1;
-    h0 = h1;
+// A crossing belongs to the day of its printed (rounded) minute, as every almanac time does.
+function pickDay(list: readonly Crossing[], body: SkyBody, day: DaySpan): SkyEvent[] {
+  const out: SkyEvent[] = [];
+  for (let i = firstAtOrAfter(list, day.start - 30_000); i < list.length && list[i]!.time < day.end; i++) {
+    const c = list[i]!;
+    const shown = roundToMinute(c.time);
+    if (shown < day.start || shown >= day.end) continue;
+    out.push({ body, type: c.direction === 1 ? 'rise' : 'set', time: c.time });
   }
   return out;
 }
 
-const MOON_STEP = 20 * 60_000;
-
-// Illinois variant of regula falsi (Dowell & Jarratt 1971): a bracketing root search that keeps
-// the sign change inside [lo, hi] and converges in a few steps on a smooth height curve.
-function refineCrossing(lo: number, hi: number, hLo: number, hHi: number, o: Observer): number {
-  let side = 0;
-  for (let i = 0; i < 40 && hi - lo > 1000; i++) {
-    const t = hi - (hHi * (hi - lo)) / (hHi - hLo);
-    const h = moonHeightAt(t, o);
-    if (h <= 0 === hHi <= 0) {
-      hi = t;
-      hHi = h;
-      if (side === -1) hLo /= 2;
-      side = -1;
-    } else {
-      lo = t;
-      hLo = h;
-      if (side === 1) hHi /= 2;
-      side = 1;
-    }
-    if (Math.abs(h) < 1e-5) return Math.round(t);
-  }
-  return Math.round((lo + hi) / 2);
-}
-
-function pushIfIn(out: Crossing[], d: Date | null | undefined, direction: 1 | -1, fromMs: number, toMs: number): void {
-  if (!d) return;
-  const time = d.getTime();
-  if (Number.isFinite(time) && time >= fromMs && time < toMs) out.push({ time, direction });
-}
-
-function pickDay(list: readonly Crossing[], day: DaySpan): { rise: number | null; set: number | null } {
-  let rise: number | null = null;
-  let set: number | null = null;
-  // A crossing belongs to the day of its printed (rounded) minute, as every almanac time does.
-  for (let i = firstAtOrAfter(list, day.start - 30_000); i < list.length && list[i].time < day.end; i++) {
-    const shown = roundToMinute(list[i].time);
-    if (shown < day.start || shown >= day.end) continue;
-    if (list[i].direction === 1 && rise === null) rise = list[i].time;
-    if (list[i].direction === -1 && set === null) set = list[i].time;
-  }
-  return { rise, set };
+// The instant the day's clocks read 12:00 (the zone's offset at that wall time, found twice over).
+function localNoon(zone: IANAZone, day: DaySpan): number {
+  const wall = Date.parse(`${day.date}T12:00:00Z`);
+  const guess = wall - zoneOffset(zone, day.start) * 60_000;
+  return wall - zoneOffset(zone, guess) * 60_000;
 }
 
 function firstAtOrAfter(list: readonly Crossing[], t: number): number {
@@ -155,23 +115,8 @@ function firstAtOrAfter(list: readonly Crossing[], t: number): number {
   let hi = list.length;
   while (lo < hi) {
     const mid = (lo + hi) >> 1;
-    if (list[mid].time < t) lo = mid + 1;
+    if (list[mid]!.time < t) lo = mid + 1;
     else hi = mid;
   }
   return lo;
-}
-
-// With no crossing in the day the body stays on one side of the horizon all day, so its height
-// at the middle of the day decides.
-function sunUpAt(day: DaySpan, position: Position): boolean {
-  const p = getPosition(new Date((day.start + day.end) / 2), position.latitude, position.longitude);
-  return p.altitude > SUN_APPARENT_THRESHOLD;
-}
-
-// getTimes puts sunrise/sunset where the Sun's centre is 0.833° below the horizon (geometric);
-// getPosition adds its refraction, a constant 0.484° below the horizon: −0.833 + 0.484 = −0.349.
-const SUN_APPARENT_THRESHOLD = -0.349;
-
-function moonUpAt(day: DaySpan, position: Position): boolean {
-  return moonHeightAt((day.start + day.end) / 2, observer(position.latitude, position.longitude)) > 0;
 }

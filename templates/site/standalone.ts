@@ -3,6 +3,7 @@
 // Downloads are written only by renderSite, so the pages say so instead of linking to them.
 import { join } from 'node:path';
 import { buildStationYear } from '../../engine/almanac.js';
+import { createSkyEphemeris } from '../../engine/sky.js';
 import { loadStationSet } from '../../engine/stations.js';
 import { projectRoot } from './paths.js';
 import { buildSiteData, type SiteData } from './views.js';
@@ -10,6 +11,7 @@ import { buildSiteData, type SiteData } from './views.js';
 export function standaloneSite(): SiteData {
   const set = loadStationSet(join(projectRoot(), 'stations-demo'));
   const year = new Date().getUTCFullYear() + 1;
-  const models = set.stations.map((station) => buildStationYear(station, set, year));
+  const sky = createSkyEphemeris();
+  const models = set.stations.map((station) => buildStationYear(station, set, year, { sky }));
   return Object.freeze(buildSiteData(models, { units: 'm' }, false));
 }

@@ -5,11 +5,13 @@ import { bench as engine } from './engine.js';
 import { bench as analysis } from './analysis.js';
 import { bench as pdf } from './pdf.js';
 import { bench as build } from './build.js';
+import { bench as sky } from './sky.js';
 
 const BENCHMARKS: readonly (readonly [string, () => Promise<void>])[] = [
   ['engine', engine],
   ['analysis', analysis],
   ['datums', datums],
+  ['sky', sky],
   ['pdf', pdf],
   ['build', build],
 ];

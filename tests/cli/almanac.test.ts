@@ -35,6 +35,30 @@ describe('almanac --format json', () => {
     expect(printed.tideType).toEqual({ formNumber: model.tideType.formNumber, kind: model.tideType.kind });
   });
 
+  it('gives every day every sun and moon rise and set, in time order, the single fields as the first of each', async () => {
+    // The demo station nearest a pole, where a day can hold two moonrises or two moonsets.
+    const set = loadStationSet(DEMO);
+    const polar = [...set.stations].sort((a, b) => Math.abs(b.position.latitude) - Math.abs(a.position.latitude))[0]!;
+    const { code, stdout } = await runCli(['almanac', join(DEMO, `${polar.id}.yaml`), '--year', '2027', '--format', 'json']);
+    expect(code).toBe(0);
+    const printed = JSON.parse(stdout) as StationYear;
+    let doubles = 0;
+    for (const day of printed.days) {
+      const times = day.sky.map((e) => Date.parse(e.time));
+      expect(times).toEqual([...times].sort((a, b) => a - b));
+      for (const e of day.sky) {
+        expect(Object.keys(e)).toEqual(['body', 'type', 'time', 'clock']);
+        expect(e.time).toMatch(/^\d{4}-\d\d-\d\dT\d\d:\d\d:\d\dZ$/);
+      }
+      const first = (body: string, type: string) => day.sky.find((e) => e.body === body && e.type === type)?.time ?? null;
+      expect([day.sunrise, day.sunset, day.moonrise, day.moonset])
+        .toEqual([first('sun', 'rise'), first('sun', 'set'), first('moon', 'rise'), first('moon', 'set')]);
+      const count = (body: string, type: string) => day.sky.filter((e) => e.body === body && e.type === type).length;
+      if (count('moon', 'rise') > 1 || count('moon', 'set') > 1 || count('sun', 'rise') > 1 || count('sun', 'set') > 1) doubles++;
+    }
+    if (Math.abs(polar.position.latitude) > 66) expect(doubles).toBeGreaterThan(0);
+  });
+
   it('finds the reference port through --stations when the file stands alone', async () => {
     cpSync(join(DEMO, 'kelpmoor-harbour.yaml'), join(scratch, 'kelpmoor-harbour.yaml'));
     const alone = await runCli(['almanac', join(scratch, 'kelpmoor-harbour.yaml'), '--year', '2027', '--format', 'json']);

@@ -1,11 +1,8 @@
 // The offset tables and the plain formatting must answer exactly what luxon answers (luxon reading
-// the IANA database through Intl is the reference), and the shared Moon grid exactly what suncalc's
-// getMoonPosition gives, so that the almanac stays byte-identical.
+// the IANA database through Intl is the reference), so that the almanac stays byte-identical.
 import { DateTime, IANAZone } from 'luxon';
-import { getMoonPosition } from 'suncalc';
 import { describe, expect, it } from 'vitest';
 import { clock, isoLocal, localDate, offsetString } from '../../engine/localtime.js';
-import { moonHeightAt, moonHeightsOnGrid, observer } from '../../engine/sky/moon-grid.js';
 import { zoneOffset } from '../../engine/zone-offsets.js';
 
 // Half-hour shifts (Lord_Howe), half-hour offsets (Kolkata, Adelaide), quarter hours (Chatham,
@@ -68,23 +65,5 @@ describe('zone offset tables', () => {
     const t = Date.UTC(1850, 5, 1, 12);
     expect(zoneOffset(zone, t)).toBe(zone.offset(t)); // local mean time, a fraction of a minute
     expect(clock(t, 'Europe/Lisbon')).toBe(DateTime.fromMillis(t, { zone }).toFormat('HH:mm'));
-  });
-});
-
-describe('shared Moon grid', () => {
-  // suncalc's own upper-limb height, as rise-set.ts computed it before the grid.
-  const suncalcHeight = (t: number, lat: number, lon: number): number => {
-    const p = getMoonPosition(new Date(t), lat, lon);
-    return p.altitude + (0.2725 * Math.asin(6378.14 / p.distance)) / (Math.PI / 180) + 0.09;
-  };
-
-  it('gives exactly suncalc’s height on the grid and between its points, for far-apart observers', () => {
-    const from = Date.UTC(2027, 0, 1);
-    for (const [lat, lon] of [[59.9, 10.7], [-36.85, 174.76], [13.44, 144.79], [78.2, 15.6], [-54.8, -68.3]]) {
-      const o = observer(lat, lon);
-      const grid = moonHeightsOnGrid(from, 1_200_000, 500, o);
-      for (let k = 0; k < 500; k += 7) expect(grid(k)).toBe(suncalcHeight(from + k * 1_200_000, lat, lon));
-      for (const t of [from + 123_456.7, from + 9e8 + 0.2, from + 3e9]) expect(moonHeightAt(t, o)).toBe(suncalcHeight(t, lat, lon));
-    }
   });
 });
