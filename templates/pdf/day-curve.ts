@@ -2,6 +2,7 @@
 // sunrise, chart datum dashed, water below chart datum filled solid.
 import type { DayEntry } from '../../engine/types.js';
 import { instant } from '../locale/index.js';
+import { darkSpans } from '../night.js';
 import type { Box } from './geometry.js';
 import { INK, LIGHT, NIGHT } from './style.js';
 
@@ -11,19 +12,9 @@ export function dayStartMs(day: DayEntry): number {
 
 /** Night intervals of the day as fractions [from, to] of the day. */
 export function nightSpans(day: DayEntry): [number, number][] {
-  if (day.sunNote === 'sun-up-all-day') return [];
-  if (day.sunNote === 'sun-down-all-day') return [[0, 1]];
   const start = dayStartMs(day);
   const len = instant(day.end) - start;
-  const frac = (iso: string) => Math.min(1, Math.max(0, (Date.parse(iso) - start) / len));
-  const rise = day.sunrise ? frac(day.sunrise) : null;
-  const set = day.sunset ? frac(day.sunset) : null;
-  if (rise !== null && set !== null) {
-    return rise < set ? [[0, rise], [set, 1]] : [[set, rise]];
-  }
-  if (rise !== null) return [[0, rise]];
-  if (set !== null) return [[set, 1]];
-  return [];
+  return darkSpans(day, (iso) => (instant(iso) - start) / len, 1);
 }
 
 export interface CurveScale { low: number; high: number }

@@ -134,8 +134,20 @@ function drawSun(doc: PDFKit.PDFDocument, day: DayEntry, f: RowFrame, y: { high:
   }
   const glyph = 7.4 * u;
   const textX = sun.x + sunGlyphWidth(glyph) + 1.5 * u;
+  // Rises on the upper line, sets on the lower, each in time order: near the polar circles a day
+  // can hold two of one kind, and both are printed (narrowed to fit the column if need be).
+  const clocks = (type: 'rise' | 'set') => day.sky.filter((e) => e.body === 'sun' && e.type === type).map((e) => e.clock);
   sunGlyph(doc, true, sun.x, y.high, glyph);
-  put(doc, day.sunriseClock ?? '\u2014', textX, y.high, style);
+  putSunClocks(doc, clocks('rise'), textX, y.high, style, sun.x + sun.w - textX, u);
   sunGlyph(doc, false, sun.x, y.low, glyph);
-  put(doc, day.sunsetClock ?? '\u2014', textX, y.low, style);
+  putSunClocks(doc, clocks('set'), textX, y.low, style, sun.x + sun.w - textX, u);
+}
+
+function putSunClocks(doc: PDFKit.PDFDocument, clocks: string[], x: number, y: number, style: TextStyle,
+  width: number, u: number): void {
+  if (clocks.length <= 1) {
+    put(doc, clocks[0] ?? '\u2014', x, y, style);
+    return;
+  }
+  putFitted(doc, clocks.join(' '), x, y, style, width, 5.2 * u);
 }

@@ -37,9 +37,18 @@ export function monthUnit(g: PageGeometry): number {
   return Math.min(g.scale, width / DESIGN_WIDTH);
 }
 
-export function columns(box: Box, u: number): Columns {
+// A sun column that must hold two clock times on one line (two sunrises or two sunsets in a day,
+// near the polar circles) takes this much more from the lanes.
+const WIDE_SUN_EXTRA = 16;
+
+/** True when some day has two sunrises or two sunsets (they share one line of the sun column). */
+export function needsWideSun(days: readonly DayEntry[]): boolean {
+  return days.some((d) => ['rise', 'set'].some((type) => d.sky.filter((e) => e.body === 'sun' && e.type === type).length > 1));
+}
+
+export function columns(box: Box, u: number, wideSun = false): Columns {
   const spare = Math.max(0, box.width - DESIGN_WIDTH * u);
-  const lanesW = FLEX.lanes * u + spare * 0.6;
+  const lanesW = FLEX.lanes * u + spare * 0.6 - (wideSun ? WIDE_SUN_EXTRA * u : 0);
   const curveW = FLEX.curve * u + spare * 0.4;
   let x = box.x;
   const take = (w: number) => { const c = { x, w }; x += w; return c; };

@@ -5,7 +5,7 @@ import type { Words } from '../locale/index.js';
 import { drawDayRow } from './day-row.js';
 import { laneMark } from './glyphs.js';
 import type { MonthPart } from './month-layout.js';
-import { columns, HEADER_HEIGHT, monthUnit } from './month-layout.js';
+import { columns, HEADER_HEIGHT, monthUnit, needsWideSun } from './month-layout.js';
 import type { LogicalPage, PageContext } from './page.js';
 import type { StationView } from './station-view.js';
 import { HAIRLINE, INK, MID, RULE } from './style.js';
@@ -30,7 +30,7 @@ export function monthPage(view: StationView, part: MonthPart, row: number): Logi
     draw(ctx: PageContext) {
       const { doc, box } = ctx;
       const u = monthUnit(ctx.settings.geometry);
-      const cols = columns(box, u);
+      const cols = columns(box, u, needsWideSun(part.days));
       const units = ctx.settings.units;
       const y0 = box.y;
 

@@ -1,6 +1,7 @@
 // Geometry of the small tide curve drawn for each day of a month page: an SVG path from the model's
 // `curve` heights (local midnight to next local midnight), the chart-datum line, event dots and
 // clock ticks. One vertical scale per station-year so that days can be compared at a glance.
+import { darkSpans } from '../night.js';
 import type { DayEntry, StationYear } from '../../engine/types.js';
 import { instant, offsetSeconds } from '../locale/index.js';
 
@@ -66,17 +67,9 @@ function elapsedToClock(day: DayEntry, hour: number): number {
   return before - (offsetSeconds(day.offsetEnd) - offsetSeconds(day.offsetStart)) / 60;
 }
 
-/** Dark spans of the day in elapsed minutes, from sunrise/sunset or the polar note. */
+/** Dark spans of the day in elapsed minutes, from its sunsets and sunrises or the polar note. */
 function nightSpans(day: DayEntry, start: number, minutes: number): [number, number][] {
-  if (day.sunNote === 'sun-down-all-day') return [[0, minutes]];
-  if (day.sunNote === 'sun-up-all-day') return [];
-  const rise = day.sunrise === null ? null : (instant(day.sunrise) - start) / 60_000;
-  const set = day.sunset === null ? null : (instant(day.sunset) - start) / 60_000;
-  if (rise !== null && set !== null && set < rise) return [[set, rise]]; // sets after midnight, rises again
-  const spans: [number, number][] = [];
-  if (rise !== null) spans.push([0, rise]);
-  if (set !== null) spans.push([set, minutes]);
-  return spans;
+  return darkSpans(day, (iso) => (instant(iso) - start) / 60_000, minutes);
 }
 
 export function dayCurve(day: DayEntry, stepMinutes: number, scale: HeightScale): DayCurve {

@@ -7,6 +7,7 @@ import { dayCurve, heightScale, type DayCurve, type HeightScale } from './curve.
 import { datumLadder, ladderSpan, type DatumRow } from './datums.js';
 import { glanceMonth, yearMaxRange, type GlanceMonth } from './glance.js';
 import { moonLitPath } from './moon.js';
+import { sunTimes } from '../night.js';
 import { relativeUrl } from './paths.js';
 
 export interface FilterHost {
@@ -74,6 +75,7 @@ export function siteFilters(w: Words): Record<string, (...args: never[]) => unkn
       }
       return byDate.get(date) ?? null;
     },
+    sunTimes: (day: DayEntry) => sunTimes(day),
     datumLadder: (datums: Datums): DatumRow[] => datumLadder(datums).map((r) => ({ ...r, name: w.t(`datum.${r.key}` as MessageKey) })),
     // a height above chart datum as a height above the land-levelling datum, which lies chart_datum_below higher
     aboveLand: (metres: number, levelling: { chart_datum_below: number }): number => metres - levelling.chart_datum_below,
