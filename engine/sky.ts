@@ -3,7 +3,6 @@
 
 export { moonQuarters, syzygiesAndQuadratures, QUARTER_NAMES } from './sky/quarters.js';
 export type { MoonQuarter, AstronomicalSpringNeap } from './sky/quarters.js';
-export { meeusPhaseInstant, meeusPhaseJde, meeusQuarters } from './sky/meeus-phases.js';
 export { skyForDays, skyCrossings } from './sky/rise-set.js';
 export type { SkyDay, SkyEvent, SunNote, MoonNote, DaySpan } from './sky/rise-set.js';
 export type { Crossing } from './sky/crossings.js';

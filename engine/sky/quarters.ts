@@ -1,6 +1,6 @@
 // Instants of the Moon's quarters (new, first quarter, full, last quarter) from the ephemeris of
 // `astronomy-engine` (its geocentric ecliptic longitude difference Moon − Sun reaching 0°, 90°,
-// 180°, 270°). Cross-checked in the tests against Meeus (1998) ch. 49 (./meeus-phases.ts).
+// 180°, 270°). Cross-checked in the tests against Meeus (1998) ch. 49 (tests/fixtures/meeus-phases.ts).
 
 import { NextMoonQuarter, SearchMoonQuarter } from 'astronomy-engine';
 import type { MoonPhaseName } from '../types.js';

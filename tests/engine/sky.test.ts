@@ -2,9 +2,10 @@ import { describe, expect, it } from 'vitest';
 import { Body, Equator, Horizon, Illumination, Observer, SearchRiseSet } from 'astronomy-engine';
 import { dayIndexOf, localDays, type LocalDay } from '../../engine/localtime.js';
 import {
-  meeusPhaseJde, meeusQuarters, moonQuarters, skyCrossings, skyForDays, syzygiesAndQuadratures, type SkyDay,
+  moonQuarters, skyCrossings, skyForDays, syzygiesAndQuadratures, type SkyDay,
 } from '../../engine/sky.js';
 import type { Position } from '../../engine/types.js';
+import { meeusPhaseJde, meeusQuarters } from '../fixtures/meeus-phases.js';
 
 const MINUTE = 60_000;
 const DAY = 86_400_000;
