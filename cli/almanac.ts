@@ -1,6 +1,6 @@
 // `tidewright almanac STATION.yaml --year 2027 [--stations DIR] [--format table|json]`:
 // build one station-year model and print it (json: the whole model; table: a short summary).
-// User errors are thrown as TidewrightErrors; cli/main.ts prints them as one line, exit code 1.
+// User errors are thrown as UserErrors; cli/main.ts prints them as one line, exit code 1.
 import { dirname, resolve } from 'node:path';
 import { buildStationYear } from '../engine/almanac.js';
 import { UsageError } from '../engine/errors.js';

@@ -4,7 +4,7 @@
 import { existsSync, readFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { TidewrightError, UsageError } from '../engine/errors.js';
+import { UserError, UsageError } from '../engine/errors.js';
 import { nearestName } from '../engine/stations/suggest.js';
 
 type CommandRunner = (argv: string[]) => Promise<number>;
@@ -139,7 +139,7 @@ export async function main(argv: readonly string[]): Promise<number> {
   try {
     return await dispatch(argv);
   } catch (error) {
-    if (error instanceof TidewrightError) {
+    if (error instanceof UserError) {
       process.stderr.write(`tidewright: ${error.message}\n`);
       return 1;
     }

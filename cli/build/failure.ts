@@ -1,5 +1,5 @@
 // How a failed build is described: which step failed and why, and the exit code that goes with it.
-import { StationFileError, TidewrightError, UsageError } from '../../engine/errors.js';
+import { StationFileError, UserError, UsageError } from '../../engine/errors.js';
 
 /** A step of the build failed (a station's computation, a renderer, a write). */
 export class BuildStepError extends Error {
@@ -13,7 +13,7 @@ export class BuildStepError extends Error {
 }
 
 /** The station set has problems; each is listed, nothing is written. */
-export class StationSetInvalid extends TidewrightError {
+export class StationSetInvalid extends UserError {
   override name = 'StationSetInvalid';
   constructor(readonly problems: readonly StationFileError[]) {
     super(`${problems.length} problem${problems.length === 1 ? '' : 's'} in the station files; nothing was written`);
@@ -51,7 +51,7 @@ export function messageOf(error: unknown): string {
 /** 1 for input the user can fix, 2 for everything else (a fault in tidewright or the machine). */
 export function exitCodeOf(error: unknown): number {
   const cause = error instanceof BuildStepError ? error.cause : error;
-  return cause instanceof TidewrightError ? 1 : 2;
+  return cause instanceof UserError ? 1 : 2;
 }
 
 // Errors cross from worker threads as plain data and are rebuilt on this side with their class.
