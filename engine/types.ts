@@ -1,65 +1,37 @@
 // The public value types of tidewright: stations as loaded, tide events, and the StationYear model.
 // Everything here is plain data (JSON-serialisable); renderers read these and never recompute.
 
+import type * as z from 'zod';
+import type {
+  constituentSchema, positionSchema, referencePortSchema, secondaryPortSchema, windowSchema,
+} from './stations/schema.js';
+
 export type EventType = 'high' | 'low';
 
-export interface Position {
-  latitude: number; // degrees, north positive
-  longitude: number; // degrees, east positive
-}
+// Stations as loaded: each type follows from the station file's zod schema
+// (./stations/schema.ts, where every field's unit and range is stated), so they are written once.
+export type Position = z.output<typeof positionSchema>; // degrees, north and east positive
 
-export interface ConstituentConstant {
-  amplitude: number; // H, metres
-  phase: number; // g, Greenwich phase lag, degrees in [0, 360), UTC
-}
-
-interface StationCommon {
-  id: string; // [a-z0-9-]+, used in file names and URLs
-  name: string;
-  position: Position;
-  timezone: string; // IANA name
-  datum: string; // label of the zero for heights, e.g. "Chart Datum"
-  provenance: string;
-  datum_epoch?: number; // first year of the 19-year span for LAT/HAT (default 2020)
-  number?: string; // the publisher's station number
-  levelling?: { datum: string; chart_datum_below: number }; // metres chart datum lies below the land datum
-  observations?: { from: string; to: string; source: string }; // YYYY-MM-DD, the record the constants come from
-  datum_authority?: string;
-  sourceFile?: string; // path of the file it was loaded from (for error messages)
-  windows?: WindowSpec[]; // access windows (a sill, a bar, a bridge) the almanac times for every day
-}
+export type ConstituentConstant = z.output<typeof constituentSchema>; // H metres, g degrees [0, 360) UTC
 
 export type WindowSide = 'above' | 'below';
 
 /** A station file's window: open while the tide is at or above `above`, or at or below `below` (metres). */
-export interface WindowSpec {
-  id: string; // [a-z0-9-]+, unique per station
-  name: string;
-  above?: number;
-  below?: number;
-}
+export type WindowSpec = z.output<typeof windowSchema>;
 
-export interface ReferenceStation extends StationCommon {
-  kind: 'reference';
-  mean_level: number; // Z0, metres above datum
-  constituents: Record<string, ConstituentConstant>;
-}
+// datum_epoch has a default, so a station built in code may leave it out; the loader adds the path.
+type AsLoaded<T> = Omit<T, 'datum_epoch'> & {
+  datum_epoch?: number; // first year of the 19-year span for LAT/HAT (default 2020)
+  sourceFile?: string; // path of the file it was loaded from (for error messages)
+};
 
-export interface DifferencePair {
-  time: number; // minutes, + later
-  height: number; // metres
-}
+export type ReferenceStation = AsLoaded<z.output<typeof referencePortSchema>>;
 
-export interface SecondaryDifferences {
-  high_water: { springs: DifferencePair; neaps: DifferencePair };
-  low_water: { springs: DifferencePair; neaps: DifferencePair };
-}
+export type SecondaryStation = AsLoaded<z.output<typeof secondaryPortSchema>>;
 
-export interface SecondaryStation extends StationCommon {
-  kind: 'secondary';
-  reference: string; // id of a reference port in the same station set
-  differences: SecondaryDifferences;
-}
+export type SecondaryDifferences = SecondaryStation['differences'];
+
+export type DifferencePair = SecondaryDifferences['high_water']['springs']; // minutes (+ later), metres
 
 export type Station = ReferenceStation | SecondaryStation;
 

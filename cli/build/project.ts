@@ -12,16 +12,8 @@ import {
 
 export const PROJECT_FILE_NAME = 'tidewright.yaml';
 
-export interface ProjectSettings {
-  title?: string;
-  publisher?: string;
-  year?: number;
-  page?: PageSize;
-  units?: Units;
-  locale?: string;
-  imposition?: Imposition;
-  caution?: string;
-}
+/** The settings as read (the schema below is their one definition). */
+export type ProjectSettings = z.output<typeof projectSchema>;
 
 const FIELD_FIX: Readonly<Record<keyof ProjectSettings, string>> = {
   title: 'write the almanac title as text, e.g. title: Brinewold Bay Tide Almanac',
