@@ -1,9 +1,10 @@
 // `tidewright almanac` on a tidal stream station: the StreamYear model as JSON, or a short summary.
 
 import { dirname } from 'node:path';
-import { loadStationSet } from '../engine/stations.js';
+import {
+  loadStationSet, buildStreamYear, type AnyStreamStation, type StreamYear, type StreamYearLookup,
+} from '../engine/index.js';
 import { wordsFor } from '../templates/locale/index.js';
-import { buildStreamYear, type AnyStreamStation, type StreamYear, type StreamYearLookup } from '../engine/streams.js';
 
 /** The set a stream station draws on: its reference stream station and its tide_reference. */
 export function streamAlmanacSet(file: string, station: AnyStreamStation, stationsDir: string | null): StreamYearLookup {

@@ -2,10 +2,8 @@
 // build one station-year model and print it (json: the whole model; table: a short summary).
 // User errors are thrown as UserErrors; cli/main.ts prints them as one line, exit code 1.
 import { dirname, resolve } from 'node:path';
-import { buildStationYear } from '../engine/almanac.js';
-import { UsageError } from '../engine/errors.js';
-import { loadAnyStationFile, loadStationSet } from '../engine/stations.js';
-import type { Station, StationYear } from '../engine/types.js';
+import { buildStationYear, UsageError, loadAnyStationFile, loadStationSet } from '../engine/index.js';
+import type { Station, StationYear } from '../engine/index.js';
 import { wordsFor, type Words } from '../templates/locale/index.js';
 import { oneOf, parseCommandLine, positionalArguments } from './args.js';
 import { streamSummary, streamYearFor } from './almanac-stream.js';

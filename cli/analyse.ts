@@ -5,11 +5,10 @@
 import { readFileSync } from 'node:fs';
 import { basename, extname } from 'node:path';
 import { IANAZone } from 'luxon';
-import { RecordFileError, UsageError } from '../engine/errors.js';
-import { analyseRecord } from '../engine/analysis/harmonic.js';
-import { parseRecord, type GaugeRecord } from '../engine/analysis/record.js';
-import { referenceStationYaml, type StationMeta } from '../engine/analysis/station-yaml.js';
-import { idFromText, parseStation, STATION_ID_PATTERN } from '../engine/stations.js';
+import {
+  RecordFileError, UsageError, analyseRecord, parseRecord, type GaugeRecord, referenceStationYaml,
+  type StationMeta, idFromText, parseStation, STATION_ID_PATTERN,
+} from '../engine/index.js';
 import { renderAnalysisReport } from '../templates/report/analysis-report.js';
 import { parseCommandLine, positionalArguments } from './args.js';
 import { checkOutputFiles, writeOutputFiles, type OutputFile } from './output-files.js';

@@ -3,8 +3,7 @@
 
 import { parseArgs } from 'node:util';
 import { DateTime } from 'luxon';
-import { UsageError } from '../engine/errors.js';
-import { nearestName } from '../engine/stations.js';
+import { UsageError, nearestName } from '../engine/index.js';
 
 type OptionSpec = Record<string, { type: 'string' | 'boolean'; short?: string; multiple?: boolean; default?: string | boolean }>;
 

@@ -1,11 +1,10 @@
 // `tidewright check`: validates a whole station set and lists every problem, not just the first,
 // each naming file, field and fix; then suspicious constants that pass the schema.
 
-import { checkStationSet, suspiciousConstants } from '../engine/stations.js';
-import { StationFileError } from '../engine/errors.js';
-import { windowLevelProblems } from '../engine/windows-check.js';
+import {
+  checkStationSet, suspiciousConstants, StationFileError, windowLevelProblems, suspiciousStream,
+} from '../engine/index.js';
 import { siteFilesFolder } from './build/site-files.js';
-import { suspiciousStream } from '../engine/streams.js';
 import { parseCommandLine, positionalArguments } from './args.js';
 
 export const DEFAULT_STATIONS_DIR = 'stations-demo';

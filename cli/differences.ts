@@ -1,10 +1,9 @@
 // `tidewright differences`: a short gauge record at a secondary port, taken while the reference port's
 // constants are known, in; a secondary-port station file with fitted time and height differences out.
 
-import { UsageError } from '../engine/errors.js';
-import { analyseDifferences } from '../engine/analysis/differences.js';
-import { secondaryStationYaml } from '../engine/analysis/secondary-yaml.js';
-import { loadStationFile, parseStation } from '../engine/stations.js';
+import {
+  UsageError, analyseDifferences, secondaryStationYaml, loadStationFile, parseStation,
+} from '../engine/index.js';
 import { outputTargets, readRecordFile, stationMeta, withNegativeNumbers, writeOutputs } from './analyse.js';
 import { checkOutputFiles } from './output-files.js';
 import { parseCommandLine, positionalArguments } from './args.js';

@@ -1,14 +1,11 @@
 // `tidewright height`: the predicted height at one instant and whether the tide is rising or falling.
 
 import { DateTime } from 'luxon';
-import { CAUTION } from '../engine/almanac/caution.js';
-import { mm } from '../engine/almanac/format.js';
-import { isoLocal, isoUtc } from '../engine/localtime.js';
-import { loadStationFile } from '../engine/stations.js';
-import { heightAndTrend, SECONDARY_WINDOW_NOTE } from '../engine/windows.js';
+import {
+  CAUTION, mm, isoLocal, isoUtc, loadStationFile, heightAndTrend, SECONDARY_WINDOW_NOTE, UsageError,
+} from '../engine/index.js';
 import { oneOf, parseCommandLine, parseWhen, positionalArguments } from './args.js';
 import { stationSetFor } from './predict.js';
-import { UsageError } from '../engine/errors.js';
 
 const FORMATS = ['table', 'json'] as const;
 

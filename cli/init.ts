@@ -3,7 +3,7 @@
 
 import { mkdirSync, readdirSync, statSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { UsageError } from '../engine/errors.js';
+import { UsageError } from '../engine/index.js';
 import { parseCommandLine, positionalArguments } from './args.js';
 import { STARTER_FILES } from './init-files.js';
 

@@ -4,8 +4,7 @@
 import { existsSync, readFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { UserError, UsageError } from '../engine/errors.js';
-import { nearestName } from '../engine/stations/suggest.js';
+import { UserError, UsageError, nearestName } from '../engine/index.js';
 
 type CommandRunner = (argv: string[]) => Promise<number>;
 
@@ -73,7 +72,7 @@ async function loadCommand(name: string): Promise<CommandRunner> {
 }
 
 async function constituentList(): Promise<string> {
-  const { CONSTITUENT_NAMES } = await import('../engine/constituents.js');
+  const { CONSTITUENT_NAMES } = await import('../engine/index.js');
   return `Constituents a station file may list (${CONSTITUENT_NAMES.length}):\n${CONSTITUENT_NAMES.join(' ')}\n`;
 }
 

@@ -4,7 +4,7 @@
 // folder and renamed into place, so a reader never sees half a file and a failure leaves nothing behind.
 import { existsSync, mkdirSync, realpathSync, renameSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { basename, dirname, join, resolve } from 'node:path';
-import { UsageError } from '../engine/errors.js';
+import { UsageError } from '../engine/index.js';
 
 export interface OutputFile {
   option: string; // e.g. --output, named in every error

@@ -2,10 +2,10 @@
 // --every the velocity at that step, as a table for people or as JSON/CSV for programs.
 
 import { DateTime } from 'luxon';
-import { CAUTION } from '../engine/almanac/caution.js';
-import { isoLocal, isoUtc } from '../engine/localtime.js';
-import { STREAM_CAUTION, bearingOf, streamEventsFor, streamVelocities, type StreamLookup } from '../engine/streams.js';
-import type { AnyStreamStation, StreamEvent } from '../engine/streams.js';
+import {
+  CAUTION, isoLocal, isoUtc, STREAM_CAUTION, bearingOf, streamEventsFor, streamVelocities, type StreamLookup,
+} from '../engine/index.js';
+import type { AnyStreamStation, StreamEvent } from '../engine/index.js';
 
 const MINUTE = 60_000;
 

@@ -4,12 +4,10 @@
 import { dirname } from 'node:path';
 import { DateTime } from 'luxon';
 import { wordsFor } from '../templates/locale/index.js';
-import { UsageError } from '../engine/errors.js';
-import { isoLocal, isoUtc } from '../engine/localtime.js';
-import { loadAnyStationFile, loadStationSet, type StationSet } from '../engine/stations.js';
-import type { AnyStreamStation } from '../engine/streams.js';
-import { tideEvents, tideHeights } from '../engine/tides.js';
-import type { Station, TideEvent } from '../engine/types.js';
+import {
+  UsageError, isoLocal, isoUtc, loadAnyStationFile, loadStationSet, type StationSet, tideEvents, tideHeights,
+} from '../engine/index.js';
+import type { AnyStreamStation, Station, TideEvent } from '../engine/index.js';
 import { oneOf, parseCommandLine, parseMinutes, parseWhen, positionalArguments } from './args.js';
 import { renderStreamPrediction, type StreamPredictRequest } from './predict-stream.js';
 

@@ -2,12 +2,11 @@
 // a station-file entry: the question "when can I get over the sill" asked ad hoc.
 
 import { DateTime } from 'luxon';
-import { CAUTION } from '../engine/almanac/caution.js';
-import { UsageError } from '../engine/errors.js';
-import { isoLocal, isoUtc } from '../engine/localtime.js';
-import { loadStationFile } from '../engine/stations.js';
-import type { Station } from '../engine/types.js';
-import { openIntervals, SECONDARY_WINDOW_NOTE, type OpenInterval, type WindowSide } from '../engine/windows.js';
+import {
+  CAUTION, UsageError, isoLocal, isoUtc, loadStationFile, openIntervals, SECONDARY_WINDOW_NOTE,
+  type OpenInterval, type WindowSide,
+} from '../engine/index.js';
+import type { Station } from '../engine/index.js';
 import { oneOf, parseCommandLine, parseWhen, positionalArguments } from './args.js';
 import { stationSetFor } from './predict.js';
 

@@ -15,3 +15,8 @@ export * from './springneap.js';
 export * from './almanac.js';
 export * from './windows.js';
 export * from './streams.js';
+export * from './errors.js';
+export type * from './types.js';
+export type { OffsetChange } from './types.js'; // the same shape as localtime's, named once
+export * from './windows-check.js';
+export { mm } from './almanac/format.js';

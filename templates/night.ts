@@ -1,6 +1,6 @@
 // The dark spans of a day for both renderers' day curves: from every sunset to the sunrise that
 // follows it, inside the day (the model lists every sun rise and set of the day in time order).
-import type { DayEntry } from '../engine/types.js';
+import type { DayEntry } from '../engine/index.js';
 
 /** Dark spans [from, to] on a scale where the day runs 0 … `end`; `at` places an ISO instant on it. */
 export function darkSpans(day: DayEntry, at: (iso: string) => number, end: number): [number, number][] {

@@ -1,5 +1,5 @@
 // The command line of `tidewright build`: parsed and checked, nothing else decided here.
-import { UsageError } from '../../engine/errors.js';
+import { UsageError } from '../../engine/index.js';
 import { LANGUAGES, languageOf } from '../../templates/locale/catalogue.js';
 import { oneOf, parseCommandLine, positionalArguments } from '../args.js';
 import {

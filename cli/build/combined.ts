@@ -1,7 +1,7 @@
 // The combined book in a worker thread of its own, so it is drawn while the main thread renders the
 // website (both need every model; neither needs the other).
 import { Worker } from 'node:worker_threads';
-import type { StationYear } from '../../engine/types.js';
+import type { StationYear } from '../../engine/index.js';
 import { BuildStepError, deserializeError } from './failure.js';
 import { workerExecArgv } from './pool.js';
 import type { RenderChoices } from './options.js';

@@ -2,7 +2,7 @@
 // TypeScript sources run directly (under vitest there is no worker.js to start).
 import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
-import { loadStationSet } from '../../engine/stations.js';
+import { loadStationSet } from '../../engine/index.js';
 import { BuildStepError } from './failure.js';
 import { runPool } from './pool.js';
 import type { ComputeRequest } from './run.js';

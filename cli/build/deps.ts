@@ -1,8 +1,7 @@
 // The real pieces of a build: the stations checker, the engine (in workers) and the renderers.
 // The renderers load only when needed, so a build refused for bad input answers at once.
 import { availableParallelism } from 'node:os';
-import { loadStationSet } from '../../engine/stations.js';
-import { buildStreamYear } from '../../engine/streams.js';
+import { loadStationSet, buildStreamYear } from '../../engine/index.js';
 import { checkStations } from '../check.js';
 import { combinedBookInWorker } from './combined.js';
 import { compiledWorkerUrl, computeStations } from './compute.js';

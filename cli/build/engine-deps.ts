@@ -1,6 +1,5 @@
 // The real engine and renderers a station job uses (the worker and the in-process path share these).
-import { buildStationYear } from '../../engine/almanac.js';
-import { createSkyEphemeris } from '../../engine/sky.js';
+import { buildStationYear, createSkyEphemeris } from '../../engine/index.js';
 import { renderStationBook } from '../../templates/pdf/book.js';
 import type { StationJobDeps } from './station-job.js';
 

@@ -1,5 +1,5 @@
 // How a failed build is described: which step failed and why, and the exit code that goes with it.
-import { StationFileError, UserError, UsageError } from '../../engine/errors.js';
+import { StationFileError, UserError, UsageError } from '../../engine/index.js';
 
 /** A step of the build failed (a station's computation, a renderer, a write). */
 export class BuildStepError extends Error {

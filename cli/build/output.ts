@@ -2,7 +2,7 @@
 // then swaps it in with two renames. Until the swap, the previous output is never touched.
 import { existsSync, lstatSync, mkdirSync, readdirSync, realpathSync, renameSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { basename, dirname, isAbsolute, join, parse, relative, resolve, sep } from 'node:path';
-import { UsageError } from '../../engine/errors.js';
+import { UsageError } from '../../engine/index.js';
 
 /** Left in every output folder so a later build knows the folder is its own to replace. */
 export const OUTPUT_MARKER = '.tidewright-output';

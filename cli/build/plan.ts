@@ -1,7 +1,7 @@
 // One BuildPlan from the command line, the project file and the defaults (in that order of precedence).
 import { existsSync, statSync } from 'node:fs';
 import { resolve } from 'node:path';
-import { UsageError } from '../../engine/errors.js';
+import { UsageError } from '../../engine/index.js';
 import type { BuildArgs } from './args.js';
 import type { BuildPlan } from './options.js';
 import { loadProjectFile } from './project.js';

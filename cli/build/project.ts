@@ -3,8 +3,7 @@ import { existsSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { isMap, parseDocument } from 'yaml';
 import * as z from 'zod';
-import { StationFileError } from '../../engine/errors.js';
-import { nearestName } from '../../engine/stations/suggest.js';
+import { StationFileError, nearestName } from '../../engine/index.js';
 import { LANGUAGES, languageOf } from '../../templates/locale/catalogue.js';
 import {
   FIRST_YEAR, IMPOSITIONS, LAST_YEAR, PAGE_SIZES, UNITS, type Imposition, type PageSize, type Units,

@@ -1,5 +1,5 @@
 // Messages between the build and its worker threads. Everything is plain data (structured clone).
-import type { StationYear } from '../../engine/types.js';
+import type { StationYear } from '../../engine/index.js';
 import type { SerializedError } from './failure.js';
 import type { RenderChoices } from './options.js';
 import type { StationOutcome } from './station-job.js';

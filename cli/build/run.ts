@@ -2,9 +2,9 @@
 // station (workers), render the site and the combined book, then swap the finished folder into place.
 import { mkdir, readdir, stat, writeFile } from 'node:fs/promises';
 import { join } from 'node:path';
-import type { StationFileError } from '../../engine/errors.js';
-import type { Station, StationYear } from '../../engine/types.js';
-import type { AnyStreamStation, StreamYear } from '../../engine/streams/types.js';
+import type {
+  StationFileError, Station, StationYear, AnyStreamStation, StreamYear,
+} from '../../engine/index.js';
 import { BuildStepError, StationSetInvalid } from './failure.js';
 import { poolSize, workUnits } from './groups.js';
 import type { BuildPlan, RenderChoices } from './options.js';

@@ -4,7 +4,7 @@
 // take the place of something the build writes itself.
 import { lstatSync, readdirSync } from 'node:fs';
 import { join } from 'node:path';
-import { StationFileError } from '../../engine/errors.js';
+import { StationFileError } from '../../engine/index.js';
 
 export const SITE_FILES_DIR = 'site-files';
 

@@ -3,8 +3,7 @@
 // are written by the site renderer, which links them from the station pages.)
 import { mkdir, writeFile } from 'node:fs/promises';
 import { join } from 'node:path';
-import type { StationSet } from '../../engine/stations.js';
-import type { Station, StationYear } from '../../engine/types.js';
+import type { StationSet, Station, StationYear } from '../../engine/index.js';
 import type { RenderChoices } from './options.js';
 import { assertSafeId, stationYearFile } from './paths.js';
 

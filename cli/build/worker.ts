@@ -2,7 +2,7 @@
 // once, then computes the stations it is handed, one unit at a time, posting each outcome back.
 // A combined-book worker draws the whole set's book from the models it is sent.
 import { parentPort, workerData } from 'node:worker_threads';
-import { loadStationSet } from '../../engine/stations.js';
+import { loadStationSet } from '../../engine/index.js';
 import { renderCombinedBook } from '../../templates/pdf/book.js';
 import { serializeError } from './failure.js';
 import type { CombinedSetup, FromWorker, ToWorker, WorkerSetup } from './protocol.js';

@@ -1,6 +1,6 @@
 // The events of a station-year as CSV (RFC 4180: CRLF, quoted fields where needed). A few leading
 // lines starting with "# " carry the caution, units and provenance, so a spreadsheet shows them too.
-import type { StationYear } from '../../engine/types.js';
+import type { StationYear } from '../../engine/index.js';
 import { inUnits, wordsFor, type Words } from '../locale/index.js';
 import { exportNotes } from './notes.js';
 

@@ -1,7 +1,7 @@
 // High and low waters of a station-year as one iCalendar file (RFC 5545) that calendar programs import:
 // CRLF line ends, lines folded at 75 octets, TEXT values escaped, times in UTC, stable UIDs and a
 // DTSTAMP taken from the model (not the clock) so two builds of the same input are identical.
-import type { StationYear } from '../../engine/types.js';
+import type { StationYear } from '../../engine/index.js';
 import { wordsFor, type Words } from '../locale/index.js';
 import { windowCalendarEvents } from './windows.js';
 

@@ -1,6 +1,6 @@
 // The events of a station-year as JSON: the station's identity, what the heights are measured from,
 // the caution, and every high and low water (UTC instant, local time, metres above datum).
-import type { StationYear } from '../../engine/types.js';
+import type { StationYear } from '../../engine/index.js';
 import { wordsFor, type Words } from '../locale/index.js';
 
 export function eventsJson(model: StationYear, words: Words = wordsFor()): string {

@@ -1,6 +1,6 @@
 // The plain-text notes every export carries: what the numbers are, the caution, provenance, and for
 // demo data that it is invented. One line each, no line breaks inside (station text is flattened).
-import type { StationYear } from '../../engine/types.js';
+import type { StationYear } from '../../engine/index.js';
 import type { Words } from '../locale/index.js';
 
 const oneLine = (text: string): string => text.replace(/[\r\n\t]+/g, ' ').trim();

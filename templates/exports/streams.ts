@@ -2,7 +2,7 @@
 // same notes as the tide downloads (what the numbers are, both cautions, provenance, invented data).
 import { mkdir, writeFile } from 'node:fs/promises';
 import { join } from 'node:path';
-import type { StreamYear } from '../../engine/streams/types.js';
+import type { StreamYear } from '../../engine/index.js';
 import { csvField } from './csv.js';
 
 const SAFE_ID = /^[a-z0-9-]+$/;

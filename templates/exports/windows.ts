@@ -1,7 +1,7 @@
 // Access windows and hourly heights of a station-year as downloads: windows as CSV and JSON (whole
 // intervals, UTC and local), as iCalendar events for the station's calendar, and the hourly heights as CSV.
-import { SECONDARY_WINDOW_NOTE } from '../../engine/windows.js';
-import type { StationYear, WindowYear } from '../../engine/types.js';
+import { SECONDARY_WINDOW_NOTE } from '../../engine/index.js';
+import type { StationYear, WindowYear } from '../../engine/index.js';
 import { inUnits, wordsFor, type Words } from '../locale/index.js';
 import { csvField } from './csv.js';
 import { escapeText, icalUtc } from './icalendar.js';

@@ -1,7 +1,7 @@
 // Writes the three downloads of a station-year into a folder; the site links to the same names.
 import { mkdir, writeFile } from 'node:fs/promises';
 import { join } from 'node:path';
-import type { StationYear } from '../../engine/types.js';
+import type { StationYear } from '../../engine/index.js';
 import { wordsFor, type Words } from '../locale/index.js';
 import { eventsCsv } from './csv.js';
 import { eventsICalendar } from './icalendar.js';

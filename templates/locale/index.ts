@@ -2,7 +2,7 @@
 // and the sentences built from the model's facts (clock changes, the time zone, warnings, the caution).
 import type {
   DayEntry, EventType, ModelWarning, MoonPhaseName, OffsetChange, SpringNeapKind, StationYear, TideTypeCode,
-} from '../../engine/types.js';
+} from '../../engine/index.js';
 import {
   CATALOGUES, LANGUAGES, languageOf, translator, type Language, type MessageKey, type Params,
 } from './catalogue.js';

@@ -1,5 +1,5 @@
 // Print-ready PDF tide books: one per station-year, and one combined book for a station set.
-import type { StationYear } from '../../engine/types.js';
+import type { StationYear } from '../../engine/index.js';
 import { wordsFor, type Words } from '../locale/index.js';
 import { combinedPages, stationPages } from './compose.js';
 import { bookOrder } from './contents.js';

@@ -1,6 +1,6 @@
 // The caution page: the model's caution in full, then a key to every mark used on the month pages,
 // each drawn with the same code that draws it on the months.
-import type { MoonPhaseName } from '../../engine/types.js';
+import type { MoonPhaseName } from '../../engine/index.js';
 import { drawDayCurve } from './day-curve.js';
 import { printable } from './format.js';
 import { belowDatumMark, clockGlyph, laneMark, moonGlyph, springNeapBadge, sunGlyph, sunGlyphWidth } from './glyphs.js';

@@ -1,5 +1,5 @@
 // The main harmonic constants of a reference port, largest first: what its predictions are made of.
-import type { ReferenceStation } from '../../engine/types.js';
+import type { ReferenceStation } from '../../engine/index.js';
 import type { PageContext } from './page.js';
 import { unit } from './page.js';
 import { DARK, MID } from './style.js';

@@ -1,6 +1,6 @@
 // A tide staff drawn to scale beside the datums table: each datum a line at its true height, the
 // chart datum heavy, labels spread apart where datums lie close together.
-import type { Datums } from '../../engine/types.js';
+import type { Datums } from '../../engine/index.js';
 import type { Box } from './geometry.js';
 import { inUnits, type Words } from '../locale/index.js';
 import type { HeightUnits } from './options.js';

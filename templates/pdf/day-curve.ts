@@ -1,6 +1,6 @@
 // The small tide curve of one day: heights from the model's curve, night shaded from sunset to
 // sunrise, chart datum dashed, water below chart datum filled solid.
-import type { DayEntry } from '../../engine/types.js';
+import type { DayEntry } from '../../engine/index.js';
 import { instant } from '../locale/index.js';
 import { darkSpans } from '../night.js';
 import type { Box } from './geometry.js';

@@ -1,6 +1,6 @@
 // One day of a month page: spring/neap badge, date, moon, the high-water lane above the low-water
 // lane (each in time order), the day's curve, and sunrise/sunset.
-import type { AlmanacEvent, DayEntry } from '../../engine/types.js';
+import type { AlmanacEvent, DayEntry } from '../../engine/index.js';
 import type { Words } from '../locale/index.js';
 import { drawDayCurve } from './day-curve.js';
 import { belowDatumMark, clockGlyph, laneMark, moonGlyph, springNeapBadge, sunGlyph, sunGlyphWidth } from './glyphs.js';

@@ -1,5 +1,5 @@
 // The differences table of a secondary port: how its times and heights follow its reference port.
-import type { SecondaryStation } from '../../engine/types.js';
+import type { SecondaryStation } from '../../engine/index.js';
 import type { PageContext } from './page.js';
 import { unit } from './page.js';
 import { DARK, HAIRLINE, MID, RULE } from './style.js';

@@ -1,6 +1,6 @@
 // The station facts page: where and what the station is, its datums (table and tide staff to scale),
 // ranges and age of the tide, provenance, and for a secondary port its reference and differences.
-import type { SecondaryStation } from '../../engine/types.js';
+import type { SecondaryStation } from '../../engine/index.js';
 import { DATUM_ROWS, drawDatumScale } from './datum-scale.js';
 import { drawConstants } from './constants.js';
 import { drawDifferences } from './differences.js';

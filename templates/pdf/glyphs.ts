@@ -1,6 +1,6 @@
 // The book's own vector marks: moon phases, spring and neap badges, the below-datum mark, lane
 // triangles, sunrise/sunset and clock-change signs. All drawn as paths, none taken from a font.
-import type { MoonPhaseName, SpringNeapKind } from '../../engine/types.js';
+import type { MoonPhaseName, SpringNeapKind } from '../../engine/index.js';
 import { INK, WHITE } from './style.js';
 import { put, putFitted } from './text.js';
 

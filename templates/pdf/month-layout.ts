@@ -1,6 +1,6 @@
 // How a month is split over pages and where each column of a day row sits. Pure geometry: the
 // design is drawn for A5 (unit 1) and scaled to the other formats.
-import type { DayEntry, MonthEntry, StationYear } from '../../engine/types.js';
+import type { DayEntry, MonthEntry, StationYear } from '../../engine/index.js';
 import type { Box, PageGeometry } from './geometry.js';
 import { contentBox } from './geometry.js';
 

@@ -1,6 +1,6 @@
 // A month page: heading with the month, the station, the clock offsets in force and the height
 // unit; column heads; then one row per day.
-import type { DayEntry } from '../../engine/types.js';
+import type { DayEntry } from '../../engine/index.js';
 import type { Words } from '../locale/index.js';
 import { drawDayRow } from './day-row.js';
 import { laneMark } from './glyphs.js';

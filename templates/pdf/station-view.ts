@@ -1,6 +1,6 @@
 // What the pages of one station need beyond the model itself, worked out once per book (layout
 // choices only: scales and page splits, never tide arithmetic).
-import type { StationYear } from '../../engine/types.js';
+import type { StationYear } from '../../engine/index.js';
 import type { Words } from '../locale/index.js';
 import type { PageGeometry } from './geometry.js';
 import type { CurveScale } from './day-curve.js';

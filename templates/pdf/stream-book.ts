@@ -1,7 +1,7 @@
 // The PDF book of a tidal stream station's year: a first page with the station, its directions and
 // both cautions, then one page per month of our own design: per day the slack times, and every
 // strongest flood and ebb with its time, rate and an arrow turned to the direction the water goes.
-import type { StreamAlmanacEvent, StreamDayEntry, StreamYear } from '../../engine/streams/types.js';
+import type { StreamAlmanacEvent, StreamDayEntry, StreamYear } from '../../engine/index.js';
 import { wordsFor, type Words } from '../locale/index.js';
 import { editionDate } from './document.js';
 import { printable } from './format.js';

@@ -5,9 +5,8 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import nunjucks from 'nunjucks';
-import { CAUTION } from '../../engine/almanac/caution.js';
-import type { HarmonicAnalysis } from '../../engine/analysis/harmonic.js';
-import type { StationMeta } from '../../engine/analysis/station-yaml.js';
+import { CAUTION } from '../../engine/index.js';
+import type { HarmonicAnalysis, StationMeta } from '../../engine/index.js';
 import { projectRoot } from '../site/paths.js';
 import { timeSeriesChart } from './chart.js';
 import { sitePaletteCss } from './palette.js';

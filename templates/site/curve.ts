@@ -2,7 +2,7 @@
 // `curve` heights (local midnight to next local midnight), the chart-datum line, event dots and
 // clock ticks. One vertical scale per station-year so that days can be compared at a glance.
 import { darkSpans } from '../night.js';
-import type { DayEntry, StationYear } from '../../engine/types.js';
+import type { DayEntry, StationYear } from '../../engine/index.js';
 import { instant, offsetSeconds } from '../locale/index.js';
 
 export const CURVE_WIDTH = 300;

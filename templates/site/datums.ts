@@ -1,6 +1,6 @@
 // The station's datums as a ladder: highest first, with the y of each level on a small vertical
 // scale and label positions pushed apart where levels lie close (LAT and MLWS often do).
-import type { Datums } from '../../engine/types.js';
+import type { Datums } from '../../engine/index.js';
 
 export const LADDER_HEIGHT = 210;
 const TOP = 10;

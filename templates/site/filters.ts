@@ -1,7 +1,8 @@
 // The filters templates use: every number is formatted and every drawing computed here, so the
 // templates only place what these return. Registered by renderSite (or by .eleventy.js on its own).
-import type { DayEntry, Datums, MoonPhaseEntry, MoonPhaseName, StationYear } from '../../engine/types.js';
-import type { ModelWarning, OffsetChange, TideTypeCode } from '../../engine/types.js';
+import type {
+  DayEntry, Datums, MoonPhaseEntry, MoonPhaseName, StationYear, ModelWarning, OffsetChange, TideTypeCode,
+} from '../../engine/index.js';
 import type { MessageKey, Words } from '../locale/index.js';
 import { dayCurve, heightScale, type DayCurve, type HeightScale } from './curve.js';
 import { datumLadder, ladderSpan, type DatumRow } from './datums.js';

@@ -1,7 +1,7 @@
 // Geometry of the year-at-a-glance: for each month a strip of daily range bars (one bar per day, all
 // months on the station-year's own scale), moon quarters above the bars, springs and neaps lettered
 // below, and the same facts in words for readers who do not read charts.
-import type { MonthEntry, MoonPhaseName, StationYear } from '../../engine/types.js';
+import type { MonthEntry, MoonPhaseName, StationYear } from '../../engine/index.js';
 
 export const GLANCE_PITCH = 8;
 export const GLANCE_BAR = 6;

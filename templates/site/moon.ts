@@ -1,7 +1,7 @@
 // Our moon-quarter glyph: a dark disc with the lit part drawn over it, seen as from the station's own
 // hemisphere (south of the equator the first quarter is lit on the left). Drawn in a 20 × 20 box
 // centred on 0,0; the template adds the ring and the words.
-import type { MoonPhaseName } from '../../engine/types.js';
+import type { MoonPhaseName } from '../../engine/index.js';
 
 export const MOON_RADIUS = 8;
 

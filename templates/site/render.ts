@@ -11,8 +11,7 @@
 import { copyFile, link, mkdir, rm } from 'node:fs/promises';
 import { join, resolve } from 'node:path';
 import Eleventy from '@11ty/eleventy';
-import type { StationYear } from '../../engine/types.js';
-import type { StreamYear } from '../../engine/streams/types.js';
+import type { StationYear, StreamYear } from '../../engine/index.js';
 import { writeStreamExports } from '../exports/streams.js';
 import { writeExports } from '../exports/write.js';
 import { registerSiteFilters } from './filters.js';

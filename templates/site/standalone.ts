@@ -2,9 +2,7 @@
 // models handed over: the demo station set for next calendar year, straight from the engine.
 // Downloads are written only by renderSite, so the pages say so instead of linking to them.
 import { join } from 'node:path';
-import { buildStationYear } from '../../engine/almanac.js';
-import { createSkyEphemeris } from '../../engine/sky.js';
-import { loadStationSet } from '../../engine/stations.js';
+import { buildStationYear, createSkyEphemeris, loadStationSet } from '../../engine/index.js';
 import { projectRoot } from './paths.js';
 import { buildSiteData, type SiteData } from './views.js';
 

@@ -2,8 +2,7 @@
 // stream-year and one per month, with their URLs and neighbours. Stream stations are listed in the
 // index with the tide stations of their area: the group of their tide_reference (or of their
 // reference stream station's tide_reference); the others form a group of their own.
-import type { MonthEntry } from '../../engine/types.js';
-import type { StreamYear } from '../../engine/streams/types.js';
+import type { MonthEntry, StreamYear } from '../../engine/index.js';
 import type { Words } from '../locale/index.js';
 import { streamExportFileNames } from '../exports/streams.js';
 import type { DatedChange, IndexYear, PageLink } from './views.js';

@@ -1,8 +1,9 @@
 // The site's page structure, built once from the models: the grouped index, one entry per
 // station-year page and per month page (with their URLs and neighbours). Numbers stay in the models;
 // formatting and drawing happen in the filters while each page renders.
-import type { MonthEntry, OffsetChange, Station, StationYear, TideTypeCode } from '../../engine/types.js';
-import type { StreamYear } from '../../engine/streams/types.js';
+import type {
+  MonthEntry, OffsetChange, Station, StationYear, TideTypeCode, StreamYear,
+} from '../../engine/index.js';
 import { exportFileNames } from '../exports/write.js';
 import { wordsFor, type Units, type Words } from '../locale/index.js';
 import { indexStreams, streamPages, type IndexStream, type StreamMonthPage, type StreamYearPage } from './stream-views.js';

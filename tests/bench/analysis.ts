@@ -3,8 +3,7 @@
 // constituents, and again with the Rayleigh choice. Reports time (median of a few runs, and CPU time,
 // steadier on a busy machine) and memory: heap growth during one analysis, and the process's peak
 // resident size (maxRSS).
-import { analyseRecord } from '../../engine/analysis/harmonic.js';
-import { compilePredictor } from '../../engine/predict.js';
+import { analyseRecord, compilePredictor } from '../../engine/index.js';
 import { degrade, evenTimes, HOUR, recordOf } from '../fixtures/analysis-records.js';
 import { sixtyConstituentStation } from '../fixtures/engine-stations.js';
 

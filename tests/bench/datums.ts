@@ -1,8 +1,8 @@
 // Benchmark of the datums: LAT and HAT over the 19-year epoch of a 60-constituent station from the
 // high/low water search, against 1-minute sampling with direct cosines over the same span (target
 // ≥ 30×). The sampling is timed over one year and scaled by 19 (19 years of it would take minutes).
-import { astronomicalExtremes, datumEpoch, epochTideEvents, stationDatums } from '../../engine/datums.js';
-import type { ReferenceStation } from '../../engine/types.js';
+import { astronomicalExtremes, datumEpoch, epochTideEvents, stationDatums } from '../../engine/index.js';
+import type { ReferenceStation } from '../../engine/index.js';
 import { sixtyConstituentStation } from '../fixtures/engine-stations.js';
 import { directMinuteSeries } from './direct.js';
 

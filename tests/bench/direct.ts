@@ -1,7 +1,6 @@
 // The baseline the benchmarks measure against: direct cosine sums at 1-minute steps.
-import { findConstituent } from '../../engine/constituents.js';
-import { compileAstronomicalTerms } from '../../engine/nodal.js';
-import type { ReferenceStation } from '../../engine/types.js';
+import { findConstituent, compileAstronomicalTerms } from '../../engine/index.js';
+import type { ReferenceStation } from '../../engine/index.js';
 
 const DAY = 86_400_000;
 const DEG = Math.PI / 180;

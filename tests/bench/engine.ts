@@ -3,8 +3,7 @@
 //     loop (f, u and V₀ evaluated once a day, one cosine per constituent per step); target ≥ 3×;
 // (b) all high and low waters of that station-year: findExtrema against 1-minute sampling with direct
 //     cosines (which is also 60 times coarser in time); target ≥ 30×.
-import { findExtrema } from '../../engine/extrema.js';
-import { compilePredictor } from '../../engine/predict.js';
+import { findExtrema, compilePredictor } from '../../engine/index.js';
 import { sixtyConstituentStation } from '../fixtures/engine-stations.js';
 import { directMinuteSeries } from './direct.js';
 

@@ -4,9 +4,8 @@
 import { dirname, join } from 'node:path';
 import { readdirSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
-import { buildStationYear } from '../../engine/almanac.js';
-import { loadStationSet } from '../../engine/stations.js';
-import type { StationYear } from '../../engine/types.js';
+import { buildStationYear, loadStationSet } from '../../engine/index.js';
+import type { StationYear } from '../../engine/index.js';
 import { renderCombinedBook, renderStationBook } from '../../templates/pdf/book.js';
 
 const YEAR = 2027;

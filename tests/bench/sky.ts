@@ -3,8 +3,7 @@
 // (every station of a build after the first), and cold (the first station, which fills the grid);
 // beside it, the same events found one after another by astronomy-engine's SearchRiseSet.
 import { Body, Observer, SearchRiseSet } from 'astronomy-engine';
-import { localDays } from '../../engine/localtime.js';
-import { createSkyEphemeris, skyForDays } from '../../engine/sky.js';
+import { localDays, createSkyEphemeris, skyForDays } from '../../engine/index.js';
 
 const DAY = 86_400_000;
 const RUNS = 5;

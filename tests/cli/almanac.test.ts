@@ -5,9 +5,8 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, afterEach, describe, expect, it, vi } from 'vitest';
 import { runCli } from '../fixtures/run-cli.js';
-import { buildStationYear } from '../../engine/almanac.js';
-import { loadStationSet } from '../../engine/stations.js';
-import type { StationYear } from '../../engine/types.js';
+import { buildStationYear, loadStationSet } from '../../engine/index.js';
+import type { StationYear } from '../../engine/index.js';
 import { wordsFor } from '../../templates/locale/index.js';
 
 const ROOT = join(import.meta.dirname, '..', '..');

@@ -7,10 +7,8 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, afterEach, describe, expect, it, vi } from 'vitest';
 import { runCli } from '../fixtures/run-cli.js';
-import { loadStationFile } from '../../engine/stations.js';
-import { compilePredictor } from '../../engine/predict.js';
-import { tideHeights } from '../../engine/tides.js';
-import type { ReferenceStation, SecondaryStation, Station } from '../../engine/types.js';
+import { loadStationFile, compilePredictor, tideHeights } from '../../engine/index.js';
+import type { ReferenceStation, SecondaryStation, Station } from '../../engine/index.js';
 import { DAY, degrade, evenTimes, recordCsv, recordOf } from '../fixtures/analysis-records.js';
 
 const dir = mkdtempSync(join(tmpdir(), 'tidewright-analyse-'));

@@ -3,7 +3,7 @@ import { mkdtempSync, mkdirSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { StationFileError, UsageError } from '../../engine/errors.js';
+import { StationFileError, UsageError } from '../../engine/index.js';
 import { parseBuildArgs } from '../../cli/build/args.js';
 import { defaultYear, makePlan } from '../../cli/build/plan.js';
 import { loadProjectFile } from '../../cli/build/project.js';

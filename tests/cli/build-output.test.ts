@@ -5,7 +5,7 @@ import { existsSync, mkdirSync, mkdtempSync, readFileSync, readdirSync, rmSync, 
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { UsageError } from '../../engine/errors.js';
+import { UsageError } from '../../engine/index.js';
 import {
   commitOutput, createTemp, discardTemp, OUTPUT_MARKER, planOutput, recoverStale,
 } from '../../cli/build/output.js';

@@ -5,7 +5,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { afterAll, describe, expect, it } from 'vitest';
-import { StationFileError } from '../../engine/errors.js';
+import { StationFileError } from '../../engine/index.js';
 import { BuildStepError, deserializeError, serializeError } from '../../cli/build/failure.js';
 import { runPool, workerExecArgv, type PoolRun } from '../../cli/build/pool.js';
 import type { StationOutcome } from '../../cli/build/station-job.js';

@@ -5,8 +5,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { DateTime } from 'luxon';
 import { afterAll, afterEach, describe, expect, it, vi } from 'vitest';
-import { buildStationYear } from '../../engine/almanac.js';
-import { loadStationSet } from '../../engine/stations.js';
+import { buildStationYear, loadStationSet } from '../../engine/index.js';
 import { loadProjectFile } from '../../cli/build/project.js';
 import { runCli } from '../fixtures/run-cli.js';
 

@@ -5,8 +5,8 @@ import { mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, symlinkSync,
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { compilePredictor } from '../../engine/predict.js';
-import type { ReferenceStation } from '../../engine/types.js';
+import { compilePredictor } from '../../engine/index.js';
+import type { ReferenceStation } from '../../engine/index.js';
 import { evenTimes, recordCsv, recordOf } from '../fixtures/analysis-records.js';
 import { runCli } from '../fixtures/run-cli.js';
 

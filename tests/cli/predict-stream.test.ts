@@ -5,8 +5,7 @@
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { runCli } from '../fixtures/run-cli.js';
-import { loadStationSet } from '../../engine/stations.js';
-import { streamEventsFor, streamVelocities } from '../../engine/streams.js';
+import { loadStationSet, streamEventsFor, streamVelocities } from '../../engine/index.js';
 
 const ROOT = join(import.meta.dirname, '..', '..');
 const DEMO = join(ROOT, 'stations-demo');

@@ -7,11 +7,10 @@ import { join } from 'node:path';
 import { DateTime } from 'luxon';
 import { afterEach, beforeAll, describe, expect, it, vi } from 'vitest';
 import { runCli } from '../fixtures/run-cli.js';
-import { findExtrema } from '../../engine/extrema.js';
-import { compilePredictor } from '../../engine/predict.js';
-import { loadStationFile, loadStationSet } from '../../engine/stations.js';
-import { tideEvents, tideHeights } from '../../engine/tides.js';
-import type { ReferenceStation } from '../../engine/types.js';
+import {
+  findExtrema, compilePredictor, loadStationFile, loadStationSet, tideEvents, tideHeights,
+} from '../../engine/index.js';
+import type { ReferenceStation } from '../../engine/index.js';
 
 const ROOT = join(import.meta.dirname, '..', '..');
 const GOOD = join(ROOT, 'tests', 'fixtures', 'stations-good');

@@ -4,12 +4,12 @@ import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, symlinkSync, 
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { StationFileError } from '../../engine/errors.js';
+import { StationFileError } from '../../engine/index.js';
+import type { Station } from '../../engine/index.js';
 import { checkStations } from '../../cli/check.js';
 import { siteFilesFolder } from '../../cli/build/site-files.js';
 import type { BuildPlan } from '../../cli/build/options.js';
 import { buildAlmanac, type BuildDeps, type BuildEvents } from '../../cli/build/run.js';
-import type { Station } from '../../engine/types.js';
 import { renderSite } from '../../templates/site/render.js';
 import { sampleYear } from '../fixtures/sample-year.js';
 

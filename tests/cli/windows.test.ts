@@ -6,8 +6,7 @@ import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, afterEach, describe, expect, it, vi } from 'vitest';
-import { parseStation } from '../../engine/stations.js';
-import { StationFileError } from '../../engine/errors.js';
+import { parseStation, StationFileError } from '../../engine/index.js';
 import { runCli } from '../fixtures/run-cli.js';
 
 afterEach(() => vi.restoreAllMocks());

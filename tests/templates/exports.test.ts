@@ -5,7 +5,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import ICAL from 'ical.js';
 import { beforeAll, describe, expect, it } from 'vitest';
-import type { StationYear } from '../../engine/types.js';
+import type { StationYear } from '../../engine/index.js';
 import { csvField, eventsCsv } from '../../templates/exports/csv.js';
 import { escapeText, eventsICalendar, foldLine } from '../../templates/exports/icalendar.js';
 import { eventsJson } from '../../templates/exports/json.js';

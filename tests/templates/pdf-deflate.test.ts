@@ -2,8 +2,7 @@
 // thread is stopped in the middle of a call (Ctrl-C during a build), so PDF writing must not use them.
 import { createRequire } from 'node:module';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { buildStationYear } from '../../engine/almanac.js';
-import { loadStationSet } from '../../engine/stations.js';
+import { buildStationYear, loadStationSet } from '../../engine/index.js';
 import { renderStationBook } from '../../templates/pdf/book.js';
 
 // the module object itself, which pdfkit and every other library share

@@ -5,9 +5,8 @@ import { existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { buildStationYear } from '../../engine/almanac.js';
-import { loadStationSet } from '../../engine/stations.js';
-import type { AlmanacEvent, StationYear } from '../../engine/types.js';
+import { buildStationYear, loadStationSet } from '../../engine/index.js';
+import type { AlmanacEvent, StationYear } from '../../engine/index.js';
 import { renderCombinedBook, renderStationBook } from '../../templates/pdf/book.js';
 import { wordsFor } from '../../templates/locale/index.js';
 

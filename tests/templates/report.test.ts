@@ -1,8 +1,7 @@
 import { HtmlValidate } from 'html-validate';
 import { describe, expect, it } from 'vitest';
-import { analyseRecord } from '../../engine/analysis/harmonic.js';
-import { compilePredictor } from '../../engine/predict.js';
-import type { ReferenceStation } from '../../engine/types.js';
+import { analyseRecord, compilePredictor } from '../../engine/index.js';
+import type { ReferenceStation } from '../../engine/index.js';
 import { mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';

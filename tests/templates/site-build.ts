@@ -2,9 +2,8 @@
 // the rarer marks edited into a copy where the demo year has none, and helpers to read built pages.
 import { readdirSync, readFileSync } from 'node:fs';
 import { join, relative } from 'node:path';
-import { buildStationYear } from '../../engine/almanac.js';
-import { loadStationSet } from '../../engine/stations.js';
-import type { StationYear } from '../../engine/types.js';
+import { buildStationYear, loadStationSet } from '../../engine/index.js';
+import type { StationYear } from '../../engine/index.js';
 
 export const HOSTILE_NAME = '<script>alert("x")</script> Quay & "Pier" <b>';
 export const DEMO_DIR = join(import.meta.dirname, '..', '..', 'stations-demo');

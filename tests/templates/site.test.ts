@@ -5,7 +5,7 @@ import { tmpdir } from 'node:os';
 import { dirname, join, resolve } from 'node:path';
 import { HtmlValidate } from 'html-validate';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { StationYear } from '../../engine/types.js';
+import type { StationYear } from '../../engine/index.js';
 import { renderSite } from '../../templates/site/render.js';
 import {
   HOSTILE_NAME, demoModels, htmlFiles, read, rowById, textOf, withHostileText, withLowWaterBelowDatum,

@@ -7,8 +7,8 @@ import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'no
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { buildStationYear } from '../../engine/almanac.js';
-import type { DayEntry, ReferenceStation, StationYear } from '../../engine/types.js';
+import { buildStationYear } from '../../engine/index.js';
+import type { DayEntry, ReferenceStation, StationYear } from '../../engine/index.js';
 import { renderStationBook } from '../../templates/pdf/book.js';
 import { renderSite } from '../../templates/site/render.js';
 import { rowById, textOf } from './site-build.js';

@@ -5,8 +5,7 @@ import { existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { loadStationSet } from '../../engine/stations.js';
-import { buildStreamYear, type StreamYear } from '../../engine/streams.js';
+import { loadStationSet, buildStreamYear, type StreamYear } from '../../engine/index.js';
 import { renderStreamBook } from '../../templates/pdf/stream-book.js';
 import { wordsFor } from '../../templates/locale/index.js';
 

@@ -6,8 +6,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { HtmlValidate } from 'html-validate';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { loadStationSet } from '../../engine/stations.js';
-import { buildStreamYear, type StreamYear } from '../../engine/streams.js';
+import { loadStationSet, buildStreamYear, type StreamYear } from '../../engine/index.js';
 import { renderSite } from '../../templates/site/render.js';
 import { demoModels, htmlFiles, read, textOf } from './site-build.js';
 
