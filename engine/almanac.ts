@@ -12,7 +12,8 @@ import { UsageError } from './errors.js';
 import {
   clock, dayIndexOf, isoLocal, isoUtc, localDate, localDays, parseDateInZone, type LocalDay,
 } from './localtime.js';
-import { moonQuarters, skyForDays, type DaySpan, type MoonQuarter, type SkyEphemeris } from './sky.js';
+import { createEngineContext, type EngineContext } from './context.js';
+import { moonQuarters, skyForDays, type DaySpan, type MoonQuarter } from './sky.js';
 import { dayRange, springNeapMarkers } from './springneap.js';
 import {
   cosineCurve, harmonicStationOf, predictorFor, tideEvents, type StationLookup,
@@ -27,8 +28,12 @@ export { CAUTION, isInvented } from './almanac/caution.js';
 export interface AlmanacOptions {
   /** Minutes between the points of each day's curve; must divide 60. Default 30 (fits half-hour clock changes). */
   curveStepMinutes?: number;
-  /** Sun and Moon positions shared by the stations of one build (created with createSkyEphemeris). */
-  sky?: SkyEphemeris;
+  /**
+   * The caches to use and fill (predictors, datums, a reference port's 19 years of events, Sun and
+   * Moon positions): pass one context to the stations that may share them, then drop it. Default: a
+   * new context for this station-year alone.
+   */
+  context?: EngineContext;
 }
 
 const MINUTE = 60_000;
@@ -44,6 +49,7 @@ export function buildStationYear(
   if (!Number.isInteger(step) || step <= 0 || 60 % step !== 0) {
     throw new UsageError('curveStepMinutes', `${step} does not divide an hour`, 'use 10, 15, 20 or 30');
   }
+  const ctx = options.context ?? createEngineContext();
   const zone = station.timezone;
   const reference = harmonicStationOf(station, set);
   const days = localDays(year, zone);
@@ -52,24 +58,24 @@ export function buildStationYear(
   const yearEnd = days[days.length - 1]!.end;
 
   // One event list for everything: the year's events are those printed on one of its days.
-  const allEvents = tideEvents(station, set, padDays[0]!.start - DAY, padDays[padDays.length - 1]!.end + DAY);
+  const allEvents = tideEvents(station, set, padDays[0]!.start - DAY, padDays[padDays.length - 1]!.end + DAY, ctx);
   const yearEvents = allEvents.filter((e) => dayIndexOf(days, e.time) >= 0);
   if (yearEvents.length === 0) throw new RangeError(`no high or low water predicted for ${station.id} in ${year}`);
   const events = yearEvents.map((e) => almanacEvent(e, zone));
 
-  const summary = stationDatums(station, set);
+  const summary = stationDatums(station, set, ctx);
   const quarters = moonQuarters(padDays[0]!.start - 20 * DAY, padDays[padDays.length - 1]!.end + 5 * DAY);
   const moonPhases = yearQuarters(quarters, days, zone);
   const springNeap = springNeapEntries(allEvents, padDays, days, quarters, summary.ageOfTideHours);
 
   const sample = station.kind === 'reference'
-    ? (s: number, st: number, n: number) => predictorFor(station).heights(s, st, n)
+    ? (s: number, st: number, n: number) => predictorFor(station, ctx).heights(s, st, n)
     : (s: number, st: number, n: number) => cosineCurve(allEvents, s, st, n);
   const curves = days.map((d) => dayCurve(d, step * MINUTE, sample));
 
   const dayList = dayEntries({
     zone, days, events: yearEvents, formatted: events, rangeEvents: allEvents, curves,
-    sky: skyForDays(days, station.position, zone, options.sky),
+    sky: skyForDays(days, station.position, zone, ctx.sky),
     moonPhaseOn: new Map(moonPhases.map((m) => [m.date, m.phase] as [string, MoonPhaseName])),
     springNeapOn: new Map(springNeap.map((s) => [s.date, s.kind] as [string, SpringNeapKind])),
   });
@@ -83,7 +89,7 @@ export function buildStationYear(
       offset: e.offset, LAT: summary.datums.LAT, epoch: { ...summary.datums.epoch } });
   }
 
-  const windows = yearWindows(station, set, days, allEvents, yearEvents);
+  const windows = yearWindows(station, set, days, allEvents, yearEvents, ctx);
   for (const w of windows) {
     const line = outOfRangeWarning(w, year);
     if (line) warnings.push(line);
@@ -109,7 +115,7 @@ export function buildStationYear(
     offsetChanges: dayList.flatMap((d) => (d.offsetChange ? [d.offsetChange] : [])),
     extremes: yearExtremes(yearEvents, events),
     warnings,
-    hourly: hourlyHeights(station, set, days, allEvents),
+    hourly: hourlyHeights(station, set, days, allEvents, ctx),
     windows,
     generator: generator(),
   };

@@ -1,5 +1,6 @@
 // Tidal datums of a station: LAT and HAT from 19 years of predicted high and low waters, the mean
 // spring and neap levels from the constants, the tide type from the form number, the age of the tide.
+import type { EngineContext } from './context.js';
 import { DEFAULT_DATUM_EPOCH } from './stations/schema.js';
 import { secondaryEventsFrom, secondaryPaddingMs } from './secondary.js';
 import { harmonicStationOf, tideEvents, type StationLookup } from './tides.js';
@@ -105,54 +106,58 @@ export function astronomicalExtremes(events: readonly TideEvent[]): { LAT: numbe
   return { LAT, HAT };
 }
 
-// Per station object (and, for a secondary port, per reference object it was computed with).
-const cache = new WeakMap<Station, { reference: ReferenceStation; summary: DatumSummary }>();
-
 /**
  * Datums of any station. LAT/HAT: lowest and highest of all predicted high and low waters over the
  * epoch — the harmonic extrema for a reference port, the secondary port's own derived events for a
  * secondary port. Tide type and age of the tide come from the harmonic (reference) constants.
  */
-export function stationDatums(station: Station, set: StationLookup): DatumSummary {
+export function stationDatums(station: Station, set: StationLookup, ctx?: EngineContext): DatumSummary {
   const reference = harmonicStationOf(station, set);
-  const hit = cache.get(station);
+  // Kept in the context per station object (and the reference object it was computed with).
+  const hit = ctx?.datums.get(station);
   if (hit && hit.reference === reference) return hit.summary;
-  const summary = computeDatums(station, reference, set);
-  cache.set(station, { reference, summary });
+  const summary = computeDatums(station, reference, set, ctx);
+  ctx?.datums.set(station, { reference, summary });
   return summary;
 }
 
-// The reference port's events over an epoch and a few days either side, kept so that its secondary
-// ports reuse them instead of predicting the same 19 years again.
+// The reference port's events over an epoch and a few days either side, kept in the context so
+// that its secondary ports reuse them instead of predicting the same 19 years again.
 const EPOCH_PAD = 3 * DAY;
-const epochEvents = new WeakMap<ReferenceStation, Map<number, TideEvent[]>>();
 
-function referenceEpochEvents(reference: ReferenceStation, set: StationLookup, from: number): TideEvent[] {
-  let byEpoch = epochEvents.get(reference);
-  if (!byEpoch) epochEvents.set(reference, (byEpoch = new Map()));
+function referenceEpochEvents(
+  reference: ReferenceStation, set: StationLookup, from: number, ctx?: EngineContext,
+): TideEvent[] {
+  let byEpoch = ctx?.epochEvents.get(reference);
+  if (!byEpoch) {
+    byEpoch = new Map<number, TideEvent[]>();
+    ctx?.epochEvents.set(reference, byEpoch);
+  }
   let events = byEpoch.get(from);
   if (!events) {
     const start = Date.UTC(from, 0, 1);
     const end = Date.UTC(from + DATUM_EPOCH_YEARS, 0, 1);
-    events = tideEvents(reference, set, start - EPOCH_PAD, end + EPOCH_PAD);
+    events = tideEvents(reference, set, start - EPOCH_PAD, end + EPOCH_PAD, ctx);
     byEpoch.set(from, events);
   }
   return events;
 }
 
 /** Every high and low water of a station over its datum epoch (secondary ports: their own events). */
-export function epochTideEvents(station: Station, set: StationLookup): TideEvent[] {
+export function epochTideEvents(station: Station, set: StationLookup, ctx?: EngineContext): TideEvent[] {
   const epoch = datumEpoch(station);
   const inEpoch = (e: TideEvent) => e.time >= epoch.start && e.time < epoch.end;
-  if (station.kind === 'reference') return referenceEpochEvents(station, set, epoch.from).filter(inEpoch);
-  if (secondaryPaddingMs(station) > EPOCH_PAD) return tideEvents(station, set, epoch.start, epoch.end);
+  if (station.kind === 'reference') return referenceEpochEvents(station, set, epoch.from, ctx).filter(inEpoch);
+  if (secondaryPaddingMs(station) > EPOCH_PAD) return tideEvents(station, set, epoch.start, epoch.end, ctx);
   const reference = harmonicStationOf(station, set);
-  return secondaryEventsFrom(referenceEpochEvents(reference, set, epoch.from), reference, station).filter(inEpoch);
+  return secondaryEventsFrom(referenceEpochEvents(reference, set, epoch.from, ctx), reference, station).filter(inEpoch);
 }
 
-function computeDatums(station: Station, reference: ReferenceStation, set: StationLookup): DatumSummary {
+function computeDatums(
+  station: Station, reference: ReferenceStation, set: StationLookup, ctx?: EngineContext,
+): DatumSummary {
   const epoch = datumEpoch(station);
-  const { LAT, HAT } = astronomicalExtremes(epochTideEvents(station, set));
+  const { LAT, HAT } = astronomicalExtremes(epochTideEvents(station, set, ctx));
   const levels = station.kind === 'reference' ? harmonicLevels(station) : secondaryLevels(reference, station);
   const datums: Datums = {
     LAT: mm(LAT), HAT: mm(HAT),

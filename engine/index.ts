@@ -20,3 +20,4 @@ export type * from './types.js';
 export type { OffsetChange } from './types.js'; // the same shape as localtime's, named once
 export * from './windows-check.js';
 export { mm } from './almanac/format.js';
+export * from './context.js';

@@ -297,19 +297,18 @@ function accumulateWindow(
   }
 }
 
-const directCache = new WeakMap<ReferenceStation, CompiledConstants>();
-
-/** Reference evaluation: V, f and u computed at the very instant t, one cosine per constituent. */
-export function directHeight(station: ReferenceStation, t: number): number {
-  let k = directCache.get(station);
-  if (!k) {
-    k = compileConstants(station);
-    directCache.set(station, k);
-  }
-  k.terms.evaluate(t, k.V, k.f, k.u);
-  let h = station.mean_level;
-  for (let i = 0; i < k.names.length; i++) {
-    h += k.f[i]! * k.H[i]! * Math.cos((k.V[i]! + k.u[i]! - k.g[i]!) * DEG);
-  }
-  return h;
+/**
+ * Reference evaluation: a function of the instant that computes V, f and u at that very instant,
+ * one cosine per constituent (the constants are compiled once, when it is made).
+ */
+export function directHeights(station: ReferenceStation): (t: number) => number {
+  const k = compileConstants(station);
+  return (t: number): number => {
+    k.terms.evaluate(t, k.V, k.f, k.u);
+    let h = station.mean_level;
+    for (let i = 0; i < k.names.length; i++) {
+      h += k.f[i]! * k.H[i]! * Math.cos((k.V[i]! + k.u[i]! - k.g[i]!) * DEG);
+    }
+    return h;
+  };
 }

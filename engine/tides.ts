@@ -2,6 +2,7 @@
 // Reference ports: the harmonic predictor and its extrema. Secondary ports: events from the
 // reference port's events by interpolated differences (./secondary.ts), heights by the cosine curve.
 import { findExtrema } from './extrema.js';
+import type { EngineContext } from './context.js';
 import { compilePredictor } from './predict.js';
 import {
   referencePortOf, secondaryEventsFrom, secondaryPaddingMs, type StationLookup,
@@ -14,15 +15,12 @@ type Predictor = ReturnType<typeof compilePredictor>;
 
 const DAY = 86_400_000;
 
-// Compiled once per loaded station object; a reloaded station file is a new object, so never stale.
-const predictors = new WeakMap<ReferenceStation, Predictor>();
-
-/** The compiled harmonic predictor of a reference port, cached per station object. */
-export function predictorFor(station: ReferenceStation): Predictor {
-  let p = predictors.get(station);
+/** The compiled harmonic predictor of a reference port, kept in the context per station object. */
+export function predictorFor(station: ReferenceStation, ctx?: EngineContext): Predictor {
+  let p = ctx?.predictors.get(station);
   if (!p) {
     p = compilePredictor(station);
-    predictors.set(station, p);
+    ctx?.predictors.set(station, p);
   }
   return p;
 }
@@ -33,18 +31,20 @@ export function harmonicStationOf(station: Station, set: StationLookup): Referen
 }
 
 /** Every high and low water with from ≤ time < to (UTC ms), in time order. */
-export function tideEvents(station: Station, set: StationLookup, from: number, to: number): TideEvent[] {
+export function tideEvents(
+  station: Station, set: StationLookup, from: number, to: number, ctx?: EngineContext,
+): TideEvent[] {
   if (!(to > from)) return [];
-  if (station.kind === 'reference') return findExtrema(predictorFor(station), from, to);
-  return secondaryEventsBetween(station, set, from, to);
+  if (station.kind === 'reference') return findExtrema(predictorFor(station, ctx), from, to);
+  return secondaryEventsBetween(station, set, from, to, ctx);
 }
 
 function secondaryEventsBetween(
-  station: SecondaryStation, set: StationLookup, from: number, to: number,
+  station: SecondaryStation, set: StationLookup, from: number, to: number, ctx?: EngineContext,
 ): TideEvent[] {
   const reference = referencePortOf(station, set);
   const pad = secondaryPaddingMs(station);
-  const refEvents = findExtrema(predictorFor(reference), from - pad, to + pad);
+  const refEvents = findExtrema(predictorFor(reference, ctx), from - pad, to + pad);
   return secondaryEventsFrom(refEvents, reference, station).filter((e) => e.time >= from && e.time < to);
 }
 
@@ -54,11 +54,11 @@ function secondaryEventsBetween(
  * h = h1 + (h2 − h1)(1 − cos(π(t − t1)/(t2 − t1)))/2 — a drawing aid, not a harmonic prediction.
  */
 export function tideHeights(
-  station: Station, set: StationLookup, start: number, stepMs: number, count: number,
+  station: Station, set: StationLookup, start: number, stepMs: number, count: number, ctx?: EngineContext,
 ): Float64Array {
-  if (station.kind === 'reference') return predictorFor(station).heights(start, stepMs, count);
+  if (station.kind === 'reference') return predictorFor(station, ctx).heights(start, stepMs, count);
   const end = start + stepMs * Math.max(0, count - 1);
-  const events = secondaryEventsBetween(station, set, Math.min(start, end) - 2 * DAY, Math.max(start, end) + 2 * DAY);
+  const events = secondaryEventsBetween(station, set, Math.min(start, end) - 2 * DAY, Math.max(start, end) + 2 * DAY, ctx);
   return cosineCurve(events, start, stepMs, count);
 }
 

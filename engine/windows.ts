@@ -11,6 +11,7 @@
 //   That curve is an approximation between the port's events; SECONDARY_WINDOW_NOTE says how good.
 import { findExtrema } from './extrema.js';
 import type { Predictor } from './predict.js';
+import type { EngineContext } from './context.js';
 import { cosineCurve, predictorFor, tideEvents, type StationLookup } from './tides.js';
 import type { Station, TideEvent, WindowSide } from './types.js';
 
@@ -112,15 +113,15 @@ function intervalsOver(bp: Breakpoints, side: WindowSide, level: number, from: n
  */
 export function openIntervals(
   station: Station, set: StationLookup, side: WindowSide, level: number, from: number, to: number,
-  events?: readonly TideEvent[],
+  events?: readonly TideEvent[], ctx?: EngineContext,
 ): OpenInterval[] {
   if (!(to > from)) return [];
   if (station.kind === 'reference') {
-    const predictor = predictorFor(station);
+    const predictor = predictorFor(station, ctx);
     const evs = events ?? findExtrema(predictor, from, to);
     return intervalsOver(harmonicBreakpoints(predictor, evs, from, to), side, level, from, to);
   }
-  const evs = events ?? tideEvents(station, set, from - 2 * DAY, to + 2 * DAY);
+  const evs = events ?? tideEvents(station, set, from - 2 * DAY, to + 2 * DAY, ctx);
   return intervalsOver(secondaryBreakpoints(evs), side, level, from, to);
 }
 

@@ -2,11 +2,11 @@
 // TypeScript sources run directly (under vitest there is no worker.js to start).
 import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
-import { loadStationSet } from '../../engine/index.js';
+import { createSkyEphemeris, loadStationSet } from '../../engine/index.js';
 import { BuildStepError } from './failure.js';
 import { runPool } from './pool.js';
 import type { ComputeRequest } from './run.js';
-import { freshSet, runStationJob, type StationJobDeps, type StationOutcome } from './station-job.js';
+import { runStationJob, unitEngine, type StationJobDeps, type StationOutcome } from './station-job.js';
 
 /** The compiled worker entry beside this module, or null when this module is not compiled. */
 export function compiledWorkerUrl(): URL | null {
@@ -20,8 +20,9 @@ export async function computeInProcess(
   request: ComputeRequest, onStation: (outcome: StationOutcome) => void, deps: StationJobDeps, signal?: AbortSignal,
 ): Promise<void> {
   const ctx = { set: loadStationSet(request.stationsDir), year: request.year, tempDir: request.tempDir, render: request.render };
+  const sky = createSkyEphemeris();
   for (const ids of request.units) {
-    const unit = { ...ctx, set: freshSet(ctx.set) };
+    const unit = { ...ctx, engine: unitEngine(sky) };
     for (const id of ids) {
       signal?.throwIfAborted();
       try {

@@ -3,12 +3,13 @@
 // are written by the site renderer, which links them from the station pages.)
 import { mkdir, writeFile } from 'node:fs/promises';
 import { join } from 'node:path';
-import type { StationSet, Station, StationYear } from '../../engine/index.js';
+import { createEngineContext } from '../../engine/index.js';
+import type { EngineContext, SkyEphemeris, StationSet, Station, StationYear } from '../../engine/index.js';
 import type { RenderChoices } from './options.js';
 import { assertSafeId, stationYearFile } from './paths.js';
 
 export interface StationJobDeps {
-  buildStationYear(station: Station, set: StationSet, year: number): StationYear | Promise<StationYear>;
+  buildStationYear(station: Station, set: StationSet, year: number, engine: EngineContext): StationYear | Promise<StationYear>;
   renderStationBook(model: StationYear, options: RenderChoices): Promise<Buffer>;
 }
 
@@ -17,6 +18,7 @@ export interface StationJobContext {
   year: number;
   tempDir: string; // the build's temporary output folder
   render: RenderChoices;
+  engine: EngineContext; // the engine's caches for this unit of work, dropped with it
 }
 
 export interface StationOutcome {
@@ -26,13 +28,12 @@ export interface StationOutcome {
 }
 
 /**
- * The set again with new station objects. The engine caches per station object (predictors, 19 years
- * of a reference port's events for its datums); giving each unit of work its own objects lets those
- * caches go when the unit is done, instead of growing with every station a worker has computed.
+ * The engine's caches for one unit of work (predictors, 19 years of a reference port's events for its
+ * datums), sharing the Sun's and Moon's positions of the worker: dropped when the unit is done, so
+ * they do not grow with every station a worker has computed.
  */
-export function freshSet(set: StationSet): StationSet {
-  const stations = set.stations.map((s) => ({ ...s }));
-  return { dir: set.dir, stations, byId: new Map(stations.map((s) => [s.id, s])) };
+export function unitEngine(sky: SkyEphemeris): EngineContext {
+  return createEngineContext({ sky });
 }
 
 /** Pages of a PDF written by pdfkit (page objects are plain dictionaries, never in object streams). */
@@ -44,7 +45,7 @@ export function countPdfPages(pdf: Buffer): number {
 export async function runStationJob(id: string, ctx: StationJobContext, deps: StationJobDeps): Promise<StationOutcome> {
   const station = ctx.set.byId.get(assertSafeId(id));
   if (!station) throw new Error(`station "${id}" is not in the station set`);
-  const model = await deps.buildStationYear(station, ctx.set, ctx.year);
+  const model = await deps.buildStationYear(station, ctx.set, ctx.year, ctx.engine);
   if (model.station.id !== id) throw new Error(`the model built for "${id}" names station "${model.station.id}"`);
   const pdfDir = join(ctx.tempDir, 'pdf');
   await mkdir(pdfDir, { recursive: true });

@@ -2,12 +2,12 @@
 // once, then computes the stations it is handed, one unit at a time, posting each outcome back.
 // A combined-book worker draws the whole set's book from the models it is sent.
 import { parentPort, workerData } from 'node:worker_threads';
-import { loadStationSet } from '../../engine/index.js';
+import { createSkyEphemeris, loadStationSet } from '../../engine/index.js';
 import { renderCombinedBook } from '../../templates/pdf/book.js';
 import { serializeError } from './failure.js';
 import type { CombinedSetup, FromWorker, ToWorker, WorkerSetup } from './protocol.js';
 import { stationJobDeps } from './engine-deps.js';
-import { freshSet, runStationJob, type StationJobContext } from './station-job.js';
+import { runStationJob, unitEngine, type StationJobContext } from './station-job.js';
 
 const port = parentPort;
 if (!port) throw new Error('cli/build/worker.js runs only as a worker thread');
@@ -15,7 +15,8 @@ const setup = workerData as WorkerSetup | CombinedSetup;
 const post = (message: FromWorker, transfer: ArrayBuffer[] = []): void => port.postMessage(message, transfer);
 
 function stationWorker(init: WorkerSetup): void {
-  let ctx: StationJobContext | undefined;
+  let ctx: Omit<StationJobContext, 'engine'> | undefined;
+  const sky = createSkyEphemeris(); // the Sun's and Moon's positions, shared by every unit of this worker
   try {
     ctx = { set: loadStationSet(init.stationsDir), year: init.year, tempDir: init.tempDir, render: init.render };
     post({ type: 'ready' });
@@ -30,7 +31,7 @@ function stationWorker(init: WorkerSetup): void {
     void (async () => {
       let current: string | null = null;
       try {
-        const unit = { ...ctx, set: freshSet(ctx.set) };
+        const unit = { ...ctx, engine: unitEngine(sky) };
         for (const id of message.ids) {
           current = id;
           post({ type: 'station', outcome: await runStationJob(id, unit, stationJobDeps) });

@@ -1,6 +1,7 @@
 // Heights on every local hour of every day: 24 a day, 23 on the day the clocks go forward (that hour
 // does not exist) and 25 when they go back (the repeated hour comes twice, with its two offsets).
 import { clock, offsetString, type LocalDay } from '../localtime.js';
+import type { EngineContext } from '../context.js';
 import { predictorFor, type StationLookup } from '../tides.js';
 import type { HourlyDay, HourlyYear, Station, TideEvent } from '../types.js';
 import { windowMethod } from '../windows.js';
@@ -36,9 +37,10 @@ function secondaryCurveAt(events: readonly TideEvent[], times: readonly number[]
 /** The hourly heights of the year; `events` reach beyond the year (the almanac's padded list). */
 export function hourlyHeights(
   station: Station, _set: StationLookup, days: readonly LocalDay[], events: readonly TideEvent[],
+  ctx?: EngineContext,
 ): HourlyYear {
   const zone = station.timezone;
-  const predictor = station.kind === 'reference' ? predictorFor(station) : null;
+  const predictor = station.kind === 'reference' ? predictorFor(station, ctx) : null;
   const list = days.map((day): HourlyDay => {
     const times = localHours(day, zone);
     const heights = predictor ? times.map((t) => predictor.heightAt(t)) : secondaryCurveAt(events, times);

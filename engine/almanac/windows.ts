@@ -1,6 +1,7 @@
 // The model's access windows: for each window of the station file, its open intervals over the year
 // and, per local day, the pieces printed on that day (an interval across midnight shows on both days).
 import { clock, isoLocal, isoUtc, roundToMinute, type LocalDay } from '../localtime.js';
+import type { EngineContext } from '../context.js';
 import type { StationLookup } from '../tides.js';
 import type {
   ModelWarning, Station, TideEvent, WindowDay, WindowInterval, WindowPiece, WindowSpec, WindowYear,
@@ -19,14 +20,14 @@ export function sideAndLevel(spec: WindowSpec): { side: 'above' | 'below'; level
  */
 export function yearWindows(
   station: Station, set: StationLookup, days: readonly LocalDay[], events: readonly TideEvent[],
-  yearEvents: readonly TideEvent[],
+  yearEvents: readonly TideEvent[], ctx?: EngineContext,
 ): WindowYear[] {
   const zone = station.timezone;
   const from = days[0]!.start;
   const to = days[days.length - 1]!.end;
   return (station.windows ?? []).map((spec): WindowYear => {
     const { side, level } = sideAndLevel(spec);
-    const exact = openIntervals(station, set, side, level, from, to, events);
+    const exact = openIntervals(station, set, side, level, from, to, events, ctx);
     const byDay = splitByDay(exact, days, zone);
     return {
       id: spec.id,

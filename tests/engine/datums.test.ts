@@ -5,6 +5,10 @@ import {
 import { nodeFactors } from '../../engine/nodal.js';
 import { tideEvents } from '../../engine/tides.js';
 import type { ReferenceStation, SecondaryStation, Station, TideEvent } from '../../engine/types.js';
+import { createEngineContext } from '../../engine/context.js';
+
+// One context for the file: datums of a station are computed once and then read from it.
+const ctx = createEngineContext();
 
 const DAY = 86_400_000;
 
@@ -39,7 +43,7 @@ describe('LAT and HAT over the 19-year epoch', () => {
   });
 
   it('LAT = Z0 − (max f_M2·H_M2 + H_S2) and HAT = Z0 + (…) within a few mm', () => {
-    const { datums } = stationDatums(pure, lookup(pure));
+    const { datums } = stationDatums(pure, lookup(pure), ctx);
     const bound = fMax * 1.5 + 0.5;
     // Formula above (Pugh 1987 ch. 4 for the two-constituent envelope); the extremum needs both
     // phases at 180° at once, which a spring low water near the f_M2 maximum meets to within mm.
@@ -52,9 +56,10 @@ describe('LAT and HAT over the 19-year epoch', () => {
 
   it('keeps the same LAT whatever the edition year, and a different epoch moves it', () => {
     const later = { ...pure, datum_epoch: 2001 };
-    const a = stationDatums(pure, lookup(pure)).datums.LAT;
-    expect(stationDatums(pure, lookup(pure)).datums.LAT).toBe(a); // cached, same object
-    const b = stationDatums(later, lookup(later)).datums;
+    const a = stationDatums(pure, lookup(pure), ctx).datums.LAT;
+    expect(stationDatums(pure, lookup(pure), ctx)).toBe(ctx.datums.get(pure)!.summary); // kept in the context
+    expect(stationDatums(pure, lookup(pure)).datums.LAT).toBe(a); // without a context: computed afresh, the same
+    const b = stationDatums(later, lookup(later), ctx).datums;
     expect(b.epoch).toEqual({ from: 2001, to: 2019 });
     // Both epochs span a whole nodal cycle, so the pure M2+S2 LAT agrees to a few mm.
     expect(Math.abs(b.LAT - a)).toBeLessThan(0.005);
@@ -66,7 +71,7 @@ describe('levels from the constants (Pugh 1987)', () => {
     // Z0 ± (H_M2 ± H_S2): 3 + 2.0 = 5.0, 3 + 1.0 = 4.0, 3 − 1.0 = 2.0, 3 − 2.0 = 1.0; MSL = Z0 = 3.
     const l = harmonicLevels(pure);
     expect(l).toEqual({ MHWS: 5, MHWN: 4, MLWN: 2, MLWS: 1, MSL: 3 });
-    const s = stationDatums(pure, lookup(pure));
+    const s = stationDatums(pure, lookup(pure), ctx);
     expect(s.meanSpringRange).toBe(4);
     expect(s.meanNeapRange).toBe(2);
   });
@@ -82,7 +87,7 @@ describe('levels from the constants (Pugh 1987)', () => {
       provenance: 'Invented for a test',
     };
     const set = lookup(pure, sec);
-    const s = stationDatums(sec, set);
+    const s = stationDatums(sec, set, ctx);
     // By hand: MHWS 5.0 − 0.4 = 4.6; MHWN 4.0 − 0.2 = 3.8; MLWN 2.0 + 0.2 = 2.2; MLWS 1.0 + 0.1 = 1.1;
     // MSL = mean of the four = 11.7/4 = 2.925; ranges 4.6 − 1.1 = 3.5 and 3.8 − 2.2 = 1.6.
     expect(s.datums).toMatchObject({ MHWS: 4.6, MHWN: 3.8, MLWN: 2.2, MLWS: 1.1, MSL: 2.925 });
@@ -123,18 +128,18 @@ describe('tide type, age of the tide, warnings', () => {
     expect(age(120, 160)).toBeCloseTo(40 / 1.0158958, 6); // 39.37 h
     expect(age(350, 30)).toBeCloseTo(40 / 1.0158958, 6); // across 0°
     expect(age(20, 10)).toBeCloseTo(-10 / 1.0158958, 6); // springs slightly before syzygy
-    expect(stationDatums(pure, lookup(pure)).ageOfTideHours).toBe(39.4);
+    expect(stationDatums(pure, lookup(pure), ctx).ageOfTideHours).toBe(39.4);
   });
 
   it('warns when LAT stands more than 0.1 m above chart datum', () => {
     const high = reference({ M2: { amplitude: 1.5, phase: 120 }, S2: { amplitude: 0.5, phase: 160 } },
       { id: 'high-datum', mean_level: 3.0 + 2.2 });
-    const s = stationDatums(high, lookup(high));
+    const s = stationDatums(high, lookup(high), ctx);
     expect(s.datums.LAT).toBeGreaterThan(0.1);
     expect(s.warnings.map((w) => w.code).join(' ')).toMatch(/lat-above-datum/);
     // Chart datum 2 cm below LAT: no warning (Z0 − (1.0378·1.5 + 0.5) ≈ Z0 − 2.057).
     const low = reference(pure.constituents, { id: 'low-datum', mean_level: 2.08 });
-    expect(stationDatums(low, lookup(low)).warnings).toEqual([]);
+    expect(stationDatums(low, lookup(low), ctx).warnings).toEqual([]);
   });
 
   it('finds a low water below LAT (beyond a millimetre of rounding)', () => {

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { StationFileError } from '../../engine/errors.js';
-import { compilePredictor, directHeight } from '../../engine/predict.js';
+import { compilePredictor, directHeights } from '../../engine/predict.js';
 import type { ReferenceStation } from '../../engine/types.js';
 import { sixtyConstituentStation } from '../fixtures/engine-stations.js';
 
@@ -21,7 +21,7 @@ describe('prediction kernel', () => {
     const series = predictor.heights(start, MINUTE, count);
     // direct evaluation (V, f, u at the very instant) on every 97th minute
     let worst = 0;
-    for (let j = 0; j < count; j += 97) worst = Math.max(worst, Math.abs(series[j]! - directHeight(station, start + j * MINUTE)));
+    for (let j = 0; j < count; j += 97) worst = Math.max(worst, Math.abs(series[j]! - directHeights(station)(start + j * MINUTE)));
     expect(worst).toBeLessThan(1e-6);
     // the same series anchored elsewhere (windows starting 97 minutes later) agrees everywhere
     const shifted = predictor.heights(start + 97 * MINUTE, MINUTE, count - 97);
@@ -42,7 +42,7 @@ describe('prediction kernel', () => {
     // three hours later the argument has turned 90°: mean level, falling at H·30°/h = 0.654 m/h
     expect(predictor.heightAt(t + 3 * HOUR)).toBeCloseTo(3, 9);
     expect(predictor.rateAt(t + 3 * HOUR)).toBeCloseTo((-1.25 * 30 * Math.PI) / 180, 9);
-    expect(directHeight(predictor.station, t)).toBeCloseTo(4.25, 12);
+    expect(directHeights(predictor.station)(t)).toBeCloseTo(4.25, 12);
   });
 
   it('gives the analytic rate of rise in metres per hour', () => {
@@ -61,10 +61,10 @@ describe('prediction kernel', () => {
     const start = Date.UTC(2030, 1, 27, 22, 3);
     const odd = predictor.heights(start, 7 * MINUTE + 13_000, 900);
     for (let j = 0; j < odd.length; j += 41) {
-      expect(odd[j]).toBeCloseTo(directHeight(station, start + j * (7 * MINUTE + 13_000)), 6);
+      expect(odd[j]).toBeCloseTo(directHeights(station)(start + j * (7 * MINUTE + 13_000)), 6);
     }
     const weekly = predictor.heights(start, 7 * 24 * HOUR, 60);
-    for (let j = 0; j < weekly.length; j++) expect(weekly[j]).toBeCloseTo(directHeight(station, start + j * 7 * 24 * HOUR), 9);
+    for (let j = 0; j < weekly.length; j++) expect(weekly[j]).toBeCloseTo(directHeights(station)(start + j * 7 * 24 * HOUR), 9);
     expect(predictor.heights(start, MINUTE, 0).length).toBe(0);
     expect(() => predictor.heights(start, 0, 10)).toThrow(RangeError);
   });
@@ -84,6 +84,6 @@ describe('prediction kernel', () => {
     expect(() => compilePredictor(bad)).toThrow(/ports\/x\.yaml: constituents\.XY3: unknown constituent "XY3"/);
     const twice = stationWith({ MU2: { amplitude: 0.1, phase: 0 }, 'μ2': { amplitude: 0.1, phase: 0 } });
     expect(() => compilePredictor(twice)).toThrow(/same constituent/);
-    expect(() => directHeight(bad, 0)).toThrow(StationFileError);
+    expect(() => directHeights(bad)(0)).toThrow(StationFileError);
   });
 });

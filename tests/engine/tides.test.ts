@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { findExtrema } from '../../engine/extrema.js';
 import { compilePredictor } from '../../engine/predict.js';
 import { springNeapFactor, springNeapRanges } from '../../engine/secondary.js';
+import { createEngineContext } from '../../engine/context.js';
 import { cosineCurve, predictorFor, tideEvents, tideHeights } from '../../engine/tides.js';
 import type { ReferenceStation, SecondaryStation, Station, TideEvent } from '../../engine/types.js';
 
@@ -34,8 +35,11 @@ const from = Date.UTC(2027, 2, 1);
 const to = Date.UTC(2027, 3, 1);
 
 describe('tide facade: reference ports', () => {
-  it('gives the harmonic extrema and heights, with one compiled predictor per station', () => {
-    expect(predictorFor(reference)).toBe(predictorFor(reference));
+  it('gives the harmonic extrema and heights, with one compiled predictor per station and context', () => {
+    const ctx = createEngineContext();
+    expect(predictorFor(reference, ctx)).toBe(predictorFor(reference, ctx));
+    expect(predictorFor(reference)).not.toBe(predictorFor(reference)); // no context: nothing kept
+    expect(createEngineContext().predictors.size).toBe(0);
     const direct = findExtrema(compilePredictor(reference), from, to);
     const events = tideEvents(reference, set, from, to);
     expect(events.map((e) => e.time)).toEqual(direct.map((e) => e.time));
