@@ -1,6 +1,6 @@
 // Both renderers print every sunrise and sunset of a day: near the polar circles a day can hold two
 // sunsets (or two sunrises), and the second must not be lost in print. An invented reference port
-// at sea at 69.68°N 16°E; the model's times are checked against astronomy-engine in
+// at sea at 69.68°N 13°E; the model's times are checked against astronomy-engine in
 // tests/engine/sky-polar.test.ts, so here each printed day is compared with its own model.
 import { execFileSync } from 'node:child_process';
 import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
@@ -20,7 +20,7 @@ const station: ReferenceStation = {
   id: 'polar-sea-mark',
   name: 'Polar Sea Mark (invented)',
   kind: 'reference',
-  position: { latitude: 69.68, longitude: 16 },
+  position: { latitude: 69.68, longitude: 13 },
   timezone: 'Europe/Oslo',
   datum: 'Chart Datum',
   mean_level: 1.6,
