@@ -11,6 +11,7 @@ import {
 } from '../engine/index.js';
 import { renderAnalysisReport } from '../templates/report/analysis-report.js';
 import { parseCommandLine, positionalArguments } from './args.js';
+import { analyseCurrentFile } from './analyse-current.js';
 import { checkOutputFiles, writeOutputFiles, type OutputFile } from './output-files.js';
 
 export const ANALYSE_HELP = `Usage: tidewright analyse RECORD.csv --latitude DEG --longitude DEG --timezone ZONE
@@ -41,6 +42,13 @@ equilibrium tide and the neighbour's phase lag. The file and the report say whic
                      with 95 % intervals and the constituents the record could not separate
   --force            replace --output or --report if the file exists (never an input of this run)
 
+A current-meter record (a header line time,speed,direction or time,east,north; the direction in
+degrees true toward which the water sets) gives a tidal stream station file instead: least squares on
+the east and north components, each constituent's ellipse from them. It needs:
+  --flood-direction DEG   degrees true toward which the flood sets (the output of a run without it
+                          names the two directions of the main ellipse's axis)
+  --unit kn|m/s           the unit of the record's speeds (default kn)
+
 Example: tidewright analyse quay-gauge.csv --latitude 47.6 --longitude -15.8 --timezone Europe/Lisbon --report fit.html
 `;
 
@@ -56,6 +64,8 @@ export async function runAnalyse(argv: string[]): Promise<number> {
     output: { type: 'string' },
     report: { type: 'string' },
     force: { type: 'boolean' },
+    'flood-direction': { type: 'string' },
+    unit: { type: 'string' },
     help: { type: 'boolean', short: 'h' },
   });
   if (values.help) {
@@ -63,6 +73,11 @@ export async function runAnalyse(argv: string[]): Promise<number> {
     return 0;
   }
   const [file] = positionalArguments('analyse', positionals, ['RECORD.csv']) as [string];
+  const current = analyseCurrentFile(file, values);
+  if (current !== null) return current;
+  for (const option of ['flood-direction', 'unit'] as const) {
+    if (values[option] !== undefined) throw new UsageError(`--${option}`, 'is only for current-meter records', `remove --${option}, or give a record whose header is time,speed,direction or time,east,north`);
+  }
   const meta = stationMeta('analyse', file, values, { datum: 'Gauge zero' });
   const rayleigh = values.rayleigh === undefined ? 1 : numberOption('--rayleigh', values.rayleigh, 0.5, 10, 'e.g. --rayleigh 1');
   const targets = outputTargets(values);
