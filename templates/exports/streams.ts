@@ -4,6 +4,7 @@ import { mkdir, writeFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import type { StreamYear } from '../../engine/index.js';
 import { csvField } from './csv.js';
+import { escapeText, foldLine, icalUtc } from './icalendar.js';
 
 const SAFE_ID = /^[a-z0-9-]+$/;
 const oneLine = (text: string): string => text.replace(/[\r\n\t]+/g, ' ').trim();
@@ -11,6 +12,7 @@ const oneLine = (text: string): string => text.replace(/[\r\n\t]+/g, ' ').trim()
 export interface StreamExportFileNames {
   csv: string;
   json: string;
+  ics: string;
 }
 
 /** File names of a stream-year's downloads; the id is checked so no name can leave the folder. */
@@ -19,7 +21,7 @@ export function streamExportFileNames(model: StreamYear): StreamExportFileNames 
   if (!SAFE_ID.test(id) || !Number.isInteger(model.year)) {
     throw new Error(`station id "${id}" / year ${model.year}: ids may hold only a-z, 0-9 and "-"`);
   }
-  return { csv: `${id}-${model.year}-streams.csv`, json: `${id}-${model.year}-streams.json` };
+  return { csv: `${id}-${model.year}-streams.csv`, json: `${id}-${model.year}-streams.json`, ics: `${id}-${model.year}-streams.ics` };
 }
 
 export function streamNotes(model: StreamYear): string[] {
@@ -67,12 +69,50 @@ export function streamEventsJson(model: StreamYear): string {
   return `${JSON.stringify(doc, null, 2)}\n`;
 }
 
+const bearing = (d: number | null): string => (d === null ? '' : `${String(Math.round(d) % 360).padStart(3, '0')}°`);
+
+/** Slack water and the strongest floods and ebbs as one iCalendar file (RFC 5545), reproducible like the tide calendar. */
+export function streamEventsICalendar(model: StreamYear): string {
+  const st = model.station;
+  const stamp = `${model.year}0101T000000Z`;
+  const invented = model.invented ? ' These data are INVENTED for a demonstration: never use them for navigation.' : '';
+  const cautions = `${model.caution} ${model.streamCaution}${invented}`;
+  const lines: string[] = [
+    'BEGIN:VCALENDAR',
+    'VERSION:2.0',
+    `PRODID:-//tidewright//tidewright ${model.generator.version}//EN`,
+    'CALSCALE:GREGORIAN',
+    'METHOD:PUBLISH',
+    `X-WR-CALNAME:${escapeText(`Tidal streams ${model.year}: ${st.name}`)}`,
+    `X-WR-CALDESC:${escapeText(`Slack water and the strongest flood and ebb at ${st.name}, rates in knots. ${cautions} Provenance: ${st.provenance}`)}`,
+  ];
+  model.events.forEach((e, i) => {
+    const what = e.type === 'slack' ? 'Slack water' : e.type === 'flood' ? 'Strongest flood' : 'Strongest ebb';
+    const rate = e.type === 'slack' ? '' : ` ${e.speed.toFixed(1)} kn toward ${bearing(e.direction)}`;
+    lines.push(
+      'BEGIN:VEVENT',
+      `UID:${st.id}-${model.year}-stream-${i + 1}@tidewright`,
+      `DTSTAMP:${stamp}`,
+      `DTSTART:${icalUtc(e.time)}`,
+      `SUMMARY:${escapeText(`${what}${rate}`)}`,
+      `DESCRIPTION:${escapeText(`${what} at ${st.name}: ${e.clock} local time (UTC${e.offset})${rate}.\n\nCaution: ${cautions}`)}`,
+      `LOCATION:${escapeText(st.name)}`,
+      `GEO:${st.position.latitude.toFixed(6)};${st.position.longitude.toFixed(6)}`,
+      'TRANSP:TRANSPARENT',
+      'END:VEVENT',
+    );
+  });
+  lines.push('END:VCALENDAR');
+  return `${lines.map(foldLine).join('\r\n')}\r\n`;
+}
+
 export async function writeStreamExports(model: StreamYear, dataDir: string): Promise<StreamExportFileNames> {
   const names = streamExportFileNames(model);
   await mkdir(dataDir, { recursive: true });
   await Promise.all([
     writeFile(join(dataDir, names.csv), streamEventsCsv(model)),
     writeFile(join(dataDir, names.json), streamEventsJson(model)),
+    writeFile(join(dataDir, names.ics), streamEventsICalendar(model)),
   ]);
   return names;
 }

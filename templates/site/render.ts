@@ -106,7 +106,7 @@ export async function renderSite(models: StationYear[], outDir: string, options:
     const names = await writeStreamExports(model, siteData);
     if (options.dataDir) {
       await mkdir(options.dataDir, { recursive: true });
-      for (const name of [names.csv, names.json]) await linkOrCopy(join(siteData, name), join(options.dataDir, name));
+      for (const name of [names.csv, names.json, names.ics]) await linkOrCopy(join(siteData, name), join(options.dataDir, name));
     }
   }
 }

@@ -12,7 +12,7 @@ export interface StreamYearPage {
   model: StreamYear;
   referenceUrl: string | null; // a stream-secondary station's reference stream station, when in this build
   months: { month: MonthEntry; url: string }[];
-  downloads: { csv: string; json: string };
+  downloads: { csv: string; json: string; ics: string };
 }
 
 export interface StreamMonthPage {
@@ -71,7 +71,7 @@ export function streamPages(models: readonly StreamYear[], words: Words): { stre
       url, model,
       referenceUrl: ref && built.has(streamYearUrl(ref.id, model.year)) ? streamYearUrl(ref.id, model.year) : null,
       months: months.map((p) => ({ month: p.month, url: p.url })),
-      downloads: { csv: `/data/${names.csv}`, json: `/data/${names.json}` },
+      downloads: { csv: `/data/${names.csv}`, json: `/data/${names.json}`, ics: `/data/${names.ics}` },
     });
     streamMonthPages.push(...months);
   }
