@@ -1,13 +1,13 @@
 // The combined book in a worker thread of its own, so it is drawn while the main thread renders the
 // website (both need every model; neither needs the other).
 import { Worker } from 'node:worker_threads';
-import type { StationYear } from '../../engine/index.js';
+import type { StationYear, StreamYear } from '../../engine/index.js';
 import { BuildStepError, deserializeError } from './failure.js';
 import { workerExecArgv } from './pool.js';
 import type { RenderChoices } from './options.js';
 import type { CombinedSetup, FromWorker, ToWorker } from './protocol.js';
 
-export function combinedBookInWorker(workerUrl: URL, models: StationYear[], render: RenderChoices, signal?: AbortSignal): Promise<Buffer> {
+export function combinedBookInWorker(workerUrl: URL, models: StationYear[], render: RenderChoices, signal?: AbortSignal, streams: StreamYear[] = []): Promise<Buffer> {
   const setup: CombinedSetup = { job: 'combined', render };
   const worker = new Worker(workerUrl, { workerData: setup, execArgv: workerExecArgv() });
   return new Promise<Buffer>((resolve, reject) => {
@@ -31,7 +31,7 @@ export function combinedBookInWorker(workerUrl: URL, models: StationYear[], rend
       if (result && code === 0) finish(null);
       else finish(new BuildStepError('rendering the combined book', new Error(`its worker stopped with exit code ${code}`)));
     });
-    const message: ToWorker = { type: 'combined', models };
+    const message: ToWorker = { type: 'combined', models, streams };
     worker.postMessage(message);
   });
 }

@@ -27,10 +27,10 @@ export const realBuildDeps: BuildDeps = {
     const { renderSite } = await import('../../templates/site/render.js');
     return renderSite(models, siteDir, { ...options, dataDir, quiet: true, ...(siteFiles !== undefined && { siteFiles }), ...(streams && { streams }) });
   },
-  renderCombinedBook: (models, options, beside, signal) => {
+  renderCombinedBook: (models, options, beside, signal, streams) => {
     const workerUrl = beside ? compiledWorkerUrl() : null;
-    if (workerUrl) return combinedBookInWorker(workerUrl, models, options, signal);
-    return import('../../templates/pdf/book.js').then(({ renderCombinedBook }) => renderCombinedBook(models, options));
+    if (workerUrl) return combinedBookInWorker(workerUrl, models, options, signal, streams);
+    return import('../../templates/pdf/book.js').then(({ renderCombinedBook }) => renderCombinedBook(models, options, streams));
   },
   renderStreamBook: (model, options) => import('../../templates/pdf/stream-book.js').then(({ renderStreamBook }) => renderStreamBook(model, options)),
   cores: () => availableParallelism(),

@@ -1,5 +1,5 @@
 // Messages between the build and its worker threads. Everything is plain data (structured clone).
-import type { StationYear } from '../../engine/index.js';
+import type { StationYear, StreamYear } from '../../engine/index.js';
 import type { SerializedError } from './failure.js';
 import type { RenderChoices } from './options.js';
 import type { StationOutcome } from './station-job.js';
@@ -22,7 +22,7 @@ export interface CombinedSetup {
 export type ToWorker =
   | { type: 'unit'; ids: string[] }
   | { type: 'close' }
-  | { type: 'combined'; models: StationYear[] };
+  | { type: 'combined'; models: StationYear[]; streams?: StreamYear[] };
 
 export type FromWorker =
   | { type: 'ready' }

@@ -32,7 +32,7 @@ export interface BuildDeps {
   /** The site into siteDir, and every station-year's downloads (CSV, JSON, iCalendar) into dataDir too. */
   renderSite(models: StationYear[], siteDir: string, dataDir: string, options: RenderChoices, siteFiles?: string, streams?: StreamYear[]): Promise<unknown>;
   /** `beside`: the caller is rendering the website at the same time (use another thread if there is one). */
-  renderCombinedBook(models: StationYear[], options: RenderChoices, beside: boolean, signal?: AbortSignal): Promise<Buffer>;
+  renderCombinedBook(models: StationYear[], options: RenderChoices, beside: boolean, signal?: AbortSignal, streams?: StreamYear[]): Promise<Buffer>;
   /** The PDF book of one stream-year. */
   renderStreamBook?(model: StreamYear, options: RenderChoices): Promise<Buffer>;
   cores(): number;
@@ -157,7 +157,7 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
     const site = (): Promise<unknown> => step('rendering the website and downloads', times,
       () => deps.renderSite(models, join(target.temp, 'site'), join(target.temp, 'data'), plan.render, siteFiles ?? undefined, streamModels));
     const book = (): Promise<void> => step('rendering the combined book', times, async () => {
-      const pdf = await deps.renderCombinedBook(models, plan.render, beside, events.signal);
+      const pdf = await deps.renderCombinedBook(models, plan.render, beside, events.signal, streamModels);
       await mkdir(join(target.temp, 'pdf'), { recursive: true });
       await writeFile(stationYearFile(join(target.temp, 'pdf'), name, year, 'pdf'), pdf);
       pdfPages += countPdfPages(pdf);

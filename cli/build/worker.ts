@@ -52,7 +52,7 @@ function combinedWorker(init: CombinedSetup): void {
     }
     void (async () => {
       try {
-        const pdf = await renderCombinedBook(message.models, init.render);
+        const pdf = await renderCombinedBook(message.models, init.render, message.streams ?? []);
         // Handed over, not copied: the book can be tens of megabytes.
         const bytes = new Uint8Array(pdf.buffer, pdf.byteOffset, pdf.byteLength);
         const own = bytes.byteOffset === 0 && bytes.byteLength === bytes.buffer.byteLength ? bytes : bytes.slice();

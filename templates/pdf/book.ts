@@ -1,6 +1,7 @@
 // Print-ready PDF tide books: one per station-year, and one combined book for a station set.
 import type { StationYear } from '../../engine/index.js';
 import { wordsFor, type Words } from '../locale/index.js';
+import type { StreamYear } from '../../engine/streams/types.js';
 import { combinedPages, stationPages } from './compose.js';
 import { bookOrder } from './contents.js';
 import { editionDate } from './document.js';
@@ -13,6 +14,7 @@ import { checkBookOptions } from './options.js';
 import type { BookSettings } from './page.js';
 import { renderBook } from './render.js';
 import { stationView } from './station-view.js';
+import { streamBookPages } from './stream-book.js';
 
 export type { BookOptions } from './options.js';
 export { saddleStitchOrder } from './imposition.js';
@@ -40,7 +42,8 @@ export async function renderStationBook(model: StationYear, options: BookOptions
   }, options.imposition ?? 'none', () => notesPage({ invented: model.invented, label: view.name }));
 }
 
-export async function renderCombinedBook(models: StationYear[], options: BookOptions): Promise<Buffer> {
+/** The whole set's book; the stream stations' pages (if any) follow the tide stations'. */
+export async function renderCombinedBook(models: StationYear[], options: BookOptions, streams: readonly StreamYear[] = []): Promise<Buffer> {
   checkBookOptions(options);
   if (models.length === 0) throw new RangeError('a combined book needs at least one station');
   const g = pageGeometry(options.page);
@@ -49,8 +52,8 @@ export async function renderCombinedBook(models: StationYear[], options: BookOpt
   const title = printable(options.title ?? words.t('book.defaultTitle'));
   const settings: BookSettings = { units: options.units, geometry: g, title, publisher: options.publisher, words };
   const row = rowHeight(views.flatMap((v) => v.parts), g);
-  const pages = combinedPages(views, g, row, { title, publisher: options.publisher });
-  const invented = models.some((m) => m.invented);
+  const pages = [...combinedPages(views, g, row, { title, publisher: options.publisher }), ...streams.flatMap((m) => streamBookPages(m, title, words))];
+  const invented = models.some((m) => m.invented) || streams.some((m) => m.invented);
   const year = Math.min(...models.map((m) => m.year));
   return renderBook(pages, settings, {
     title,

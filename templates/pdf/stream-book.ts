@@ -128,6 +128,11 @@ function monthPage(model: StreamYear, monthIndex: number, words: Words): Logical
   };
 }
 
+/** The pages of one stream-year: its first page, then a page per month. */
+export function streamBookPages(model: StreamYear, title: string, words: Words): LogicalPage[] {
+  return [firstPage(model, title), ...model.months.map((_, i) => monthPage(model, i, words))];
+}
+
 export async function renderStreamBook(model: StreamYear, options: BookOptions): Promise<Buffer> {
   checkBookOptions(options);
   const g = pageGeometry(options.page);
@@ -135,7 +140,7 @@ export async function renderStreamBook(model: StreamYear, options: BookOptions):
   const title = printable(options.title ?? 'Tide predictions');
   const words = wordsFor({ locale: options.locale, units: options.units, caution: options.caution });
   const settings: BookSettings = { units: options.units, geometry: g, title, publisher: options.publisher, words };
-  const pages = [firstPage(model, title), ...model.months.map((_, i) => monthPage(model, i, words))];
+  const pages = streamBookPages(model, title, words);
   return renderBook(pages, settings, {
     title: `${model.station.name}: tidal streams ${model.year}`,
     author: options.publisher,

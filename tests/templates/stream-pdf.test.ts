@@ -6,8 +6,10 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { loadStationSet, buildStreamYear, type StreamYear } from '../../engine/index.js';
+import { renderCombinedBook } from '../../templates/pdf/book.js';
 import { renderStreamBook } from '../../templates/pdf/stream-book.js';
 import { wordsFor } from '../../templates/locale/index.js';
+import { demoModels } from './site-build.js';
 
 const POPPLER = ['pdftotext', 'pdffonts', 'pdfinfo'].every((t) => existsSync(`/usr/bin/${t}`));
 if (!POPPLER) console.warn('poppler-utils not found in /usr/bin: the stream book checks are SKIPPED');
@@ -56,4 +58,14 @@ describe('renderStreamBook', () => {
       }
     }
   });
+
+  it.skipIf(!POPPLER)('the combined book carries the stream pages after the tide stations', async () => {
+    const combined = join(tmp, 'combined.pdf');
+    writeFileSync(combined, await renderCombinedBook(demoModels(['brinewold-head']), { units: 'm', page: 'a5' }, [model]));
+    const text = execFileSync('pdftotext', ['-layout', combined, '-'], { encoding: 'utf8' }).replace(/\s+/g, ' ');
+    const streamPart = text.slice(text.indexOf('Tidal streams vary across a channel'));
+    expect(streamPart.length).toBeGreaterThan(1000);
+    for (const m of model.months) expect(streamPart).toContain(m.name);
+    expect(text.indexOf('Wrackrun Narrows')).toBeGreaterThan(text.indexOf('Brinewold Head'));
+  }, 60_000);
 });
