@@ -10,6 +10,8 @@ import { glanceMonth, yearMaxRange, type GlanceMonth } from './glance.js';
 import { moonLitPath } from './moon.js';
 import { sunTimes } from '../night.js';
 import { relativeUrl } from './paths.js';
+import { streamCurve, streamScale, type StreamCurve } from './stream-curve.js';
+import type { StreamDayEntry, StreamYear } from '../../engine/index.js';
 
 export interface FilterHost {
   addFilter(name: string, fn: (...args: never[]) => unknown): unknown;
@@ -19,6 +21,7 @@ export function siteFilters(w: Words): Record<string, (...args: never[]) => unkn
   const scales = new WeakMap<StationYear, HeightScale>();
   const glances = new WeakMap<StationYear, GlanceMonth[]>();
   const moons = new WeakMap<StationYear, Map<string, MoonPhaseEntry>>();
+  const streamScales = new WeakMap<StreamYear, number>();
   const scaleOf = (model: StationYear): HeightScale => {
     let s = scales.get(model);
     if (!s) {
@@ -77,6 +80,14 @@ export function siteFilters(w: Words): Record<string, (...args: never[]) => unkn
       return byDate.get(date) ?? null;
     },
     sunTimes: (day: DayEntry) => sunTimes(day),
+    streamCurve: (day: StreamDayEntry, model: StreamYear): StreamCurve => {
+      let max = streamScales.get(model);
+      if (max === undefined) {
+        max = streamScale(model);
+        streamScales.set(model, max);
+      }
+      return streamCurve(day, max);
+    },
     datumLadder: (datums: Datums): DatumRow[] => datumLadder(datums).map((r) => ({ ...r, name: w.t(`datum.${r.key}` as MessageKey) })),
     // a height above chart datum as a height above the land-levelling datum, which lies chart_datum_below higher
     aboveLand: (metres: number, levelling: { chart_datum_below: number }): number => metres - levelling.chart_datum_below,

@@ -55,6 +55,7 @@ describe('stream pages', () => {
         }
       }
       if (day.springNeap === 'spring') expect(row).toContain('tag-springs');
+      expect(row).toContain('class="stream-curve-line" d="M0 ');
     }
     const text = textOf(html);
     expect(text).toContain('Tidal streams vary across a channel');
