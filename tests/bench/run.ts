@@ -6,12 +6,14 @@ import { bench as analysis } from './analysis.js';
 import { bench as pdf } from './pdf.js';
 import { bench as build } from './build.js';
 import { bench as sky } from './sky.js';
+import { bench as streams } from './streams.js';
 
 const BENCHMARKS: readonly (readonly [string, () => Promise<void>])[] = [
   ['engine', engine],
   ['analysis', analysis],
   ['datums', datums],
   ['sky', sky],
+  ['streams', streams],
   ['pdf', pdf],
   ['build', build],
 ];
