@@ -13,9 +13,10 @@
 // component along the axis, so the maxima are the extrema of s and the slacks its zero crossings: the
 // height engine's high and low waters and zero crossings of the same sum of cosines.
 //
-// Method: the speed's rate and the along-flood component are sampled on a grid where the fastest
-// constituent turns 0.05 rad per step (|v|² turns twice as fast) and every sign change is refined by
-// the Illinois variant of regula falsi to 5 ms on the kernel's exact values and rates.
+// Method: the speed's rate and the along-flood component are sampled from the kernels' fast series
+// (rates with f and u held over the step) on a grid anchored at the epoch, where the fastest constituent
+// turns 0.05 rad per step (|v|² turns twice as fast); every sign change, confirmed on exact values, is
+// refined by the Illinois variant of regula falsi to 5 ms on the kernel's exact values and rates.
 
 import type { StreamPredictor } from './predict.js';
 import { bearingOf } from './predict.js';
@@ -82,19 +83,29 @@ export function streamEvents(p: StreamPredictor, from: number, to: number): Stre
   const maxima: Critical[] = [];
   const minima: Critical[] = [];
   const crossings: Critical[] = [];
-  let t0 = start;
-  let g0 = speedRate(t0);
-  let s0 = along(t0);
-  while (t0 < end) {
-    const t1 = t0 + step;
-    const g1 = speedRate(t1);
-    const s1 = along(t1);
-    if (g0 > 0 !== g1 > 0) {
-      const root = at(refineRoot(speedRate, t0, t1, g0, g1));
-      (g0 > 0 ? maxima : minima).push(root);
+  // the scan samples the kernels' fast series; each bracket is then refined on exact values and rates
+  const count = Math.ceil((end - start) / step) + 1;
+  const v = p.series(start, step, count);
+  const r = p.rateSeries(start, step, count);
+  let g0 = NaN;
+  let s0 = NaN;
+  for (let i = 0; i < count; i++) {
+    const t1 = start + i * step;
+    const g1 = v.east[i]! * r.east[i]! + v.north[i]! * r.north[i]!;
+    const s1 = v.east[i]! * fx + v.north[i]! * fy;
+    if (i > 0) {
+      const t0 = t1 - step;
+      if (g0 > 0 !== g1 > 0) {
+        const lo = speedRate(t0);
+        const hi = speedRate(t1);
+        if (lo > 0 !== hi > 0) (lo > 0 ? maxima : minima).push(at(refineRoot(speedRate, t0, t1, lo, hi)));
+      }
+      if (s0 >= 0 !== s1 >= 0) {
+        const lo = along(t0);
+        const hi = along(t1);
+        if (lo >= 0 !== hi >= 0) crossings.push(at(refineRoot(along, t0, t1, lo, hi)));
+      }
     }
-    if (s0 >= 0 !== s1 >= 0) crossings.push(at(refineRoot(along, t0, t1, s0, s1)));
-    t0 = t1;
     g0 = g1;
     s0 = s1;
   }

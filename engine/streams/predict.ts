@@ -2,6 +2,7 @@
 // component of the velocity (./ellipse.ts gives each constituent's component amplitude and phase), so
 // the height engine's prediction kernel and its node factors serve streams unchanged. Knots throughout.
 
+import { constituentSpeed } from '../constituents.js';
 import { compilePredictor, type Predictor } from '../predict.js';
 import type { ConstituentConstant, ReferenceStation } from '../types.js';
 import { ellipseToComponents } from './ellipse.js';
@@ -27,6 +28,11 @@ export interface StreamPredictor {
   alongAt(t: number): number;
   /** East and north components, knots, at start + i·stepMs. */
   series(start: number, stepMs: number, count: number): { east: Float64Array; north: Float64Array };
+  /**
+   * Their rates, knots per hour, at start + i·stepMs, without the slow change of f and u (a part in 10⁵):
+   * for scanning only; exact rates come from east.rateAt and north.rateAt.
+   */
+  rateSeries(start: number, stepMs: number, count: number): { east: Float64Array; north: Float64Array };
 }
 
 /** Degrees true (clockwise from north) toward which a velocity sets; null for no velocity. */
@@ -72,10 +78,21 @@ export function isRotary(station: StreamStation): boolean {
   return main !== undefined && main.major > 0 && Math.abs(main.minor) >= ROTARY_MINOR_TO_MAJOR * main.major;
 }
 
+/** d/dt of f·A·cos(V + u − G) with f and u held: ω·f·A·cos(V + u − G + 90°), a height-like station of its own. */
+function rateStation(component: ReferenceStation): ReferenceStation {
+  const constituents: Record<string, ConstituentConstant> = {};
+  for (const [name, c] of Object.entries(component.constituents)) {
+    constituents[name] = { amplitude: c.amplitude * constituentSpeed(name) * DEG, phase: (((c.phase - 90) % 360) + 360) % 360 };
+  }
+  return { ...component, id: `${component.id}-rate`, mean_level: 0, constituents };
+}
+
 export function compileStreamPredictor(station: StreamStation): StreamPredictor {
   const parts = componentStations(station);
   const east = compilePredictor(parts.east);
   const north = compilePredictor(parts.north);
+  let rates: { east: Predictor; north: Predictor } | undefined;
+  const rateKernels = () => (rates ??= { east: compilePredictor(rateStation(parts.east)), north: compilePredictor(rateStation(parts.north)) });
   const flood = station.flood_direction;
   const ebb = station.ebb_direction ?? (flood + 180) % 360;
   const fx = Math.sin(flood * DEG);
@@ -91,6 +108,10 @@ export function compileStreamPredictor(station: StreamStation): StreamPredictor 
     velocityAt: (t) => velocity(east.heightAt(t), north.heightAt(t)),
     alongAt: (t) => east.heightAt(t) * fx + north.heightAt(t) * fy,
     series: (start, stepMs, count) => ({ east: east.heights(start, stepMs, count), north: north.heights(start, stepMs, count) }),
+    rateSeries: (start, stepMs, count) => {
+      const k = rateKernels();
+      return { east: k.east.heights(start, stepMs, count), north: k.north.heights(start, stepMs, count) };
+    },
   };
 }
 

@@ -207,6 +207,17 @@ describe('slack water against 1-second brute force over a month', () => {
   });
 });
 
+describe('the same events whatever span asks for them', () => {
+  test('a week asked alone and inside a quarter gives the same instants and speeds', () => {
+    const p = compileStreamPredictor(rotaryish);
+    const week = streamEvents(p, JAN + 40 * DAY, JAN + 47 * DAY);
+    const quarter = streamEvents(compileStreamPredictor(rotaryish), JAN, JAN + 90 * DAY)
+      .filter((e) => e.time >= JAN + 40 * DAY && e.time < JAN + 47 * DAY);
+    expect(week.length).toBeGreaterThan(40);
+    expect(week).toEqual(quarter);
+  });
+});
+
 describe('stream-secondary stations', () => {
   const secondary = {
     ...base, id: 'test-secondary', kind: 'stream-secondary' as const, reference: 'test-narrows', flood_direction: 90,
