@@ -3,9 +3,9 @@
 
 import { readFileSync } from 'node:fs';
 import { UsageError } from '../engine/errors.js';
-import { parseAnyStation } from '../engine/stations.js';
-import { analyseCurrentRecord, majorAxisBearings, streamStationYaml } from '../engine/streams/analysis.js';
-import { isCurrentRecord, parseCurrentRecord } from '../engine/streams/current-record.js';
+import {
+  analyseCurrentRecord, isCurrentRecord, majorAxisBearings, parseAnyStation, parseCurrentRecord, streamStationYaml,
+} from '../engine/index.js';
 import { oneOf } from './args.js';
 import { numberOption, outputTargets, readRecordFile, stationMeta, writeOutputs } from './analyse.js';
 import { checkOutputFiles } from './output-files.js';

@@ -63,3 +63,7 @@ export function streamAlongFlood(
   for (let i = 0; i < count; i++) out[i] = east[i]! * fx + north[i]! * fy;
   return out;
 }
+export { isCurrentRecord, parseCurrentRecord, type CurrentRecord } from './streams/current-record.js';
+export {
+  analyseCurrentRecord, majorAxisBearings, streamStationFrom, streamStationYaml, type CurrentAnalysis,
+} from './streams/analysis.js';

@@ -1,7 +1,7 @@
 // Print-ready PDF tide books: one per station-year, and one combined book for a station set.
 import type { StationYear } from '../../engine/index.js';
 import { wordsFor, type Words } from '../locale/index.js';
-import type { StreamYear } from '../../engine/streams/types.js';
+import type { StreamYear } from '../../engine/index.js';
 import { combinedPages, stationPages } from './compose.js';
 import { bookOrder } from './contents.js';
 import { editionDate } from './document.js';

@@ -1,7 +1,7 @@
 // Geometry of the small stream curve of each day on a stream month page: the component toward the
 // flood direction from local midnight to the next (the model's `curve`), flood above the slack line and
 // ebb below it, on one scale per stream-year so days compare at a glance.
-import type { StreamDayEntry, StreamYear } from '../../engine/streams/types.js';
+import type { StreamDayEntry, StreamYear } from '../../engine/index.js';
 
 export const STREAM_CURVE_WIDTH = 240;
 export const STREAM_CURVE_HEIGHT = 44;
