@@ -2,9 +2,8 @@
 // header line (time,speed,direction or time,east,north); nothing is written unless the analysis succeeded.
 
 import { readFileSync } from 'node:fs';
-import { UsageError } from '../engine/errors.js';
 import {
-  analyseCurrentRecord, isCurrentRecord, majorAxisBearings, parseAnyStation, parseCurrentRecord, streamStationYaml,
+  UsageError, analyseCurrentRecord, isCurrentRecord, majorAxisBearings, parseAnyStation, parseCurrentRecord, streamStationYaml,
 } from '../engine/index.js';
 import { oneOf } from './args.js';
 import { numberOption, outputTargets, readRecordFile, stationMeta, writeOutputs } from './analyse.js';

@@ -2,8 +2,7 @@
 // stream station, and its whole StreamYear model, against a year of 1-minute velocities (the kernel on
 // both components) for scale. No target yet: figures to watch.
 import { join } from 'node:path';
-import { loadStationSet } from '../../engine/stations.js';
-import { buildStreamYear, compileStreamPredictor, streamEvents, type StreamStation } from '../../engine/streams.js';
+import { buildStreamYear, compileStreamPredictor, loadStationSet, streamEvents, type StreamStation } from '../../engine/index.js';
 
 const RUNS = 5;
 

@@ -7,9 +7,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { runCli } from '../fixtures/run-cli.js';
-import { parseAnyStation } from '../../engine/stations.js';
-import { INFERENCE_RULES } from '../../engine/analysis.js';
-import { streamVelocities, type StreamStation } from '../../engine/streams.js';
+import { INFERENCE_RULES, parseAnyStation, streamVelocities, type StreamStation } from '../../engine/index.js';
 
 let tmp: string;
 const original: StreamStation = {
