@@ -3,6 +3,7 @@
 import { mkdir, writeFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import type { StreamYear } from '../../engine/index.js';
+import { wordsFor, type Words } from '../locale/index.js';
 import { csvField } from './csv.js';
 import { escapeText, foldLine, icalUtc } from './icalendar.js';
 
@@ -24,22 +25,23 @@ export function streamExportFileNames(model: StreamYear): StreamExportFileNames 
   return { csv: `${id}-${model.year}-streams.csv`, json: `${id}-${model.year}-streams.json`, ics: `${id}-${model.year}-streams.ics` };
 }
 
-export function streamNotes(model: StreamYear): string[] {
+export function streamNotes(model: StreamYear, words: Words = wordsFor()): string[] {
   const st = model.station;
   const notes = [
-    `Tidal stream events for ${oneLine(st.name)} (${st.id}), ${model.year}: slack water and the strongest flood and ebb.`,
-    `Rates in knots; directions in degrees true toward which the stream sets (flood toward ${model.floodDirection}, ebb toward ${model.ebbDirection}); times in UTC and in local time (${model.timezone}).`,
-    `Caution: ${oneLine(model.caution)}`,
-    `Streams: ${oneLine(model.streamCaution)}`,
+    `${words.t('stream.caption', { station: oneLine(st.name), month: `(${st.id})`, year: model.year })}.`,
+    `${words.t('stream.ratesLabel')} ${words.t('stream.knots')} ${words.t('stream.directionsLabel')} `
+      + `${words.t('stream.directionsText', { flood: model.floodDirection, ebb: model.ebbDirection })} (${model.timezone})`,
+    `${words.t('caution.heading')}: ${oneLine(words.caution)}`,
+    `${words.t('stream.streamsVary')} ${oneLine(words.t('caution.streams'))}`,
   ];
-  if (model.invented) notes.push('These data are INVENTED for a demonstration: never use them for navigation.');
-  notes.push(`Provenance: ${oneLine(st.provenance)}`);
-  notes.push(`Made with ${model.generator.name} ${model.generator.version}.`);
+  if (model.invented) notes.push(words.t('export.invented'));
+  notes.push(`${words.t('fact.provenance')}: ${oneLine(st.provenance)}`);
+  notes.push(words.t('site.madeWith', { generator: `${model.generator.name} ${model.generator.version}` }));
   return notes;
 }
 
-export function streamEventsCsv(model: StreamYear): string {
-  const lines = streamNotes(model).map((note) => `# ${note}`);
+export function streamEventsCsv(model: StreamYear, words: Words = wordsFor()): string {
+  const lines = streamNotes(model, words).map((note) => `# ${note}`);
   lines.push('station_id,date,local_time,utc_offset,time_utc,type,speed_kn,direction_deg_true');
   for (const e of model.events) {
     lines.push([model.station.id, e.local.slice(0, 10), e.clock, e.offset, e.time, e.type, e.speed.toFixed(2),
@@ -48,7 +50,7 @@ export function streamEventsCsv(model: StreamYear): string {
   return `${lines.join('\r\n')}\r\n`;
 }
 
-export function streamEventsJson(model: StreamYear): string {
+export function streamEventsJson(model: StreamYear, words: Words = wordsFor()): string {
   const st = model.station;
   const doc = {
     kind: 'tidewright-stream-events',
@@ -60,8 +62,8 @@ export function streamEventsJson(model: StreamYear): string {
     year: model.year,
     units: { speed: 'kn', direction: 'degrees true' },
     invented: model.invented,
-    caution: model.caution,
-    streamCaution: model.streamCaution,
+    caution: words.caution,
+    streamCaution: words.t('caution.streams'),
     provenance: st.provenance,
     generator: model.generator,
     events: model.events.map((e) => ({ time: e.time, local: e.local, type: e.type, speed: e.speed, direction: e.direction })),
@@ -72,30 +74,31 @@ export function streamEventsJson(model: StreamYear): string {
 const bearing = (d: number | null): string => (d === null ? '' : `${String(Math.round(d) % 360).padStart(3, '0')}°`);
 
 /** Slack water and the strongest floods and ebbs as one iCalendar file (RFC 5545), reproducible like the tide calendar. */
-export function streamEventsICalendar(model: StreamYear): string {
+export function streamEventsICalendar(model: StreamYear, words: Words = wordsFor()): string {
   const st = model.station;
+  const w = words;
   const stamp = `${model.year}0101T000000Z`;
-  const invented = model.invented ? ' These data are INVENTED for a demonstration: never use them for navigation.' : '';
-  const cautions = `${model.caution} ${model.streamCaution}${invented}`;
+  const invented = model.invented ? ` ${w.t('export.invented')}` : '';
+  const cautions = `${w.caution} ${w.t('caution.streams')}${invented}`;
   const lines: string[] = [
     'BEGIN:VCALENDAR',
     'VERSION:2.0',
-    `PRODID:-//tidewright//tidewright ${model.generator.version}//EN`,
+    `PRODID:-//tidewright//tidewright ${model.generator.version}//${w.language.toUpperCase()}`,
     'CALSCALE:GREGORIAN',
     'METHOD:PUBLISH',
-    `X-WR-CALNAME:${escapeText(`Tidal streams ${model.year}: ${st.name}`)}`,
-    `X-WR-CALDESC:${escapeText(`Slack water and the strongest flood and ebb at ${st.name}, rates in knots. ${cautions} Provenance: ${st.provenance}`)}`,
+    `X-WR-CALNAME:${escapeText(`${w.t('stream.groupName')} ${model.year}: ${st.name}`)}`,
+    `X-WR-CALDESC:${escapeText(`${w.t('stream.caption', { station: st.name, month: '', year: model.year })}. ${cautions} ${w.t('fact.provenance')}: ${st.provenance}`)}`,
   ];
   model.events.forEach((e, i) => {
-    const what = e.type === 'slack' ? 'Slack water' : e.type === 'flood' ? 'Strongest flood' : 'Strongest ebb';
-    const rate = e.type === 'slack' ? '' : ` ${e.speed.toFixed(1)} kn toward ${bearing(e.direction)}`;
+    const what = w.t(e.type === 'slack' ? 'stream.colSlack' : e.type === 'flood' ? 'stream.strongestFlood' : 'stream.strongestEbb');
+    const rate = e.type === 'slack' ? '' : ` ${w.number(e.speed, 1)} kn, ${bearing(e.direction)}`;
     lines.push(
       'BEGIN:VEVENT',
       `UID:${st.id}-${model.year}-stream-${i + 1}@tidewright`,
       `DTSTAMP:${stamp}`,
       `DTSTART:${icalUtc(e.time)}`,
       `SUMMARY:${escapeText(`${what}${rate}`)}`,
-      `DESCRIPTION:${escapeText(`${what} at ${st.name}: ${e.clock} local time (UTC${e.offset})${rate}.\n\nCaution: ${cautions}`)}`,
+      `DESCRIPTION:${escapeText(`${what}, ${st.name}: ${e.clock} (${w.offset(e.offset)})${rate}.\n\n${w.t('caution.heading')}: ${cautions}`)}`,
       `LOCATION:${escapeText(st.name)}`,
       `GEO:${st.position.latitude.toFixed(6)};${st.position.longitude.toFixed(6)}`,
       'TRANSP:TRANSPARENT',
@@ -106,13 +109,13 @@ export function streamEventsICalendar(model: StreamYear): string {
   return `${lines.map(foldLine).join('\r\n')}\r\n`;
 }
 
-export async function writeStreamExports(model: StreamYear, dataDir: string): Promise<StreamExportFileNames> {
+export async function writeStreamExports(model: StreamYear, dataDir: string, words: Words = wordsFor()): Promise<StreamExportFileNames> {
   const names = streamExportFileNames(model);
   await mkdir(dataDir, { recursive: true });
   await Promise.all([
-    writeFile(join(dataDir, names.csv), streamEventsCsv(model)),
-    writeFile(join(dataDir, names.json), streamEventsJson(model)),
-    writeFile(join(dataDir, names.ics), streamEventsICalendar(model)),
+    writeFile(join(dataDir, names.csv), streamEventsCsv(model, words)),
+    writeFile(join(dataDir, names.json), streamEventsJson(model, words)),
+    writeFile(join(dataDir, names.ics), streamEventsICalendar(model, words)),
   ]);
   return names;
 }

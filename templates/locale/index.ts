@@ -1,7 +1,7 @@
 // What every renderer speaks with: the reader's language (`t` and the catalogue), the one formatter,
 // and the sentences built from the model's facts (clock changes, the time zone, warnings, the caution).
 import type {
-  DayEntry, EventType, ModelWarning, MoonPhaseName, OffsetChange, SpringNeapKind, StationYear, TideTypeCode,
+  DayEntry, EventType, ModelWarning, MoonPhaseName, OffsetChange, SpringNeapKind, TideTypeCode,
 } from '../../engine/index.js';
 import {
   CATALOGUES, LANGUAGES, languageOf, translator, type Language, type MessageKey, type Params,
@@ -10,6 +10,9 @@ import { createFormat, offsetSeconds, type Format, type Units } from './format.j
 
 export { LANGUAGES, languageOf, type Language, type MessageKey } from './catalogue.js';
 export { inUnits, instant, MINUS, offsetSeconds, type Format, type Units } from './format.js';
+
+/** What a time-zone description reads of each day (tide and stream days alike). */
+export type ZoneDay = Pick<DayEntry, 'date' | 'offsetStart' | 'offsetChange'>;
 
 export interface Words extends Format {
   readonly tag: string; // BCP 47 tag of the output (the site's lang, the PDF's language entry)
@@ -25,7 +28,7 @@ export interface Words extends Format {
   eventShort(type: EventType): string;
   springNeapName(kind: SpringNeapKind): string;
   offsetChange(change: OffsetChange): string;
-  zoneSummary(model: Pick<StationYear, 'days'>): string;
+  zoneSummary(model: { days: readonly ZoneDay[] }): string;
   warning(w: ModelWarning, datumLabel: string): string;
 }
 
@@ -116,12 +119,12 @@ function createWords(options: WordsOptions): Words {
 
 // "UTC+00:00; summer time UTC+01:00 from 28 March to 31 October" (or "UTC+05:30 all year", or each
 // change in turn for zones that change otherwise).
-function zoneSummary(days: readonly DayEntry[], f: Format, t: (key: MessageKey, params?: Params) => string): string {
+function zoneSummary(days: readonly ZoneDay[], f: Format, t: (key: MessageKey, params?: Params) => string): string {
   const first = days[0];
   if (!first) return '';
   const changes = days.filter((d) => d.offsetChange !== null);
   if (changes.length === 0) return t('zone.allYear', { offset: f.offset(first.offsetStart) });
-  const date = (d: DayEntry): string => f.date(d.date, { year: false });
+  const date = (d: ZoneDay): string => f.date(d.date, { year: false });
   const [a, b] = changes;
   if (changes.length === 2 && a && b && a.offsetChange!.from === b.offsetChange!.to
     && a.offsetChange!.to === b.offsetChange!.from) {

@@ -84,7 +84,7 @@ export function factsPage(view: StationView): LogicalPage {
       for (const r of datumRows) {
         const bold = r.key === 'CD';
         put(doc, r.key, box.x, y, { font: bold ? 'bold' : 'narrow-bold', size: 8.2 * s });
-        putFitted(doc, r.name, box.x + 32 * s, y, { font: 'narrow', size: 8.2 * s, color: DARK }, tableW - 70 * s - landW, 5 * s);
+        putFitted(doc, r.name, box.x + 32 * s, y, { font: 'narrow', size: 8.2 * s, color: DARK }, tableW - 70 * s - landW, 4 * s);
         put(doc, w.heightNumber(r.v), box.x + tableW - landW, y, { font: bold ? 'bold' : 'regular', size: 8.6 * s }, 'right');
         if (land !== undefined) put(doc, w.heightNumber(r.v - land.chart_datum_below), box.x + tableW, y, { font: 'regular', size: 8.6 * s, color: DARK }, 'right');
         doc.save().lineWidth(HAIRLINE).strokeColor(RULE)

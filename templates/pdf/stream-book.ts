@@ -27,7 +27,7 @@ export function streamArrow(doc: PDFKit.PDFDocument, direction: number, cx: numb
 
 const bearing = (d: number): string => `${String(Math.round(d) % 360).padStart(3, '0')}\u00b0`;
 
-function firstPage(model: StreamYear, title: string): LogicalPage {
+function firstPage(model: StreamYear, title: string, w: Words): LogicalPage {
   const st = model.station;
   return {
     kind: 'facts',
@@ -39,35 +39,36 @@ function firstPage(model: StreamYear, title: string): LogicalPage {
       let y = box.y + 20 * s;
       putFitted(doc, st.name, box.x, y, { font: 'bold', size: 18 * s }, box.width, 9 * s);
       y += 16 * s;
-      put(doc, `${title} \u00b7 tidal streams ${model.year}`, box.x, y, { font: 'regular', size: 11 * s, color: MID });
+      put(doc, `${title} \u00b7 ${w.t('stream.title', { year: model.year })}`, box.x, y, { font: 'regular', size: 11 * s, color: MID });
       y += 22 * s;
       const facts: [string, string][] = [
-        ['Station', st.kind === 'stream-secondary' ? `secondary stream station of ${model.reference?.name ?? ''}, by time differences and rate ratios` : `tidal stream station${model.rotary ? ' (rotary: slack is the least speed)' : ''}`],
-        ['Position', `${Math.abs(st.position.latitude).toFixed(3)}\u00b0 ${st.position.latitude < 0 ? 'S' : 'N'}, ${Math.abs(st.position.longitude).toFixed(3)}\u00b0 ${st.position.longitude < 0 ? 'W' : 'E'}`],
-        ['Local time', model.timezone],
-        ['Flood sets toward', `${bearing(model.floodDirection)} true`],
-        ['Ebb sets toward', `${bearing(model.ebbDirection)} true`],
-        ['Rates', 'knots'],
-        ['Springs and neaps', model.tideReference ? `as at ${model.tideReference.name}` : 'from this stream\u2019s own rates'],
+        [w.t('stream.station'), st.kind === 'stream-secondary' ? w.t('stream.secondaryOf', { station: model.reference?.name ?? '' })
+          : `${w.t('stream.kind')}${model.rotary ? ` (${w.t('stream.rotary')})` : ''}`],
+        [w.t('fact.position'), w.position(st.position)],
+        [w.t('fact.localTime'), `${w.zoneSummary(model)} (${model.timezone})`],
+        [w.t('stream.floodToward'), w.t('stream.true', { bearing: bearing(model.floodDirection) })],
+        [w.t('stream.ebbToward'), w.t('stream.true', { bearing: bearing(model.ebbDirection) })],
+        [w.t('stream.rates'), w.t('stream.inKnots')],
+        [w.t('stream.springsNeaps'), model.tideReference ? w.t('stream.asAt', { station: model.tideReference.name }) : w.t('stream.ownRates')],
       ];
-      for (const [label, value] of facts) {
-        put(doc, label, box.x, y, { font: 'narrow-bold', size: 8.5 * s });
-        const arrow = label.startsWith('Flood') ? model.floodDirection : label.startsWith('Ebb') ? model.ebbDirection : null;
+      facts.forEach(([label, value], i) => {
+        putFitted(doc, label, box.x, y, { font: 'narrow-bold', size: 8.5 * s }, 96 * s, 5.5 * s);
+        const arrow = i === 3 ? model.floodDirection : i === 4 ? model.ebbDirection : null;
         const vx = box.x + 100 * s + (arrow === null ? 0 : 12 * s);
         if (arrow !== null) streamArrow(doc, arrow, box.x + 104 * s, y - 3 * s, 8 * s);
         putFitted(doc, value, vx, y, { font: 'narrow', size: 8.5 * s }, box.x + box.width - vx, 6 * s);
         y += 12 * s;
-      }
+      });
       y += 14 * s;
-      put(doc, 'CAUTION', box.x, y, { font: 'bold', size: 10 * s });
+      put(doc, w.t('caution.heading').toLocaleUpperCase(w.tag), box.x, y, { font: 'bold', size: 10 * s });
       y += 14 * s;
-      y = paragraph(doc, printable(`${model.caution} ${model.streamCaution}`), box.x, y, box.width, { font: 'regular', size: 8.5 * s });
+      y = paragraph(doc, printable(`${w.caution} ${w.t('caution.streams')}`), box.x, y, box.width, { font: 'regular', size: 8.5 * s });
       if (model.invented) {
         y += 10 * s;
-        paragraph(doc, 'INVENTED DATA: this station and its streams are made up for a demonstration; never use them for navigation.', box.x, y, box.width, { font: 'bold', size: 8.5 * s });
+        paragraph(doc, `${w.t('book.inventedBanner')}: ${w.t('stream.inventedThis')}`, box.x, y, box.width, { font: 'bold', size: 8.5 * s });
       }
       y += 18 * s;
-      paragraph(doc, 'How to read the month pages: slack water is the time the stream turns; flood and ebb give the time of the strongest stream, its rate in knots and an arrow pointing the way the water goes.', box.x, y + 12 * s, box.width, { font: 'oblique', size: 8 * s, color: MID });
+      paragraph(doc, `${w.t('book.howToRead')}: ${w.t('stream.keySlack')} ${w.t('stream.keySlackText')}; ${w.t('stream.flood')} ${w.t('stream.and')} ${w.t('stream.ebb')}${w.t('stream.keyPeak')}`, box.x, y + 12 * s, box.width, { font: 'oblique', size: 8 * s, color: MID });
     },
   };
 }
@@ -94,17 +95,17 @@ function monthPage(model: StreamYear, monthIndex: number, words: Words): Logical
       const mw = put(doc, words.monthName(month.month), box.x, y0 + 17 * u, { font: 'bold', size: 21 * u });
       put(doc, String(model.year), box.x + mw + 6 * u, y0 + 17 * u, { font: 'regular', size: 21 * u, color: MID });
       putFitted(doc, model.station.name, right, y0 + 8 * u, { font: 'bold', size: 9.5 * u }, box.width / 2, 6 * u, 'right');
-      put(doc, 'tidal streams', right, y0 + 17.5 * u, { font: 'narrow', size: 7.6 * u, color: MID }, 'right');
-      const info = `${offsetStatement(days as never, words)} \u00b7 rates in knots \u00b7 flood toward ${bearing(model.floodDirection)}, ebb toward ${bearing(model.ebbDirection)}`;
+      put(doc, words.t('stream.groupName'), right, y0 + 17.5 * u, { font: 'narrow', size: 7.6 * u, color: MID }, 'right');
+      const info = `${offsetStatement(days as never, words)} \u00b7 ${words.t('stream.rates')} ${words.t('stream.inKnots')} \u00b7 ${words.t('stream.directionsText', { flood: bearing(model.floodDirection), ebb: bearing(model.ebbDirection) })}`;
       putFitted(doc, info, box.x, y0 + 29 * u, { font: 'narrow', size: 7.6 * u }, box.width, 5 * u);
 
       const col = { day: box.x, slack: box.x + box.width * 0.12, flood: box.x + box.width * 0.41, ebb: box.x + box.width * 0.705 };
       const hy = y0 + 41 * u;
       const head = { font: 'narrow-bold' as const, size: 6.3 * u, color: MID };
-      put(doc, 'DAY', col.day, hy, head);
-      put(doc, 'SLACK WATER', col.slack, hy, head);
-      put(doc, 'FLOOD  time \u00b7 kn \u00b7 way', col.flood, hy, head);
-      put(doc, 'EBB  time \u00b7 kn \u00b7 way', col.ebb, hy, head);
+      put(doc, words.t('site.colDay').toLocaleUpperCase(words.tag), col.day, hy, head);
+      put(doc, words.t('stream.colSlack').toLocaleUpperCase(words.tag), col.slack, hy, head);
+      putFitted(doc, `${words.t('stream.flood').toLocaleUpperCase(words.tag)}  ${words.t('stream.colUnit')}`, col.flood, hy, head, col.ebb - col.flood - 4 * u, 4 * u);
+      putFitted(doc, `${words.t('stream.ebb').toLocaleUpperCase(words.tag)}  ${words.t('stream.colUnit')}`, col.ebb, hy, head, right - col.ebb, 4 * u);
       doc.save().lineWidth(0.9 * u).strokeColor(INK).moveTo(box.x, y0 + HEADER * u - 3 * u).lineTo(right, y0 + HEADER * u - 3 * u).stroke().restore();
 
       const row = (box.height - HEADER * u) / 31;
@@ -130,23 +131,23 @@ function monthPage(model: StreamYear, monthIndex: number, words: Words): Logical
 
 /** The pages of one stream-year: its first page, then a page per month. */
 export function streamBookPages(model: StreamYear, title: string, words: Words): LogicalPage[] {
-  return [firstPage(model, title), ...model.months.map((_, i) => monthPage(model, i, words))];
+  return [firstPage(model, title, words), ...model.months.map((_, i) => monthPage(model, i, words))];
 }
 
 export async function renderStreamBook(model: StreamYear, options: BookOptions): Promise<Buffer> {
   checkBookOptions(options);
   const g = pageGeometry(options.page);
   contentBox(g, 1);
-  const title = printable(options.title ?? 'Tide predictions');
+  const title = printable(options.title ?? wordsFor({ locale: options.locale }).t('book.defaultTitle'));
   const words = wordsFor({ locale: options.locale, units: options.units, caution: options.caution });
   const settings: BookSettings = { units: options.units, geometry: g, title, publisher: options.publisher, words };
   const pages = streamBookPages(model, title, words);
   return renderBook(pages, settings, {
-    title: `${model.station.name}: tidal streams ${model.year}`,
+    title: `${model.station.name}: ${words.t('stream.title', { year: model.year })}`,
     author: options.publisher,
-    subject: `Slack water and the strongest flood and ebb at ${model.station.name} in ${model.year}${model.invented ? ' (invented demonstration data)' : ''}`,
-    keywords: 'tidal streams, slack water, flood, ebb',
+    subject: `${words.t('stream.caption', { station: model.station.name, month: '', year: model.year }).replace(', ', ' ').replace('  ', ' ')}${model.invented ? ` (${words.t('book.inventedSubject')})` : ''}`,
+    keywords: `${words.t('stream.groupName')}, ${words.t('stream.colSlack')}, ${words.t('stream.flood')}, ${words.t('stream.ebb')}`,
     date: editionDate(model.year),
-    lang: 'en',
+    lang: words.tag,
   }, options.imposition ?? 'none', () => notesPage({ invented: model.invented, label: model.station.name }));
 }

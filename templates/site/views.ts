@@ -96,7 +96,7 @@ const byName = (a: { name: string }, b: { name: string }): number => a.name.loca
 
 export const stationYearUrl = (id: string, year: number): string => `/${id}/${year}/`;
 
-function indexGroups(models: StationYear[], streams: readonly StreamYear[] = []): IndexGroup[] {
+function indexGroups(models: StationYear[], streams: readonly StreamYear[], words: Words): IndexGroup[] {
   const stations = new Map<string, IndexStation>();
   const referenceOf = new Map<string, { id: string; name: string } | null>();
   for (const m of models) {
@@ -141,7 +141,7 @@ function indexGroups(models: StationYear[], streams: readonly StreamYear[] = [])
   const list = [...groups.values()];
   for (const g of list) g.secondaries.sort(byName);
   list.sort((a, b) => a.referenceName.localeCompare(b.referenceName, 'en'));
-  if (loose.length > 0) list.push({ referenceName: 'Tidal streams', reference: null, secondaries: [], streams: loose, streamsOnly: true });
+  if (loose.length > 0) list.push({ referenceName: words.t('stream.groupName'), reference: null, secondaries: [], streams: loose, streamsOnly: true });
   return list;
 }
 
@@ -207,10 +207,10 @@ export function buildSiteData(models: StationYear[], options: SiteOptions, downl
     anyInvented: sorted.some((m) => m.invented) || streams.some((m) => m.invented),
     provenances: [...new Set([...sorted, ...streams].map((m) => m.station.provenance))].sort(),
     generator: first ? `${first.generator.name} ${first.generator.version}` : 'tidewright',
-    groups: indexGroups(sorted, streams),
+    groups: indexGroups(sorted, streams, words),
     stationYears,
     monthPages,
     ...stream,
-    streamCaution: streams[0]?.streamCaution ?? null,
+    streamCaution: streams.length > 0 ? words.t('caution.streams') : null,
   };
 }

@@ -6,8 +6,9 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { buildStationYear, loadStationSet } from '../../engine/index.js';
-import type { StationYear } from '../../engine/index.js';
+import { buildStationYear, buildStreamYear, loadStationSet } from '../../engine/index.js';
+import type { StationYear, StreamYear } from '../../engine/index.js';
+import { renderStreamBook } from '../../templates/pdf/stream-book.js';
 import { CATALOGUES, type Catalogue, type Language } from '../../templates/locale/catalogue.js';
 import { wordsFor } from '../../templates/locale/index.js';
 import { renderStationBook } from '../../templates/pdf/book.js';
@@ -37,20 +38,27 @@ function catalogueText(c: Catalogue): string {
  * English words of the catalogue (four letters or more) that the other language does not use itself
  * (many words are shared: "station", "position", "notes") and that station files do not bring in.
  */
-export function englishOnlyWords(language: Language, models: readonly StationYear[]): Set<string> {
+export function englishOnlyWords(language: Language, models: readonly { station: { name: string; provenance: string }; timezone: string; reference: { name: string } | null }[]): Set<string> {
   const own = new Set(words(catalogueText(CATALOGUES[language])));
-  const stationText = new Set(models.flatMap((m) => words(`${m.station.name} ${m.station.provenance} ${m.station.datum} `
+  const stationText = new Set(models.flatMap((m) => words(`${m.station.name} ${m.station.provenance} ${'datum' in m.station ? String(m.station.datum) : ''} `
     + `${m.timezone} ${m.reference?.name ?? ''}`)));
   const technical = new Set(['tidewright', 'icalendar', 'json', 'build', 'greenwich']);
   return new Set(words(catalogueText(CATALOGUES.en))
     .filter((w) => w.length >= 4 && !own.has(w) && !stationText.has(w) && !technical.has(w)));
 }
 
+/** A tidal stream station of the demo (the first one), for 2027; null when the demo has none. */
+export function demoStream(): StreamYear | null {
+  const set = loadStationSet(DEMO_DIR);
+  const station = set.streams?.[0];
+  return station ? buildStreamYear(station, set, 2027) : null;
+}
+
 export interface BuiltLanguage {
   dir: string;
   site: string;
   pages: Map<string, string>; // site-relative path → visible text
-  book: string; // pdftotext of the secondary port's book ('' without poppler)
+  book: string; // pdftotext of the secondary port's book and of the stream book ('' without poppler)
   models: StationYear[];
 }
 
@@ -61,10 +69,10 @@ export function visibleText(html: string): string {
     .replace(/&quot;/g, '"').replace(/&#39;/g, "'").replace(/\s+/g, ' ');
 }
 
-export async function buildIn(locale: string, models: StationYear[]): Promise<BuiltLanguage> {
+export async function buildIn(locale: string, models: StationYear[], stream: StreamYear | null = null): Promise<BuiltLanguage> {
   const dir = mkdtempSync(join(tmpdir(), `tidewright-${locale}-`));
   const site = join(dir, 'site');
-  await renderSite(models, site, { units: 'm', quiet: true, locale });
+  await renderSite(models, site, { units: 'm', quiet: true, locale, streams: stream ? [stream] : [] });
   const pages = new Map<string, string>();
   for (const file of htmlFiles(site)) pages.set(file.slice(site.length + 1), visibleText(read(site, file.slice(site.length + 1))));
   let book = '';
@@ -72,6 +80,11 @@ export async function buildIn(locale: string, models: StationYear[]): Promise<Bu
     const pdf = join(dir, 'book.pdf');
     writeFileSync(pdf, await renderStationBook(models[1]!, { units: 'm', page: 'a5', locale }));
     book = execFileSync('pdftotext', ['-layout', pdf, '-'], { encoding: 'utf8', maxBuffer: 64 << 20 });
+    if (stream) {
+      const streamPdf = join(dir, 'stream.pdf');
+      writeFileSync(streamPdf, await renderStreamBook(stream, { units: 'm', page: 'a5', locale }));
+      book += execFileSync('pdftotext', ['-layout', streamPdf, '-'], { encoding: 'utf8', maxBuffer: 64 << 20 });
+    }
   }
   return { dir, site, pages, book, models };
 }
@@ -99,23 +112,25 @@ const intlDecimal = (tag: string): string =>
 
 export function publishedIn(languages: Language[]): void {
   const models: StationYear[] = [];
+  let stream: StreamYear | null = null;
   beforeAll(() => {
     models.push(...demoPair());
+    stream = demoStream();
   }, 60_000);
   describe.each(languages)('published in %s', (language: Language) => {
   let built: BuiltLanguage | undefined;
   beforeAll(async () => {
-    built = await buildIn(language, models);
+    built = await buildIn(language, models, stream);
   }, 60_000);
   afterAll(() => cleanUp(built));
 
   it('has no English word of the catalogue on any page of the website', () => {
-    const english = englishOnlyWords(language, models);
+    const english = englishOnlyWords(language, [...models, ...(stream ? [stream] : [])]);
     for (const [page, text] of built!.pages) expect(englishIn(text, english), `${language} ${page}`).toEqual([]);
   });
 
   it.skipIf(!POPPLER)('has no English word of the catalogue in the book', () => {
-    const english = englishOnlyWords(language, models);
+    const english = englishOnlyWords(language, [...models, ...(stream ? [stream] : [])]);
     expect(englishIn(built!.book, english)).toEqual([]);
   });
 
