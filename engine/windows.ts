@@ -10,7 +10,7 @@
 //   waters, h = h1 + (h2 − h1)(1 − cos πx)/2, solved in closed form x = acos(1 − 2(L − h1)/(h2 − h1))/π.
 //   That curve is an approximation between the port's events; SECONDARY_WINDOW_NOTE says how good.
 import { findExtrema } from './extrema.js';
-import type { Predictor } from './predict.js';
+import { newPhasorWindow, type Predictor } from './predict.js';
 import type { EngineContext } from './context.js';
 import { cosineCurve, predictorFor, tideEvents, type StationLookup } from './tides.js';
 import type { Station, TideEvent, WindowSide } from './types.js';
@@ -27,7 +27,8 @@ export interface OpenInterval {
 export type WindowMethod = 'harmonic' | 'secondary-curve';
 
 const DAY = 86_400_000;
-const ROOT_TOLERANCE_MS = 0.5;
+const ROOT_TOLERANCE_MS = 10; // crossings are printed to the second (model) and the minute (pages)
+const HALLEY_ACCEPT_MS = 1000;
 
 /** A monotone piece of the curve: consecutive breakpoints with their heights. */
 interface Breakpoints {
@@ -36,24 +37,83 @@ interface Breakpoints {
   crossing(i: number, level: number): number; // the instant in (times[i], times[i+1]) where h = level
 }
 
-/** Root of h − level between a and b, where (h(a) − level) and (h(b) − level) differ in sign. */
-export function harmonicCrossing(predictor: Predictor, a: number, b: number, level: number): number {
+/**
+ * Height and rate of rise of the kernel together (one cosine and sine per constituent for both), on the
+ * same UTC-day windows as Predictor.heightAt, so the values are those of the prediction itself. Keeps
+ * the last two day windows: roots are sought in time order and a piece may straddle a midnight.
+ */
+export function kernelEvaluator(predictor: Predictor): (t: number, out: KernelValue) => void {
+  const n = predictor.names.length;
+  const slots = [newPhasorWindow(n), newPhasorWindow(n)];
+  const days = [Number.NaN, Number.NaN];
+  let next = 0;
+  return (t, out) => {
+    const day = Math.floor(t / DAY);
+    let w = days[0] === day ? slots[0]! : days[1] === day ? slots[1]! : null;
+    if (!w) {
+      w = predictor.window(day * DAY, (day + 1) * DAY, slots[next]!);
+      days[next] = day;
+      next = 1 - next;
+    }
+    const tau = (t - w.start) / 3_600_000;
+    let h = 0;
+    let rate = 0;
+    let curvature = 0;
+    for (let i = 0; i < n; i++) {
+      const beta = w.beta[i]!;
+      const b = beta * tau;
+      const grow = 1 + b * (1 + b / 2); // e^{βτ}, as the kernel grows it
+      const c = Math.cos(w.omega[i]! * tau);
+      const s = Math.sin(w.omega[i]! * tau);
+      const x = grow * (w.re[i]! * c - w.im[i]! * s);
+      const y = grow * (w.re[i]! * s + w.im[i]! * c);
+      const omega = w.omega[i]!;
+      h += x;
+      rate += beta * x - omega * y;
+      curvature += (beta * beta - omega * omega) * x - 2 * beta * omega * y; // Re(λ²z), λ = β + iω
+    }
+    out.h = predictor.meanLevel + h;
+    out.rate = rate;
+    out.curvature = curvature;
+  };
+}
+
+/** h (m), h′ (m/h) and h″ (m/h²) at one instant. */
+export interface KernelValue {
+  h: number;
+  rate: number;
+  curvature: number;
+}
+
+type Evaluate = ReturnType<typeof kernelEvaluator>;
+
+/**
+ * Root of h − level between a and b, where h(a) − level and h(b) − level differ in sign. The first
+ * guess is the half-cosine between the two ends (close to a tide's shape), then Halley's method with the
+ * analytic h′ and h″ (cubic convergence: a step under a second leaves an error far below a millisecond,
+ * so it is taken without another evaluation), falling back to bisection whenever a step would leave the
+ * bracket.
+ */
+export function harmonicCrossing(
+  evaluate: Evaluate, a: number, b: number, level: number, ha: number, hb: number,
+): number {
   let lo = a;
   let hi = b;
-  const rising = predictor.heightAt(b) > predictor.heightAt(a);
-  let x = (lo + hi) / 2;
+  const rising = hb > ha;
+  const v: KernelValue = { h: 0, rate: 0, curvature: 0 };
+  let x = cosineCrossing({ time: a, height: ha, type: 'low' }, { time: b, height: hb, type: 'high' }, level);
+  if (!(x > lo && x < hi)) x = (lo + hi) / 2;
   for (let iter = 0; iter < 100 && hi - lo > ROOT_TOLERANCE_MS; iter++) {
-    const f = predictor.heightAt(x) - level;
+    evaluate(x, v);
+    const f = v.h - level;
     if (f > 0 === rising) hi = x;
     else lo = x;
-    const rate = predictor.rateAt(x) / 3_600_000; // metres per ms
-    const next = rate !== 0 ? x - f / rate : Number.NaN;
-    if (next > lo && next < hi) {
-      if (Math.abs(next - x) < ROOT_TOLERANCE_MS / 2) return next;
-      x = next;
-    } else {
-      x = (lo + hi) / 2;
-    }
+    // in hours: Halley's step 2ff′/(2f′² − ff″)
+    const denominator = 2 * v.rate * v.rate - f * v.curvature;
+    const step = denominator !== 0 ? ((2 * f * v.rate) / denominator) * 3_600_000 : Number.NaN;
+    const next = x - step;
+    if (Math.abs(step) < HALLEY_ACCEPT_MS) return Math.min(hi, Math.max(lo, next));
+    x = next > lo && next < hi ? next : (lo + hi) / 2;
   }
   return (lo + hi) / 2;
 }
@@ -65,13 +125,15 @@ export function cosineCrossing(a: TideEvent, b: TideEvent, level: number): numbe
 }
 
 function harmonicBreakpoints(predictor: Predictor, events: readonly TideEvent[], from: number, to: number): Breakpoints {
+  const evaluate = kernelEvaluator(predictor);
   // The ends of the span are breakpoints too: the curve is monotone from `from` to the first event.
-  const inside = events.filter((e) => e.time > from && e.time < to).map((e) => e.time);
-  const times = [from, ...inside, to];
+  const inside = events.filter((e) => e.time > from && e.time < to);
+  const times = [from, ...inside.map((e) => e.time), to];
+  const heights = [predictor.heightAt(from), ...inside.map((e) => e.height), predictor.heightAt(to)];
   return {
     times,
-    heights: times.map((t) => predictor.heightAt(t)),
-    crossing: (i, level) => harmonicCrossing(predictor, times[i]!, times[i + 1]!, level),
+    heights,
+    crossing: (i, level) => harmonicCrossing(evaluate, times[i]!, times[i + 1]!, level, heights[i]!, heights[i + 1]!),
   };
 }
 
@@ -85,44 +147,65 @@ function secondaryBreakpoints(events: readonly TideEvent[]): Breakpoints {
 
 const isOpen = (h: number, side: WindowSide, level: number): boolean => (side === 'above' ? h >= level : h <= level);
 
-/** Open intervals over the breakpoints, clipped to [from, to). */
-function intervalsOver(bp: Breakpoints, side: WindowSide, level: number, from: number, to: number): OpenInterval[] {
-  const out: OpenInterval[] = [];
-  const { times, heights } = bp;
-  if (times.length === 0) return out;
-  let open = isOpen(heights[0]!, side, level);
-  let start = open ? times[0]! : Number.NaN;
-  for (let i = 0; i + 1 < times.length; i++) {
-    const next = isOpen(heights[i + 1]!, side, level);
-    if (next === open) continue;
-    const t = bp.crossing(i, level);
-    if (open) out.push({ start, end: t });
-    else start = t;
-    open = next;
-  }
-  if (open) out.push({ start, end: times[times.length - 1]! });
-  return out
-    .map((w) => ({ start: Math.max(w.start, from), end: Math.min(w.end, to) }))
-    .filter((w) => w.end > w.start);
+/** A level and the side of it on which a window is open. */
+export interface WindowLevel {
+  side: WindowSide;
+  level: number;
 }
 
 /**
- * Every interval in [from, to) when the tide is at or above (`above`) or at or below (`below`) the
- * level, in time order, clipped to the span. `events` may pass high and low waters already computed
- * (they must cover [from − 2 days, to + 2 days) for a secondary port and [from, to) for a reference port).
+ * Open intervals of every level over the breakpoints, clipped to [from, to). The pieces are walked
+ * once in time order for all levels together, so the kernel's day windows are each built once.
  */
+function intervalsOver(bp: Breakpoints, levels: readonly WindowLevel[], from: number, to: number): OpenInterval[][] {
+  const { times, heights } = bp;
+  const out: OpenInterval[][] = levels.map(() => []);
+  if (times.length === 0) return out;
+  const open = levels.map((l) => isOpen(heights[0]!, l.side, l.level));
+  const start = open.map((o) => (o ? times[0]! : Number.NaN));
+  for (let i = 0; i + 1 < times.length; i++) {
+    levels.forEach((l, k) => {
+      const next = isOpen(heights[i + 1]!, l.side, l.level);
+      if (next === open[k]) return;
+      const t = bp.crossing(i, l.level);
+      if (open[k]) out[k]!.push({ start: start[k]!, end: t });
+      else start[k] = t;
+      open[k] = next;
+    });
+  }
+  levels.forEach((_, k) => {
+    if (open[k]) out[k]!.push({ start: start[k]!, end: times[times.length - 1]! });
+  });
+  return out.map((list) => list
+    .map((w) => ({ start: Math.max(w.start, from), end: Math.min(w.end, to) }))
+    .filter((w) => w.end > w.start));
+}
+
+/**
+ * For each level, every interval in [from, to) when the tide is at or above (`above`) or at or below
+ * (`below`) it, in time order, clipped to the span. `events` may pass high and low waters already
+ * computed (covering [from − 2 days, to + 2 days) for a secondary port, [from, to) for a reference port).
+ */
+export function openIntervalsOf(
+  station: Station, set: StationLookup, levels: readonly WindowLevel[], from: number, to: number,
+  events?: readonly TideEvent[], ctx?: EngineContext,
+): OpenInterval[][] {
+  if (!(to > from)) return levels.map(() => []);
+  if (station.kind === 'reference') {
+    const predictor = predictorFor(station, ctx);
+    const evs = events ?? findExtrema(predictor, from, to);
+    return intervalsOver(harmonicBreakpoints(predictor, evs, from, to), levels, from, to);
+  }
+  const evs = events ?? tideEvents(station, set, from - 2 * DAY, to + 2 * DAY, ctx);
+  return intervalsOver(secondaryBreakpoints(evs), levels, from, to);
+}
+
+/** The open intervals of one level (see openIntervalsOf). */
 export function openIntervals(
   station: Station, set: StationLookup, side: WindowSide, level: number, from: number, to: number,
   events?: readonly TideEvent[], ctx?: EngineContext,
 ): OpenInterval[] {
-  if (!(to > from)) return [];
-  if (station.kind === 'reference') {
-    const predictor = predictorFor(station, ctx);
-    const evs = events ?? findExtrema(predictor, from, to);
-    return intervalsOver(harmonicBreakpoints(predictor, evs, from, to), side, level, from, to);
-  }
-  const evs = events ?? tideEvents(station, set, from - 2 * DAY, to + 2 * DAY, ctx);
-  return intervalsOver(secondaryBreakpoints(evs), side, level, from, to);
+  return openIntervalsOf(station, set, [{ side, level }], from, to, events, ctx)[0]!;
 }
 
 /** The method the crossings of a station come from. */

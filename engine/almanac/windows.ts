@@ -6,7 +6,7 @@ import type { StationLookup } from '../tides.js';
 import type {
   ModelWarning, Station, TideEvent, WindowDay, WindowInterval, WindowPiece, WindowSpec, WindowYear,
 } from '../types.js';
-import { openIntervals, windowMethod, type OpenInterval } from '../windows.js';
+import { openIntervalsOf, windowMethod, type OpenInterval } from '../windows.js';
 import { mm } from './format.js';
 
 /** The side and level of a station file's window (the schema guarantees exactly one of the two). */
@@ -25,9 +25,11 @@ export function yearWindows(
   const zone = station.timezone;
   const from = days[0]!.start;
   const to = days[days.length - 1]!.end;
-  return (station.windows ?? []).map((spec): WindowYear => {
+  const specs = station.windows ?? [];
+  const all = openIntervalsOf(station, set, specs.map(sideAndLevel), from, to, events, ctx);
+  return specs.map((spec, k): WindowYear => {
     const { side, level } = sideAndLevel(spec);
-    const exact = openIntervals(station, set, side, level, from, to, events, ctx);
+    const exact = all[k]!;
     const byDay = splitByDay(exact, days, zone);
     return {
       id: spec.id,

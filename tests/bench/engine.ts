@@ -34,7 +34,7 @@ function median(values: number[]): number {
 const collectGarbage = (globalThis as { gc?: () => void }).gc ?? (() => {});
 
 /** Runs each job RUNS times, interleaved so both see the same machine load. */
-function timeSideBySide(jobs: (() => unknown)[]): Timing[] {
+export function timeSideBySide(jobs: (() => unknown)[]): Timing[] {
   // warm up until the optimising compiler has settled: at least 5 runs and 0.5 s of each job
   for (const job of jobs) {
     const t0 = performance.now();
@@ -56,11 +56,11 @@ function timeSideBySide(jobs: (() => unknown)[]): Timing[] {
   return jobs.map((_, i) => ({ wall: median(wall[i]!), cpu: median(cpu[i]!) }));
 }
 
-function line(label: string, t: Timing): string {
+export function line(label: string, t: Timing): string {
   return `  ${label.padEnd(40)} ${t.wall.toFixed(1).padStart(8)} ms wall ${t.cpu.toFixed(1).padStart(8)} ms CPU`;
 }
 
-function ratio(slow: Timing, fast: Timing, target: number): string {
+export function ratio(slow: Timing, fast: Timing, target: number): string {
   return `  ratio ${(slow.wall / fast.wall).toFixed(1)}× wall, ${(slow.cpu / fast.cpu).toFixed(1)}× CPU (medians of ${RUNS}; target ≥ ${target}×)`;
 }
 

@@ -7,9 +7,11 @@ import { bench as pdf } from './pdf.js';
 import { bench as build } from './build.js';
 import { bench as sky } from './sky.js';
 import { bench as streams } from './streams.js';
+import { bench as windows } from './windows.js';
 
 const BENCHMARKS: readonly (readonly [string, () => Promise<void>])[] = [
   ['engine', engine],
+  ['windows', windows],
   ['analysis', analysis],
   ['datums', datums],
   ['sky', sky],

@@ -1,0 +1,42 @@
+// Benchmark of access windows: every opening of a station-year at three levels, solved between the
+// year's high and low waters, against reading the same crossings off 1-minute direct-cosine sampling
+// (which is also 60 times coarser than the solver's sub-millisecond roots); target ≥ 20×.
+import { findExtrema } from '../../engine/extrema.js';
+import { predictorFor } from '../../engine/tides.js';
+import { openIntervalsOf } from '../../engine/windows.js';
+import type { Station } from '../../engine/types.js';
+import { sixtyConstituentStation } from '../fixtures/engine-stations.js';
+import { directMinuteSeries } from './direct.js';
+import { line, ratio, timeSideBySide } from './engine.js';
+
+const DAY = 86_400_000;
+
+function sampledCrossings(h: Float64Array, levels: readonly number[]): number {
+  let n = 0;
+  for (const level of levels) {
+    for (let j = 1; j < h.length; j++) if (h[j - 1]! >= level !== h[j]! >= level) n++;
+  }
+  return n;
+}
+
+export async function bench(): Promise<void> {
+  const station = sixtyConstituentStation();
+  const set = { byId: new Map<string, Station>([[station.id, station]]) };
+  const start = Date.UTC(2027, 0, 1);
+  const days = 365;
+  const end = start + days * DAY;
+  const levels = [station.mean_level - 1.5, station.mean_level, station.mean_level + 1.5];
+
+  const solve = (): number => {
+    const events = findExtrema(predictorFor(station), start, end);
+    const all = openIntervalsOf(station, set, levels.map((level) => ({ side: 'above' as const, level })), start, end, events);
+    return all.reduce((n, list) => n + list.length, 0);
+  };
+  const intervals = solve();
+  const crossings = sampledCrossings(directMinuteSeries(station, start, days), levels);
+  console.log(`windows: a station-year (60 constituents), three levels (${levels.map((l) => l.toFixed(2)).join(', ')} m)`);
+  const [w, s] = timeSideBySide([solve, () => sampledCrossings(directMinuteSeries(station, start, days), levels)]);
+  console.log(line(`extrema + crossings (${intervals} windows)`, w!));
+  console.log(line(`1-minute direct sampling (${crossings} crossings)`, s!));
+  console.log(ratio(s!, w!, 20));
+}
