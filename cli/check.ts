@@ -16,12 +16,14 @@ values of each file, time zones and constituent names, unique ids, each secondar
 and constants that are probably wrong (a mean level that puts chart datum far from the lowest tides,
 amplitudes too large for a tide, time differences of many hours; for tidal stream stations an ellipse
 axis over 10 knots, a minor axis longer than the major, a missing M2), and access windows whose level the
-tide never reaches or never leaves over the station's 19-year datum epoch. Every problem is listed on its own
-line as FILE: FIELD: what is wrong; what to write instead. Exit code 1 when there is any problem.
+tide never reaches or never leaves over the station's 19-year datum epoch (a warning: the set is still
+usable). Every problem is listed on its own line as FILE: FIELD: what is wrong; what to write instead.
+Exit code 1 when there is any problem; warnings alone leave it 0.
 `;
 
 export interface SetReport {
   problems: StationFileError[];
+  warnings: StationFileError[]; // listed, but no reason to refuse the set (a window that never opens)
   referencePorts: number;
   secondaryPorts: number;
   streamStations: number;
@@ -48,9 +50,10 @@ export function checkStations(dir: string): SetReport {
     problems.push(error);
   }
   // Window levels need the station's predicted range, so only a set without other problems gets them.
+  const warnings: StationFileError[] = [];
   if (problems.length === 0) {
     const set = { byId };
-    for (const station of result.stations) problems.push(...windowLevelProblems(station, set));
+    for (const station of result.stations) warnings.push(...windowLevelProblems(station, set));
   }
   // Group by file, keeping the order found within each file.
   const order = new Map(result.files.map((f, i) => [f, i]));
@@ -60,6 +63,7 @@ export function checkStations(dir: string): SetReport {
     .map(({ p }) => p);
   return {
     problems: sorted,
+    warnings,
     referencePorts: result.stations.filter((s) => s.kind === 'reference').length,
     secondaryPorts: result.stations.filter((s) => s.kind === 'secondary').length,
     streamStations: result.streams.length,
@@ -81,9 +85,10 @@ export async function runCheck(argv: string[]): Promise<number> {
   positionalArguments('check', positionals, []);
   const dir = values.stations ?? DEFAULT_STATIONS_DIR;
   const report = checkStations(dir);
+  const warned = report.warnings.map((w) => `warning: ${w.message}\n`).join('');
   if (report.problems.length === 0) {
     const streams = report.streamStations > 0 ? `, ${plural(report.streamStations, 'stream station')}` : '';
-    process.stdout.write(`${dir}: ${plural(report.referencePorts, 'reference port')}, ${plural(report.secondaryPorts, 'secondary port')}${streams}, OK\n`);
+    process.stdout.write(`${warned}${dir}: ${plural(report.referencePorts, 'reference port')}, ${plural(report.secondaryPorts, 'secondary port')}${streams}, OK${report.warnings.length ? ` (${plural(report.warnings.length, 'warning')})` : ''}\n`);
     return 0;
   }
   const badFiles = new Set(report.problems.map((p) => p.file)).size;

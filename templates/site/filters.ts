@@ -12,6 +12,7 @@ import { sunTimes } from '../night.js';
 import { relativeUrl } from './paths.js';
 import { streamCurve, streamScale, type StreamCurve } from './stream-curve.js';
 import type { StreamDayEntry, StreamYear } from '../../engine/index.js';
+import { windowFilters } from './windows.js';
 
 export interface FilterHost {
   addFilter(name: string, fn: (...args: never[]) => unknown): unknown;
@@ -92,6 +93,7 @@ export function siteFilters(w: Words): Record<string, (...args: never[]) => unkn
     // a height above chart datum as a height above the land-levelling datum, which lies chart_datum_below higher
     aboveLand: (metres: number, levelling: { chart_datum_below: number }): number => metres - levelling.chart_datum_below,
     ladderSpan: (rows: DatumRow[]): number => ladderSpan(rows),
+    ...windowFilters(units),
   };
 }
 

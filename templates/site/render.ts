@@ -37,7 +37,7 @@ export const STATION_YEARS_PER_RUN = 25;
 
 // Which templates each kind of run leaves out.
 const SHARED_PAGES = ['index.njk', 'datums.njk', 'stream-year.njk', 'stream-month.njk'];
-const STATION_PAGES = ['station-year.njk', 'month.njk'];
+const STATION_PAGES = ['station-year.njk', 'month.njk', 'hours.njk'];
 
 async function linkOrCopy(from: string, to: string): Promise<void> {
   await rm(to, { force: true });
@@ -97,7 +97,8 @@ export async function renderSite(models: StationYear[], outDir: string, options:
     const names = await writeExports(model, siteData, siteWords(options));
     if (options.dataDir) {
       await mkdir(options.dataDir, { recursive: true });
-      for (const name of [names.csv, names.json, names.ics]) {
+      const extra = [names.hourly, ...(names.windows ? [names.windows.csv, names.windows.json] : [])];
+      for (const name of [names.csv, names.json, names.ics, ...extra]) {
         await linkOrCopy(join(siteData, name), join(options.dataDir, name));
       }
     }

@@ -59,7 +59,7 @@ export interface StationYearPage {
   referenceUrl: string | null;
   months: { month: MonthEntry; url: string }[];
   clockChanges: DatedChange[];
-  downloads: { csv: string; json: string; ics: string };
+  downloads: { csv: string; json: string; ics: string; hourly: string; windows: null | { csv: string; json: string } };
 }
 
 export interface MonthPage {
@@ -191,7 +191,10 @@ export function buildSiteData(models: StationYear[], options: SiteOptions, downl
       referenceUrl: ref && built.has(stationYearUrl(ref.id, model.year)) ? stationYearUrl(ref.id, model.year) : null,
       months: months.map((p) => ({ month: p.month, url: p.url })),
       clockChanges: clockChangesOf(model.days),
-      downloads: { csv: `/data/${names.csv}`, json: `/data/${names.json}`, ics: `/data/${names.ics}` },
+      downloads: {
+        csv: `/data/${names.csv}`, json: `/data/${names.json}`, ics: `/data/${names.ics}`, hourly: `/data/${names.hourly}`,
+        windows: names.windows ? { csv: `/data/${names.windows.csv}`, json: `/data/${names.windows.json}` } : null,
+      },
     });
     monthPages.push(...months);
   }

@@ -1,0 +1,74 @@
+// View helpers for access windows and hourly heights: what each day's window line and hour row read.
+// The numbers come from the model (StationYear.windows, StationYear.hourly); nothing is recomputed.
+import { SECONDARY_WINDOW_NOTE } from '../../engine/windows.js';
+import type { DayEntry, StationYear, WindowDay, WindowYear } from '../../engine/types.js';
+import { heightNumber, toUnits, type Units } from './format.js';
+
+export interface DayWindowLine {
+  id: string;
+  name: string;
+  state: WindowDay['state'];
+  spans: string[]; // "04:33–12:03", to the minute; 00:00 / 24:00 where open across midnight
+}
+
+export interface HourCell {
+  clock: string; // "00".."23"
+  values: string[]; // 0 (the hour the clocks skip), 1, or 2 (the repeated hour) heights to 0.1
+  below: boolean; // a value below datum
+}
+
+const indexes = new WeakMap<StationYear, Map<string, number>>();
+
+function dayIndex(model: StationYear, date: string): number {
+  let byDate = indexes.get(model);
+  if (!byDate) {
+    byDate = new Map(model.days.map((d, i) => [d.date, i]));
+    indexes.set(model, byDate);
+  }
+  return byDate.get(date) ?? -1;
+}
+
+/** Each window's line for one day. */
+export function dayWindows(day: DayEntry, model: StationYear): DayWindowLine[] {
+  const i = dayIndex(model, day.date);
+  if (i < 0) return [];
+  return model.windows.map((w) => {
+    const d = w.days[i]!;
+    return { id: w.id, name: w.name, state: d.state, spans: d.pieces.map((p) => `${p.startClock}–${p.endClock}`) };
+  });
+}
+
+/** "at or above 2.40 m" in the site's units. */
+export function windowRule(w: WindowYear, units: Units): string {
+  return `at or ${w.side} ${heightNumber(w.level, units)} ${units}`;
+}
+
+/** The 24 clock hours of a day with their heights to a tenth (a repeated hour has two, a skipped one none). */
+export function hourCells(day: DayEntry, model: StationYear, units: Units): HourCell[] {
+  const i = dayIndex(model, day.date);
+  const hourly = model.hourly.days[i];
+  const cells: HourCell[] = Array.from({ length: 24 }, (_, h) => ({ clock: String(h).padStart(2, '0'), values: [], below: false }));
+  if (!hourly) return cells;
+  hourly.clocks.forEach((c, k) => {
+    const cell = cells[Number(c.slice(0, 2))]!;
+    const metres = hourly.heights[k]!;
+    const value = toUnits(metres, units);
+    cell.values.push(Number.isFinite(value) ? (Math.round(value * 10) / 10 + 0).toFixed(1).replace('-', '\u2212') : '–');
+    if (metres < 0) cell.below = true;
+  });
+  return cells;
+}
+
+/** The note a page prints when its windows or hourly heights come from a secondary port's curve. */
+export function secondaryCurveNote(model: StationYear): string | null {
+  return model.hourly.method === 'secondary-curve' ? SECONDARY_WINDOW_NOTE : null;
+}
+
+export function windowFilters(units: Units): Record<string, (...args: never[]) => unknown> {
+  return {
+    dayWindows: (day: DayEntry, model: StationYear) => dayWindows(day, model),
+    windowRule: (w: WindowYear) => windowRule(w, units),
+    hourCells: (day: DayEntry, model: StationYear) => hourCells(day, model, units),
+    secondaryCurveNote: (model: StationYear) => secondaryCurveNote(model),
+  };
+}
