@@ -22,6 +22,7 @@ export interface RenderChoices {
   publisher?: string;
   locale?: string; // BCP 47 tag of a language with a catalogue (templates/locale)
   caution?: string; // the publisher's own caution, replacing the catalogue's
+  hourly?: boolean; // books print a page of hourly heights after each month
 }
 
 /** Everything one build needs to know, after the command line, the project file and the defaults. */

@@ -36,6 +36,7 @@ export function makePlan(args: BuildArgs, cwd: string = process.cwd(), now: Date
       ...(s.publisher !== undefined && { publisher: s.publisher }),
       ...((args.locale ?? s.locale) !== undefined && { locale: args.locale ?? s.locale }),
       ...(s.caution !== undefined && { caution: s.caution }),
+      ...(s.hourly !== undefined && { hourly: s.hourly }),
     },
     quiet: args.quiet,
     workers: args.workers ?? null,

@@ -23,6 +23,7 @@ const FIELD_FIX: Readonly<Record<keyof ProjectSettings, string>> = {
   locale: `write one of ${LANGUAGES.join(', ')} (a regional tag such as fr-CA or pt-BR also works)`,
   imposition: 'write imposition: none, or imposition: saddle-stitch for fold-and-staple booklets',
   caution: 'write the caution as plain text, e.g. caution: Predictions only; check the official tables. Every output carries one, so it cannot be empty',
+  hourly: 'write hourly: true for a page of heights on every hour after each month in the books, or leave it out',
 };
 const KEYS = Object.keys(FIELD_FIX) as (keyof ProjectSettings)[];
 
@@ -51,6 +52,7 @@ const projectSchema = z.strictObject({
   locale: z.string().check(checkLocale).optional(),
   imposition: z.enum(IMPOSITIONS).optional(),
   caution: z.string().trim().min(1, 'is empty').max(2000, 'is longer than 2000 characters').optional(),
+  hourly: z.boolean().optional(),
 });
 
 function describe(value: unknown): string {

@@ -30,7 +30,8 @@ export async function renderStationBook(model: StationYear, options: BookOptions
   const view = stationView(model, g, words);
   const title = printable(options.title ?? words.t('book.defaultTitle'));
   const settings: BookSettings = { units: options.units, geometry: g, title, publisher: options.publisher, words };
-  const pages = stationPages(view, 1, rowHeight(view.parts, g), { kicker: title, publisher: options.publisher }, false);
+  const pages = stationPages(view, 1, rowHeight(view.parts, g), { kicker: title, publisher: options.publisher }, false,
+    { hourly: options.hourly });
   return renderBook(pages, settings, {
     title: `${view.name}: ${title} ${model.year}`,
     author: options.publisher,
@@ -52,7 +53,7 @@ export async function renderCombinedBook(models: StationYear[], options: BookOpt
   const title = printable(options.title ?? words.t('book.defaultTitle'));
   const settings: BookSettings = { units: options.units, geometry: g, title, publisher: options.publisher, words };
   const row = rowHeight(views.flatMap((v) => v.parts), g);
-  const pages = [...combinedPages(views, g, row, { title, publisher: options.publisher }), ...streams.flatMap((m) => streamBookPages(m, title, words))];
+  const pages = [...combinedPages(views, g, row, { title, publisher: options.publisher, hourly: options.hourly }), ...streams.flatMap((m) => streamBookPages(m, title, words))];
   const invented = models.some((m) => m.invented) || streams.some((m) => m.invented);
   const year = Math.min(...models.map((m) => m.year));
   return renderBook(pages, settings, {

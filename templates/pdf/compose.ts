@@ -8,6 +8,7 @@ import { coverPage } from './cover.js';
 import { factsPage } from './facts.js';
 import { contentBox } from './geometry.js';
 import type { PageGeometry } from './geometry.js';
+import { hoursPage, windowsPage } from './after-month.js';
 import { monthPage } from './month-page.js';
 import { notesPage } from './notes.js';
 import { overviewPage } from './overview.js';
@@ -26,9 +27,12 @@ function guide(pages: LogicalPage[], firstNumber: number): NonNullable<CoverText
   return { parts, months };
 }
 
+/** What follows each month besides its own pages: its hourly heights (a project's `hourly: true`). */
+export interface AfterMonth { hourly?: boolean }
+
 /** The pages of one station, the first of which will be page `firstNumber`. */
 export function stationPages(view: StationView, firstNumber: number, row: number, cover: CoverText,
-  section: boolean): LogicalPage[] {
+  section: boolean, after: AfterMonth = {}): LogicalPage[] {
   const pages: LogicalPage[] = [coverPage(view, cover, section ? 'section' : 'cover'), factsPage(view)];
   if (!section) pages.push(cautionPage(view));
   for (const part of view.parts) {
@@ -37,13 +41,17 @@ export function stationPages(view: StationView, firstNumber: number, row: number
       pages.push(notesPage({ invented: view.model.invented, label: view.name }));
     }
     pages.push(monthPage(view, part, row));
+    if (part.partIndex === part.partCount - 1) {
+      if (view.model.windows.length > 0) pages.push(windowsPage(view, part.month));
+      if (after.hourly) pages.push(hoursPage(view, part.month));
+    }
   }
   pages.push(overviewPage(view));
   cover.guide = guide(pages, firstNumber);
   return pages;
 }
 
-export interface CombinedText { title: string; publisher?: string }
+export interface CombinedText { title: string; publisher?: string; hourly?: boolean }
 
 export function combinedPages(views: StationView[], g: PageGeometry, row: number, text: CombinedText): LogicalPage[] {
   const invented = views.some((v) => v.model.invented);
@@ -57,7 +65,7 @@ export function combinedPages(views: StationView[], g: PageGeometry, row: number
   const sections: LogicalPage[] = [];
   const entries = views.map((view) => {
     const kicker = view.words.t(view.model.station.kind === 'secondary' ? 'port.secondary' : 'port.reference');
-    const pages = stationPages(view, next, row, { kicker: `${kicker} \u00b7 ${text.title}` }, true);
+    const pages = stationPages(view, next, row, { kicker: `${kicker} \u00b7 ${text.title}` }, true, { hourly: text.hourly });
     const entry = { view, page: next };
     next += pages.length;
     sections.push(...pages);

@@ -11,6 +11,7 @@ export interface BookOptions {
   publisher?: string;
   locale?: string; // BCP 47 tag: the language of the book (templates/locale)
   caution?: string; // the publisher's own caution, replacing the catalogue's
+  hourly?: boolean; // a page of heights on every hour after each month
 }
 
 export const PAGE_SIZE_NAMES: readonly PageSizeName[] = ['a5', 'a6', 'a4', 'letter', 'half-letter'];

@@ -1,0 +1,163 @@
+// Pages that follow a month in a book: the month's access windows (for a station that has them) and,
+// when the project asks for it (hourly: true), its heights on every hour of local time.
+import { SECONDARY_WINDOW_NOTE } from '../../engine/windows.js';
+import type { DayEntry, StationYear } from '../../engine/types.js';
+import { drawDayCurve } from './day-curve.js';
+import { formatOffset, inUnits, MINUS, unitLabel, unitWord } from './format.js';
+import type { LogicalPage, PageContext } from './page.js';
+import type { StationView } from './station-view.js';
+import type { MonthEntry } from '../../engine/types.js';
+import { HAIRLINE, INK, MID, RULE } from './style.js';
+import { put, putFitted, widthOf } from './text.js';
+
+const HEADER = 46; // design points at unit 1
+
+function monthDays(model: StationYear, month: MonthEntry): DayEntry[] {
+  return model.days.slice(month.firstDayIndex, month.firstDayIndex + month.dayCount);
+}
+
+/**
+ * Heading shared by both pages: month and year, the station, then the notes (wrapped); returns the
+ * baseline for the column heads.
+ */
+function heading(ctx: PageContext, view: StationView, month: MonthEntry, title: string, notes: string[]): number {
+  const { doc, box } = ctx;
+  const u = ctx.settings.geometry.scale;
+  const w = put(doc, month.name, box.x, box.y + 15 * u, { font: 'bold', size: 17 * u });
+  put(doc, `${view.model.year} \u00b7 ${title}`, box.x + w + 5 * u, box.y + 15 * u, { font: 'regular', size: 11 * u, color: MID });
+  putFitted(doc, view.name, box.x + box.width, box.y + 6 * u, { font: 'bold', size: 8 * u }, box.width / 2, 5 * u, 'right');
+  const size = 6.6 * u;
+  let y = box.y + 26 * u;
+  for (const note of notes) {
+    for (const line of noteLines(doc, note, box.width, size)) {
+      put(doc, line, box.x, y, { font: 'narrow', size, color: INK });
+      y += size * 1.25;
+    }
+    y += 1.5 * u;
+  }
+  return Math.max(box.y + HEADER * u, y + 10 * u);
+}
+
+/** Wraps a note into lines of at most `width` (words kept whole). */
+function noteLines(doc: PDFKit.PDFDocument, text: string, width: number, size: number): string[] {
+  const lines: string[] = [];
+  let line = '';
+  for (const word of text.split(' ')) {
+    const next = line ? `${line} ${word}` : word;
+    if (line && widthOf(doc, next, { font: 'narrow', size }) > width) {
+      lines.push(line);
+      line = word;
+    } else line = next;
+  }
+  if (line) lines.push(line);
+  return lines;
+}
+
+/** The access windows of a month: a row per day, a column per window, openings to the minute. */
+export function windowsPage(view: StationView, month: MonthEntry): LogicalPage {
+  const { model } = view;
+  return {
+    kind: 'windows',
+    footer: { invented: model.invented, label: view.name },
+    draw(ctx: PageContext) {
+      const { doc, box } = ctx;
+      const u = ctx.settings.geometry.scale;
+      const units = ctx.settings.units;
+      const rules = model.windows.map((w) => `${w.name}: at or ${w.side} ${inUnits(w.level, units).toFixed(2)} ${unitLabel(units)}`);
+      const top = heading(ctx, view, month, 'access windows', [
+        `Open while the tide stands at the level (${rules.join('; ')}), local time to the minute; 00:00 or 24:00: open across midnight. Leave a margin: wind and pressure change the height.`,
+        ...(model.windows.some((w) => w.method === 'secondary-curve') ? [SECONDARY_WINDOW_NOTE] : []),
+      ]);
+      const days = monthDays(model, month);
+      const dayW = 31 * u;
+      const cellText = (w: (typeof model.windows)[number], i: number): string => {
+        const d = w.days[month.firstDayIndex + i]!;
+        return d.state === 'open' ? 'open all day' : d.state === 'closed' ? 'no opening' : d.pieces.map((p) => `${p.startClock}\u2013${p.endClock}`).join('  ');
+      };
+      // columns as wide as their longest line; one smaller type size for all if they would not fit
+      const row = Math.min(16 * u, (box.y + box.height - top) / days.length);
+      let size = Math.min(7.2 * u, row * 0.6);
+      const gap = 8 * u;
+      const natural = model.windows.map((w) => Math.max(widthOf(doc, w.name.toUpperCase(), { font: 'narrow-bold', size: 6.6 * u }),
+        ...days.map((_, i) => widthOf(doc, cellText(w, i), { font: 'regular', size }))) + gap);
+      const avail = box.width - dayW;
+      const total = natural.reduce((a, b) => a + b, 0);
+      const shrink = Math.min(1, avail / total);
+      size *= shrink;
+      const colX: number[] = [];
+      let x = box.x + dayW;
+      natural.forEach((n) => {
+        colX.push(x);
+        x += total <= avail ? n + (avail - total) / natural.length : n * shrink;
+      });
+      const colW = (k: number): number => (k + 1 < colX.length ? colX[k + 1]! : box.x + box.width) - colX[k]!;
+      const head = { font: 'narrow-bold' as const, size: 6.6 * u, color: MID };
+      model.windows.forEach((w, k) => putFitted(doc, w.name.toUpperCase(), colX[k]!, top - 4 * u, head, colW(k) - gap / 2, 4.5 * u));
+      doc.save().lineWidth(0.8 * u).strokeColor(INK).moveTo(box.x, top - 1 * u).lineTo(box.x + box.width, top - 1 * u).stroke().restore();
+      days.forEach((day, i) => {
+        const y = top + (i + 1) * row - row * 0.3;
+        put(doc, `${day.weekday} ${day.dayOfMonth}`, box.x, y, { font: day.weekday === 'Sun' ? 'narrow-bold' : 'narrow', size: Math.min(7.2 * u, row * 0.6) });
+        model.windows.forEach((w, k) => {
+          const state = w.days[month.firstDayIndex + i]!.state;
+          const style = { font: state === 'some' ? 'regular' as const : 'narrow' as const, size, color: state === 'closed' ? MID : INK };
+          putFitted(doc, cellText(w, i), colX[k]!, y, style, colW(k) - gap / 2, size * 0.7);
+        });
+        doc.save().lineWidth(HAIRLINE * u).strokeColor(RULE)
+          .moveTo(box.x, top + (i + 1) * row).lineTo(box.x + box.width, top + (i + 1) * row).stroke().restore();
+      });
+    },
+  };
+}
+
+/** Heights on every hour of a month: a row per day, 24 clock hours, the day's curve at the end. */
+export function hoursPage(view: StationView, month: MonthEntry): LogicalPage {
+  const { model } = view;
+  return {
+    kind: 'hours',
+    footer: { invented: model.invented, label: view.name },
+    draw(ctx: PageContext) {
+      const { doc, box } = ctx;
+      const u = ctx.settings.geometry.scale;
+      const units = ctx.settings.units;
+      const days = monthDays(model, month);
+      const offsets = [...new Set(days.flatMap((d) => [d.offsetStart, d.offsetEnd]))].map(formatOffset).join(', ');
+      const top = heading(ctx, view, month, 'heights hour by hour', [
+        `Heights in ${unitWord(units)} above ${model.station.datum} to the tenth, on the hour of local time (${offsets}). `
+        + 'When the clocks go forward the skipped hour shows \u2013; when they go back the repeated hour shows both heights, before the change above the one after.',
+        ...(model.hourly.method === 'secondary-curve' ? [SECONDARY_WINDOW_NOTE] : []),
+      ]);
+      const dayW = 22 * u;
+      const curveW = Math.min(48 * u, box.width * 0.12);
+      const cellW = (box.width - dayW - curveW - 3 * u) / 24;
+      const head = { font: 'narrow-bold' as const, size: 6 * u, color: MID };
+      for (let h = 0; h < 24; h++) put(doc, String(h).padStart(2, '0'), box.x + dayW + (h + 1) * cellW - 1 * u, top - 4 * u, head, 'right');
+      doc.save().lineWidth(0.8 * u).strokeColor(INK).moveTo(box.x, top - 1 * u).lineTo(box.x + box.width, top - 1 * u).stroke().restore();
+      const row = Math.min(15 * u, (box.y + box.height - top) / days.length);
+      const size = Math.min(6.4 * u, row * 0.55, cellW * 0.42);
+      days.forEach((day, i) => {
+        const hourly = model.hourly.days[month.firstDayIndex + i];
+        const y = top + (i + 1) * row - row * 0.3;
+        put(doc, `${day.weekday.slice(0, 2)} ${day.dayOfMonth}`, box.x, y, { font: day.weekday === 'Sun' ? 'narrow-bold' : 'narrow', size });
+        const cells: string[][] = Array.from({ length: 24 }, () => []);
+        hourly?.clocks.forEach((c, k) => {
+          const v = inUnits(hourly.heights[k]!, units);
+          cells[Number(c.slice(0, 2))]!.push((Math.round(v * 10) / 10 + 0).toFixed(1).replace('-', MINUS));
+        });
+        cells.forEach((values, h) => {
+          const right = box.x + dayW + (h + 1) * cellW - 1 * u;
+          if (values.length === 2) {
+            // the repeated hour: before the change above, after it below, in smaller type
+            const small = { font: 'narrow' as const, size: size * 0.85 };
+            putFitted(doc, values[0]!, right, y - size * 0.5, small, cellW - 1 * u, size * 0.4, 'right');
+            putFitted(doc, values[1]!, right, y + size * 0.45, small, cellW - 1 * u, size * 0.4, 'right');
+            return;
+          }
+          putFitted(doc, values[0] ?? '\u2013', right, y, { font: 'narrow' as const, size }, cellW - 1 * u, size * 0.5, 'right');
+        });
+        drawDayCurve(doc, day, { x: box.x + box.width - curveW, y: top + i * row + row * 0.12, width: curveW, height: row * 0.76 }, view.curve, u);
+        doc.save().lineWidth(HAIRLINE * u).strokeColor(RULE)
+          .moveTo(box.x, top + (i + 1) * row).lineTo(box.x + box.width - curveW - 2 * u, top + (i + 1) * row).stroke().restore();
+      });
+    },
+  };
+}
