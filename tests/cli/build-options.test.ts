@@ -68,12 +68,12 @@ describe('project file', () => {
   it('holds what a publisher sets once', () => {
     const dir = stationsWithProject([
       'title: Brinewold Bay Tide Almanac', 'publisher: Brinewold Bay Harbour Office', 'year: 2028', 'page: a6',
-      'units: ft', 'locale: en-GB', 'imposition: saddle-stitch', '',
+      'units: ft', 'locale: en-GB', 'imposition: saddle-stitch', 'hourly: true', '',
     ].join('\n'));
     expect(loadProjectFile(dir)).toEqual({
       file: join(dir, 'tidewright.yaml'),
       settings: { title: 'Brinewold Bay Tide Almanac', publisher: 'Brinewold Bay Harbour Office', year: 2028, page: 'a6',
-        units: 'ft', locale: 'en-GB', imposition: 'saddle-stitch' },
+        units: 'ft', locale: 'en-GB', imposition: 'saddle-stitch', hourly: true },
     });
   });
 
@@ -89,6 +89,7 @@ describe('project file', () => {
     ['title: "  "\n', 'title', /title/],
     ['pagesize: a5\n', 'pagesize', /did you mean page\?/],
     ['imposition: [a, b]\n', 'imposition', /saddle-stitch/],
+    ['hourly: yes please\n', 'hourly', /hourly: true/],
     ['title: [unclosed\n', 'line 2, column 1', /key: value/],
     ['- a\n- b\n', '(file)', /title/],
   ])('rejects %j naming the file, the field %s and the fix', (text, field, fix) => {
