@@ -3,7 +3,7 @@
 import { SECONDARY_WINDOW_NOTE } from '../../engine/windows.js';
 import type { DayEntry, StationYear } from '../../engine/types.js';
 import { drawDayCurve } from './day-curve.js';
-import { formatOffset, inUnits, MINUS, unitLabel, unitWord } from './format.js';
+import { inUnits, MINUS } from '../locale/index.js';
 import type { LogicalPage, PageContext } from './page.js';
 import type { StationView } from './station-view.js';
 import type { MonthEntry } from '../../engine/types.js';
@@ -23,7 +23,7 @@ function monthDays(model: StationYear, month: MonthEntry): DayEntry[] {
 function heading(ctx: PageContext, view: StationView, month: MonthEntry, title: string, notes: string[]): number {
   const { doc, box } = ctx;
   const u = ctx.settings.geometry.scale;
-  const w = put(doc, month.name, box.x, box.y + 15 * u, { font: 'bold', size: 17 * u });
+  const w = put(doc, view.words.monthName(month.month), box.x, box.y + 15 * u, { font: 'bold', size: 17 * u });
   put(doc, `${view.model.year} \u00b7 ${title}`, box.x + w + 5 * u, box.y + 15 * u, { font: 'regular', size: 11 * u, color: MID });
   putFitted(doc, view.name, box.x + box.width, box.y + 6 * u, { font: 'bold', size: 8 * u }, box.width / 2, 5 * u, 'right');
   const size = 6.6 * u;
@@ -63,7 +63,7 @@ export function windowsPage(view: StationView, month: MonthEntry): LogicalPage {
       const { doc, box } = ctx;
       const u = ctx.settings.geometry.scale;
       const units = ctx.settings.units;
-      const rules = model.windows.map((w) => `${w.name}: at or ${w.side} ${inUnits(w.level, units).toFixed(2)} ${unitLabel(units)}`);
+      const rules = model.windows.map((w) => `${w.name}: at or ${w.side} ${view.words.height(w.level)}`);
       const top = heading(ctx, view, month, 'access windows', [
         `Open while the tide stands at the level (${rules.join('; ')}), local time to the minute; 00:00 or 24:00: open across midnight. Leave a margin: wind and pressure change the height.`,
         ...(model.windows.some((w) => w.method === 'secondary-curve') ? [SECONDARY_WINDOW_NOTE] : []),
@@ -96,7 +96,7 @@ export function windowsPage(view: StationView, month: MonthEntry): LogicalPage {
       doc.save().lineWidth(0.8 * u).strokeColor(INK).moveTo(box.x, top - 1 * u).lineTo(box.x + box.width, top - 1 * u).stroke().restore();
       days.forEach((day, i) => {
         const y = top + (i + 1) * row - row * 0.3;
-        put(doc, `${day.weekday} ${day.dayOfMonth}`, box.x, y, { font: day.weekday === 'Sun' ? 'narrow-bold' : 'narrow', size: Math.min(7.2 * u, row * 0.6) });
+        put(doc, `${view.words.weekdayShort(day.weekday)} ${day.dayOfMonth}`, box.x, y, { font: day.weekday === 7 ? 'narrow-bold' : 'narrow', size: Math.min(7.2 * u, row * 0.6) });
         model.windows.forEach((w, k) => {
           const state = w.days[month.firstDayIndex + i]!.state;
           const style = { font: state === 'some' ? 'regular' as const : 'narrow' as const, size, color: state === 'closed' ? MID : INK };
@@ -120,9 +120,9 @@ export function hoursPage(view: StationView, month: MonthEntry): LogicalPage {
       const u = ctx.settings.geometry.scale;
       const units = ctx.settings.units;
       const days = monthDays(model, month);
-      const offsets = [...new Set(days.flatMap((d) => [d.offsetStart, d.offsetEnd]))].map(formatOffset).join(', ');
+      const offsets = [...new Set(days.flatMap((d) => [d.offsetStart, d.offsetEnd]))].map((o) => view.words.offset(o)).join(', ');
       const top = heading(ctx, view, month, 'heights hour by hour', [
-        `Heights in ${unitWord(units)} above ${model.station.datum} to the tenth, on the hour of local time (${offsets}). `
+        `Heights in ${view.words.unitName()} above ${model.station.datum} to the tenth, on the hour of local time (${offsets}). `
         + 'When the clocks go forward the skipped hour shows \u2013; when they go back the repeated hour shows both heights, before the change above the one after.',
         ...(model.hourly.method === 'secondary-curve' ? [SECONDARY_WINDOW_NOTE] : []),
       ]);
@@ -137,7 +137,7 @@ export function hoursPage(view: StationView, month: MonthEntry): LogicalPage {
       days.forEach((day, i) => {
         const hourly = model.hourly.days[month.firstDayIndex + i];
         const y = top + (i + 1) * row - row * 0.3;
-        put(doc, `${day.weekday.slice(0, 2)} ${day.dayOfMonth}`, box.x, y, { font: day.weekday === 'Sun' ? 'narrow-bold' : 'narrow', size });
+        put(doc, `${view.words.weekdayShort(day.weekday)} ${day.dayOfMonth}`, box.x, y, { font: day.weekday === 7 ? 'narrow-bold' : 'narrow', size });
         const cells: string[][] = Array.from({ length: 24 }, () => []);
         hourly?.clocks.forEach((c, k) => {
           const v = inUnits(hourly.heights[k]!, units);

@@ -93,7 +93,7 @@ export function siteFilters(w: Words): Record<string, (...args: never[]) => unkn
     // a height above chart datum as a height above the land-levelling datum, which lies chart_datum_below higher
     aboveLand: (metres: number, levelling: { chart_datum_below: number }): number => metres - levelling.chart_datum_below,
     ladderSpan: (rows: DatumRow[]): number => ladderSpan(rows),
-    ...windowFilters(units),
+    ...windowFilters(w),
   };
 }
 

@@ -2,7 +2,7 @@
 // The numbers come from the model (StationYear.windows, StationYear.hourly); nothing is recomputed.
 import { SECONDARY_WINDOW_NOTE } from '../../engine/windows.js';
 import type { DayEntry, StationYear, WindowDay, WindowYear } from '../../engine/types.js';
-import { heightNumber, toUnits, type Units } from './format.js';
+import { inUnits, type Words } from '../locale/index.js';
 
 export interface DayWindowLine {
   id: string;
@@ -39,12 +39,12 @@ export function dayWindows(day: DayEntry, model: StationYear): DayWindowLine[] {
 }
 
 /** "at or above 2.40 m" in the site's units. */
-export function windowRule(w: WindowYear, units: Units): string {
-  return `at or ${w.side} ${heightNumber(w.level, units)} ${units}`;
+export function windowRule(w: WindowYear, words: Words): string {
+  return `at or ${w.side} ${words.height(w.level)}`;
 }
 
 /** The 24 clock hours of a day with their heights to a tenth (a repeated hour has two, a skipped one none). */
-export function hourCells(day: DayEntry, model: StationYear, units: Units): HourCell[] {
+export function hourCells(day: DayEntry, model: StationYear, words: Words): HourCell[] {
   const i = dayIndex(model, day.date);
   const hourly = model.hourly.days[i];
   const cells: HourCell[] = Array.from({ length: 24 }, (_, h) => ({ clock: String(h).padStart(2, '0'), values: [], below: false }));
@@ -52,8 +52,8 @@ export function hourCells(day: DayEntry, model: StationYear, units: Units): Hour
   hourly.clocks.forEach((c, k) => {
     const cell = cells[Number(c.slice(0, 2))]!;
     const metres = hourly.heights[k]!;
-    const value = toUnits(metres, units);
-    cell.values.push(Number.isFinite(value) ? (Math.round(value * 10) / 10 + 0).toFixed(1).replace('-', '\u2212') : '–');
+    const value = inUnits(metres, words.units);
+    cell.values.push(Number.isFinite(value) ? words.number(Math.round(value * 10) / 10 + 0, 1).replace('-', '\u2212') : '–');
     if (metres < 0) cell.below = true;
   });
   return cells;
@@ -64,11 +64,11 @@ export function secondaryCurveNote(model: StationYear): string | null {
   return model.hourly.method === 'secondary-curve' ? SECONDARY_WINDOW_NOTE : null;
 }
 
-export function windowFilters(units: Units): Record<string, (...args: never[]) => unknown> {
+export function windowFilters(words: Words): Record<string, (...args: never[]) => unknown> {
   return {
     dayWindows: (day: DayEntry, model: StationYear) => dayWindows(day, model),
-    windowRule: (w: WindowYear) => windowRule(w, units),
-    hourCells: (day: DayEntry, model: StationYear) => hourCells(day, model, units),
+    windowRule: (w: WindowYear) => windowRule(w, words),
+    hourCells: (day: DayEntry, model: StationYear) => hourCells(day, model, words),
     secondaryCurveNote: (model: StationYear) => secondaryCurveNote(model),
   };
 }
