@@ -55,14 +55,14 @@ describe('pages after each month', () => {
     // the 23-hour day shows the skipped hour empty; the 25-hour day shows the repeated hour twice
     const marchHours = hours.find((p) => /March 2027/.test(p))!;
     const short = model.hourly.days.find((d) => d.date === '2027-03-28')!;
-    expect(marchHours.split('\n').find((l) => /^\s*Su 28\b/.test(l))).toContain('–');
+    expect(marchHours.split('\n').find((l) => /^\s*Sun 28\b/.test(l))).toContain('–');
     expect(short.clocks).not.toContain('01:00');
     // 31 October: the hour 01:00 twice, stacked in its cell (so the row reads 25 heights over its lines)
     const october = model.hourly.days.find((d) => d.date === '2027-10-31')!;
     expect(october.clocks.filter((c) => c === '01:00')).toHaveLength(2);
     const octoberHours = hours.find((p) => /October 2027/.test(p))!;
     const lines = octoberHours.split('\n');
-    const at = lines.findIndex((l) => /^\s*Su 31\b/.test(l));
+    const at = lines.findIndex((l) => /^\s*Sun 31\b/.test(l));
     const numbers = lines.slice(at - 1, at + 2).join(' ').match(/\d+\.\d\b/g) ?? [];
     expect(numbers.length).toBeGreaterThanOrEqual(25);
   });
