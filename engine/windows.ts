@@ -215,13 +215,13 @@ export function windowMethod(station: Station): WindowMethod {
 
 /** The tide's height at an instant and whether it is rising: harmonic, or the secondary curve. */
 export function heightAndTrend(
-  station: Station, set: StationLookup, t: number,
+  station: Station, set: StationLookup, t: number, ctx?: EngineContext,
 ): { height: number; trend: 'rising' | 'falling' } {
   if (station.kind === 'reference') {
-    const p = predictorFor(station);
+    const p = predictorFor(station, ctx);
     return { height: p.heightAt(t), trend: p.rateAt(t) >= 0 ? 'rising' : 'falling' };
   }
-  const events = tideEvents(station, set, t - 2 * DAY, t + 2 * DAY);
+  const events = tideEvents(station, set, t - 2 * DAY, t + 2 * DAY, ctx);
   const height = cosineCurve(events, t, 1, 1)[0]!;
   // Between a low and the next high the secondary curve rises.
   const next = events.find((e) => e.time > t);

@@ -1,12 +1,12 @@
 // Pages that follow a month in a book: the month's access windows (for a station that has them) and,
 // when the project asks for it (hourly: true), its heights on every hour of local time.
-import { SECONDARY_WINDOW_NOTE } from '../../engine/windows.js';
-import type { DayEntry, StationYear } from '../../engine/types.js';
+import { SECONDARY_WINDOW_NOTE } from '../../engine/index.js';
+import type { DayEntry, StationYear } from '../../engine/index.js';
 import { drawDayCurve } from './day-curve.js';
 import { inUnits, MINUS } from '../locale/index.js';
 import type { LogicalPage, PageContext } from './page.js';
 import type { StationView } from './station-view.js';
-import type { MonthEntry } from '../../engine/types.js';
+import type { MonthEntry } from '../../engine/index.js';
 import { HAIRLINE, INK, MID, RULE } from './style.js';
 import { put, putFitted, widthOf } from './text.js';
 

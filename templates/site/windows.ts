@@ -1,7 +1,7 @@
 // View helpers for access windows and hourly heights: what each day's window line and hour row read.
 // The numbers come from the model (StationYear.windows, StationYear.hourly); nothing is recomputed.
-import { SECONDARY_WINDOW_NOTE } from '../../engine/windows.js';
-import type { DayEntry, StationYear, WindowDay, WindowYear } from '../../engine/types.js';
+import { SECONDARY_WINDOW_NOTE } from '../../engine/index.js';
+import type { DayEntry, StationYear, WindowDay, WindowYear } from '../../engine/index.js';
 import { inUnits, type Words } from '../locale/index.js';
 
 export interface DayWindowLine {
