@@ -38,9 +38,9 @@ export function dayWindows(day: DayEntry, model: StationYear): DayWindowLine[] {
   });
 }
 
-/** "at or above 2.40 m" in the site's units. */
+/** "open while the tide is at or above 2.40 m" in the reader's words and units. */
 export function windowRule(w: WindowYear, words: Words): string {
-  return `at or ${w.side} ${words.height(w.level)}`;
+  return words.t(w.side === 'above' ? 'window.ruleAbove' : 'window.ruleBelow', { level: words.height(w.level) });
 }
 
 /** The 24 clock hours of a day with their heights to a tenth (a repeated hour has two, a skipped one none). */
