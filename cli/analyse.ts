@@ -2,12 +2,11 @@
 // HTML report of the fit). Nothing is written unless the whole analysis succeeded. The helpers at the
 // bottom are shared with `tidewright differences`.
 
-import { readFileSync } from 'node:fs';
 import { basename, extname } from 'node:path';
 import { IANAZone } from 'luxon';
 import {
   RecordFileError, UsageError, analyseRecord, parseRecord, type GaugeRecord, referenceStationYaml,
-  type StationMeta, idFromText, parseStation, STATION_ID_PATTERN,
+  type StationMeta, idFromText, parseStation, STATION_ID_PATTERN, readTextFile,
 } from '../engine/index.js';
 import { renderAnalysisReport } from '../templates/report/analysis-report.js';
 import { parseCommandLine, positionalArguments } from './args.js';
@@ -161,17 +160,14 @@ export function stationMeta(
   return { id, name, latitude, longitude, timezone, datum };
 }
 
+/** The most a gauge record may hold: ten years of readings every minute is about 150 MiB. */
+export const MAX_RECORD_BYTES = 256 * 1024 * 1024;
+
 /** Reads and parses a gauge record; an unreadable file is a RecordFileError naming it. */
 export function readRecordFile(file: string): GaugeRecord {
-  let text: string;
-  try {
-    text = readFileSync(file, 'utf8');
-  } catch (error) {
-    const code = (error as { code?: string }).code;
-    const problem = code === 'ENOENT' ? 'no such file' : code === 'EISDIR' ? 'is a folder, not a file' : `cannot be read (${code ?? 'unknown error'})`;
-    throw new RecordFileError(file, 'file', problem, 'give the path of a CSV file of time,height rows');
-  }
-  return parseRecord(text, file);
+  const result = readTextFile(file, MAX_RECORD_BYTES, 'a CSV file of time,height rows');
+  if (!('text' in result)) throw new RecordFileError(file, 'file', result.problem === 'does not exist' ? 'no such file' : result.problem, result.fix);
+  return parseRecord(result.text, file);
 }
 
 /** The files --output and --report name, text still to come (checked before the work starts). */

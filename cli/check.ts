@@ -4,6 +4,7 @@
 import {
   checkStationSet, suspiciousConstants, StationFileError, windowLevelProblems, suspiciousStream,
 } from '../engine/index.js';
+import { checkProjectFile } from './build/project.js';
 import { siteFilesFolder } from './build/site-files.js';
 import { parseCommandLine, positionalArguments } from './args.js';
 
@@ -41,6 +42,7 @@ export function checkStations(dir: string): SetReport {
     const reference = stream.kind === 'stream-secondary' ? result.streams.find((s) => s.id === stream.reference) : undefined;
     problems.push(...suspiciousStream(stream, reference));
   }
+  problems.push(...checkProjectFile(dir).problems);
   try {
     siteFilesFolder(dir, [...result.stations, ...result.streams].map((s) => s.id));
   } catch (error) {
