@@ -167,7 +167,17 @@ export const MAX_RECORD_BYTES = 256 * 1024 * 1024;
 export function readRecordFile(file: string): GaugeRecord {
   const result = readTextFile(file, MAX_RECORD_BYTES, 'a CSV file of time,height rows');
   if (!('text' in result)) throw new RecordFileError(file, 'file', result.problem === 'does not exist' ? 'no such file' : result.problem, result.fix);
-  return parseRecord(result.text, file);
+  const record = parseRecord(result.text, file);
+  let low = Infinity, high = -Infinity;
+  for (const h of record.heights) {
+    low = Math.min(low, h);
+    high = Math.max(high, h);
+  }
+  if (record.heights.length > 0 && high - low < 0.001) {
+    throw new RecordFileError(file, 'height', `every reading is ${low.toFixed(3)} m: the record shows no tide to analyse`,
+      'give a record of a gauge that was working (its heights rise and fall with the tide)');
+  }
+  return record;
 }
 
 /** The files --output and --report name, text still to come (checked before the work starts). */

@@ -2,7 +2,7 @@
 // each naming file, field and fix; then suspicious constants that pass the schema.
 
 import {
-  checkStationSet, suspiciousConstants, StationFileError, windowLevelProblems, suspiciousStream,
+  checkStationSet, suspiciousConstants, StationFileError, windowLevelProblems, suspiciousStream, oneLine, type Station,
 } from '../engine/index.js';
 import { checkProjectFile } from './build/project.js';
 import { siteFilesFolder } from './build/site-files.js';
@@ -19,6 +19,8 @@ amplitudes too large for a tide, time differences of many hours; for tidal strea
 axis over 10 knots, a minor axis longer than the major, a missing M2), and access windows whose level the
 tide never reaches or never leaves over the station's 19-year datum epoch. Every problem is listed on its own
 line as FILE: FIELD: what is wrong; what to write instead. Exit code 1 when there is any problem.
+Notes (FILE: FIELD: note: …) point at things that may be meant, such as a secondary port whose time
+zone differs from its reference port's; they do not change the exit code.
 `;
 
 export interface SetReport {
@@ -27,6 +29,18 @@ export interface SetReport {
   secondaryPorts: number;
   streamStations: number;
   files: number;
+  notes: string[]; // worth a look but not wrong: a secondary port in another time zone than its reference port
+}
+
+/** A secondary port keeps its own time zone; one that differs from its reference port's may be a slip. */
+function zoneNotes(stations: readonly Station[]): string[] {
+  const byId = new Map(stations.map((s) => [s.id, s]));
+  return stations.flatMap((s) => {
+    const reference = s.kind === 'secondary' ? byId.get(s.reference) : undefined;
+    if (!reference || reference.timezone === s.timezone) return [];
+    return [`${oneLine(s.sourceFile ?? s.id)}: timezone: note: ${s.timezone} differs from ${reference.timezone} of its reference port ` +
+      `${reference.id}; its times are printed in ${s.timezone} (right if the port lies in another zone, else write timezone: ${reference.timezone})`];
+  });
 }
 
 /** Every problem of the station set in DIR: schema, set-wide, then suspicious constants. */
@@ -66,6 +80,7 @@ export function checkStations(dir: string): SetReport {
     secondaryPorts: result.stations.filter((s) => s.kind === 'secondary').length,
     streamStations: result.streams.length,
     files: result.files.length,
+    notes: zoneNotes(result.stations),
   };
 }
 
@@ -83,6 +98,7 @@ export async function runCheck(argv: string[]): Promise<number> {
   positionalArguments('check', positionals, []);
   const dir = values.stations ?? DEFAULT_STATIONS_DIR;
   const report = checkStations(dir);
+  if (report.notes.length > 0) process.stdout.write(`${report.notes.join('\n')}\n`);
   if (report.problems.length === 0) {
     const streams = report.streamStations > 0 ? `, ${plural(report.streamStations, 'stream station')}` : '';
     process.stdout.write(`${dir}: ${plural(report.referencePorts, 'reference port')}, ${plural(report.secondaryPorts, 'secondary port')}${streams}, OK\n`);
