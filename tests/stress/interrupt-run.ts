@@ -52,7 +52,7 @@ export async function interruptBuild(stations: string, out: string, moment: Mome
     const path = moment.after(temp);
     while (!exited && !existsSync(path) && Date.now() < deadline) await sleep(5);
   }
-  await sleep(moment.ms);
+  for (const until = Date.now() + moment.ms; !exited && Date.now() < until;) await sleep(Math.min(5, until - Date.now()));
   const finishedFirst = exited;
   if (!exited) child.kill('SIGINT');
   const { code, signal } = await done;

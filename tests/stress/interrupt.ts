@@ -12,7 +12,7 @@ const work = mkdtempSync(join(tmpdir(), 'tw-interrupt-long-'));
 
 function problems(run: Interrupted, out: string): string[] {
   const found: string[] = [];
-  if (run.finishedFirst) found.push('the build finished before the moment');
+  if (run.finishedFirst) found.push(`the build ended before the moment (exit ${run.code ?? run.signal}: ${run.stderr.trim().slice(0, 500)})`);
   else if (run.code !== 130) found.push(`exit ${run.code ?? `by ${run.signal}`}`);
   if (run.leftovers.length > 0) found.push(`left ${run.leftovers.join(', ')}`);
   if (/Assertion|FATAL|internal error|\n\s+at /.test(run.stderr)) found.push('a crash or stack trace');
