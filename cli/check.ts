@@ -6,6 +6,7 @@ import {
 } from '../engine/index.js';
 import { checkProjectFile } from './build/project.js';
 import { siteFilesFolder } from './build/site-files.js';
+import { coverageNotes } from '../templates/pdf/coverage.js';
 import { parseCommandLine, positionalArguments } from './args.js';
 
 export const DEFAULT_STATIONS_DIR = 'stations-demo';
@@ -20,7 +21,8 @@ axis over 10 knots, a minor axis longer than the major, a missing M2), and acces
 tide never reaches or never leaves over the station's 19-year datum epoch. Every problem is listed on its own
 line as FILE: FIELD: what is wrong; what to write instead. Exit code 1 when there is any problem.
 Notes (FILE: FIELD: note: …) point at things that may be meant, such as a secondary port whose time
-zone differs from its reference port's; they do not change the exit code.
+zone differs from its reference port's, or characters the book's typeface lacks (the PDF prints a
+replacement mark for them); they do not change the exit code.
 `;
 
 export interface SetReport {
@@ -29,7 +31,7 @@ export interface SetReport {
   secondaryPorts: number;
   streamStations: number;
   files: number;
-  notes: string[]; // worth a look but not wrong: a secondary port in another time zone than its reference port
+  notes: string[]; // worth a look but not wrong: another time zone than the reference port's, characters the book lacks
 }
 
 /** A secondary port keeps its own time zone; one that differs from its reference port's may be a slip. */
@@ -80,7 +82,7 @@ export function checkStations(dir: string): SetReport {
     secondaryPorts: result.stations.filter((s) => s.kind === 'secondary').length,
     streamStations: result.streams.length,
     files: result.files.length,
-    notes: zoneNotes(result.stations),
+    notes: [...zoneNotes(result.stations), ...[...result.stations, ...result.streams].flatMap((st) => coverageNotes(st, oneLine(st.sourceFile ?? st.id)))],
   };
 }
 
