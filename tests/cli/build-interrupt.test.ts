@@ -16,7 +16,7 @@ mkdirSync(stations);
 writeFileSync(join(stations, 'stint-rock.yaml'), `id: stint-rock
 name: Stint Rock (invented)
 kind: reference
-position: { latitude: 50, longitude: -4 }
+position: { latitude: 47, longitude: -16 }
 timezone: Europe/Lisbon
 datum: Chart Datum
 mean_level: 2.2
@@ -29,7 +29,7 @@ writeFileSync(join(stations, 'stint-creek.yaml'), `id: stint-creek
 name: Stint Creek (invented)
 kind: secondary
 reference: stint-rock
-position: { latitude: 50.1, longitude: -4.1 }
+position: { latitude: 47.1, longitude: -16.1 }
 timezone: Europe/Lisbon
 datum: Chart Datum
 differences:

@@ -14,7 +14,7 @@ afterAll(() => rmSync(root, { recursive: true, force: true }));
 
 const reference = (extra: Record<string, string> = {}): string => {
   const fields: Record<string, string> = {
-    id: 'stint-rock', name: 'Stint Rock (invented)', kind: 'reference', position: '{ latitude: 50, longitude: -4 }',
+    id: 'stint-rock', name: 'Stint Rock (invented)', kind: 'reference', position: '{ latitude: 47, longitude: -16 }',
     timezone: 'UTC', datum: 'Chart Datum', mean_level: '2.2',
     constituents: '\n  M2: { amplitude: 1.6, phase: 130 }\n  S2: { amplitude: 0.55, phase: 175 }',
     provenance: 'Invented for the limits test', ...extra,
@@ -65,7 +65,7 @@ describe('files that are not what they seem', () => {
   it('a gauge record linked to /dev/zero is one line from analyse', async () => {
     const zero = join(root, 'zero.csv');
     symlinkSync('/dev/zero', zero);
-    const { code, stderr } = await runCli(['analyse', zero, '--latitude', '50', '--longitude', '-4', '--timezone', 'UTC']);
+    const { code, stderr } = await runCli(['analyse', zero, '--latitude', '47', '--longitude', '-16', '--timezone', 'UTC']);
     expect(code).toBe(1);
     expect(stderr).toBe(`tidewright: ${zero}: file: is not a plain file (a device, a pipe or a socket); give the path of a CSV file of time,height rows\n`);
   });
@@ -132,7 +132,7 @@ describe('a bad reference id', () => {
       'b.yaml': reference({ id: 'stint-rock' }),
       'c.yaml': reference({ id: '"../../evil"' }),
       'd.yaml': reference({ id: '""' }),
-      'e.yaml': `id: creek\nname: Creek (invented)\nkind: secondary\nreference: nowhere-at-all\nposition: { latitude: 50, longitude: -4 }\ntimezone: UTC\ndatum: Chart Datum\ndifferences:\n  high_water: { springs: { time: 5, height: 0 }, neaps: { time: 5, height: 0 } }\n  low_water: { springs: { time: 5, height: 0 }, neaps: { time: 5, height: 0 } }\nprovenance: Invented\n`,
+      'e.yaml': `id: creek\nname: Creek (invented)\nkind: secondary\nreference: nowhere-at-all\nposition: { latitude: 47, longitude: -16 }\ntimezone: UTC\ndatum: Chart Datum\ndifferences:\n  high_water: { springs: { time: 5, height: 0 }, neaps: { time: 5, height: 0 } }\n  low_water: { springs: { time: 5, height: 0 }, neaps: { time: 5, height: 0 } }\nprovenance: Invented\n`,
     });
     const { stdout } = await runCli(['check', '--stations', dir]);
     const line = stdout.split('\n').find((l) => l.includes('e.yaml: reference'))!;

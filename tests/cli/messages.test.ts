@@ -13,7 +13,7 @@ afterAll(() => rmSync(root, { recursive: true, force: true }));
 const REFERENCE = `id: stint-rock
 name: Stint Rock (invented)
 kind: reference
-position: { latitude: 50, longitude: -4 }
+position: { latitude: 47, longitude: -16 }
 timezone: Europe/Lisbon
 datum: Chart Datum
 mean_level: 2.2
@@ -26,7 +26,7 @@ const secondary = (zone: string): string => `id: stint-creek
 name: Stint Creek (invented)
 kind: secondary
 reference: stint-rock
-position: { latitude: 50.1, longitude: -4.1 }
+position: { latitude: 47.1, longitude: -16.1 }
 timezone: ${zone}
 datum: Chart Datum
 differences:
@@ -75,7 +75,7 @@ describe('a flat gauge record', () => {
     const file = join(root, 'flat.csv');
     const rows = Array.from({ length: 20 * 24 }, (_, i) => `${new Date(Date.UTC(2027, 0, 1) + i * 3_600_000).toISOString()},1.234`);
     writeFileSync(file, `time,height\n${rows.join('\n')}\n`);
-    const { code, stderr } = await runCli(['analyse', file, '--latitude', '50', '--longitude', '-4', '--timezone', 'UTC']);
+    const { code, stderr } = await runCli(['analyse', file, '--latitude', '47', '--longitude', '-16', '--timezone', 'UTC']);
     expect(code).toBe(1);
     expect(stderr).toBe(`tidewright: ${file}: height: every reading is 1.234 m: the record shows no tide to analyse; give a record of a gauge that was working (its heights rise and fall with the tide)\n`);
   });

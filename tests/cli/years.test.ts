@@ -14,7 +14,7 @@ const station = join(dir, 'stint-rock.yaml');
 writeFileSync(station, `id: stint-rock
 name: Stint Rock (invented)
 kind: reference
-position: { latitude: 27.7, longitude: 85.3 }
+position: { latitude: -20, longitude: 80 }
 timezone: Asia/Kathmandu
 datum: Chart Datum
 mean_level: 2.2

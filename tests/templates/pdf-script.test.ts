@@ -49,7 +49,7 @@ describe('characters the typeface lacks', () => {
     writeFileSync(join(dir, 'stint-rock.yaml'), `id: stint-rock
 name: "Stint Rock 🌊🌊 (invented)"
 kind: reference
-position: { latitude: 50, longitude: -4 }
+position: { latitude: 47, longitude: -16 }
 timezone: UTC
 datum: Chart Datum
 mean_level: 2.2
