@@ -4,7 +4,7 @@
 // until 1920) that the database itself only estimates. To 2100: the span the Moon's phase and ΔT series
 // in engine/sky are fitted for; later years would print extrapolated clock rules as facts.
 import { DateTime } from 'luxon';
-import { UsageError } from '../engine/errors.js';
+import { UsageError } from '../engine/index.js';
 
 export const FIRST_YEAR = 1970;
 export const LAST_YEAR = 2100;

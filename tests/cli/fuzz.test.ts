@@ -6,7 +6,7 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { buildStationYear } from '../../engine/almanac.js';
+import { buildStationYear } from '../../engine/index.js';
 import { renderStationBook } from '../../templates/pdf/book.js';
 import { checkMutant, demoFiles, describeMutant, mutant, MUTATIONS } from '../stress/fuzz-run.js';
 

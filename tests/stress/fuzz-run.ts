@@ -4,10 +4,8 @@
 import { mkdirSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { parse } from 'yaml';
-import { TidewrightError } from '../../engine/errors.js';
-import type { Station } from '../../engine/types.js';
+import { loadStationSet, TidewrightError, type Station } from '../../engine/index.js';
 import { checkStations } from '../../cli/check.js';
-import { loadStationSet } from '../../engine/stations.js';
 
 const ROOT = join(import.meta.dirname, '..', '..').replace(/[\\/]dist$/, '');
 export const DEMO = join(ROOT, 'stations-demo');
