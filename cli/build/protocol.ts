@@ -22,12 +22,8 @@ export interface CombinedSetup {
 export type ToWorker =
   | { type: 'unit'; ids: string[] }
   | { type: 'close' }
-<<<<<<< HEAD
-  | { type: 'combined'; models: StationYear[]; streams?: StreamYear[] };
-=======
   | { type: 'stop' } // finish the current station or book, send nothing more, exit
-  | { type: 'combined'; models: StationYear[] };
->>>>>>> 59233c6 (Ctrl-C stops the build's worker threads cooperatively (each finishes its station or book, then exits; terminated only after a grace period) before the temporary folder goes; Ctrl-C is answered from the launcher's first line and a signal caught during start-up is no longer lost; an interrupt test over a small set and a 50-moment stress script)
+  | { type: 'combined'; models: StationYear[]; streams?: StreamYear[] };
 
 export type FromWorker =
   | { type: 'ready' }
