@@ -1,6 +1,10 @@
 #!/usr/bin/env node
 // Thin launcher: the commands are compiled from cli/ into dist/ by `npm ci` (the prepare script).
-import { main } from '../dist/cli/main.js';
+// Ctrl-C is answered (exit code 130) from the first moment, before the commands have loaded.
+import { holdSignals } from '../dist/cli/signals.js';
+
+holdSignals();
+const { main } = await import('../dist/cli/main.js');
 
 main(process.argv.slice(2)).then(
   (code) => { process.exitCode = code; },

@@ -7,14 +7,15 @@ import type { Station, StationYear } from '../engine/index.js';
 import { wordsFor, type Words } from '../templates/locale/index.js';
 import { oneOf, parseCommandLine, positionalArguments } from './args.js';
 import { streamSummary, streamYearFor } from './almanac-stream.js';
+import { FIRST_YEAR, LAST_YEAR, yearOption } from './years.js';
 
-const HELP = `usage: tidewright almanac STATION.yaml [--year YYYY] [--stations DIR] [--format table|json]
+const HELP = `Usage: tidewright almanac STATION.yaml [--year YYYY] [--stations DIR] [--format table|json]
 
 Builds one station-year: every high and low water in the station's local time, the daily curves,
 sun and moon, springs and neaps, datums and warnings, as the model the website and books print.
 For a tidal stream station: every slack and strongest flood and ebb, the daily stream curves, sun and
 moon, springs and neaps (from its tide_reference, else from its own rates).
-  --year YYYY      the calendar year (default: next year)
+  --year YYYY      the calendar year, ${FIRST_YEAR} to ${LAST_YEAR} (default: next year)
   --stations DIR   folder of the station set, to find a secondary port's reference port
                    (default: the station file's own folder)
   --format json    print the whole model as JSON; table (default) prints a short summary
@@ -38,10 +39,7 @@ function parseAlmanacArgs(argv: readonly string[]): AlmanacArgs | 'help' {
   const [file] = positionalArguments('almanac', positionals, ['STATION.yaml']) as [string];
   let year = new Date().getUTCFullYear() + 1;
   if (values.year !== undefined) {
-    if (!/^\d{4}$/.test(values.year)) {
-      throw new UsageError('--year', `"${values.year}" is not a year`, 'write a four-digit year, e.g. --year 2027');
-    }
-    year = Number(values.year);
+    year = yearOption('--year', values.year);
   }
   const format = oneOf('--format', values.format ?? 'table', ['table', 'json'] as const);
   return { file, year, stations: values.stations ?? null, format };

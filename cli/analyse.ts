@@ -2,12 +2,11 @@
 // HTML report of the fit). Nothing is written unless the whole analysis succeeded. The helpers at the
 // bottom are shared with `tidewright differences`.
 
-import { readFileSync } from 'node:fs';
 import { basename, extname } from 'node:path';
 import { IANAZone } from 'luxon';
 import {
   RecordFileError, UsageError, analyseRecord, parseRecord, type GaugeRecord, referenceStationYaml,
-  type StationMeta, idFromText, parseStation, STATION_ID_PATTERN,
+  type StationMeta, idFromText, parseStation, STATION_ID_PATTERN, readTextFile,
 } from '../engine/index.js';
 import { renderAnalysisReport } from '../templates/report/analysis-report.js';
 import { parseCommandLine, positionalArguments } from './args.js';
@@ -161,17 +160,24 @@ export function stationMeta(
   return { id, name, latitude, longitude, timezone, datum };
 }
 
+/** The most a gauge record may hold: ten years of readings every minute is about 150 MiB. */
+export const MAX_RECORD_BYTES = 256 * 1024 * 1024;
+
 /** Reads and parses a gauge record; an unreadable file is a RecordFileError naming it. */
 export function readRecordFile(file: string): GaugeRecord {
-  let text: string;
-  try {
-    text = readFileSync(file, 'utf8');
-  } catch (error) {
-    const code = (error as { code?: string }).code;
-    const problem = code === 'ENOENT' ? 'no such file' : code === 'EISDIR' ? 'is a folder, not a file' : `cannot be read (${code ?? 'unknown error'})`;
-    throw new RecordFileError(file, 'file', problem, 'give the path of a CSV file of time,height rows');
+  const result = readTextFile(file, MAX_RECORD_BYTES, 'a CSV file of time,height rows');
+  if (!('text' in result)) throw new RecordFileError(file, 'file', result.problem === 'does not exist' ? 'no such file' : result.problem, result.fix);
+  const record = parseRecord(result.text, file);
+  let low = Infinity, high = -Infinity;
+  for (const h of record.heights) {
+    low = Math.min(low, h);
+    high = Math.max(high, h);
   }
-  return parseRecord(text, file);
+  if (record.heights.length > 0 && high - low < 0.001) {
+    throw new RecordFileError(file, 'height', `every reading is ${low.toFixed(3)} m: the record shows no tide to analyse`,
+      'give a record of a gauge that was working (its heights rise and fall with the tide)');
+  }
+  return record;
 }
 
 /** The files --output and --report name, text still to come (checked before the work starts). */

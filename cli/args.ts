@@ -10,10 +10,24 @@ type OptionSpec = Record<string, { type: 'string' | 'boolean'; short?: string; m
 /** The options and positionals of one command; unknown options and missing values are UsageErrors. */
 export function parseCommandLine<const O extends OptionSpec>(command: string, argv: readonly string[], options: O) {
   try {
-    return parseArgs({ args: [...argv], options, strict: true, allowPositionals: true });
+    return parseArgs({ args: negativeValues(argv, options), options, strict: true, allowPositionals: true });
   } catch (error) {
     throw usageFromParseError(command, Object.keys(options), error);
   }
+}
+
+/** `--year -1` as `--year=-1`, so a negative number is the option's (bad) value, not an unknown option. */
+function negativeValues(argv: readonly string[], options: OptionSpec): string[] {
+  const out: string[] = [];
+  for (let i = 0; i < argv.length; i++) {
+    const arg = argv[i]!, next = argv[i + 1];
+    const name = arg.startsWith('--') ? arg.slice(2) : null;
+    if (name !== null && options[name]?.type === 'string' && next !== undefined && /^-(\d|\.\d)/.test(next)) {
+      out.push(`${arg}=${next}`);
+      i++;
+    } else out.push(arg);
+  }
+  return out;
 }
 
 function usageFromParseError(command: string, known: readonly string[], error: unknown): UsageError {

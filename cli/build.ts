@@ -8,6 +8,8 @@ import { discardTemp, type OutputTarget } from './build/output.js';
 import { makePlan } from './build/plan.js';
 import { clock, createProgress } from './build/progress.js';
 import { buildAlmanac, type BuildSummary } from './build/run.js';
+import { workersExited } from './build/threads.js';
+import { releaseSignals } from './signals.js';
 
 const SIGNAL_EXIT: Readonly<Record<string, number>> = { SIGINT: 130, SIGTERM: 143 };
 
@@ -39,14 +41,24 @@ export async function runBuild(argv: string[]): Promise<number> {
   let temp: OutputTarget | null = null;
   let started = false;
 
-  // Ctrl-C or a kill: remove our temporary folder and leave at once; the previous output is untouched.
-  // (The swap itself is synchronous, so this can never run between its two renames.)
+  // Ctrl-C or a kill: every worker thread is asked to stop and finishes the station or book it is
+  // drawing (never cut off mid-stream), then the temporary folder goes and the process leaves; the
+  // previous output is untouched. (The swap itself is synchronous, so this never runs between its
+  // two renames.) A second Ctrl-C leaves at once.
+  let stopping: Promise<never> | null = null;
+  const leave = (signal: NodeJS.Signals): never => {
+    const complete = started && temp === null;
+    if (temp) discardTemp(temp);
+    say(complete
+      ? `build interrupted (${signal}) just after ${shown(plan.outDir)}/ was replaced`
+      : `build interrupted (${signal}); ${shown(plan.outDir)}/ is as it was before`);
+    process.exit(SIGNAL_EXIT[signal] ?? 1);
+  };
   const onSignal = (signal: NodeJS.Signals): void => {
+    if (stopping) leave(signal);
     progress.clear();
     abort.abort(new Error(`interrupted by ${signal}`));
-    if (temp) discardTemp(temp);
-    say(`build interrupted (${signal}); ${shown(plan.outDir)}/ is as it was before`);
-    process.exit(SIGNAL_EXIT[signal] ?? 1);
+    stopping = workersExited(abort.signal).then(() => leave(signal));
   };
   // A renderer's library may fail outside any promise we await (Eleventy's file copying on a full disk
   // does): the build cannot go on, so clean up the same way and say what failed in one line.
@@ -59,6 +71,7 @@ export async function runBuild(argv: string[]): Promise<number> {
   };
   process.on('SIGINT', onSignal);
   process.on('SIGTERM', onSignal);
+  releaseSignals(); // after ours are on: a signal already caught but not yet delivered must not be lost
   process.on('unhandledRejection', onStray);
   process.on('uncaughtException', onStray);
   try {
@@ -72,9 +85,11 @@ export async function runBuild(argv: string[]): Promise<number> {
       committed: () => { temp = null; },
       signal: abort.signal,
     });
+    if (stopping) await stopping;
     if (!plan.quiet) process.stdout.write(`${summaryLine(summary)}\n`);
     return 0;
   } catch (error) {
+    if (stopping) await stopping; // the signal's own line and exit code, once the workers are gone
     progress.clear();
     if (error instanceof StationSetInvalid) {
       for (const problem of error.problems) say(problem.message);

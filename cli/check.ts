@@ -2,9 +2,11 @@
 // each naming file, field and fix; then suspicious constants that pass the schema.
 
 import {
-  checkStationSet, suspiciousConstants, StationFileError, windowLevelProblems, suspiciousStream,
+  checkStationSet, suspiciousConstants, StationFileError, windowLevelProblems, suspiciousStream, oneLine, type Station,
 } from '../engine/index.js';
+import { checkProjectFile } from './build/project.js';
 import { siteFilesFolder } from './build/site-files.js';
+import { coverageNotes } from '../templates/pdf/coverage.js';
 import { parseCommandLine, positionalArguments } from './args.js';
 
 export const DEFAULT_STATIONS_DIR = 'stations-demo';
@@ -19,6 +21,9 @@ axis over 10 knots, a minor axis longer than the major, a missing M2), and acces
 tide never reaches or never leaves over the station's 19-year datum epoch (a warning: the set is still
 usable). Every problem is listed on its own line as FILE: FIELD: what is wrong; what to write instead.
 Exit code 1 when there is any problem; warnings alone leave it 0.
+Notes (FILE: FIELD: note: …) point at things that may be meant, such as a secondary port whose time
+zone differs from its reference port's, or characters the book's typeface lacks (the PDF prints a
+replacement mark for them); they do not change the exit code.
 `;
 
 export interface SetReport {
@@ -28,6 +33,18 @@ export interface SetReport {
   secondaryPorts: number;
   streamStations: number;
   files: number;
+  notes: string[]; // worth a look but not wrong: another time zone than the reference port's, characters the book lacks
+}
+
+/** A secondary port keeps its own time zone; one that differs from its reference port's may be a slip. */
+function zoneNotes(stations: readonly Station[]): string[] {
+  const byId = new Map(stations.map((s) => [s.id, s]));
+  return stations.flatMap((s) => {
+    const reference = s.kind === 'secondary' ? byId.get(s.reference) : undefined;
+    if (!reference || reference.timezone === s.timezone) return [];
+    return [`${oneLine(s.sourceFile ?? s.id)}: timezone: note: ${s.timezone} differs from ${reference.timezone} of its reference port ` +
+      `${reference.id}; its times are printed in ${s.timezone} (right if the port lies in another zone, else write timezone: ${reference.timezone})`];
+  });
 }
 
 /** Every problem of the station set in DIR: schema, set-wide, then suspicious constants. */
@@ -43,6 +60,7 @@ export function checkStations(dir: string): SetReport {
     const reference = stream.kind === 'stream-secondary' ? result.streams.find((s) => s.id === stream.reference) : undefined;
     problems.push(...suspiciousStream(stream, reference));
   }
+  problems.push(...checkProjectFile(dir).problems);
   try {
     siteFilesFolder(dir, [...result.stations, ...result.streams].map((s) => s.id));
   } catch (error) {
@@ -68,6 +86,7 @@ export function checkStations(dir: string): SetReport {
     secondaryPorts: result.stations.filter((s) => s.kind === 'secondary').length,
     streamStations: result.streams.length,
     files: result.files.length,
+    notes: [...zoneNotes(result.stations), ...[...result.stations, ...result.streams].flatMap((st) => coverageNotes(st, oneLine(st.sourceFile ?? st.id)))],
   };
 }
 
@@ -85,6 +104,7 @@ export async function runCheck(argv: string[]): Promise<number> {
   positionalArguments('check', positionals, []);
   const dir = values.stations ?? DEFAULT_STATIONS_DIR;
   const report = checkStations(dir);
+  if (report.notes.length > 0) process.stdout.write(`${report.notes.join('\n')}\n`);
   const warned = report.warnings.map((w) => `warning: ${w.message}\n`).join('');
   if (report.problems.length === 0) {
     const streams = report.streamStations > 0 ? `, ${plural(report.streamStations, 'stream station')}` : '';

@@ -81,6 +81,10 @@ async function help(topic: string | undefined): Promise<number> {
     process.stdout.write(usageText());
     return 0;
   }
+  if (topic === 'help') {
+    process.stdout.write(usageText());
+    return 0;
+  }
   if (topic === 'constituents') {
     process.stdout.write(await constituentList());
     return 0;

@@ -10,6 +10,7 @@ import {
 import type { AnyStreamStation, Station, TideEvent } from '../engine/index.js';
 import { oneOf, parseCommandLine, parseMinutes, parseWhen, positionalArguments } from './args.js';
 import { renderStreamPrediction, type StreamPredictRequest } from './predict-stream.js';
+import { FIRST_YEAR, instantInRange, LAST_YEAR } from './years.js';
 
 const FORMATS = ['table', 'json', 'csv'] as const;
 type Format = (typeof FORMATS)[number];
@@ -25,8 +26,10 @@ For a tidal stream station (kind: stream or stream-secondary): slack water and t
 ebb (rates in knots, directions in degrees true), or with --every the stream's velocity.
 
   --from DATE       start: YYYY-MM-DD (midnight in the station's time zone) or an ISO 8601 instant
-                    such as 2027-01-01T06:00Z; default: today at the station
+                    such as 2027-01-01T06:00Z; a time without Z or an offset (2027-01-01T06:00)
+                    is the station's local time; default: today at the station
   --to DATE         end, not included; same forms; default: 7 days after --from
+                    (both from ${FIRST_YEAR} to ${LAST_YEAR}, the years every command accepts)
   --every MINUTES   heights every MINUTES instead of high and low waters (e.g. 10, or 0.5 for 30 s)
   --format FORMAT   table (default, for people: local time with its UTC offset, heights to cm),
                     json (UTC instants to the second, metres to the mm) or csv
@@ -81,6 +84,8 @@ function request(argv: readonly string[]): PredictRequest | StreamPredictRequest
   const zone = station.timezone;
   const from = values.from === undefined ? DateTime.now().setZone(zone).startOf('day').toMillis() : parseWhen('--from', values.from, zone);
   const to = values.to === undefined ? DateTime.fromMillis(from, { zone }).plus({ days: 7 }).toMillis() : parseWhen('--to', values.to, zone);
+  if (values.from !== undefined) instantInRange('--from', values.from, from, zone);
+  instantInRange('--to', values.to ?? '7 days after --from', to, zone, true);
   if (!(to > from)) {
     throw new UsageError('--to', `${values.to ?? ''} is not later than --from ${values.from ?? ''}`.replace(/\s+/g, ' ').trim(), 'give an end after the start, e.g. --from 2027-01-01 --to 2027-02-01');
   }

@@ -10,6 +10,15 @@ export class UserError extends Error {
 export const TidewrightError = UserError;
 export type TidewrightError = UserError;
 
+/**
+ * A part of a one-line message: line breaks and other control characters shown as escapes (so text
+ * from a file can never break the line), and at most `max` characters.
+ */
+export function oneLine(text: string, max = 400): string {
+  const flat = text.replace(/[\u0000-\u001f\u007f\u2028\u2029]/g, (c) => (c === '\n' ? '\\n' : c === '\t' ? '\\t' : `\\u${c.charCodeAt(0).toString(16).padStart(4, '0')}`));
+  return flat.length > max ? `${flat.slice(0, max)}…` : flat;
+}
+
 /** A file the user wrote that cannot be used as written: names the file, the field, the problem and the fix. */
 export class FileError extends UserError {
   override name = 'FileError';
@@ -19,7 +28,7 @@ export class FileError extends UserError {
     readonly problem: string,
     readonly fix: string,
   ) {
-    super(`${file}: ${field}: ${problem}; ${fix}`);
+    super(`${oneLine(file)}: ${oneLine(field, 120)}: ${oneLine(problem)}; ${oneLine(fix, 600)}`);
   }
 }
 
@@ -36,7 +45,7 @@ export class UsageError extends UserError {
     readonly problem: string,
     readonly fix: string,
   ) {
-    super(`${option}: ${problem}; ${fix}`);
+    super(`${oneLine(option, 120)}: ${oneLine(problem)}; ${oneLine(fix, 600)}`);
   }
 }
 

@@ -21,3 +21,4 @@ export type { OffsetChange } from './types.js'; // the same shape as localtime's
 export * from './windows-check.js';
 export { mm } from './almanac/format.js';
 export * from './context.js';
+export * from './read-text.js';

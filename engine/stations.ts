@@ -14,5 +14,6 @@ export {
   type StationSetCheck,
 } from './stations/set.js';
 export { suspiciousConstants, distanceKm, lowestOfYear } from './stations/suspicious.js';
-export { STATION_ID_PATTERN, DEFAULT_DATUM_EPOCH, idFromText } from './stations/schema.js';
+export { STATION_ID_PATTERN, DEFAULT_DATUM_EPOCH, idFromText, TEXT_LIMITS } from './stations/schema.js';
+export { MAX_STATION_FILE_BYTES } from './stations/set.js';
 export { nearestName } from './stations/suggest.js';

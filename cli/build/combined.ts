@@ -6,10 +6,13 @@ import { BuildStepError, deserializeError } from './failure.js';
 import { workerExecArgv } from './pool.js';
 import type { RenderChoices } from './options.js';
 import type { CombinedSetup, FromWorker, ToWorker } from './protocol.js';
+import { stopWorker, trackWorker } from './threads.js';
 
 export function combinedBookInWorker(workerUrl: URL, models: StationYear[], render: RenderChoices, signal?: AbortSignal, streams: StreamYear[] = []): Promise<Buffer> {
+  if (signal?.aborted) return Promise.reject(new BuildStepError('rendering the combined book', signal.reason ?? new Error('stopped')));
   const setup: CombinedSetup = { job: 'combined', render };
   const worker = new Worker(workerUrl, { workerData: setup, execArgv: workerExecArgv() });
+  const exited = trackWorker(signal, worker);
   return new Promise<Buffer>((resolve, reject) => {
     let result: Buffer | null = null;
     let settled = false;
@@ -17,7 +20,8 @@ export function combinedBookInWorker(workerUrl: URL, models: StationYear[], rend
       if (settled) return;
       settled = true;
       signal?.removeEventListener('abort', onAbort);
-      if (error) void worker.terminate().finally(() => reject(error));
+      // The book is finished (or dropped) by the worker itself before it exits.
+      if (error) void stopWorker(worker, exited).finally(() => reject(error));
       else resolve(result!);
     };
     const onAbort = (): void => finish(new BuildStepError('rendering the combined book', signal?.reason ?? new Error('stopped')));

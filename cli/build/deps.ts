@@ -10,10 +10,10 @@ import type { BuildDeps } from './run.js';
 export const realBuildDeps: BuildDeps = {
   // The same verdict as `tidewright check`: schema, references, and suspicious constants.
   checkSet: (dir) => {
-    const { problems } = checkStations(dir);
-    if (problems.length > 0) return { stations: [], problems };
+    const { problems, notes } = checkStations(dir);
+    if (problems.length > 0) return { stations: [], problems, notes };
     const set = loadStationSet(dir);
-    return { stations: set.stations, streams: set.streams ?? [], problems };
+    return { stations: set.stations, streams: set.streams ?? [], problems, notes };
   },
   computeStreams: (stations, streams, year) => {
     const set = { byId: new Map(stations.map((s) => [s.id, s])), streams };

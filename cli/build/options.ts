@@ -8,9 +8,7 @@ export type Units = (typeof UNITS)[number];
 export type PageSize = (typeof PAGE_SIZES)[number];
 export type Imposition = (typeof IMPOSITIONS)[number];
 
-// Years the engine's astronomy and the datum epochs are written for.
-export const FIRST_YEAR = 1900;
-export const LAST_YEAR = 2100;
+export { FIRST_YEAR, LAST_YEAR } from '../years.js';
 export const MAX_WORKERS = 64;
 
 /** What the renderers are told: the same for the site, the books and the exports. */

@@ -100,10 +100,18 @@ export function recoverStale(target: OutputTarget): string[] {
 
 /** Makes the (empty) temporary folder, and the destination's parent folders if they are missing. */
 export function createTemp(target: OutputTarget): void {
-  mkdirSync(target.parent, { recursive: true });
-  rmSync(target.temp, { recursive: true, force: true });
-  mkdirSync(target.temp);
-  writeFileSync(join(target.temp, OUTPUT_MARKER), MARKER_TEXT);
+  try {
+    mkdirSync(target.parent, { recursive: true });
+    rmSync(target.temp, { recursive: true, force: true });
+    mkdirSync(target.temp);
+    writeFileSync(join(target.temp, OUTPUT_MARKER), MARKER_TEXT);
+  } catch (error) {
+    rmSync(target.temp, { recursive: true, force: true });
+    const code = (error as NodeJS.ErrnoException).code;
+    const why = code === 'EACCES' || code === 'EPERM' ? 'no permission' : code === 'EROFS' ? 'a read-only disk' : code === 'ENOSPC' ? 'the disk is full' : code ?? 'error';
+    throw new UsageError('--out', `${target.out} cannot be written: nothing can be made in ${target.parent} (${why})`,
+      'give a folder you may write to, e.g. --out out');
+  }
 }
 
 /**

@@ -4,6 +4,7 @@ import { Worker } from 'node:worker_threads';
 import { BuildStepError, deserializeError } from './failure.js';
 import type { FromWorker, ToWorker, WorkerSetup } from './protocol.js';
 import type { StationOutcome } from './station-job.js';
+import { stopWorker, trackWorker } from './threads.js';
 
 export interface PoolRun {
   workerUrl: URL;
@@ -12,6 +13,7 @@ export interface PoolRun {
   units: readonly string[][];
   onStation(outcome: StationOutcome): void;
   signal?: AbortSignal;
+  stopGraceMs?: number; // default STOP_GRACE_MS
 }
 
 /** Node options for the workers: this process's, less those that only make sense for a main script. */
@@ -31,7 +33,7 @@ export function workerExecArgv(argv: readonly string[] = process.execArgv): stri
 
 export function runPool(run: PoolRun): Promise<void> {
   const queue = [...run.units];
-  const workers: Worker[] = [];
+  const workers: { worker: Worker; exited: Promise<void> }[] = [];
   return new Promise<void>((resolve, reject) => {
     let settled = false;
     let open = 0;
@@ -39,8 +41,8 @@ export function runPool(run: PoolRun): Promise<void> {
       if (settled) return;
       settled = true;
       run.signal?.removeEventListener('abort', onAbort);
-      // Stop the others at once; their half-written files go with the temporary folder.
-      Promise.all(workers.map((w) => w.terminate())).finally(() => reject(error));
+      // Each worker finishes the station it is on, then exits; its files go with the temporary folder.
+      Promise.all(workers.map((w) => stopWorker(w.worker, w.exited, run.stopGraceMs))).finally(() => reject(error));
     };
     const onAbort = (): void => fail(new BuildStepError('computing the stations', run.signal?.reason ?? new Error('stopped')));
     run.signal?.addEventListener('abort', onAbort, { once: true });
@@ -56,9 +58,14 @@ export function runPool(run: PoolRun): Promise<void> {
       resolve();
       return;
     }
+    if (run.signal?.aborted) {
+      settled = true;
+      reject(new BuildStepError('computing the stations', run.signal.reason ?? new Error('stopped')));
+      return;
+    }
     for (let i = 0; i < size; i++) {
       const worker = new Worker(run.workerUrl, { workerData: run.setup, execArgv: workerExecArgv() });
-      workers.push(worker);
+      workers.push({ worker, exited: trackWorker(run.signal, worker) });
       open++;
       worker.on('message', (message: FromWorker) => {
         if (settled) return;

@@ -1,9 +1,9 @@
 // tidewright.yaml: what a publisher sets once, kept beside the station files. Optional; every key optional.
-import { existsSync, readFileSync } from 'node:fs';
+import { existsSync } from 'node:fs';
 import { join } from 'node:path';
 import { isMap, parseDocument } from 'yaml';
 import * as z from 'zod';
-import { StationFileError, nearestName } from '../../engine/index.js';
+import { StationFileError, nearestName, readTextFile } from '../../engine/index.js';
 import { LANGUAGES, languageOf } from '../../templates/locale/catalogue.js';
 import {
   FIRST_YEAR, IMPOSITIONS, LAST_YEAR, PAGE_SIZES, UNITS, type Imposition, type PageSize, type Units,
@@ -62,42 +62,74 @@ function describe(value: unknown): string {
   return String(value);
 }
 
-function firstProblem(file: string, data: Record<string, unknown>, issues: readonly z.core.$ZodIssue[]): StationFileError {
-  const issue = issues[0]!;
+function problemOf(file: string, data: Record<string, unknown>, issue: z.core.$ZodIssue): StationFileError[] {
   if (issue.code === 'unrecognized_keys') {
-    const key = issue.keys[0]!;
-    const near = nearestName(key, KEYS) ?? KEYS.find((k) => key.toLowerCase().includes(k));
-    return new StationFileError(file, key, 'is not a setting tidewright knows',
-      `${near ? `did you mean ${near}? ` : ''}the settings are ${KEYS.join(', ')}`);
+    return issue.keys.map((key) => {
+      const near = nearestName(key, KEYS) ?? KEYS.find((k) => key.toLowerCase().includes(k));
+      return new StationFileError(file, describeKey(key), 'is not a setting tidewright knows',
+        `${near ? `did you mean ${near}? ` : ''}the settings are ${KEYS.join(', ')}`);
+    });
   }
   const field = String(issue.path[0] ?? '') as keyof ProjectSettings;
   const ownWords = issue.code === 'custom' || issue.code === 'too_small' || issue.code === 'too_big';
   const problem = ownWords && typeof data[field] === 'string'
     ? issue.message
     : `${describe(data[field])} is not allowed here`;
-  return new StationFileError(file, field, problem, FIELD_FIX[field] ?? `the settings are ${KEYS.join(', ')}`);
+  return [new StationFileError(file, field, problem, FIELD_FIX[field] ?? `the settings are ${KEYS.join(', ')}`)];
 }
 
-/** Reads the project file beside the stations, if there is one; a bad one is a StationFileError. */
-export function loadProjectFile(stationsDir: string): { file: string | null; settings: ProjectSettings } {
+function describeKey(key: string): string {
+  return key.length > 40 ? `${key.slice(0, 40)}…` : key;
+}
+
+/** The most a project file may hold (a handful of settings). */
+export const MAX_PROJECT_FILE_BYTES = 64 * 1024;
+
+export interface ProjectCheck {
+  file: string | null;
+  settings: ProjectSettings; // the settings that are valid
+  problems: StationFileError[];
+}
+
+/** Every problem of the project file beside the stations, if there is one. */
+export function checkProjectFile(stationsDir: string): ProjectCheck {
   const file = join(stationsDir, PROJECT_FILE_NAME);
-  if (!existsSync(file)) return { file: null, settings: {} };
-  const doc = parseDocument(readFileSync(file, 'utf8'), { uniqueKeys: true });
-  const syntax = doc.errors[0];
-  if (syntax) {
-    const where = syntax.linePos?.[0];
-    const what = (syntax.message.split('\n')[0] ?? '').replace(/ at line \d+, column \d+:?$/, '');
-    throw new StationFileError(file, where ? `line ${where.line}, column ${where.col}` : '(file)',
-      `YAML syntax error: ${what}`,
-      'write one setting per line as key: value, e.g. page: a5');
+  if (!existsSync(file)) return { file: null, settings: {}, problems: [] };
+  const read = readTextFile(file, MAX_PROJECT_FILE_BYTES, `a ${PROJECT_FILE_NAME} of key: value settings`);
+  if (!('text' in read)) return { file, settings: {}, problems: [new StationFileError(file, '(file)', read.problem, read.fix)] };
+  const doc = parseDocument(read.text, { uniqueKeys: true });
+  if (doc.errors.length > 0) {
+    return {
+      file, settings: {}, problems: doc.errors.map((syntax) => {
+        const where = syntax.linePos?.[0];
+        const what = (syntax.message.split('\n')[0] ?? '').replace(/ at line \d+, column \d+:?$/, '');
+        return new StationFileError(file, where ? `line ${where.line}, column ${where.col}` : '(file)',
+          `YAML syntax error: ${what}`, 'write one setting per line as key: value, e.g. page: a5');
+      }),
+    };
   }
-  if (doc.contents === null) return { file, settings: {} };
+  if (doc.contents === null) return { file, settings: {}, problems: [] };
   if (!isMap(doc.contents)) {
-    throw new StationFileError(file, '(file)', 'is not a list of key: value settings',
-      `write settings such as title:, publisher:, year:, page:, units:, locale:, imposition:, caution:`);
+    return {
+      file, settings: {}, problems: [new StationFileError(file, '(file)', 'is not a list of key: value settings',
+        'write settings such as title:, publisher:, year:, page:, units:, locale:, imposition:, caution:')],
+    };
   }
-  const data = doc.toJS() as Record<string, unknown>;
+  let data: Record<string, unknown>;
+  try {
+    data = doc.toJS({ maxAliasCount: 100 }) as Record<string, unknown>;
+  } catch (error) {
+    const what = error instanceof Error ? (error.message.split('\n')[0] ?? '') : String(error);
+    return { file, settings: {}, problems: [new StationFileError(file, '(file)', `YAML could not be read: ${what}`, 'write plain key: value lines without aliases')] };
+  }
   const parsed = projectSchema.safeParse(data);
-  if (!parsed.success) throw firstProblem(file, data, parsed.error.issues);
-  return { file, settings: parsed.data };
+  if (parsed.success) return { file, settings: parsed.data, problems: [] };
+  return { file, settings: {}, problems: parsed.error.issues.flatMap((issue) => problemOf(file, data, issue)) };
+}
+
+/** Reads the project file beside the stations, if there is one; a bad one is a StationFileError (its first problem). */
+export function loadProjectFile(stationsDir: string): { file: string | null; settings: ProjectSettings } {
+  const { file, settings, problems } = checkProjectFile(stationsDir);
+  if (problems[0]) throw problems[0];
+  return { file, settings };
 }

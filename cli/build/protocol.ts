@@ -22,6 +22,7 @@ export interface CombinedSetup {
 export type ToWorker =
   | { type: 'unit'; ids: string[] }
   | { type: 'close' }
+  | { type: 'stop' } // finish the current station or book, send nothing more, exit
   | { type: 'combined'; models: StationYear[]; streams?: StreamYear[] };
 
 export type FromWorker =

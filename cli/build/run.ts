@@ -25,7 +25,7 @@ export interface ComputeRequest {
 
 /** The pieces a build is made of; the CLI passes the real ones, tests may pass their own. */
 export interface BuildDeps {
-  checkSet(dir: string): { stations: Station[]; streams?: AnyStreamStation[]; problems: StationFileError[] };
+  checkSet(dir: string): { stations: Station[]; streams?: AnyStreamStation[]; problems: StationFileError[]; notes?: string[] };
   /** The stream-years of the set's tidal stream stations (few and quick: computed in this thread). */
   computeStreams?(stations: Station[], streams: AnyStreamStation[], year: number): StreamYear[];
   computeStations(request: ComputeRequest, onStation: (outcome: StationOutcome) => void, signal?: AbortSignal): Promise<void>;
@@ -106,6 +106,7 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
 
   events.progress.stage('checking the station files');
   const checked = deps.checkSet(plan.stationsDir);
+  for (const note of checked.notes ?? []) events.note(note);
   if (checked.problems.length > 0) throw new StationSetInvalid(checked.problems);
   const stations = checked.stations;
   const year = plan.year;

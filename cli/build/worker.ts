@@ -23,23 +23,32 @@ function stationWorker(init: WorkerSetup): void {
   } catch (error) {
     post({ type: 'failed', id: null, error: serializeError(error) });
   }
+  // Asked to stop, the worker finishes the station it is on (its PDF written whole), then exits.
+  let busy = false;
+  let stopping = false;
   port!.on('message', (message: ToWorker) => {
+    if (message.type === 'stop') stopping = true;
     if (message.type !== 'unit' || !ctx) {
-      port!.close();
+      if (!busy) port!.close();
       return;
     }
+    busy = true;
     void (async () => {
       let current: string | null = null;
       try {
         const unit = { ...ctx, engine: unitEngine(sky) };
         for (const id of message.ids) {
+          if (stopping) break;
           current = id;
-          post({ type: 'station', outcome: await runStationJob(id, unit, stationJobDeps) });
+          const outcome = await runStationJob(id, unit, stationJobDeps);
+          if (!stopping) post({ type: 'station', outcome });
         }
-        post({ type: 'unit-done' });
+        if (!stopping) post({ type: 'unit-done' });
       } catch (error) {
-        post({ type: 'failed', id: current, error: serializeError(error) });
+        if (!stopping) post({ type: 'failed', id: current, error: serializeError(error) });
       }
+      busy = false;
+      if (stopping) port!.close();
     })();
   });
 }

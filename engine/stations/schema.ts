@@ -48,6 +48,10 @@ const knownZones: readonly string[] = Intl.supportedValuesOf('timeZone');
 
 export function checkTimezone(ctx: CheckContext): void {
   const zone = ctx.value;
+  if (zone.length > 64) {
+    fail(ctx, `"${zone.slice(0, 20)}…" is ${zone.length} characters long, longer than any time zone name`, 'write an IANA time zone name such as Europe/Lisbon or Pacific/Auckland');
+    return;
+  }
   const exact = knownZones.includes(zone);
   const nearest = exact ? zone : nearestName(zone, knownZones);
   if (!IANAZone.isValidZone(zone)) {
@@ -58,11 +62,24 @@ export function checkTimezone(ctx: CheckContext): void {
   }
 }
 
+/** The longest each text field may be, in characters: enough for any real name, and a page line. */
+export const TEXT_LIMITS = { name: 120, datum: 80, provenance: 2000, other: 500 } as const;
+
 function checkText(ctx: CheckContext): void {
   if (ctx.value.trim() === '') fail(ctx, 'is empty', 'write some text');
 }
 
-export const text = z.string().check(checkText);
+function textOf(limit: number) {
+  return z.string().check((ctx: CheckContext) => {
+    if (ctx.value.trim() === '') fail(ctx, 'is empty', 'write some text');
+    else if (ctx.value.length > limit) {
+      fail(ctx, `is ${ctx.value.length} characters long, more than the ${limit} allowed`, `shorten it to at most ${limit} characters`);
+    }
+  });
+}
+
+/** Other text fields (levelling notes, window names, stream texts…). */
+export const text = textOf(TEXT_LIMITS.other);
 
 /** Every name a station file may use for a constituent (canonical names and aliases) → canonical name. */
 export const CANONICAL_CONSTITUENT: ReadonlyMap<string, string> = new Map(
@@ -158,18 +175,18 @@ export const windowsSchema = z.array(windowSchema).check((ctx) => {
 // Key order here is the order a loaded station keeps (and the order problems are listed in).
 export const referencePortSchema = z.strictObject({
   id: stationId,
-  name: text,
+  name: textOf(TEXT_LIMITS.name),
   kind: z.literal('reference'),
   position: positionSchema,
   timezone: z.string().check(checkTimezone),
-  datum: text,
+  datum: textOf(TEXT_LIMITS.datum),
   mean_level: z.number().min(-100).max(100),
   constituents: z
     .record(z.string().check(checkConstituentName), constituentSchema)
     .refine((all) => Object.keys(all).length > 0, {
       params: { problem: 'lists no constituents', fix: 'add at least M2: { amplitude: …, phase: … }' },
     }),
-  provenance: text,
+  provenance: textOf(TEXT_LIMITS.provenance),
   datum_epoch: z.int().min(1900).max(2100).default(DEFAULT_DATUM_EPOCH),
   windows: windowsSchema.optional(),
   ...stationRecords,
@@ -185,14 +202,14 @@ const springsAndNeaps = z.strictObject({ springs: differencePair, neaps: differe
 
 export const secondaryPortSchema = z.strictObject({
   id: stationId,
-  name: text,
+  name: textOf(TEXT_LIMITS.name),
   kind: z.literal('secondary'),
   reference: stationId,
   position: positionSchema,
   timezone: z.string().check(checkTimezone),
-  datum: text,
+  datum: textOf(TEXT_LIMITS.datum),
   differences: z.strictObject({ high_water: springsAndNeaps, low_water: springsAndNeaps }),
-  provenance: text,
+  provenance: textOf(TEXT_LIMITS.provenance),
   datum_epoch: z.int().min(1900).max(2100).default(DEFAULT_DATUM_EPOCH),
   windows: windowsSchema.optional(),
   ...stationRecords,

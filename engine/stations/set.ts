@@ -1,13 +1,15 @@
 // A station set: every station file of one folder, ids unique, each secondary port's reference
 // resolved to a reference port of the same set.
 
-import { readFileSync, readdirSync, statSync } from 'node:fs';
+import { readdirSync, statSync } from 'node:fs';
+import { readTextFile } from '../read-text.js';
 import { join } from 'node:path';
 import { StationFileError } from '../errors.js';
 import type { Station } from '../types.js';
 import type { AnyStreamStation } from '../streams/types.js';
 import { checkStationText, parseAnyStation, parseStation } from './parse.js';
 import { streamSetProblems } from './stream-set.js';
+import { STATION_ID_PATTERN } from './schema.js';
 import { nearestName } from './suggest.js';
 
 export interface StationSet {
@@ -20,14 +22,13 @@ export interface StationSet {
 /** The optional project file that lives beside the stations (title, publisher…): not a station. */
 export const PROJECT_FILE_NAME = 'tidewright.yaml';
 
+/** The most a station file may hold: a file with every constituent and long comments is about 10 KiB. */
+export const MAX_STATION_FILE_BYTES = 256 * 1024;
+
 function readStationText(path: string): string {
-  try {
-    return readFileSync(path, 'utf8');
-  } catch (error) {
-    const code = (error as NodeJS.ErrnoException).code;
-    const problem = code === 'ENOENT' ? 'does not exist' : code === 'EISDIR' ? 'is a folder, not a station file' : `cannot be read (${code ?? 'error'})`;
-    throw new StationFileError(path, '(file)', problem, 'give the path of a station .yaml file');
-  }
+  const result = readTextFile(path, MAX_STATION_FILE_BYTES, 'a station .yaml file');
+  if ('text' in result) return result.text;
+  throw new StationFileError(path, '(file)', result.problem, result.fix);
 }
 
 /** One station file from disk; the first problem is thrown as a StationFileError. */
@@ -89,7 +90,10 @@ export function setProblems(
       byId.set(station.id, station);
     }
   }
-  const referenceIds = [...stations.filter((s) => s.kind === 'reference').map((s) => s.id), ...failedIds.keys()];
+  // Ids a reference may be corrected to: each once, and only well-formed ones (a file with problems
+  // of its own may declare an id that is not one).
+  const referenceIds = [...new Set([...stations.filter((s) => s.kind === 'reference').map((s) => s.id), ...failedIds.keys()])]
+    .filter((id) => STATION_ID_PATTERN.test(id) && id.length <= 64);
   for (const station of stations) {
     if (station.kind !== 'secondary' || byId.get(station.id) !== station) continue;
     if (!byId.has(station.reference) && failedIds.has(station.reference)) continue;
@@ -115,7 +119,7 @@ function referenceProblem(
     const fix = nearest
       ? `did you mean ${nearest}? write reference: ${nearest}`
       : referenceIds.length > 0
-        ? `write the id of one of the reference ports here: ${referenceIds.join(', ')}`
+        ? `write the id of one of the reference ports here: ${referenceIds.slice(0, 12).join(', ')}${referenceIds.length > 12 ? ', …' : ''}`
         : 'add the reference port\'s station file to this folder';
     return new StationFileError(file, 'reference', `no station in ${dir} has the id "${station.reference}"`, fix);
   }

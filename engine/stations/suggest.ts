@@ -19,8 +19,11 @@ export function editDistance(a: string, b: string): number {
   return d[rows * cols - 1]!;
 }
 
+const MAX_TYPED = 100;
+
 /** The candidate the user most likely meant, or undefined when nothing is close. */
 export function nearestName(typed: string, candidates: Iterable<string>): string | undefined {
+  if (typed.length > MAX_TYPED) return undefined; // no typo of a name is that long, and the distance would cost much
   const lower = typed.toLowerCase();
   let best: string | undefined;
   let bestDistance = Infinity;

@@ -3,6 +3,7 @@
 import type { FontName } from './fonts.js';
 import { useFont } from './fonts.js';
 import { printable } from './format.js';
+import { needsBidi, visualPieces, withReplacements, type GlyphCoverage } from './script.js';
 
 export interface TextStyle {
   font: FontName;
@@ -12,21 +13,41 @@ export interface TextStyle {
 
 export type Align = 'left' | 'right' | 'center';
 
+/** The current face's character map (pdfkit keeps the parsed font on `_font.font`), if it can be reached. */
+function coverage(doc: PDFKit.PDFDocument): GlyphCoverage | null {
+  const font = (doc as unknown as { _font?: { font?: Partial<GlyphCoverage> } })._font?.font;
+  return typeof font?.hasGlyphForCodePoint === 'function' ? (font as GlyphCoverage) : null;
+}
+
+/** The text as it is drawn: control characters as spaces, characters the face lacks as U+FFFD. */
+function drawable(doc: PDFKit.PDFDocument, text: string): string {
+  return withReplacements(printable(text), coverage(doc));
+}
+
 export function widthOf(doc: PDFKit.PDFDocument, text: string, style: TextStyle): number {
   useFont(doc, style.font).fontSize(style.size);
-  return doc.widthOfString(printable(text));
+  return doc.widthOfString(drawable(doc, text));
 }
 
 /** Draws one line with its baseline at y; returns the drawn width. */
 export function put(doc: PDFKit.PDFDocument, text: string, x: number, y: number, style: TextStyle,
   align: Align = 'left'): number {
-  const s = printable(text);
-  if (s.length === 0) return 0;
+  if (printable(text).length === 0) return 0;
   useFont(doc, style.font).fontSize(style.size).fillColor(style.color ?? '#000000');
+  const s = drawable(doc, text);
   const w = doc.widthOfString(s);
   const left = align === 'left' ? x : align === 'right' ? x - w : x - w / 2;
-  doc.text(s, left, y, { lineBreak: false, baseline: 'alphabetic' });
-  return w;
+  if (!needsBidi(s)) {
+    doc.text(s, left, y, { lineBreak: false, baseline: 'alphabetic' });
+    return w;
+  }
+  // Right-to-left words: each piece placed by us in visual order (see script.ts).
+  let at = left;
+  for (const piece of visualPieces(s)) {
+    if (!piece.space) doc.text(piece.text, at, y, { lineBreak: false, baseline: 'alphabetic' });
+    at += doc.widthOfString(piece.text);
+  }
+  return at - left;
 }
 
 /** The largest size ≤ style.size (down to minSize) at which the text fits maxWidth. */

@@ -19,6 +19,7 @@ import { parentPort, threadId, workerData } from 'node:worker_threads';
 const sleep = (ms) => new Promise((r) => setTimeout(r, ms));
 parentPort.on('message', async (m) => {
   if (m.type === 'close') { parentPort.close(); return; }
+  if (m.type === 'stop') { if (workerData.deaf) return; process.exit(0); }
   for (const id of m.ids) {
     if (id === 'bad') {
       parentPort.postMessage({ type: 'failed', id, error: { name: 'StationFileError', message: 'x',
@@ -82,6 +83,17 @@ describe('runPool', () => {
     setTimeout(() => abort.abort(new Error('interrupted by SIGINT')), 100);
     const started = Date.now();
     await expect(done).rejects.toThrow(/interrupted by SIGINT/);
+    expect(Date.now() - started).toBeLessThan(10_000);
+  });
+
+  it('waits for a worker to finish what it is doing when stopped, and terminates one that does not listen', async () => {
+    const abort = new AbortController();
+    const setup = { stationsDir: root, year: 2027, tempDir: root, render: { units: 'm', page: 'a5', imposition: 'none' } } as const;
+    const { done } = run([['slow']], 1, { signal: abort.signal, setup: { ...setup, deaf: true } as typeof setup, stopGraceMs: 300 });
+    setTimeout(() => abort.abort(new Error('interrupted by SIGINT')), 100);
+    const started = Date.now();
+    await expect(done).rejects.toThrow(/interrupted by SIGINT/);
+    expect(Date.now() - started).toBeGreaterThanOrEqual(250); // it was given the grace period
     expect(Date.now() - started).toBeLessThan(10_000);
   });
 });

@@ -178,7 +178,7 @@ describe('a broken station set', () => {
 describe('bad options', () => {
   it.each([
     [['--out', '/'], /--out: \/ is the root of the file system/],
-    [['--year', 'next'], /--year: "next" is not a whole number/],
+    [['--year', 'next'], /--year: "next" is not a year from 1970 to 2100/],
     [['--page', 'b5'], /--page: "b5" is not one of/],
   ])('%j exits 1 with one line', (args, message) => {
     const run = tidewright(['build', '--stations', goodStations, ...args]);
