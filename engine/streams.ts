@@ -3,6 +3,7 @@
 // (streams/predict.ts) and their slack and strongest flood and ebb (streams/events.ts). Stream-secondary
 // stations: the reference stream station's events by time differences and rate ratios (streams/secondary.ts).
 
+import type { EngineContext } from './context.js';
 import { streamEvents } from './streams/events.js';
 import { streamPredictorFor } from './streams/predict.js';
 import {
@@ -23,21 +24,23 @@ export { ebbDirectionOf, referenceStreamOf, streamSecondaryEventsFrom, type Stre
 const DAY = 86_400_000;
 
 /** Every slack and strongest flood and ebb with from ≤ time < to (UTC ms), in time order. */
-export function streamEventsFor(station: AnyStreamStation, set: StreamLookup, from: number, to: number): StreamEvent[] {
+export function streamEventsFor(
+  station: AnyStreamStation, set: StreamLookup, from: number, to: number, ctx?: EngineContext,
+): StreamEvent[] {
   if (!(to > from)) return [];
-  if (station.kind === 'stream') return streamEvents(streamPredictorFor(station), from, to);
+  if (station.kind === 'stream') return streamEvents(streamPredictorFor(station, ctx), from, to);
   const reference = referenceStreamOf(station, set);
-  const events = streamEvents(streamPredictorFor(reference), from - STREAM_SECONDARY_PAD_MS, to + STREAM_SECONDARY_PAD_MS);
+  const events = streamEvents(streamPredictorFor(reference, ctx), from - STREAM_SECONDARY_PAD_MS, to + STREAM_SECONDARY_PAD_MS);
   return streamSecondaryEventsFrom(events, station).filter((e) => e.time >= from && e.time < to);
 }
 
 /** East and north velocity, knots, at start + i·stepMs for i < count. */
 export function streamVelocities(
-  station: AnyStreamStation, set: StreamLookup, start: number, stepMs: number, count: number,
+  station: AnyStreamStation, set: StreamLookup, start: number, stepMs: number, count: number, ctx?: EngineContext,
 ): { east: Float64Array; north: Float64Array } {
-  if (station.kind === 'stream') return streamPredictorFor(station).series(start, stepMs, count);
+  if (station.kind === 'stream') return streamPredictorFor(station, ctx).series(start, stepMs, count);
   const end = start + stepMs * Math.max(0, count - 1);
-  const events = streamEventsFor(station, set, Math.min(start, end) - DAY, Math.max(start, end) + DAY);
+  const events = streamEventsFor(station, set, Math.min(start, end) - DAY, Math.max(start, end) + DAY, ctx);
   return streamSecondarySeries(events, station, start, stepMs, count);
 }
 export { buildStreamYear, streamAlmanacEvent, type StreamYearLookup } from './streams/almanac.js';
@@ -49,14 +52,14 @@ export { STREAM_CAUTION } from './streams/caution.js';
  * its component along the flood direction, for a stream-secondary station its drawn rate.
  */
 export function streamAlongFlood(
-  station: AnyStreamStation, set: StreamLookup, start: number, stepMs: number, count: number,
+  station: AnyStreamStation, set: StreamLookup, start: number, stepMs: number, count: number, ctx?: EngineContext,
 ): Float64Array {
   if (station.kind === 'stream-secondary') {
     const end = start + stepMs * Math.max(0, count - 1);
-    const events = streamEventsFor(station, set, Math.min(start, end) - DAY, Math.max(start, end) + DAY);
+    const events = streamEventsFor(station, set, Math.min(start, end) - DAY, Math.max(start, end) + DAY, ctx);
     return streamSecondaryAlong(events, start, stepMs, count);
   }
-  const { east, north } = streamPredictorFor(station).series(start, stepMs, count);
+  const { east, north } = streamPredictorFor(station, ctx).series(start, stepMs, count);
   const fx = Math.sin((station.flood_direction * Math.PI) / 180);
   const fy = Math.cos((station.flood_direction * Math.PI) / 180);
   const out = new Float64Array(count);

@@ -1,7 +1,7 @@
 // The real pieces of a build: the stations checker, the engine (in workers) and the renderers.
 // The renderers load only when needed, so a build refused for bad input answers at once.
 import { availableParallelism } from 'node:os';
-import { loadStationSet, buildStreamYear } from '../../engine/index.js';
+import { createEngineContext, loadStationSet, buildStreamYear } from '../../engine/index.js';
 import { checkStations } from '../check.js';
 import { combinedBookInWorker } from './combined.js';
 import { compiledWorkerUrl, computeStations } from './compute.js';
@@ -17,7 +17,8 @@ export const realBuildDeps: BuildDeps = {
   },
   computeStreams: (stations, streams, year) => {
     const set = { byId: new Map(stations.map((s) => [s.id, s])), streams };
-    return streams.map((s) => buildStreamYear(s, set, year));
+    const context = createEngineContext(); // shared by the stream-years of this build, dropped after
+    return streams.map((s) => buildStreamYear(s, set, year, 30, context));
   },
   computeStations: async (request, onStation, signal) => {
     const { stationJobDeps } = await import('./engine-deps.js');

@@ -8,6 +8,7 @@
 // plus ebb rate takes the place of the tidal range; the age that pairs markers with syzygies is the
 // age of the tide (Pugh 1987) from the M2 and S2 ellipse phases.
 
+import { createEngineContext, type EngineContext } from '../context.js';
 import { basename } from 'node:path';
 import { CAUTION, isInvented } from '../almanac/caution.js';
 import { monthEntries } from '../almanac/days.js';
@@ -79,14 +80,17 @@ function tideReferenceOf(station: AnyStreamStation, set: StreamYearLookup): Stat
 }
 
 /** The whole model of one stream station for one calendar year in the station's own time zone. */
-export function buildStreamYear(station: AnyStreamStation, set: StreamYearLookup, year: number, curveStepMinutes = 30): StreamYear {
+export function buildStreamYear(
+  station: AnyStreamStation, set: StreamYearLookup, year: number, curveStepMinutes = 30,
+  ctx: EngineContext = createEngineContext(),
+): StreamYear {
   if (!Number.isInteger(curveStepMinutes) || curveStepMinutes <= 0 || 60 % curveStepMinutes !== 0) {
     throw new UsageError('curveStepMinutes', `${curveStepMinutes} does not divide an hour`, 'use 10, 15, 20 or 30');
   }
   const zone = station.timezone;
   const days = localDays(year, zone);
   const padDays = [...paddingDays(year, zone, -1), ...days, ...paddingDays(year, zone, 1)];
-  const allEvents = streamEventsFor(station, set, padDays[0]!.start - DAY, padDays[padDays.length - 1]!.end + DAY);
+  const allEvents = streamEventsFor(station, set, padDays[0]!.start - DAY, padDays[padDays.length - 1]!.end + DAY, ctx);
   const yearEvents = allEvents.filter((e) => dayIndexOf(days, e.time) >= 0);
   const events = yearEvents.map((e) => streamAlmanacEvent(e, zone));
 
@@ -98,7 +102,7 @@ export function buildStreamYear(station: AnyStreamStation, set: StreamYearLookup
   const tide = tideReferenceOf(station, set);
   const harmonic = station.kind === 'stream' ? station : referenceStreamOf(station, set);
   const rangeEvents = tide
-    ? tideEvents(tide, set as StationLookup, padDays[0]!.start - DAY, padDays[padDays.length - 1]!.end + DAY)
+    ? tideEvents(tide, set as StationLookup, padDays[0]!.start - DAY, padDays[padDays.length - 1]!.end + DAY, ctx)
     : asRangeEvents(allEvents);
   const age = tide
     ? ageOfTideHours(harmonicStationOf(tide, set as StationLookup).constituents)
@@ -106,13 +110,13 @@ export function buildStreamYear(station: AnyStreamStation, set: StreamYearLookup
   const springNeap = springNeapEntries(rangeEvents, padDays, days, quarters, age);
 
   const step = curveStepMinutes * MINUTE;
-  const sky = skyForDays(days, station.position, zone);
+  const sky = skyForDays(days, station.position, zone, ctx.sky);
   const springNeapOn = new Map(springNeap.map((s) => [s.date, s.kind] as [string, SpringNeapKind]));
   const perDay: StreamAlmanacEvent[][] = days.map(() => []);
   yearEvents.forEach((e, i) => perDay[dayIndexOf(days, e.time)]!.push(events[i]!));
   const moonPhaseOn = new Map(moonPhases.map((m) => [m.date, m.phase] as [string, MoonPhaseName]));
   const dayList = days.map((day, i) => ({
-    ...streamDay(day, sky[i]!, perDay[i]!, dayCurve(station, set, day, step), springNeapOn, zone),
+    ...streamDay(day, sky[i]!, perDay[i]!, dayCurve(station, set, day, step, ctx), springNeapOn, zone),
     moonPhase: moonPhaseOn.get(day.date) ?? null,
   }));
 
@@ -152,10 +156,10 @@ function modelStation(station: AnyStreamStation): AnyStreamStation {
   return copy;
 }
 
-function dayCurve(station: AnyStreamStation, set: StreamYearLookup, day: LocalDay, stepMs: number): number[] {
+function dayCurve(station: AnyStreamStation, set: StreamYearLookup, day: LocalDay, stepMs: number, ctx: EngineContext): number[] {
   const n = Math.floor((day.end - day.start) / stepMs) + 1;
-  const out = Array.from(streamAlongFlood(station, set, day.start, stepMs, n), knots);
-  if (day.start + (n - 1) * stepMs < day.end) out.push(knots(streamAlongFlood(station, set, day.end, stepMs, 1)[0]!));
+  const out = Array.from(streamAlongFlood(station, set, day.start, stepMs, n, ctx), knots);
+  if (day.start + (n - 1) * stepMs < day.end) out.push(knots(streamAlongFlood(station, set, day.end, stepMs, 1, ctx)[0]!));
   return out;
 }
 

@@ -3,6 +3,7 @@
 // the height engine's prediction kernel and its node factors serve streams unchanged. Knots throughout.
 
 import { constituentSpeed } from '../constituents.js';
+import type { EngineContext } from '../context.js';
 import { compilePredictor, type Predictor } from '../predict.js';
 import type { ConstituentConstant, ReferenceStation } from '../types.js';
 import { ellipseToComponents } from './ellipse.js';
@@ -115,14 +116,12 @@ export function compileStreamPredictor(station: StreamStation): StreamPredictor 
   };
 }
 
-const compiled = new WeakMap<StreamStation, StreamPredictor>();
-
-/** The compiled predictor of a stream station, cached per station object. */
-export function streamPredictorFor(station: StreamStation): StreamPredictor {
-  let p = compiled.get(station);
+/** The compiled predictor of a stream station, kept in the context per station object. */
+export function streamPredictorFor(station: StreamStation, ctx?: EngineContext): StreamPredictor {
+  let p = ctx?.streamPredictors.get(station);
   if (!p) {
     p = compileStreamPredictor(station);
-    compiled.set(station, p);
+    ctx?.streamPredictors.set(station, p);
   }
   return p;
 }
