@@ -45,7 +45,7 @@ export async function runHeight(argv: string[]): Promise<number> {
   const t = parseWhen('--at', values.at, zone);
   const { height, trend } = heightAndTrend(station, set, t);
   if (format === 'json') {
-    process.stdout.write(`${JSON.stringify({ time: isoUtc(t), local: isoLocal(t, zone), height: mm(height), trend })}\n`);
+    process.stdout.write(`${JSON.stringify({ station_id: station.id, time: isoUtc(t), time_local: isoLocal(t, zone), height_m: mm(height), trend })}\n`);
     return 0;
   }
   const when = DateTime.fromMillis(t, { zone }).toFormat('yyyy-MM-dd ccc HH:mm:ss ZZ');

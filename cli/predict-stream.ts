@@ -6,6 +6,7 @@ import {
   CAUTION, isoLocal, isoUtc, STREAM_CAUTION, bearingOf, streamEventsFor, streamVelocities, type StreamLookup,
 } from '../engine/index.js';
 import type { AnyStreamStation, StreamEvent } from '../engine/index.js';
+import { csvTable, csvText, type ExportRecord } from '../templates/exports/fields.js';
 
 const MINUTE = 60_000;
 
@@ -22,6 +23,9 @@ export interface StreamPredictRequest {
 export const knots = (x: number): number => Math.round(x * 100) / 100 + 0;
 /** Degrees true to the tenth, [0, 360); null stays null. */
 export const degrees = (x: number | null): number | null => (x === null ? null : (Math.round(x * 10) / 10) % 360 + 0);
+
+/** Decimals in CSV: knots to the hundredth, degrees to the tenth. */
+const STREAM_DIGITS = { speed_kn: 2, east_kn: 2, north_kn: 2, direction_deg_true: 1 };
 
 function jsonList(rows: readonly object[]): string {
   return rows.length === 0 ? '[]\n' : `[\n${rows.map((r) => JSON.stringify(r)).join(',\n')}\n]\n`;
@@ -84,25 +88,25 @@ export function renderStreamPrediction(req: StreamPredictRequest): string {
   const zone = req.station.timezone;
   if (req.stepMinutes === undefined) {
     const events: StreamEvent[] = streamEventsFor(req.station, req.set, req.from, req.to);
-    if (req.format === 'json') {
-      return jsonList(events.map((e) => ({ time: isoUtc(e.time), type: e.type, speed: knots(e.speed), direction: degrees(e.direction) })));
-    }
-    if (req.format === 'csv') {
-      const rows = events.map((e) => `${isoUtc(e.time)},${isoLocal(e.time, zone)},${e.type},${knots(e.speed).toFixed(2)},${e.direction === null ? '' : degrees(e.direction)!.toFixed(1)}`);
-      return ['time_utc,time_local,type,speed_kn,direction_deg_true', ...rows].join('\n') + '\n';
-    }
+    // JSON and CSV use the exports' one vocabulary (templates/exports/fields.ts, README "Fields of the exports").
+    const records: ExportRecord[] = events.map((e) => ({
+      station_id: req.station.id, time: isoUtc(e.time), time_local: isoLocal(e.time, zone), type: e.type,
+      speed_kn: knots(e.speed), direction_deg_true: degrees(e.direction),
+    }));
+    if (req.format === 'json') return jsonList(records);
+    if (req.format === 'csv') return csvText(csvTable(['station_id', 'time', 'time_local', 'type', 'speed_kn', 'direction_deg_true'], records, STREAM_DIGITS));
     const rows = events.map((e) => ({ t: e.time, type: e.type, speed: e.speed, direction: e.direction }));
     return [...header(req, 'Slack water and the strongest flood and ebb'), ...tableRows(rows, zone, true)].join('\n') + '\n';
   }
   const list = samples(req, Math.round(req.stepMinutes * MINUTE));
   const num = (x: number): number | null => (Number.isFinite(x) ? knots(x) : null);
-  if (req.format === 'json') {
-    return jsonList(list.map((s) => ({ time: isoUtc(s.t), speed: num(s.speed), direction: degrees(s.direction), east: num(s.east), north: num(s.north) })));
-  }
+  const records: ExportRecord[] = list.map((s) => ({
+    station_id: req.station.id, time: isoUtc(s.t), time_local: isoLocal(s.t, zone), speed_kn: num(s.speed),
+    direction_deg_true: degrees(s.direction), east_kn: num(s.east), north_kn: num(s.north),
+  }));
+  if (req.format === 'json') return jsonList(records);
   if (req.format === 'csv') {
-    const cell = (x: number | null, digits: number) => (x === null || !Number.isFinite(x) ? '' : x.toFixed(digits));
-    const rows = list.map((s) => `${isoUtc(s.t)},${isoLocal(s.t, zone)},${cell(num(s.speed), 2)},${cell(degrees(s.direction), 1)},${cell(num(s.east), 2)},${cell(num(s.north), 2)}`);
-    return ['time_utc,time_local,speed_kn,direction_deg_true,east_kn,north_kn', ...rows].join('\n') + '\n';
+    return csvText(csvTable(['station_id', 'time', 'time_local', 'speed_kn', 'direction_deg_true', 'east_kn', 'north_kn'], records, STREAM_DIGITS));
   }
   const what = `The stream every ${req.stepMinutes} minutes${req.station.kind === 'stream-secondary' ? ' (between its events a half-cosine curve, a drawing aid)' : ''}`;
   return [...header(req, what), ...tableRows(list.map((s) => ({ ...s })), zone, false)].join('\n') + '\n';

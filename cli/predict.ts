@@ -5,9 +5,10 @@ import { dirname } from 'node:path';
 import { DateTime } from 'luxon';
 import { wordsFor } from '../templates/locale/index.js';
 import {
-  UsageError, isoLocal, isoUtc, loadAnyStationFile, loadStationSet, type StationSet, tideEvents, tideHeights,
+  UsageError, isoLocal, isoUtc, localDate, loadAnyStationFile, loadStationSet, type StationSet, tideEvents, tideHeights,
 } from '../engine/index.js';
 import type { AnyStreamStation, Station, TideEvent } from '../engine/index.js';
+import { csvTable, csvText, eventFields, eventRecord, HEIGHT_DIGITS, heightFields, heightRecord, type ExportRecord } from '../templates/exports/fields.js';
 import { oneOf, parseCommandLine, parseMinutes, parseWhen, positionalArguments } from './args.js';
 import { renderStreamPrediction, type StreamPredictRequest } from './predict-stream.js';
 import { FIRST_YEAR, instantInRange, LAST_YEAR } from './years.js';
@@ -32,7 +33,8 @@ ebb (rates in knots, directions in degrees true), or with --every the stream's v
                     (both from ${FIRST_YEAR} to ${LAST_YEAR}, the years every command accepts)
   --every MINUTES   heights every MINUTES instead of high and low waters (e.g. 10, or 0.5 for 30 s)
   --format FORMAT   table (default, for people: local time with its UTC offset, heights to cm),
-                    json (UTC instants to the second, metres to the mm) or csv
+                    json or csv (for programs: station_id, time (UTC), time_local, type,
+                    height_m to the mm, below_chart_datum; see the README's table of fields)
   --stations DIR    the station set a secondary port's reference port is found in
                     (default: the folder of STATION.yaml)
 
@@ -101,7 +103,6 @@ function request(argv: readonly string[]): PredictRequest | StreamPredictRequest
 // --- formatting --------------------------------------------------------------------------------
 
 const toMinute = (t: number): number => Math.round(t / MINUTE) * MINUTE;
-const mm = (h: number): number => Math.round(h * 1000) / 1000 + 0; // + 0 turns -0 into 0
 
 
 function cm(h: number): string {
@@ -109,27 +110,18 @@ function cm(h: number): string {
   return text === '-0.00' ? '0.00' : text;
 }
 
-function jsonEvents(events: readonly TideEvent[]): string {
-  const rows = events.map((e) => JSON.stringify({ time: isoUtc(e.time), type: e.type, height: mm(e.height) }));
-  return rows.length === 0 ? '[]\n' : `[\n${rows.join(',\n')}\n]\n`;
+// JSON and CSV use the exports' one vocabulary (templates/exports/fields.ts, README "Fields of the exports").
+function eventRecords(events: readonly TideEvent[], station: Station): ExportRecord[] {
+  const zone = station.timezone;
+  return events.map((e) => eventRecord(station.id, isoUtc(e.time), isoLocal(e.time, zone), localDate(e.time, zone), e.type, e.height, 'm'));
 }
 
-function jsonHeights(times: readonly number[], heights: Float64Array): string {
-  const rows = times.map((t, i) => JSON.stringify({ time: isoUtc(t), height: Number.isFinite(heights[i]) ? mm(heights[i]!) : null }));
-  return rows.length === 0 ? '[]\n' : `[\n${rows.join(',\n')}\n]\n`;
+function heightRecords(times: readonly number[], heights: Float64Array, station: Station): ExportRecord[] {
+  return times.map((t, i) => heightRecord(station.id, isoUtc(t), isoLocal(t, station.timezone), heights[i]!, 'm'));
 }
 
-function csvEvents(events: readonly TideEvent[], zone: string): string {
-  const rows = events.map((e) => `${isoUtc(e.time)},${isoLocal(e.time, zone)},${e.type},${mm(e.height).toFixed(3)}`);
-  return ['time_utc,time_local,type,height_m', ...rows].join('\n') + '\n';
-}
-
-function csvHeights(times: readonly number[], heights: Float64Array, zone: string): string {
-  const rows = times.map((t, i) => {
-    const h = heights[i]!;
-    return `${isoUtc(t)},${isoLocal(t, zone)},${Number.isFinite(h) ? mm(h).toFixed(3) : ''}`;
-  });
-  return ['time_utc,time_local,height_m', ...rows].join('\n') + '\n';
+function jsonRecords(records: readonly ExportRecord[]): string {
+  return records.length === 0 ? '[]\n' : `[\n${records.map((r) => JSON.stringify(r)).join(',\n')}\n]\n`;
 }
 
 function tableHeader(req: PredictRequest, what: string): string[] {
@@ -180,8 +172,8 @@ function render(req: PredictRequest): string {
   const zone = req.station.timezone;
   if (req.stepMinutes === undefined) {
     const events = tideEvents(req.station, req.set, req.from, req.to);
-    if (req.format === 'json') return jsonEvents(events);
-    if (req.format === 'csv') return csvEvents(events, zone);
+    if (req.format === 'json') return jsonRecords(eventRecords(events, req.station));
+    if (req.format === 'csv') return csvText(csvTable(eventFields('m'), eventRecords(events, req.station), HEIGHT_DIGITS));
     const header = tableHeader(req, 'High and low waters');
     const rows = events.map((e) => ({ t: e.time, type: e.type, height: e.height }));
     return [...header, ...tableRows(rows, zone, true)].join('\n') + '\n';
@@ -190,8 +182,8 @@ function render(req: PredictRequest): string {
   const count = Math.ceil((req.to - req.from) / stepMs);
   const heights = tideHeights(req.station, req.set, req.from, stepMs, count);
   const times = Array.from({ length: count }, (_, i) => req.from + i * stepMs);
-  if (req.format === 'json') return jsonHeights(times, heights);
-  if (req.format === 'csv') return csvHeights(times, heights, zone);
+  if (req.format === 'json') return jsonRecords(heightRecords(times, heights, req.station));
+  if (req.format === 'csv') return csvText(csvTable(heightFields('m'), heightRecords(times, heights, req.station), HEIGHT_DIGITS));
   const what = `Heights every ${req.stepMinutes} minutes${req.station.kind === 'secondary' ? ' (between its high and low waters a half-cosine curve, a drawing aid)' : ''}`;
   const rows = times.map((t, i) => ({ t, height: heights[i]! }));
   return [...tableHeader(req, what), ...tableRows(rows, zone, false)].join('\n') + '\n';

@@ -8,6 +8,7 @@ import {
 } from '../engine/index.js';
 import type { Station } from '../engine/index.js';
 import { oneOf, parseCommandLine, parseWhen, positionalArguments } from './args.js';
+import { csvTable, csvText, type ExportRecord } from '../templates/exports/fields.js';
 import { stationSetFor } from './predict.js';
 
 const FORMATS = ['table', 'json', 'csv'] as const;
@@ -29,7 +30,8 @@ datum. Intervals are clipped to the span: one already open at --from starts ther
                     default: today at the station
   --to DATE         end, not included; same forms; default: 7 days after --from
   --format FORMAT   table (default: local times to the minute), json
-                    ([{"start":"…Z","end":"…Z","startLocal":"…","endLocal":"…"}], UTC to the second) or csv
+                    ([{"station_id":…,"start":"…Z","start_local":"…","end":"…Z","end_local":"…",
+                    "duration_min":…}], UTC to the second) or csv with the same fields
   --stations DIR    the station set a secondary port's reference port is found in
                     (default: the folder of STATION.yaml)
 
@@ -93,19 +95,22 @@ function request(argv: readonly string[]): WindowsRequest | undefined {
   return { station, side, level, from, to, format, intervals: openIntervals(station, set, side, level, from, to) };
 }
 
-function json(req: WindowsRequest): string {
+// JSON and CSV use the exports' one vocabulary (templates/exports/fields.ts, README "Fields of the exports").
+function records(req: WindowsRequest): ExportRecord[] {
   const zone = req.station.timezone;
-  const rows = req.intervals.map((w) => JSON.stringify({
-    start: isoUtc(w.start), end: isoUtc(w.end), startLocal: isoLocal(w.start, zone), endLocal: isoLocal(w.end, zone),
+  return req.intervals.map((w) => ({
+    station_id: req.station.id, start: isoUtc(w.start), start_local: isoLocal(w.start, zone), end: isoUtc(w.end), end_local: isoLocal(w.end, zone),
+    duration_min: Math.round((w.end - w.start) / MINUTE),
   }));
+}
+
+function json(req: WindowsRequest): string {
+  const rows = records(req).map((r) => JSON.stringify(r));
   return rows.length === 0 ? '[]\n' : `[\n${rows.join(',\n')}\n]\n`;
 }
 
 function csv(req: WindowsRequest): string {
-  const zone = req.station.timezone;
-  const rows = req.intervals.map((w) => [req.station.id, isoUtc(w.start), isoLocal(w.start, zone), isoUtc(w.end),
-    isoLocal(w.end, zone), Math.round((w.end - w.start) / MINUTE)].join(','));
-  return ['station_id,start_utc,start_local,end_utc,end_local,minutes', ...rows].join('\n') + '\n';
+  return csvText(csvTable(['station_id', 'start', 'start_local', 'end', 'end_local', 'duration_min'], records(req)));
 }
 
 const stamp = (t: number, zone: string): string => DateTime.fromMillis(Math.round(t / MINUTE) * MINUTE, { zone }).toFormat('yyyy-MM-dd ccc HH:mm ZZ');

@@ -109,6 +109,7 @@ export function buildStationYear(
     meanSpringRange: summary.meanSpringRange,
     meanNeapRange: summary.meanNeapRange,
     ageOfTideHours: summary.ageOfTideHours,
+    springLagHours: meanSpringLag(springNeap),
     curveStepMinutes: step,
     days: dayList,
     months: monthEntries(dayList),
@@ -176,6 +177,12 @@ function springNeapEntries(
         lagHours: Math.round(m.lagHours * 10) / 10,
       };
     });
+}
+
+/** The mean lag of the year's spring marks after the syzygy each follows, hours to the tenth. */
+function meanSpringLag(entries: readonly SpringNeapEntry[]): number | null {
+  const lags = entries.filter((e) => e.kind === 'spring').map((e) => e.lagHours);
+  return lags.length === 0 ? null : Math.round((lags.reduce((a, b) => a + b, 0) / lags.length) * 10) / 10;
 }
 
 function yearExtremes(raw: readonly TideEvent[], events: readonly AlmanacEvent[]): StationYear['extremes'] {

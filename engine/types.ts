@@ -173,7 +173,8 @@ export interface StationYear {
   tideType: TideType;
   meanSpringRange: number; // metres
   meanNeapRange: number;
-  ageOfTideHours: number;
+  ageOfTideHours: number; // from the constants: (g_S2 − g_M2) / (speed S2 − speed M2)
+  springLagHours: number | null; // mean lag of this year's spring marks after new or full moon (null without marks)
   curveStepMinutes: number;
   days: DayEntry[];
   months: MonthEntry[];

@@ -50,11 +50,21 @@ export function icalUtc(iso: string): string {
   return iso.replace(/[-:]/g, '').replace(/\.\d+/, '');
 }
 
+/**
+ * UID of an event: the station, what happens and its UTC instant, so an event keeps its UID when the
+ * edition is rebuilt or events around it come and go, and no two events share one.
+ */
+export function eventUid(stationId: string, what: string, isoTime: string): string {
+  return `${stationId}-${what}-${icalUtc(isoTime)}@tidewright`;
+}
+
 export function eventsICalendar(model: StationYear, words: Words = wordsFor()): string {
   const st = model.station;
   const stamp = `${model.year}0101T000000Z`; // fixed by the edition's year: reproducible builds
   const w = words;
   const invented = model.invented ? ` ${w.t('export.invented')}` : '';
+  // The caution, provenance and what the heights mean are said once, for the whole calendar; each
+  // event is one short line.
   const lines: string[] = [
     'BEGIN:VCALENDAR',
     'VERSION:2.0',
@@ -62,29 +72,27 @@ export function eventsICalendar(model: StationYear, words: Words = wordsFor()): 
     'CALSCALE:GREGORIAN',
     'METHOD:PUBLISH',
     `X-WR-CALNAME:${escapeText(w.t('ical.name', { year: model.year, station: st.name }))}`,
-    `X-WR-CALDESC:${escapeText(`${w.t('ical.description', { station: st.name, datum: st.datum })} ${words.caution}${invented} `
+    `X-WR-CALDESC:${escapeText(`${w.t('ical.description', { station: st.name, datum: st.datum })} ${w.t('caution.heading')}: ${words.caution}${invented} `
       + `${w.t('fact.provenance')}: ${st.provenance}`)}`,
   ];
-  model.events.forEach((e, i) => {
+  for (const e of model.events) {
     const what = w.eventName(e.type);
     const height = words.height(e.height).replace('\u00a0', ' '); // plain text: an ordinary space
     const below = e.belowDatum ? ` (${w.t('ical.below', { datum: st.datum })})` : '';
-    const description = `${w.t('ical.event', { what, station: st.name, clock: e.clock, offset: w.offset(e.offset), height, datum: st.datum })}${below}.`
-      + `\n\n${w.t('caution.heading')}: ${words.caution}${invented}`;
     lines.push(
       'BEGIN:VEVENT',
-      `UID:${st.id}-${model.year}-${i + 1}@tidewright`,
+      `UID:${eventUid(st.id, e.type, e.time)}`,
       `DTSTAMP:${stamp}`,
       `DTSTART:${icalUtc(e.time)}`,
       `SUMMARY:${escapeText(`${what} ${height}${below}`)}`,
-      `DESCRIPTION:${escapeText(description)}`,
+      `DESCRIPTION:${escapeText(`${w.t('ical.event', { what, clock: e.clock, offset: w.offset(e.offset), height, datum: st.datum })}${below}.`)}`,
       `LOCATION:${escapeText(st.name)}`,
       `GEO:${st.position.latitude.toFixed(6)};${st.position.longitude.toFixed(6)}`,
       'TRANSP:TRANSPARENT',
       'END:VEVENT',
     );
-  });
-  lines.push(...windowCalendarEvents(model, words, stamp, invented));
+  }
+  lines.push(...windowCalendarEvents(model, words, stamp));
   lines.push('END:VCALENDAR');
   return `${lines.map(foldLine).join('\r\n')}\r\n`;
 }

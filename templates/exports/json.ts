@@ -1,17 +1,18 @@
 // The events of a station-year as JSON: the station's identity, what the heights are measured from,
-// the caution, and every high and low water (UTC instant, local time, metres above datum).
+// the caution, and every high and low water as a record of the exports' one vocabulary (fields.ts).
 import type { StationYear } from '../../engine/index.js';
 import { wordsFor, type Words } from '../locale/index.js';
+import { eventRecord } from './fields.js';
 
 export function eventsJson(model: StationYear, words: Words = wordsFor()): string {
   const st = model.station;
   const doc = {
     kind: 'tidewright-events',
-    version: 1,
+    version: 2,
     station: {
       id: st.id,
       name: st.name,
-      type: st.kind,
+      kind: st.kind,
       reference: model.reference,
       position: st.position,
       timezone: model.timezone,
@@ -23,14 +24,7 @@ export function eventsJson(model: StationYear, words: Words = wordsFor()): strin
     caution: words.caution,
     provenance: st.provenance,
     generator: model.generator,
-    events: model.events.map((e) => ({
-      time: e.time,
-      local: e.local,
-      date: e.date,
-      type: e.type,
-      height: e.height,
-      belowDatum: e.belowDatum,
-    })),
+    events: model.events.map((e) => eventRecord(st.id, e.time, e.local, e.date, e.type, e.height, 'm')),
   };
   return `${JSON.stringify(doc, null, 2)}\n`;
 }

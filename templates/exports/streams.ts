@@ -4,8 +4,8 @@ import { mkdir, writeFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import type { StreamYear } from '../../engine/index.js';
 import { wordsFor, type Words } from '../locale/index.js';
-import { csvField } from './csv.js';
-import { escapeText, foldLine, icalUtc } from './icalendar.js';
+import { csvTable, csvText, type ExportRecord } from './fields.js';
+import { escapeText, eventUid, foldLine, icalUtc } from './icalendar.js';
 
 const SAFE_ID = /^[a-z0-9-]+$/;
 const oneLine = (text: string): string => text.replace(/[\r\n\t]+/g, ' ').trim();
@@ -40,33 +40,36 @@ export function streamNotes(model: StreamYear, words: Words = wordsFor()): strin
   return notes;
 }
 
+/** A stream event in the exports' one vocabulary (fields.ts; README "Fields of the exports"). */
+function streamRecord(model: StreamYear, e: StreamYear['events'][number]): ExportRecord {
+  return { station_id: model.station.id, time: e.time, time_local: e.local, type: e.type, speed_kn: e.speed, direction_deg_true: e.direction };
+}
+
+const STREAM_FIELDS = ['station_id', 'time', 'time_local', 'type', 'speed_kn', 'direction_deg_true'];
+
 export function streamEventsCsv(model: StreamYear, words: Words = wordsFor()): string {
-  const lines = streamNotes(model, words).map((note) => `# ${note}`);
-  lines.push('station_id,date,local_time,utc_offset,time_utc,type,speed_kn,direction_deg_true');
-  for (const e of model.events) {
-    lines.push([model.station.id, e.local.slice(0, 10), e.clock, e.offset, e.time, e.type, e.speed.toFixed(2),
-      e.direction === null ? '' : e.direction.toFixed(1)].map(csvField).join(','));
-  }
-  return `${lines.join('\r\n')}\r\n`;
+  const notes = streamNotes(model, words).map((note) => `# ${note}`);
+  const records = model.events.map((e) => streamRecord(model, e));
+  return csvText([...notes, ...csvTable(STREAM_FIELDS, records, { speed_kn: 2, direction_deg_true: 1 })]);
 }
 
 export function streamEventsJson(model: StreamYear, words: Words = wordsFor()): string {
   const st = model.station;
   const doc = {
     kind: 'tidewright-stream-events',
-    version: 1,
+    version: 2,
     station: {
-      id: st.id, name: st.name, type: st.kind, reference: model.reference, position: st.position, timezone: model.timezone,
-      floodDirection: model.floodDirection, ebbDirection: model.ebbDirection,
+      id: st.id, name: st.name, kind: st.kind, reference: model.reference, position: st.position, timezone: model.timezone,
+      flood_direction_deg_true: model.floodDirection, ebb_direction_deg_true: model.ebbDirection,
     },
     year: model.year,
     units: { speed: 'kn', direction: 'degrees true' },
     invented: model.invented,
     caution: words.caution,
-    streamCaution: words.t('caution.streams'),
+    stream_caution: words.t('caution.streams'),
     provenance: st.provenance,
     generator: model.generator,
-    events: model.events.map((e) => ({ time: e.time, local: e.local, type: e.type, speed: e.speed, direction: e.direction })),
+    events: model.events.map((e) => streamRecord(model, e)),
   };
   return `${JSON.stringify(doc, null, 2)}\n`;
 }
@@ -87,18 +90,18 @@ export function streamEventsICalendar(model: StreamYear, words: Words = wordsFor
     'CALSCALE:GREGORIAN',
     'METHOD:PUBLISH',
     `X-WR-CALNAME:${escapeText(`${w.t('stream.groupName')} ${model.year}: ${st.name}`)}`,
-    `X-WR-CALDESC:${escapeText(`${w.t('stream.caption', { station: st.name, month: '', year: model.year })}. ${cautions} ${w.t('fact.provenance')}: ${st.provenance}`)}`,
+    `X-WR-CALDESC:${escapeText(`${w.t('stream.caption', { station: st.name, month: '', year: model.year })}. ${w.t('caution.heading')}: ${cautions} ${w.t('fact.provenance')}: ${st.provenance}`)}`,
   ];
-  model.events.forEach((e, i) => {
+  model.events.forEach((e) => {
     const what = w.t(e.type === 'slack' ? 'stream.colSlack' : e.type === 'flood' ? 'stream.strongestFlood' : 'stream.strongestEbb');
     const rate = e.type === 'slack' ? '' : ` ${w.number(e.speed, 1)} kn, ${bearing(e.direction)}`;
     lines.push(
       'BEGIN:VEVENT',
-      `UID:${st.id}-${model.year}-stream-${i + 1}@tidewright`,
+      `UID:${eventUid(st.id, e.type, e.time)}`,
       `DTSTAMP:${stamp}`,
       `DTSTART:${icalUtc(e.time)}`,
       `SUMMARY:${escapeText(`${what}${rate}`)}`,
-      `DESCRIPTION:${escapeText(`${what}, ${st.name}: ${e.clock} (${w.offset(e.offset)})${rate}.\n\n${w.t('caution.heading')}: ${cautions}`)}`,
+      `DESCRIPTION:${escapeText(`${what}, ${st.name}: ${e.clock} (${w.offset(e.offset)})${rate}.`)}`,
       `LOCATION:${escapeText(st.name)}`,
       `GEO:${st.position.latitude.toFixed(6)};${st.position.longitude.toFixed(6)}`,
       'TRANSP:TRANSPARENT',

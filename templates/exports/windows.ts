@@ -2,9 +2,9 @@
 // intervals, UTC and local), as iCalendar events for the station's calendar, and the hourly heights as CSV.
 import { SECONDARY_WINDOW_NOTE } from '../../engine/index.js';
 import type { StationYear, WindowYear } from '../../engine/index.js';
-import { inUnits, wordsFor, type Words } from '../locale/index.js';
-import { csvField } from './csv.js';
-import { escapeText, icalUtc } from './icalendar.js';
+import { wordsFor, type Words } from '../locale/index.js';
+import { csvTable, csvText, exportHeight, HEIGHT_DIGITS, heightField, heightRecord, type ExportRecord } from './fields.js';
+import { escapeText, eventUid, icalUtc } from './icalendar.js';
 import { exportNotes } from './notes.js';
 
 const MINUTE = 60_000;
@@ -26,52 +26,51 @@ export function windowsCsv(model: StationYear, words: Words = wordsFor()): strin
   const secondary = model.windows.some((w) => w.method === 'secondary-curve');
   const lines = notes(model, words, 'export.windowsFor', secondary).map((n) => `# ${n}`);
   for (const w of model.windows) lines.push(`# ${w.id}: ${w.name.replace(/[\r\n\t]+/g, ' ')}, ${rule(w, words)}.`);
-  lines.push(['station_id', 'window_id', 'side', units === 'ft' ? 'level_ft' : 'level_m', 'start_utc', 'start_local',
-    'end_utc', 'end_local', 'minutes'].join(','));
-  for (const w of model.windows) {
-    const level = inUnits(w.level, units).toFixed(units === 'ft' ? 2 : 3);
-    for (const i of w.intervals) {
-      const minutes = Math.round((Date.parse(i.end) - Date.parse(i.start)) / MINUTE);
-      lines.push([model.station.id, w.id, w.side, level, i.start, i.startLocal, i.end, i.endLocal, String(minutes)]
-        .map(csvField).join(','));
-    }
-  }
-  return `${lines.join('\r\n')}\r\n`;
+  const level = units === 'ft' ? 'level_ft' : 'level_m';
+  const records: ExportRecord[] = model.windows.flatMap((w) => w.intervals.map((i) => ({
+    station_id: model.station.id, window_id: w.id, side: w.side, [level]: exportHeight(w.level, units),
+    start: i.start, start_local: i.startLocal, end: i.end, end_local: i.endLocal,
+    duration_min: Math.round((Date.parse(i.end) - Date.parse(i.start)) / MINUTE),
+  })));
+  const fields = ['station_id', 'window_id', 'side', level, 'start', 'start_local', 'end', 'end_local', 'duration_min'];
+  return csvText([...lines, ...csvTable(fields, records, HEIGHT_DIGITS)]);
 }
 
 export function windowsJson(model: StationYear, words: Words = wordsFor()): string {
   const st = model.station;
   const doc = {
     kind: 'tidewright-windows',
-    version: 1,
-    station: { id: st.id, name: st.name, type: st.kind, timezone: model.timezone, datum: st.datum },
+    version: 2,
+    station: { id: st.id, name: st.name, kind: st.kind, timezone: model.timezone, datum: st.datum },
     year: model.year,
     units: 'm',
     invented: model.invented,
     caution: words.caution,
-    secondaryNote: model.windows.some((w) => w.method === 'secondary-curve') ? SECONDARY_WINDOW_NOTE : null,
+    secondary_note: model.windows.some((w) => w.method === 'secondary-curve') ? SECONDARY_WINDOW_NOTE : null,
     provenance: st.provenance,
     generator: model.generator,
     windows: model.windows.map((w) => ({
-      id: w.id, name: w.name, side: w.side, level: w.level, method: w.method, outOfRange: w.outOfRange,
-      intervals: w.intervals,
+      window_id: w.id, name: w.name, side: w.side, level_m: w.level, method: w.method, out_of_range: w.outOfRange,
+      intervals: w.intervals.map((i) => ({
+        station_id: st.id, window_id: w.id, start: i.start, start_local: i.startLocal, end: i.end, end_local: i.endLocal,
+        duration_min: Math.round((Date.parse(i.end) - Date.parse(i.start)) / MINUTE),
+      })),
     })),
   };
   return `${JSON.stringify(doc, null, 2)}\n`;
 }
 
-/** VEVENT lines of every window opening ("Marina sill open"), for the station-year's calendar. */
-export function windowCalendarEvents(model: StationYear, words: Words, stamp: string, invented: string): string[] {
+/** VEVENT lines of every window opening ("Marina sill open"), one short line each, for the station-year's calendar. */
+export function windowCalendarEvents(model: StationYear, words: Words, stamp: string): string[] {
   const st = model.station;
   const lines: string[] = [];
   for (const w of model.windows) {
-    const secondary = w.method === 'secondary-curve' ? `\n\n${SECONDARY_WINDOW_NOTE}` : '';
-    w.intervals.forEach((i, n) => {
-      const description = `${words.t('window.calendar', { window: w.name, station: st.name, rule: rule(w, words), datum: st.datum, from: i.startLocal, to: i.endLocal })}`
-        + `${secondary}\n\n${words.t('caution.heading')}: ${words.caution}${invented}`;
+    const secondary = w.method === 'secondary-curve' ? ` ${SECONDARY_WINDOW_NOTE}` : '';
+    for (const i of w.intervals) {
+      const description = `${words.t('window.calendar', { window: w.name, rule: rule(w, words), datum: st.datum, from: i.startLocal.slice(11, 16), to: i.endLocal.slice(11, 16) })}${secondary}`;
       lines.push(
         'BEGIN:VEVENT',
-        `UID:${st.id}-${model.year}-${w.id}-${n + 1}@tidewright`,
+        `UID:${eventUid(st.id, w.id, i.start)}`,
         `DTSTAMP:${stamp}`,
         `DTSTART:${icalUtc(i.start)}`,
         `DTEND:${icalUtc(i.end)}`,
@@ -81,7 +80,7 @@ export function windowCalendarEvents(model: StationYear, words: Words, stamp: st
         'TRANSP:TRANSPARENT',
         'END:VEVENT',
       );
-    });
+    }
   }
   return lines;
 }
@@ -90,12 +89,9 @@ export function hourlyCsv(model: StationYear, words: Words = wordsFor()): string
   const units = words.units;
   const secondary = model.hourly.method === 'secondary-curve';
   const lines = notes(model, words, 'export.hourlyFor', secondary).map((n) => `# ${n}`);
-  lines.push(['station_id', 'date', 'local_time', 'utc_offset', units === 'ft' ? 'height_ft' : 'height_m'].join(','));
-  for (const d of model.hourly.days) {
-    d.clocks.forEach((c, i) => {
-      lines.push([model.station.id, d.date, c, d.offsets[i]!, inUnits(d.heights[i]!, units).toFixed(units === 'ft' ? 2 : 3)]
-        .map(csvField).join(','));
-    });
-  }
-  return `${lines.join('\r\n')}\r\n`;
+  const records = model.hourly.days.flatMap((d) => d.clocks.map((c, i) => {
+    const local = `${d.date}T${c}:00${d.offsets[i]!}`;
+    return heightRecord(model.station.id, new Date(Date.parse(local)).toISOString().slice(0, 19) + 'Z', local, d.heights[i]!, units);
+  }));
+  return csvText([...lines, ...csvTable(['station_id', 'time', 'time_local', heightField(units)], records, HEIGHT_DIGITS)]);
 }

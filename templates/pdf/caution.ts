@@ -12,7 +12,18 @@ import { paragraph, put, wrapLines } from './text.js';
 
 type KeyItem = { draw: (x: number, baseline: number) => void; text: string };
 
-function keyItems(ctx: PageContext, view: StationView, mixed: boolean): KeyItem[] {
+/**
+ * What the spring mark means, with both numbers: the age of the tide from the constants and the mean
+ * lag of this year's marks, which the Moon's distance (perigee) moves away from the age.
+ */
+export function springKeyText(view: Pick<StationView, 'model' | 'words'>, combined: boolean): string {
+  const { ageOfTideHours: age, springLagHours: lag } = view.model;
+  const w = view.words;
+  if (combined || lag === null) return w.t('key.springEach');
+  return w.t('key.springLag', { lag: w.hours(lag), age: w.hours(age) });
+}
+
+function keyItems(ctx: PageContext, view: StationView, mixed: boolean, combined: boolean): KeyItem[] {
   const { doc } = ctx;
   const s = unit(ctx);
   const words = ctx.settings.words;
@@ -33,13 +44,16 @@ function keyItems(ctx: PageContext, view: StationView, mixed: boolean): KeyItem[
         belowDatumMark(doc, hx + w + 0.8 * s, y, 8.6 * s);
         doc.save().lineWidth(0.7 * s).moveTo(hx, y + 1.4 * s).lineTo(hx + w, y + 1.4 * s).stroke(INK).restore();
       } },
-    { text: words.t('key.spring'),
+    { text: springKeyText(view, combined),
       draw: (x, y) => springNeapBadge(doc, 'spring', x + 7 * s, y - 3.5 * s, 14 * s, 18 * s, 10.5 * s, words.t('tide.springMark')) },
     { text: words.t('key.neap'),
       draw: (x, y) => springNeapBadge(doc, 'neap', x + 7 * s, y - 3.5 * s, 14 * s, 18 * s, 10.5 * s, words.t('tide.neapMark')) },
-    { text: words.t(mixed ? 'key.moonEach' : view.southern ? 'key.moonSouth' : 'key.moonNorth'),
-      draw: (x, y) => (['new', 'first-quarter', 'full', 'last-quarter'] as MoonPhaseName[]).forEach((p, i) =>
-        moonGlyph(doc, p, x + 5 * s + i * 13 * s, y - 3.5 * s, 4.6 * s, view.southern)) },
+    // A book with stations on both sides of the equator shows both hemispheres' glyphs, one line each.
+    ...(mixed ? [false, true] : [view.southern]).map((southern) => ({
+      text: words.t(southern ? 'key.moonSouth' : 'key.moonNorth'),
+      draw: (x: number, y: number) => (['new', 'first-quarter', 'full', 'last-quarter'] as MoonPhaseName[]).forEach((p, i) =>
+        moonGlyph(doc, p, x + 5 * s + i * 13 * s, y - 3.5 * s, 4.6 * s, southern)),
+    })),
     { text: words.t('key.curve'),
       draw: (x, y) => drawDayCurve(doc, spring, { x, y: y - 14 * s, width: 48 * s, height: 20 * s }, view.curve, s) },
     { text: words.t('key.sun', { up: words.t('sun.upAllDay'), down: words.t('sun.downAllDay') }),
@@ -89,7 +103,7 @@ export function cautionPage(view: StationView, scope: CautionScope = { combined:
       put(doc, view.words.t('book.howToRead'), box.x, y, { font: 'bold', size: 11.5 * s });
       y += 8 * s;
       const textX = box.x + 74 * s;
-      const items = keyItems(ctx, view, mixedHemispheres);
+      const items = keyItems(ctx, view, mixedHemispheres, scope.combined);
       // the key must end above the footer: on small pages rows close up, then the type steps down
       const layout = (size: number, gap: number) => {
         const style = { font: 'narrow' as const, size, color: DARK };

@@ -1,6 +1,7 @@
 // One day of a month page: spring/neap badge, date, moon, the high-water lane above the low-water
 // lane (each in time order), the day's curve, and sunrise/sunset.
 import type { AlmanacEvent, DayEntry } from '../../engine/index.js';
+import { dayLanes } from '../day-lanes.js';
 import type { Words } from '../locale/index.js';
 import { drawDayCurve } from './day-curve.js';
 import { belowDatumMark, clockGlyph, laneMark, moonGlyph, springNeapBadge, sunGlyph, sunGlyphWidth } from './glyphs.js';
@@ -100,8 +101,9 @@ export function drawDayRow(doc: PDFKit.PDFDocument, view: StationView, day: DayE
     if (phase) put(doc, phase.clock, cx, cy + r + 6 * u, { font: 'narrow', size: 5.6 * u, color: MID }, 'center');
   }
 
-  drawLane(doc, view, day.events.filter((e) => e.type === 'high'), 'high', day, f, lanesY.high);
-  drawLane(doc, view, day.events.filter((e) => e.type === 'low'), 'low', day, f, lanesY.low);
+  const lanes = dayLanes(day.events);
+  drawLane(doc, view, lanes.high, 'high', day, f, lanesY.high);
+  drawLane(doc, view, lanes.low, 'low', day, f, lanesY.low);
 
   const pad = 2.2 * u;
   drawDayCurve(doc, day, { x: cols.curve.x, y: top + pad, width: cols.curve.w, height: height - 2 * pad },

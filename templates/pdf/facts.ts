@@ -1,6 +1,7 @@
 // The station facts page: where and what the station is, its datums (table and tide staff to scale),
 // ranges and age of the tide, provenance, and for a secondary port its reference and differences.
 import type { SecondaryStation } from '../../engine/index.js';
+import { datumsInHeightOrder, latBelowChartDatum } from '../datum-order.js';
 import { DATUM_ROWS, drawDatumScale } from './datum-scale.js';
 import { drawConstants } from './constants.js';
 import { drawDifferences } from './differences.js';
@@ -56,6 +57,7 @@ export function factsPage(view: StationView): LogicalPage {
         [w.t('fact.tideType'), `${w.tideType(model.tideType.kind)} (${w.t('fact.formNumber', { value: w.number(model.tideType.formNumber, 2) })})`],
         [w.t('fact.meanRanges'), w.t('fact.rangesValue', { springs: w.height(model.meanSpringRange), neaps: w.height(model.meanNeapRange) })],
         [w.t('fact.ageOfTide'), w.t('fact.ageValue', { age: w.hours(age) })],
+        ...(model.springLagHours === null ? [] : [[w.t('fact.springMarks'), w.t('fact.springMarksValue', { lag: w.hours(model.springLagHours) })] as [string, string]]),
         ...(st.number === undefined ? [] : [[w.t('station.numberLabel'), printable(st.number)] as [string, string]]),
         ...(st.levelling === undefined ? [] : [[w.t('station.levelling'), w.t('station.levellingValue', {
           datum: printable(st.datum), depth: w.height(st.levelling.chart_datum_below), land: printable(st.levelling.datum) })] as [string, string]]),
@@ -70,8 +72,8 @@ export function factsPage(view: StationView): LogicalPage {
       const tableW = Math.min(box.width * 0.58, 210 * s);
       const rowH = 12.5 * s;
       const tableTop = y;
-      const datumRows = [...DATUM_ROWS.map((r) => ({ key: r.key as string, name: w.t(`datum.${r.key}`), v: model.datums[r.key] })),
-        { key: 'CD', name: printable(st.datum), v: 0 }];
+      // In height order, chart datum where it falls, as on the site.
+      const datumRows = datumsInHeightOrder(model.datums).map((r) => ({ key: r.key as string, name: r.key === 'CD' ? printable(st.datum) : w.t(`datum.${r.key}`), v: r.value }));
       // With a levelling datum, a second column gives each level above it (a column, not a replacement).
       const land = st.levelling;
       const landW = land === undefined ? 0 : 44 * s;
@@ -92,6 +94,11 @@ export function factsPage(view: StationView): LogicalPage {
         y += rowH;
       }
       y = paragraph(doc, w.t('book.latHatNote', { epoch: `${model.datums.epoch.from}\u2013${model.datums.epoch.to}` }), box.x, y + 2 * s, tableW, { font: 'narrow', size: 7 * s, color: MID }, 8.6 * s);
+      const latBelow = latBelowChartDatum(model.datums);
+      if (latBelow !== null) {
+        y = paragraph(doc, w.t('datum.latBelow', { depth: w.height(latBelow), datum: printable(st.datum) }),
+          box.x, y + 2 * s, tableW, { font: 'bold', size: 7.4 * s }, 9 * s);
+      }
       const diagramX = box.x + tableW + 8 * s;
       drawDatumScale(doc, model.datums, printable(st.datum), w,
         { x: diagramX, y: tableTop + 2 * s, width: box.x + box.width - diagramX, height: Math.max(rowH * 8, y - tableTop - 6 * s) }, s);

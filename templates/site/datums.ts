@@ -1,6 +1,7 @@
 // The station's datums as a ladder: highest first, with the y of each level on a small vertical
 // scale and label positions pushed apart where levels lie close (LAT and MLWS often do).
 import type { Datums } from '../../engine/index.js';
+import { datumsInHeightOrder } from '../datum-order.js';
 
 export const LADDER_HEIGHT = 210;
 const TOP = 10;
@@ -16,11 +17,10 @@ export interface DatumRow {
 }
 
 // The levels and chart datum; their names come from the catalogue (the site's filter adds them).
-const KEYS: (keyof Omit<Datums, 'epoch'> | 'CD')[] = ['HAT', 'MHWS', 'MHWN', 'MSL', 'MLWN', 'MLWS', 'LAT', 'CD'];
 
 export function datumLadder(datums: Datums): DatumRow[] {
-  const rows = KEYS.map((key) => ({ key, name: key as string, value: key === 'CD' ? 0 : datums[key] }));
-  rows.sort((a, b) => b.value - a.value); // highest first; chart datum lands where it belongs
+  // highest first; chart datum lands where it belongs (the book's facts page uses the same order)
+  const rows = datumsInHeightOrder(datums).map(({ key, value }) => ({ key, name: key as string, value }));
   const hi = rows[0].value;
   const lo = rows[rows.length - 1].value;
   const span = hi - lo || 1;

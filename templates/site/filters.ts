@@ -9,6 +9,8 @@ import { datumLadder, ladderSpan, type DatumRow } from './datums.js';
 import { glanceMonth, yearMaxRange, type GlanceMonth } from './glance.js';
 import { moonLitPath } from './moon.js';
 import { sunTimes } from '../night.js';
+import { dayLanes } from '../day-lanes.js';
+import { latBelowChartDatum } from '../datum-order.js';
 import { relativeUrl } from './paths.js';
 import { streamCurve, streamScale, type StreamCurve } from './stream-curve.js';
 import type { StreamDayEntry, StreamYear } from '../../engine/index.js';
@@ -51,6 +53,7 @@ export function siteFilters(w: Words): Record<string, (...args: never[]) => unkn
     minutesSigned: (m: number): string => w.minutesSigned(m),
     phaseName: (p: MoonPhaseName): string => w.phaseName(p),
     eventName: (type: 'high' | 'low'): string => w.eventName(type),
+    dayLanes: (events: DayEntry['events']) => dayLanes(events),
     eventShort: (type: 'high' | 'low'): string => w.eventShort(type),
     tideType: (code: TideTypeCode): string => w.tideType(code),
     offsetChange: (c: OffsetChange): string => w.offsetChange(c),
@@ -60,6 +63,7 @@ export function siteFilters(w: Words): Record<string, (...args: never[]) => unkn
     fixed: (value: number, digits: number): string => w.number(value, digits),
     // numbers inside SVG attributes: always '.' and '-', whatever the language of the page
     svgNumber: (value: number, digits: number): string => value.toFixed(digits),
+    latBelowChartDatum: (datums: Datums): number | null => latBelowChartDatum(datums),
     bearing: (degrees: number | null): string => (degrees === null ? '' : `${String(Math.round(degrees) % 360).padStart(3, '0')}°`),
     moonLit: (phase: MoonPhaseName, latitude: number): string => moonLitPath(phase, latitude < 0),
     tideCurve: (day: DayEntry, model: StationYear): DayCurve => dayCurve(day, model.curveStepMinutes, scaleOf(model)),

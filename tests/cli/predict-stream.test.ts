@@ -23,20 +23,22 @@ describe('predict on a stream station', () => {
     const set = loadStationSet(DEMO);
     const station = set.streams!.find((s) => s.id === 'wrackrun-narrows')!;
     const expected = streamEventsFor(station, set, Date.parse('2027-01-01T00:00:00Z'), Date.parse('2027-01-03T00:00:00Z'));
-    const printed = JSON.parse(stdout) as { time: string; type: string; speed: number; direction: number | null }[];
+    const printed = JSON.parse(stdout) as { station_id: string; time: string; time_local: string; type: string; speed_kn: number; direction_deg_true: number | null }[];
     expect(printed.length).toBe(expected.length);
     expect(printed.length).toBeGreaterThan(12);
     printed.forEach((p, i) => {
       const e = expected[i]!;
-      expect(Object.keys(p)).toEqual(['time', 'type', 'speed', 'direction']);
+      expect(Object.keys(p)).toEqual(['station_id', 'time', 'time_local', 'type', 'speed_kn', 'direction_deg_true']);
+      expect(p.station_id).toBe('wrackrun-narrows');
       expect(p.time).toBe(isoSecond(e.time));
+      expect(Date.parse(p.time_local)).toBe(Date.parse(p.time));
       expect(p.type).toBe(e.type);
-      expect(p.speed).toBe(Math.round(e.speed * 100) / 100);
-      if (e.direction === null) expect(p.direction).toBeNull();
-      else expect(p.direction).toBeCloseTo(e.direction, 1);
+      expect(p.speed_kn).toBe(Math.round(e.speed * 100) / 100);
+      if (e.direction === null) expect(p.direction_deg_true).toBeNull();
+      else expect(p.direction_deg_true).toBeCloseTo(e.direction, 1);
     });
     expect(new Set(printed.map((p) => p.type))).toEqual(new Set(['slack', 'flood', 'ebb']));
-    for (const p of printed.filter((x) => x.type === 'flood')) expect(Math.abs(p.direction! - 70)).toBeLessThan(10);
+    for (const p of printed.filter((x) => x.type === 'flood')) expect(Math.abs(p.direction_deg_true! - 70)).toBeLessThan(10);
   });
 
   it('--every gives time, speed, direction, east and north', async () => {
@@ -47,21 +49,21 @@ describe('predict on a stream station', () => {
     const set = loadStationSet(DEMO);
     const { east, north } = streamVelocities(set.streams!.find((s) => s.id === 'wrackrun-narrows')!, set, Date.parse('2027-01-01T00:00:00Z'), 600_000, 12);
     rows.forEach((r, i) => {
-      expect(Object.keys(r)).toEqual(['time', 'speed', 'direction', 'east', 'north']);
-      expect(r.east).toBe(Math.round(east[i]! * 100) / 100 + 0);
-      expect(r.north).toBe(Math.round(north[i]! * 100) / 100 + 0);
-      expect(r.speed).toBe(Math.round(Math.hypot(east[i]!, north[i]!) * 100) / 100);
+      expect(Object.keys(r)).toEqual(['station_id', 'time', 'time_local', 'speed_kn', 'direction_deg_true', 'east_kn', 'north_kn']);
+      expect(r.east_kn).toBe(Math.round(east[i]! * 100) / 100 + 0);
+      expect(r.north_kn).toBe(Math.round(north[i]! * 100) / 100 + 0);
+      expect(r.speed_kn).toBe(Math.round(Math.hypot(east[i]!, north[i]!) * 100) / 100);
     });
   });
 
   it('a stream-secondary station finds its reference stream station in its own folder', async () => {
     const { code, stdout } = await runCli(['predict', GUT, '--from', '2027-01-01', '--to', '2027-01-02', '--format', 'csv']);
     expect(code).toBe(0);
-    const lines = stdout.trim().split('\n');
-    expect(lines[0]).toBe('time_utc,time_local,type,speed_kn,direction_deg_true');
+    const lines = stdout.trim().split('\r\n');
+    expect(lines[0]).toBe('station_id,time,time_local,type,speed_kn,direction_deg_true');
     expect(lines.length).toBeGreaterThan(6);
     for (const line of lines.slice(1)) {
-      const [, , type, , direction] = line.split(',');
+      const [, , , type, , direction] = line.split(',');
       if (type === 'flood') expect(direction).toBe('95.0');
       if (type === 'ebb') expect(direction).toBe('280.0');
       if (type === 'slack') expect(direction).toBe('');

@@ -23,9 +23,17 @@ afterEach(() => vi.restoreAllMocks());
 
 const ms = (iso: string): number => Date.parse(iso);
 const isoSecond = (t: number): string => new Date(Math.round(t / 1000) * 1000).toISOString().replace('.000Z', 'Z');
+const localSecond = (t: number, zone: string): string =>
+  DateTime.fromMillis(Math.round(t / 1000) * 1000, { zone }).toISO({ suppressMilliseconds: true })!;
+const mm = (h: number): number => Math.round(h * 1000) / 1000 + 0;
+/** An event as the exports' vocabulary spells it (README, "Fields of the exports"). */
+const eventRecord = (id: string, zone: string) => (e: { time: number; type: string; height: number }) => ({
+  station_id: id, time: isoSecond(e.time), time_local: localSecond(e.time, zone),
+  date_local: DateTime.fromMillis(Math.round(e.time / 60_000) * 60_000, { zone }).toISODate(), type: e.type, height_m: mm(e.height), below_chart_datum: mm(e.height) < 0,
+});
 
 describe('predict --format json', () => {
-  it('prints the high and low waters of findExtrema, UTC to the second, metres to the mm, keys in order', async () => {
+  it('prints the high and low waters of findExtrema in the exports\' vocabulary: station id, UTC and local to the second, metres to the mm, keys in order', async () => {
     const { code, stdout, stderr } = await runCli(['predict', BRINEWOLD, '--from', '2027-01-01', '--to', '2027-01-08', '--format', 'json']);
     expect(stderr).toBe('');
     expect(code).toBe(0);
@@ -33,22 +41,25 @@ describe('predict --format json', () => {
     // Lisbon is on +00:00 in January: the dates are UTC midnights.
     const expected = findExtrema(compilePredictor(station), ms('2027-01-01T00:00:00Z'), ms('2027-01-08T00:00:00Z'));
     expect(expected.length).toBeGreaterThan(20);
-    const printed = JSON.parse(stdout) as { time: string; type: string; height: number }[];
-    expect(printed).toEqual(expected.map((e) => ({ time: isoSecond(e.time), type: e.type, height: Math.round(e.height * 1000) / 1000 })));
-    // Exactly the promised shape, e.g. {"time":"2027-01-01T03:12:41Z","type":"high","height":4.213}.
+    const printed = JSON.parse(stdout) as unknown[];
+    expect(printed).toEqual(expected.map(eventRecord('brinewold-head', 'Europe/Lisbon')));
+    // Exactly the promised shape, e.g. {"station_id":"brinewold-head","time":"2027-01-01T03:12:41Z",
+    // "time_local":"2027-01-01T03:12:41+00:00","date_local":"2027-01-01","type":"high","height_m":4.213,"below_chart_datum":false}.
     for (const line of stdout.trim().split('\n').slice(1, -1)) {
-      expect(line).toMatch(/^\{"time":"\d{4}-\d\d-\d\dT\d\d:\d\d:\d\dZ","type":"(high|low)","height":-?\d+(\.\d{1,3})?\},?$/);
+      expect(line).toMatch(/^\{"station_id":"brinewold-head","time":"\d{4}-\d\d-\d\dT\d\d:\d\d:\d\dZ","time_local":"\d{4}-\d\d-\d\dT\d\d:\d\d:\d\d\+00:00","date_local":"\d{4}-\d\d-\d\d","type":"(high|low)","height_m":-?\d+(\.\d{1,3})?,"below_chart_datum":(true|false)\},?$/);
     }
   });
 
   it('reads a date in a +01:00 zone as 23:00Z the day before', async () => {
     const { stdout } = await runCli(['predict', RIMESKERRY, '--from', '2027-01-01', '--to', '2027-01-01T02:00Z', '--every', '60', '--format', 'json']);
-    const rows = JSON.parse(stdout) as { time: string; height: number }[];
+    const rows = JSON.parse(stdout) as { station_id: string; time: string; time_local: string; height_m: number }[];
     expect(rows.map((r) => r.time)).toEqual(['2026-12-31T23:00:00Z', '2027-01-01T00:00:00Z', '2027-01-01T01:00:00Z']);
+    expect(rows.map((r) => r.time_local)).toEqual(['2027-01-01T00:00:00+01:00', '2027-01-01T01:00:00+01:00', '2027-01-01T02:00:00+01:00']);
+    expect(rows.every((r) => r.station_id === 'rimeskerry-fjord')).toBe(true);
     const set = loadStationSet(DEMO);
     const rimeskerry = set.byId.get('rimeskerry-fjord')!;
     const heights = tideHeights(rimeskerry, set, ms('2026-12-31T23:00:00Z'), 3_600_000, 3);
-    expect(rows.map((r) => r.height)).toEqual([...heights].map((h) => Math.round(h * 1000) / 1000));
+    expect(rows.map((r) => r.height_m)).toEqual([...heights].map(mm));
   });
 
   it('accepts ISO instants with an offset, and a local time without one', async () => {
@@ -70,7 +81,7 @@ describe('predict --format json', () => {
     const set = loadStationSet(GOOD);
     const events = tideEvents(set.byId.get('saltgrist-cove')!, set, ms('2027-01-01T00:00Z'), ms('2027-01-04T00:00Z'));
     expect(events.length).toBeGreaterThan(8);
-    expect(JSON.parse(stdout)).toEqual(events.map((e) => ({ time: isoSecond(e.time), type: e.type, height: Math.round(e.height * 1000) / 1000 })));
+    expect(JSON.parse(stdout)).toEqual(events.map(eventRecord('saltgrist-cove', 'Europe/Lisbon')));
   });
 
   it('finds a secondary port\'s reference port in --stations DIR', async () => {
@@ -107,25 +118,27 @@ describe('predict --format table and csv', () => {
     expect(rows.filter((r) => r.startsWith('2027-03-28  Sun'))).toHaveLength(1);
   });
 
-  it('csv: a header line, then UTC, local time with offset, type and height per event', async () => {
+  it('csv: the exports\' header line (CRLF), then station id, UTC, local time with offset, type, height and below-datum per event', async () => {
     const { stdout } = await runCli(['predict', BRINEWOLD, '--from', '2027-07-01', '--to', '2027-07-02', '--format', 'csv']);
-    const [header, ...rows] = stdout.trimEnd().split('\n');
-    expect(header).toBe('time_utc,time_local,type,height_m');
+    expect(stdout.replace(/\r\n/g, '')).not.toMatch(/[\r\n]/);
+    const [header, ...rows] = stdout.trimEnd().split('\r\n');
+    expect(header).toBe('station_id,time,time_local,date_local,type,height_m,below_chart_datum');
     const station = loadStationFile(BRINEWOLD) as ReferenceStation;
     // Lisbon is on +01:00 in July: the day starts at 23:00Z.
     const events = findExtrema(compilePredictor(station), ms('2027-06-30T23:00Z'), ms('2027-07-01T23:00Z'));
     expect(rows).toEqual(
       events.map((e) => {
         const local = DateTime.fromMillis(Math.round(e.time / 1000) * 1000, { zone: 'Europe/Lisbon' }).toISO({ suppressMilliseconds: true });
-        return `${isoSecond(e.time)},${local},${e.type},${(Math.round(e.height * 1000) / 1000).toFixed(3)}`;
+        const date = DateTime.fromMillis(Math.round(e.time / 60_000) * 60_000, { zone: 'Europe/Lisbon' }).toISODate();
+        return `brinewold-head,${isoSecond(e.time)},${local},${date},${e.type},${mm(e.height).toFixed(3)},${mm(e.height) < 0}`;
       }),
     );
   });
 
   it('csv and table of heights', async () => {
     const csv = await runCli(['predict', BRINEWOLD, '--from', '2027-01-01', '--to', '2027-01-01T01:00Z', '--every', '30', '--format', 'csv']);
-    expect(csv.stdout.split('\n')[0]).toBe('time_utc,time_local,height_m');
-    expect(csv.stdout.split('\n')[1]).toMatch(/^2027-01-01T00:00:00Z,2027-01-01T00:00:00\+00:00,\d+\.\d{3}$/);
+    expect(csv.stdout.split('\r\n')[0]).toBe('station_id,time,time_local,height_m');
+    expect(csv.stdout.split('\r\n')[1]).toMatch(/^brinewold-head,2027-01-01T00:00:00Z,2027-01-01T00:00:00\+00:00,\d+\.\d{3}$/);
     const table = await runCli(['predict', BRINEWOLD, '--from', '2027-01-01', '--to', '2027-01-01T01:00Z', '--every', '30']);
     expect(table.stdout).toContain('Heights every 30 minutes');
     expect(table.stdout).toMatch(/2027-01-01 {2}Fri {2}00:00 {2}\+00:00 +\d+\.\d\d m\n {17}00:30/);

@@ -61,7 +61,7 @@ for (const [name, text] of [['solar.yaml', SOLAR], ['harbour.yaml', HARBOUR], ['
   writeFileSync(join(DIR, name!), text!);
 }
 
-interface Interval { start: string; end: string; startLocal: string; endLocal: string }
+interface Interval { station_id: string; start: string; start_local: string; end: string; end_local: string; duration_min: number }
 
 describe('tidewright windows', () => {
   it('JSON: the closed-form crossings, clipped to the span, with local times', async () => {
@@ -71,12 +71,12 @@ describe('tidewright windows', () => {
     expect(code).toBe(0);
     const rows = JSON.parse(stdout) as Interval[];
     expect(rows).toEqual([
-      { start: '2027-01-01T00:00:00Z', end: '2027-01-01T03:20:00Z', startLocal: '2027-01-01T00:00:00+00:00', endLocal: '2027-01-01T03:20:00+00:00' },
-      { start: '2027-01-01T11:20:00Z', end: '2027-01-01T15:20:00Z', startLocal: '2027-01-01T11:20:00+00:00', endLocal: '2027-01-01T15:20:00+00:00' },
-      { start: '2027-01-01T23:20:00Z', end: '2027-01-02T00:00:00Z', startLocal: '2027-01-01T23:20:00+00:00', endLocal: '2027-01-02T00:00:00+00:00' },
+      { station_id: 'solar-invented', start: '2027-01-01T00:00:00Z', start_local: '2027-01-01T00:00:00+00:00', end: '2027-01-01T03:20:00Z', end_local: '2027-01-01T03:20:00+00:00', duration_min: 200 },
+      { station_id: 'solar-invented', start: '2027-01-01T11:20:00Z', start_local: '2027-01-01T11:20:00+00:00', end: '2027-01-01T15:20:00Z', end_local: '2027-01-01T15:20:00+00:00', duration_min: 240 },
+      { station_id: 'solar-invented', start: '2027-01-01T23:20:00Z', start_local: '2027-01-01T23:20:00+00:00', end: '2027-01-02T00:00:00Z', end_local: '2027-01-02T00:00:00+00:00', duration_min: 40 },
     ]);
     // exactly the promised keys, one interval per line
-    expect(stdout.split('\n')[1]).toMatch(/^\{"start":"[^"]+Z","end":"[^"]+Z","startLocal":"[^"]+","endLocal":"[^"]+"\},$/);
+    expect(stdout.split('\n')[1]).toMatch(/^\{"station_id":"[^"]+","start":"[^"]+Z","start_local":"[^"]+","end":"[^"]+Z","end_local":"[^"]+","duration_min":\d+\},$/);
   });
 
   it('--below is the complement of --above within the span; summer dates carry +01:00', async () => {
@@ -87,14 +87,14 @@ describe('tidewright windows', () => {
     // each crossing is the end of one interval and the start of the other
     const inner = edges.slice(1, -1);
     for (let i = 0; i < inner.length; i += 2) expect(inner[i]).toBe(inner[i + 1]);
-    expect(above[0]!.startLocal.endsWith('+01:00')).toBe(true);
+    expect(above[0]!.start_local.endsWith('+01:00')).toBe(true);
   });
 
   it('CSV and table', async () => {
     const csv = await runCli(['windows', join(DIR, 'cove.yaml'), '--below', '2.0', '--from', '2027-03-27', '--to', '2027-03-30', '--format', 'csv']);
     expect(csv.code).toBe(0);
-    const lines = csv.stdout.trim().split('\n');
-    expect(lines[0]).toBe('station_id,start_utc,start_local,end_utc,end_local,minutes');
+    const lines = csv.stdout.trim().split('\r\n');
+    expect(lines[0]).toBe('station_id,start,start_local,end,end_local,duration_min');
     expect(lines.length).toBeGreaterThan(3);
     expect(lines[1]).toMatch(/^cove-invented,\d{4}-\d\d-\d\dT\d\d:\d\d:\d\dZ,[^,]+,[^,]+Z,[^,]+,\d+$/);
     const table = await runCli(['windows', join(DIR, 'cove.yaml'), '--below', '2.0', '--from', '2027-03-27', '--to', '2027-03-30']);
@@ -126,10 +126,10 @@ describe('tidewright height', () => {
     // 2.6 m there (worked example), so it reads 2.6 m and rising; at 03:20 UTC it falls through 2.6 m.
     const local = await runCli(['height', join(DIR, 'solar.yaml'), '--at', '2027-07-01T00:20', '--format', 'json']);
     expect(local.stderr).toBe('');
-    expect(JSON.parse(local.stdout)).toEqual({ time: '2027-06-30T23:20:00Z', local: '2027-07-01T00:20:00+01:00', height: 2.6, trend: 'rising' });
+    expect(JSON.parse(local.stdout)).toEqual({ station_id: 'solar-invented', time: '2027-06-30T23:20:00Z', time_local: '2027-07-01T00:20:00+01:00', height_m: 2.6, trend: 'rising' });
     const utc = await runCli(['height', join(DIR, 'solar.yaml'), '--at', '2027-07-01T03:20Z', '--format', 'json']);
-    expect(JSON.parse(utc.stdout)).toEqual({ time: '2027-07-01T03:20:00Z', local: '2027-07-01T04:20:00+01:00', height: 2.6, trend: 'falling' });
-    expect(utc.stdout).toMatch(/^\{"time":"[^"]+Z","local":"[^"]+","height":[\d.]+,"trend":"(rising|falling)"\}\n$/);
+    expect(JSON.parse(utc.stdout)).toEqual({ station_id: 'solar-invented', time: '2027-07-01T03:20:00Z', time_local: '2027-07-01T04:20:00+01:00', height_m: 2.6, trend: 'falling' });
+    expect(utc.stdout).toMatch(/^\{"station_id":"[^"]+","time":"[^"]+Z","time_local":"[^"]+","height_m":[\d.]+,"trend":"(rising|falling)"\}\n$/);
   });
 
   it('table, and a secondary port from its curve', async () => {

@@ -27,7 +27,7 @@ describe('window downloads', () => {
     expect(csv).toContain(`# Caution: ${wordsFor().caution}`);
     expect(csv).toContain('# sill: Marina sill, east gate, open while the tide is at or above 2.00 m.');
     const [header, ...body] = rows(csv);
-    expect(header).toEqual(['station_id', 'window_id', 'side', 'level_m', 'start_utc', 'start_local', 'end_utc', 'end_local', 'minutes']);
+    expect(header).toEqual(['station_id', 'window_id', 'side', 'level_m', 'start', 'start_local', 'end', 'end_local', 'duration_min']);
     const expected = model.windows.flatMap((w) => w.intervals.map((i) => [station.id, w.id, w.side, w.level.toFixed(3), i.start, i.startLocal, i.end, i.endLocal,
       String(Math.round((Date.parse(i.end) - Date.parse(i.start)) / 60_000))]));
     expect(body).toEqual(expected);
@@ -35,10 +35,12 @@ describe('window downloads', () => {
   });
 
   it('JSON: the intervals of the model', () => {
-    const doc = JSON.parse(windowsJson(model)) as { windows: { id: string; intervals: unknown[] }[]; caution: string; secondaryNote: string | null };
+    const doc = JSON.parse(windowsJson(model)) as { windows: { window_id: string; level_m: number; intervals: unknown[] }[]; caution: string; secondary_note: string | null };
     expect(doc.caution).toBe(wordsFor().caution);
-    expect(doc.secondaryNote).toBeNull();
-    expect(doc.windows.map((w) => [w.id, w.intervals])).toEqual(model.windows.map((w) => [w.id, w.intervals]));
+    expect(doc.secondary_note).toBeNull();
+    expect(doc.windows.map((w) => [w.window_id, w.level_m, w.intervals])).toEqual(model.windows.map((w) => [w.id, w.level, w.intervals.map((i) => ({
+      station_id: station.id, window_id: w.id, start: i.start, start_local: i.startLocal, end: i.end, end_local: i.endLocal,
+      duration_min: Math.round((Date.parse(i.end) - Date.parse(i.start)) / 60_000) }))]));
   });
 
   it('iCalendar: a "… open" event from start to end for every interval, after the high and low waters', () => {
@@ -52,19 +54,22 @@ describe('window downloads', () => {
     expect(first.summary).toBe('Marina sill, east gate open');
     expect(first.startDate.toJSDate().toISOString().replace('.000', '')).toBe(interval.start);
     expect(first.endDate.toJSDate().toISOString().replace('.000', '')).toBe(interval.end);
-    expect(first.description).toContain(wordsFor().caution);
-    expect(first.uid).toBe(`${station.id}-2027-sill-1@tidewright`);
+    expect(first.description).not.toContain(wordsFor().caution); // said once, for the whole calendar
+    expect(first.uid).toBe(`${station.id}-sill-${interval.start.replace(/[-:]/g, '')}@tidewright`);
   });
 });
 
 describe('hourly heights CSV', () => {
   it('every local hour of the year, the repeated hour twice with its offsets', () => {
     const [header, ...body] = rows(hourlyCsv(model));
-    expect(header).toEqual(['station_id', 'date', 'local_time', 'utc_offset', 'height_m']);
+    expect(header).toEqual(['station_id', 'time', 'time_local', 'height_m']);
     expect(body).toHaveLength(8760);
-    expect(body.filter((r) => r[1] === '2027-03-28')).toHaveLength(23);
-    expect(body.filter((r) => r[1] === '2027-10-31' && r[2] === '01:00').map((r) => r[3])).toEqual(['+01:00', '+00:00']);
-    expect(body[0]).toEqual([station.id, '2027-01-01', '00:00', '+00:00', model.hourly.days[0]!.heights[0]!.toFixed(3)]);
+    expect(body.filter((r) => r[2]!.startsWith('2027-03-28'))).toHaveLength(23);
+    // the repeated hour of 31 October: two local 01:00s, an hour apart in UTC
+    expect(body.filter((r) => r[2]!.startsWith('2027-10-31T01:00')).map((r) => [r[1], r[2]]))
+      .toEqual([['2027-10-31T00:00:00Z', '2027-10-31T01:00:00+01:00'], ['2027-10-31T01:00:00Z', '2027-10-31T01:00:00+00:00']]);
+    expect(body[0]).toEqual([station.id, '2027-01-01T00:00:00Z', '2027-01-01T00:00:00+00:00', model.hourly.days[0]!.heights[0]!.toFixed(3)]);
+    for (let i = 1; i < body.length; i++) expect(Date.parse(body[i]![1]!) - Date.parse(body[i - 1]![1]!)).toBe(3_600_000);
   });
 
   it('a secondary port says its heights come from its curve; writeExports writes all five files', async () => {

@@ -36,12 +36,14 @@ describe('CSV', () => {
     const text = eventsCsv(model, wordsFor({ units: 'm' }));
     expect(text.replace(/\r\n/g, '')).not.toMatch(/[\r\n]/); // RFC 4180: every line ends in CRLF
     const { header, rows, notes } = csvRows(text);
-    expect(header).toEqual(['station_id', 'date', 'local_time', 'utc_offset', 'time_utc', 'type', 'height_m', 'below_chart_datum']);
+    expect(header).toEqual(['station_id', 'time', 'time_local', 'date_local', 'type', 'height_m', 'below_chart_datum']);
     expect(rows).toHaveLength(model.events.length);
     rows.forEach((row, i) => {
       const e = model.events[i];
-      expect(row).toEqual(['brinewold-head', e.date, e.clock, e.offset, e.time, e.type, e.height.toFixed(3), e.belowDatum ? 'yes' : 'no']);
+      expect(row).toEqual(['brinewold-head', e.time, e.local, e.date, e.type, e.height.toFixed(3), String(e.belowDatum)]);
     });
+    const below = { ...model, events: [{ ...model.events[1]!, height: -0.12, belowDatum: true }] };
+    expect(csvRows(eventsCsv(below, wordsFor({ units: 'm' }))).rows[0]!.slice(5)).toEqual(['-0.120', 'true']);
     expect(notes.join(' ')).toContain(wordsFor().caution);
     expect(notes.join(' ')).toContain('INVENTED');
     expect(notes.join(' ')).toContain(model.station.provenance);
@@ -49,8 +51,8 @@ describe('CSV', () => {
 
   it('in feet converts with the international foot and names the column so', () => {
     const { header, rows } = csvRows(eventsCsv(model, wordsFor({ units: 'ft' })));
-    expect(header[6]).toBe('height_ft');
-    expect(Number(rows[0][6])).toBeCloseTo(model.events[0].height / 0.3048, 2); // 1 ft = 0.3048 m exactly
+    expect(header[5]).toBe('height_ft');
+    expect(Number(rows[0][5])).toBeCloseTo(model.events[0].height / 0.3048, 2); // 1 ft = 0.3048 m exactly
   });
 
   it('quotes fields holding commas, quotes or line breaks (RFC 4180 §2.6–2.7)', () => {
@@ -65,14 +67,15 @@ describe('JSON', () => {
   it('carries every event as in the model, the station, the datum and the caution', () => {
     const doc = JSON.parse(eventsJson(model)) as {
       station: { id: string; name: string; datum: string; timezone: string }; year: number; units: string;
-      invented: boolean; caution: string; events: { time: string; local: string; type: string; height: number; belowDatum: boolean }[];
+      invented: boolean; caution: string; events: Record<string, unknown>[];
     };
     expect(doc.station).toMatchObject({ id: 'brinewold-head', name: model.station.name, datum: model.station.datum, timezone: 'Europe/Lisbon' });
     expect(doc.year).toBe(2027);
     expect(doc.units).toBe('m');
     expect(doc.invented).toBe(true);
     expect(doc.caution).toBe(wordsFor().caution);
-    expect(doc.events).toEqual(model.events.map(({ time, local, date, type, height, belowDatum }) => ({ time, local, date, type, height, belowDatum })));
+    expect(doc.events).toEqual(model.events.map((e) => ({
+      station_id: 'brinewold-head', time: e.time, time_local: e.local, date_local: e.date, type: e.type, height_m: e.height, below_chart_datum: e.belowDatum })));
   });
 });
 
@@ -91,11 +94,36 @@ describe('iCalendar', () => {
     expect(first.startDate.toJSDate().toISOString().replace('.000', '')).toBe(e.time);
     expect(first.startDate.zone?.tzid).toBe('UTC');
     expect(first.summary).toBe(`${e.type === 'high' ? 'High' : 'Low'} water ${fixed(e.height, 2)} m`);
-    expect(first.uid).toBe('brinewold-head-2027-1@tidewright');
-    expect(first.description).toContain(wordsFor().caution);
-    expect(first.description).toContain(`${e.clock} local time (UTC${e.offset})`);
-    const last = new ICAL.Event(events[events.length - 1]);
-    expect(last.uid).toBe(`brinewold-head-2027-${model.events.length}@tidewright`);
+    expect(first.uid).toBe(`brinewold-head-${e.type}-${e.time.replace(/[-:]/g, '')}@tidewright`);
+    expect(first.description).toBe(`${e.type === 'high' ? 'High' : 'Low'} water: ${e.clock} local time (UTC${e.offset}), ${fixed(e.height, 2)} m above Chart Datum.`);
+  });
+
+  it('says the caution, the invented note and the provenance once, for the whole calendar; each event is one short line', () => {
+    const text = eventsICalendar(model);
+    const unfolded = text.replace(/\r\n /g, '');
+    const count = (needle: string) => unfolded.split(escapeText(needle)).length - 1;
+    expect(count(wordsFor().caution)).toBe(1);
+    expect(count('INVENTED')).toBe(1);
+    expect(count(model.station.provenance)).toBe(1);
+    const calendar = new ICAL.Component(ICAL.parse(text));
+    expect(String(calendar.getFirstPropertyValue('x-wr-caldesc'))).toContain(escapeText(wordsFor().caution));
+    for (const v of calendar.getAllSubcomponents('vevent')) {
+      const event = new ICAL.Event(v);
+      expect(event.description).not.toMatch(/\n/);
+      expect(event.description.length).toBeLessThanOrEqual(80);
+      expect(event.summary.length).toBeLessThanOrEqual(40);
+    }
+  });
+
+  it('gives each event a UID of its own that survives a rebuild and events coming or going around it', () => {
+    const uids = (m: StationYear) => new ICAL.Component(ICAL.parse(eventsICalendar(m))).getAllSubcomponents('vevent')
+      .map((v) => String(v.getFirstPropertyValue('uid')));
+    const all = uids(model);
+    expect(new Set(all).size).toBe(all.length);
+    expect(uids(demoModels(['brinewold-head'])[0]!)).toEqual(all); // built again from the station file
+    // Without the first fortnight's events (a shorter edition), every remaining event keeps its UID.
+    const later = { ...model, events: model.events.slice(56) };
+    expect(uids(later)).toEqual(all.slice(56));
   });
 
   it('uses CRLF only, folds at 75 octets, and is the same on every build (fixed DTSTAMP, stable UIDs)', () => {
@@ -104,7 +132,7 @@ describe('iCalendar', () => {
     expect(text.replace(/\r\n/g, '')).not.toMatch(/[\r\n]/);
     const lines = text.split('\r\n').slice(0, -1);
     for (const line of lines) expect(Buffer.byteLength(line, 'utf8')).toBeLessThanOrEqual(75);
-    expect(lines.filter((l) => l.startsWith(' ')).length).toBeGreaterThan(model.events.length); // descriptions fold
+    expect(lines.filter((l) => l.startsWith(' ')).length).toBeGreaterThan(2); // the calendar's description folds
     expect(new Set(lines.filter((l) => l.startsWith('DTSTAMP:')))).toEqual(new Set(['DTSTAMP:20270101T000000Z']));
     expect(eventsICalendar(model)).toBe(text);
   });

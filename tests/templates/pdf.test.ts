@@ -15,6 +15,7 @@ const fixed = (v: number, digits: number): string =>
   new Intl.NumberFormat('en-GB', { minimumFractionDigits: digits, maximumFractionDigits: digits, useGrouping: false }).format(v);
 
 const en = wordsFor();
+import { datumLadder } from '../../templates/site/datums.js';
 
 const POPPLER = ['pdftotext', 'pdffonts', 'pdfinfo'].every((t) => existsSync(`/usr/bin/${t}`));
 if (!POPPLER) console.warn('poppler-utils (pdftotext, pdffonts, pdfinfo) not found in /usr/bin: PDF text and font checks are SKIPPED');
@@ -122,6 +123,23 @@ describe('station book (A5, metres)', () => {
     }
   });
 
+  it.skipIf(!POPPLER)('puts a day\u2019s high waters on its upper line and low waters on the lower, each in time order, as the site does', () => {
+    const lines = pagesText(bookFile)[3 + 2 * 2]!.split('\n'); // March, days 1 to 16
+    const inLine = (line: string) => [...line.matchAll(/(\d\d:\d\d)\s+(\u2212?\d+\.\d\d)(?!\d)/g)].map((m) => `${m[1]} ${m[2]}`);
+    let lowFirst = 0;
+    for (const day of model.days.filter((d) => d.month === 3 && d.dayOfMonth <= 16 && !d.offsetChange)) {
+      const lane = (type: string) => day.events.filter((e) => e.type === type).map((e) => `${e.clock} ${printed(e, 'm')}`);
+      const at = (want: string[]) => lines.findIndex((l) => inLine(l).join('|') === want.join('|'));
+      const high = at(lane('high'));
+      const low = at(lane('low'));
+      expect(high, `${day.date} high waters on one line`).toBeGreaterThanOrEqual(0);
+      expect(low - high, `${day.date} low waters on the line below`).toBeGreaterThan(0);
+      expect(low - high).toBeLessThanOrEqual(3);
+      if (day.events[0]!.type === 'low') lowFirst++;
+    }
+    expect(lowFirst).toBeGreaterThan(3);
+  });
+
   it.skipIf(!POPPLER)('marks each clock change on its day and states the month\u2019s UTC offsets', () => {
     const pages = pagesText(bookFile);
     expect(model.offsetChanges.length).toBe(2);
@@ -170,6 +188,29 @@ describe('station book in feet, with a hostile name and water below chart datum'
   });
 });
 
+describe('datums table of the facts page', () => {
+  /** The level keys in the order the facts page prints them. */
+  const printedOrder = (page: string) => page.split("\n").map((l) => /^\s*(HAT|MHWS|MHWN|MSL|MLWN|MLWS|LAT|CD)\s+(?:Highest|Mean|Lowest|Chart)/.exec(l)?.[1]).filter((k) => k !== undefined);
+
+  it.skipIf(!POPPLER)('lists the levels in height order, chart datum at the bottom when LAT lies above it', () => {
+    const facts = pagesText(bookFile)[1]!;
+    expect(model.datums.LAT).toBeGreaterThan(0);
+    expect(printedOrder(facts)).toEqual(['HAT', 'MHWS', 'MHWN', 'MSL', 'MLWN', 'MLWS', 'LAT', 'CD']);
+    expect(facts).not.toContain('below Chart Datum: at the lowest tides');
+  });
+
+  it.skipIf(!POPPLER)('puts chart datum above LAT, as the site does, and says in words how far LAT lies below it', async () => {
+    const sunk = { ...model, datums: { ...model.datums, LAT: -0.12 } };
+    const file = write('lat-below.pdf', await renderStationBook(sunk, { units: 'm', page: 'a5' }));
+    const facts = pagesText(file)[1]!;
+    expect(printedOrder(facts)).toEqual(['HAT', 'MHWS', 'MHWN', 'MSL', 'MLWN', 'MLWS', 'CD', 'LAT']);
+    // in reading order (the layout view interleaves the sentence with the tide staff beside it)
+    expect(run('pdftotext', ['-f', '2', '-l', '2', file, '-']).replace(/\s+/g, ' ')).toContain('LAT lies 0.12 m below Chart Datum: at the lowest tides the sea falls below the charted depths.');
+    // the site's table and ladder use the same order
+    expect(datumLadder(sunk.datums).map((r) => r.key)).toEqual(printedOrder(facts));
+  });
+});
+
 describe('saddle-stitched book', () => {
   it.skipIf(!POPPLER)('prints two pages per A4 side, sheets × 2 sides, outer sheet first', async () => {
     const imposed = await renderStationBook(model, { units: 'm', page: 'a5', imposition: 'saddle-stitch' });
@@ -190,6 +231,19 @@ describe('saddle-stitched book', () => {
 });
 
 describe('combined book', () => {
+  it.skipIf(!POPPLER)('shows the moon glyphs of both hemispheres in its key when its stations lie on both sides of the equator', async () => {
+    const south = demo('galewrack-point');
+    expect(south.station.position.latitude).toBeLessThan(0);
+    const mixed = pagesText(write('combined-mixed.pdf', await renderCombinedBook([model, south], { units: 'm', page: 'a5' })));
+    const key = mixed.find((p) => p.includes('Caution') && p.includes('New moon'))!.replace(/\s+/g, ' ');
+    expect(key).toContain('as seen from the northern hemisphere.');
+    expect(key).toContain('as seen from the southern hemisphere.');
+    const north = pagesText(write('combined-north.pdf', await renderCombinedBook([model, demo('saltgrist-cove')], { units: 'm', page: 'a5' })));
+    const northKey = north.find((p) => p.includes('Caution') && p.includes('New moon'))!.replace(/\s+/g, ' ');
+    expect(northKey).toContain('as seen from the northern hemisphere.');
+    expect(northKey).not.toContain('southern hemisphere');
+  });
+
   it.skipIf(!POPPLER)('lists every station on the contents page with the page its section starts on', async () => {
     const second = demo('saltgrist-cove'); // a secondary port of Brinewold Head
     const buf = await renderCombinedBook([second, model], { units: 'm', page: 'a5', title: 'Club tide book' });

@@ -106,14 +106,27 @@ describe('index', () => {
 });
 
 describe('month pages against the model', () => {
-  it('prints a day’s high and low waters with local clock and height, in order', () => {
+  it('prints a day’s high waters on its first line and low waters on its second, each in time order, as the book does', () => {
     const html = read(site, 'rimeskerry-fjord/2027/03/index.html');
     const day = reference.days.find((d) => d.date === '2027-03-10')!;
     const text = textOf(rowById(html, 'day-10'));
-    const printed = day.events.map((e) => `${e.type === 'high' ? 'HW' : 'LW'} ${e.clock} ${cm(e.height)}`);
-    expect(printed.length).toBeGreaterThanOrEqual(3);
-    expect(text).toContain(printed.join(' '));
+    const printed = (type: string) => day.events.filter((e) => e.type === type).map((e) => `${type === 'high' ? 'HW' : 'LW'} ${e.clock} ${cm(e.height)}`);
+    expect(day.events.length).toBeGreaterThanOrEqual(3);
+    expect(text).toContain([...printed('high'), ...printed('low')].join(' '));
     expect(text).toMatch(/^Wed 10/); // 10 March 2027 is a Wednesday
+    // Every day of the year: the first list holds only high waters, the second only low waters, in time order.
+    let lowFirst = 0;
+    for (const month of ['01', '03', '06', '09', '12']) {
+      const page = read(site, `rimeskerry-fjord/2027/${month}/index.html`);
+      for (const d of reference.days.filter((x) => x.date.slice(5, 7) === month)) {
+        const lists = [...rowById(page, `day-${d.dayOfMonth}`).matchAll(/<ul class="events lane lane-(high|low)">([\s\S]*?)<\/ul>/g)];
+        const times = (type: string) => d.events.filter((e) => e.type === type).map((e) => e.time);
+        expect(lists.map((l) => l[1])).toEqual(['high', 'low'].filter((t) => times(t).length > 0));
+        for (const l of lists) expect([...l[2]!.matchAll(/datetime="([^"]+)"/g)].map((m) => m[1])).toEqual(times(l[1]!));
+        if (d.events[0]?.type === 'low') lowFirst++;
+      }
+    }
+    expect(lowFirst).toBeGreaterThan(50); // the days whose first column used to be a low water
   });
 
   it('states the UTC offset and the clock change on the day it happens, with offsets on that day’s times', () => {
@@ -206,6 +219,31 @@ describe('footer, escaping and units', () => {
     }
     const whitespume = textOf(read(site, 'whitespume-sound/2027/05/index.html').split('<footer')[1]);
     expect(whitespume).toContain(secondary.station.provenance);
+  });
+
+  it('the index and datums pages carry one provenance sentence, not one per near-identical station text', async () => {
+    // This site mixes three provenances: the footer points to the station pages, once.
+    for (const path of ['index.html', 'datums/index.html']) {
+      const text = textOf(read(site, path).split('<footer class="colophon">')[1]!);
+      expect(text.split('Provenance of the data:').length - 1, path).toBe(1);
+      expect(text).toContain('Provenance of the data: each station’s page names where its data come from.');
+      expect(text).not.toContain(secondary.station.provenance);
+    }
+    // The demo's reference and secondary ports say "not real constants" and "not real differences":
+    // two provenances, one sentence.
+    const demo = demoModels(['brinewold-head', 'saltgrist-cove']);
+    expect(new Set(demo.map((m) => m.station.provenance)).size).toBe(2);
+    const out = join(tmp, 'site-demo-pair');
+    await renderSite(demo, out, { units: 'm', quiet: true });
+    for (const path of ['index.html', 'datums/index.html']) {
+      const text = textOf(read(out, path).split('<footer class="colophon">')[1]!);
+      expect(text.split('Provenance of the data:').length - 1).toBe(1);
+      expect(text.split('Invented for the tidewright demo').length - 1, path).toBe(0);
+    }
+    // One provenance shared by every station is printed as it is.
+    const one = join(tmp, 'site-one');
+    await renderSite([reference], one, { units: 'm', quiet: true });
+    expect(textOf(read(one, 'index.html').split('<footer class="colophon">')[1]!)).toContain(`Provenance of the data: ${reference.station.provenance}.`);
   });
 
   it('shows station text with markup as text, never as markup', () => {

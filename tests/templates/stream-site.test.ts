@@ -73,14 +73,14 @@ describe('stream pages', () => {
     expect(csv).toContain('# Streams vary. Tidal streams vary across a channel');
     expect(csv).toContain('# These data are INVENTED');
     const rows = csv.trim().split('\r\n').filter((l) => !l.startsWith('#'));
-    expect(rows[0]).toBe('station_id,date,local_time,utc_offset,time_utc,type,speed_kn,direction_deg_true');
+    expect(rows[0]).toBe('station_id,time,time_local,type,speed_kn,direction_deg_true');
     expect(rows).toHaveLength(gut.events.length + 1);
     const json = JSON.parse(readFileSync(join(site, 'data', 'spindrift-gut-2027-streams.json'), 'utf8')) as { events: unknown[]; streamCaution: string };
     const ics = readFileSync(join(dataDir, 'spindrift-gut-2027-streams.ics'), 'utf8');
     expect(ics.match(/BEGIN:VEVENT/g)).toHaveLength(gut.events.length);
     expect(ics.replace(/\r\n /g, '')).toContain('Tidal streams vary across a channel');
     expect(ics.split('\r\n').every((l) => Buffer.byteLength(l) <= 75)).toBe(true);
-    expect(json.events).toEqual(gut.events.map((e) => ({ time: e.time, local: e.local, type: e.type, speed: e.speed, direction: e.direction })));
+    expect(json.events).toEqual(gut.events.map((e) => ({ station_id: gut.station.id, time: e.time, time_local: e.local, type: e.type, speed_kn: e.speed, direction_deg_true: e.direction })));
   });
 
   it('every stream page passes html-validate', async () => {
