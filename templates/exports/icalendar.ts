@@ -50,9 +50,10 @@ export function icalUtc(iso: string): string {
   return iso.replace(/[-:]/g, '').replace(/\.\d+/, '');
 }
 
-export function eventsICalendar(model: StationYear, words: Words = wordsFor()): string {
+export function eventsICalendar(model: StationYear, words: Words = wordsFor(), stampMs?: number): string {
   const st = model.station;
-  const stamp = `${model.year}0101T000000Z`; // fixed by the edition's year: reproducible builds
+  // the build's stamp (edition date), never the clock: reproducible builds; by default 1 January of the year
+  const stamp = stampMs === undefined ? `${model.year}0101T000000Z` : icalUtc(new Date(stampMs).toISOString());
   const w = words;
   const invented = model.invented ? ` ${w.t('export.invented')}` : '';
   const lines: string[] = [

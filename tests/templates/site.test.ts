@@ -51,16 +51,17 @@ afterAll(() => {
 });
 
 describe('pages and URLs', () => {
-  it('writes the index, the datums page, and a year page and twelve month pages per station-year', () => {
+  it('writes the index, the datums page, the imprint, and a year page and twelve month pages per station-year', () => {
     expect(existsSync(join(site, 'index.html'))).toBe(true);
     expect(existsSync(join(site, 'datums/index.html'))).toBe(true);
+    expect(existsSync(join(site, 'imprint/index.html'))).toBe(true);
     for (const id of ids) {
       expect(existsSync(join(site, id, '2027/index.html'))).toBe(true);
       for (let m = 1; m <= 12; m++) {
         expect(existsSync(join(site, id, '2027', String(m).padStart(2, '0'), 'index.html'))).toBe(true);
       }
     }
-    expect(htmlFiles(site)).toHaveLength(2 + 3 * 13);
+    expect(htmlFiles(site)).toHaveLength(3 + 3 * 13);
   });
 
   it('every relative link and stylesheet on every page points at a file that exists', () => {
