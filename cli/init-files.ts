@@ -27,6 +27,10 @@ locale: en-GB
 # none, or saddle-stitch to print the books as fold-and-staple booklets (default none).
 imposition: none
 
+# Your own safety caution in plain text, replacing the built-in one (translated for each language).
+# Every output carries it, so it cannot be empty.
+# caution: "Predictions only. Check the official tide tables and local notices; ask the harbour office."
+
 # Date of this edition, YYYY-MM-DD: every output is stamped with it (the PDF books' date, the calendar
 # files, the website's edition line). Left out: 1 January of the year. SOURCE_DATE_EPOCH, when set,
 # is used instead, but never a date after the edition.

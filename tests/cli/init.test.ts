@@ -24,7 +24,7 @@ describe('tidewright init', () => {
     expect(checked.code, checked.stdout + checked.stderr).toBe(0);
     // every setting present (year commented: next year by default) and each explained by a comment above it
     const settings = readFileSync(join(target, 'tidewright.yaml'), 'utf8');
-    for (const key of ['title', 'publisher', 'year', 'page', 'units', 'locale', 'imposition', 'edition', 'contact', 'accent', 'logo']) {
+    for (const key of ['title', 'publisher', 'year', 'page', 'units', 'locale', 'imposition', 'caution', 'edition', 'contact', 'accent', 'logo']) {
       expect(settings, key).toMatch(new RegExp(`# [^\\n]+\\n(# )?${key}: `));
     }
     expect(loadProjectFile(target).settings).toMatchObject({ page: 'a5', units: 'm', imposition: 'none' });

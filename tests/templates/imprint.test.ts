@@ -68,7 +68,7 @@ describe('imprint page of the site', () => {
   it('is linked from every page\'s footer and says the same, escaped', () => {
     const page = readFileSync(join(site, 'imprint', 'index.html'), 'utf8');
     expect(page).toContain('<div><dt>Published by</dt><dd>Storm Petrel Bank Harbour Office (invented)</dd></div>');
-    expect(page).toContain('<time datetime="2026-11-15">Sunday 15 November 2026</time>');
+    expect(page).toContain('<time datetime="2026-11-15">Sunday, 15 November 2026</time>');
     expect(page).toContain('<dd class="imprint-lines">Harbour Office &lt;b&gt;Quay&lt;/b&gt; Road\n+00 0000 0000</dd>');
     expect(page).toContain('LAT and HAT from predictions over 2020\u20132038');
     for (const m of models) expect(page).toContain(`<li><strong>${m.station.name}</strong>: ${m.station.provenance}</li>`);
