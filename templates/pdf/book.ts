@@ -69,7 +69,7 @@ export async function renderCombinedBook(models: StationYear[], options: BookOpt
   const logo = rasterLogo(options.logo);
   const pages = [...combinedPages(views, g, row, { title, publisher: options.publisher, ...(logo && { logo }) }),
     ...streams.flatMap((m) => streamBookPages(m, title, words)),
-    imprintPage(views.map((v) => v.model), imprintText(options))];
+    imprintPage(views.map((v) => v.model), words, imprintText(options))];
   const invented = models.some((m) => m.invented) || streams.some((m) => m.invented);
   const year = Math.min(...models.map((m) => m.year));
   return renderBook(pages, settings, {

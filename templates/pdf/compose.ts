@@ -40,7 +40,7 @@ export function stationPages(view: StationView, firstNumber: number, row: number
     pages.push(monthPage(view, part, row));
   }
   pages.push(overviewPage(view));
-  if (!section) pages.push(imprintPage([view.model], imprint, view.name));
+  if (!section) pages.push(imprintPage([view.model], view.words, imprint, view.name));
   cover.guide = guide(pages, firstNumber);
   return pages;
 }

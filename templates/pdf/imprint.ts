@@ -2,6 +2,7 @@
 // the tidewright version, the datum epochs, where the constants of each station come from, and the
 // caution in full.
 import type { StationYear } from '../../engine/index.js';
+import type { Words } from '../locale/index.js';
 import { printable } from './format.js';
 import type { LogicalPage } from './page.js';
 import { unit } from './page.js';
@@ -14,20 +15,21 @@ export interface ImprintText {
   stamp?: number | undefined; // UTC ms of the edition
 }
 
-export function imprintPage(models: readonly StationYear[], text: ImprintText, label?: string): LogicalPage {
+export function imprintPage(models: readonly StationYear[], words: Words, text: ImprintText, label?: string): LogicalPage {
   const first = models[0]!;
   const invented = models.some((m) => m.invented);
   return {
     kind: 'imprint',
     footer: { invented, ...(label !== undefined && { label }) },
-    outline: { title: 'Imprint', level: models.length > 1 ? 0 : 1 },
+    outline: { title: words.t('site.imprint'), level: models.length > 1 ? 0 : 1 },
     draw(ctx) {
       const { doc, box } = ctx;
       const s = unit(ctx);
       const width = box.width;
       const body = { font: 'regular', size: 8.4 * s } as const;
       let y = box.y + 14 * s;
-      put(doc, 'Imprint', box.x, y, { font: 'bold', size: 16 * s });
+      const w = words;
+      put(doc, w.t('site.imprint'), box.x, y, { font: 'bold', size: 16 * s });
       y += 22 * s;
       const block = (label: string, value: string, maxLines = 12): void => {
         put(doc, label, box.x, y, { font: 'narrow-bold', size: 7.8 * s, color: MID });
@@ -38,18 +40,17 @@ export function imprintPage(models: readonly StationYear[], text: ImprintText, l
         y += 5 * s;
       };
       const edition = new Date(text.stamp ?? Date.UTC(first.year, 0, 1)).toISOString().slice(0, 10);
-      if (text.publisher !== undefined) block('Published by', text.publisher);
-      const w = ctx.settings.words;
-      block('Edition', w.date(edition));
-      if (text.contact !== undefined) block('Contact', text.contact, 4);
-      block('Made with', `${first.generator.name} ${first.generator.version}: harmonic predictions with Schureman's node factors and equilibrium arguments`);
+      if (text.publisher !== undefined) block(w.t('imprint.publishedBy'), text.publisher);
+      block(w.t('imprint.edition'), w.date(edition));
+      if (text.contact !== undefined) block(w.t('imprint.contact'), text.contact, 4);
+      block(w.t('imprint.madeWith'), w.t('imprint.method', { generator: `${first.generator.name} ${first.generator.version}` }));
       const epochs = [...new Set(models.map((m) => `${m.datums.epoch.from}\u2013${m.datums.epoch.to}`))];
-      block('Datum epoch', `LAT and HAT from predictions over ${epochs.join(', ')}`);
+      block(w.t('imprint.datumEpoch'), w.t('site.latHatOver', { epoch: epochs.join(', ') }));
       const sources = models.length === 1
         ? first.station.provenance
         : [...new Map(models.map((m) => [m.station.id, `${m.station.name}: ${m.station.provenance}`])).values()].join('\n');
-      block(models.length === 1 ? 'Source of the constants' : 'Sources of the constants', sources, 3);
-      block('Caution', w.caution, 8);
+      block(w.t(models.length === 1 ? 'imprint.source' : 'imprint.sources'), sources, 3);
+      block(w.t('imprint.caution'), w.caution, 8);
     },
   };
 }

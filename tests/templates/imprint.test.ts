@@ -45,7 +45,7 @@ describe('imprint page of the books', () => {
     expect(text).toContain('Edition 15 November 2026');
     expect(text).toContain('Contact Harbour Office <b>Quay</b> Road +00 0000 0000');
     expect(text).toContain(`tidewright ${model.generator.version}`);
-    expect(text).toContain(`LAT and HAT from predictions over ${model.datums.epoch.from}\u2013${model.datums.epoch.to}`);
+    expect(text).toContain(`LAT and HAT are the lowest and highest levels predicted over ${model.datums.epoch.from}\u2013${model.datums.epoch.to}`);
     expect(text).toContain(`Source of the constants ${model.station.provenance}`);
     expect(text).toContain(wordsFor().caution.slice(0, 60));
   }, 30_000);
@@ -68,9 +68,9 @@ describe('imprint page of the site', () => {
   it('is linked from every page\'s footer and says the same, escaped', () => {
     const page = readFileSync(join(site, 'imprint', 'index.html'), 'utf8');
     expect(page).toContain('<div><dt>Published by</dt><dd>Storm Petrel Bank Harbour Office (invented)</dd></div>');
-    expect(page).toContain('<time datetime="2026-11-15">Sunday, 15 November 2026</time>');
+    expect(page).toContain('<time datetime="2026-11-15">15 November 2026</time>');
     expect(page).toContain('<dd class="imprint-lines">Harbour Office &lt;b&gt;Quay&lt;/b&gt; Road\n+00 0000 0000</dd>');
-    expect(page).toContain('LAT and HAT from predictions over 2020\u20132038');
+    expect(page).toContain('LAT and HAT are the lowest and highest levels predicted over 2020\u20132038');
     for (const m of models) expect(page).toContain(`<li><strong>${m.station.name}</strong>: ${m.station.provenance}</li>`);
     expect(page).toContain(wordsFor().caution.slice(0, 40));
     const index = readFileSync(join(site, 'index.html'), 'utf8');
