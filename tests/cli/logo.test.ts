@@ -5,9 +5,9 @@ import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { buildStationYear } from '../../engine/almanac.js';
-import { StationFileError } from '../../engine/errors.js';
-import { loadStationSet } from '../../engine/stations.js';
+import { buildStationYear } from '../../engine/index.js';
+import { StationFileError } from '../../engine/index.js';
+import { loadStationSet } from '../../engine/index.js';
 import { loadProjectFile } from '../../cli/build/project.js';
 import { STARTER_FILES } from '../../cli/init-files.js';
 import { renderCombinedBook, renderStationBook } from '../../templates/pdf/book.js';
