@@ -26,6 +26,28 @@ locale: en-GB
 
 # none, or saddle-stitch to print the books as fold-and-staple booklets (default none).
 imposition: none
+
+# Your own safety caution in plain text, replacing the built-in one (translated for each language).
+# Every output carries it, so it cannot be empty.
+# caution: "Predictions only. Check the official tide tables and local notices; ask the harbour office."
+
+# Date of this edition, YYYY-MM-DD: every output is stamped with it (the PDF books' date, the calendar
+# files, the website's edition line). Left out: 1 January of the year. SOURCE_DATE_EPOCH, when set,
+# is used instead, but never a date after the edition.
+# edition: 2026-11-15
+
+# Accent colour of the website (masthead, headings, links) as "#rrggbb"; refused if white text on it
+# reads below 4.5:1. Left out: the site's own blue.
+# accent: "#0b5d7a"
+
+# Your logo, as SVG, PNG or JPEG, path relative to this file: in the website's header, and (PNG or
+# JPEG) at the top of the book covers.
+# logo: brand/logo.png
+
+# Who to call, one to four lines: printed on the imprint page of every book and in the website's footer.
+contact: |
+  Storm Petrel Bank Harbour Office (invented), Quay Road
+  +00 0000 0000 · office@example.invalid
 `,
 
   'storm-petrel-bank.yaml': `# INVENTED example reference port, in open ocean far from any coast: replace it with your own.
@@ -36,7 +58,7 @@ kind: reference
 position: { latitude: 36.5, longitude: -38.0 }
 timezone: America/Noronha
 datum: Chart Datum
-mean_level: 2.3
+mean_level: 2.0
 constituents:
   M2: { amplitude: 1.200, phase: 60.0 }
   S2: { amplitude: 0.420, phase: 95.0 }
@@ -94,11 +116,11 @@ open ocean: replace them with your own before you publish anything.
 
 ## Build
 
-    npx tidewright build --stations . --out out
+    npx tidewright build --stations . --out ../almanac-out
 
-The website goes to \`out/site/\` (open \`out/site/index.html\`, or upload the folder), the PDF books to
-\`out/pdf/\`, and the data files (CSV, JSON, calendar) to \`out/data/\`. A build replaces \`out/\` whole,
-and only when it succeeds.
+The output goes to a folder of its own, outside this one (here \`../almanac-out\`): the website to
+\`site/\` in it (open \`site/index.html\`, or upload the folder), the PDF books to \`pdf/\` and the data
+files (CSV, JSON, calendar) to \`data/\`. A build replaces that folder whole, and only when it succeeds.
 
 ## Caution
 

@@ -2,7 +2,7 @@
 // folder that is new or empty, so it never mixes with or replaces anyone's files.
 
 import { mkdirSync, readdirSync, statSync, writeFileSync } from 'node:fs';
-import { join } from 'node:path';
+import { basename, join, resolve } from 'node:path';
 import { UsageError } from '../engine/index.js';
 import { parseCommandLine, positionalArguments } from './args.js';
 import { STARTER_FILES } from './init-files.js';
@@ -13,7 +13,7 @@ Makes a folder to start a tide almanac from: tidewright.yaml with every setting 
 reference port and one invented secondary port (at sea, to replace with yours) and a short README on
 replacing the stations and building. DIR must be new or empty.
 
-Then: tidewright check --stations DIR, and tidewright build --stations DIR --out DIR/out
+Then: tidewright check --stations DIR, and tidewright build --stations DIR --out DIR-out
 `;
 
 function entriesOf(dir: string): string[] | null {
@@ -25,6 +25,11 @@ function entriesOf(dir: string): string[] | null {
   }
   if (!stat.isDirectory()) throw new UsageError(dir, 'is a file, not a folder', 'give the name of a new or empty folder');
   return readdirSync(dir);
+}
+
+/** An output folder beside the almanac folder (the build refuses one inside the stations folder). */
+function outBeside(dir: string): string {
+  return join(dir, '..', `${basename(resolve(dir))}-out`);
 }
 
 export async function runInit(argv: string[]): Promise<number> {
@@ -42,6 +47,6 @@ export async function runInit(argv: string[]): Promise<number> {
   mkdirSync(dir, { recursive: true });
   for (const [name, text] of Object.entries(STARTER_FILES)) writeFileSync(join(dir, name), text, { flag: 'wx' });
   process.stderr.write(`tidewright: made ${dir} with ${Object.keys(STARTER_FILES).length} files; ` +
-    `next: tidewright check --stations ${dir}, then tidewright build --stations ${dir} --out ${join(dir, 'out')}\n`);
+    `next: tidewright check --stations ${dir}, then tidewright build --stations ${dir} --out ${outBeside(dir)}\n`);
   return 0;
 }

@@ -38,9 +38,10 @@ Builds the website, the PDF tide books and the data downloads for every station 
   --help              show this text
 
 Settings a publisher keeps can go in tidewright.yaml beside the station files
-(title, publisher, year, page, units, locale, imposition, caution); options given here win.
-caution: replaces the translated safety caution with the publisher's own words (plain text).
-CSV and JSON downloads keep English field names and '.' decimals in every language.`;
+(title, publisher, year, page, units, locale, imposition, caution, edition, contact, accent, logo);
+options given here win. caution: replaces the translated safety caution with the publisher's own words
+(plain text). CSV and JSON downloads keep English field names and '.' decimals in every language.
+Every output is stamped with the edition date, or SOURCE_DATE_EPOCH when set (never later).`;
 
 const OPTIONS = {
   stations: { type: 'string' },

@@ -21,6 +21,11 @@ export interface RenderChoices {
   locale?: string; // BCP 47 tag of a language with a catalogue (templates/locale)
   caution?: string; // the publisher's own caution, replacing the catalogue's
   hourly?: boolean; // books print a page of hourly heights after each month
+  stamp?: number; // UTC ms every output carries as its date (cli/build/stamp.ts)
+  edition?: string; // YYYY-MM-DD, the edition printed
+  contact?: string; // who to call: the imprint page and the site
+  accent?: string; // #rrggbb, contrast-checked: the site's accent colour
+  logo?: string; // absolute path of a checked SVG, PNG or JPEG file
 }
 
 /** Everything one build needs to know, after the command line, the project file and the defaults. */

@@ -5,6 +5,7 @@ import { UsageError } from '../../engine/index.js';
 import type { BuildArgs } from './args.js';
 import type { BuildPlan } from './options.js';
 import { loadProjectFile } from './project.js';
+import { outputStamp } from './stamp.js';
 
 export const DEFAULT_STATIONS_DIR = 'stations-demo';
 export const DEFAULT_OUT_DIR = 'out';
@@ -14,7 +15,9 @@ export function defaultYear(now: Date = new Date()): number {
   return now.getFullYear() + 1;
 }
 
-export function makePlan(args: BuildArgs, cwd: string = process.cwd(), now: Date = new Date()): BuildPlan {
+export function makePlan(
+  args: BuildArgs, cwd: string = process.cwd(), now: Date = new Date(), env: NodeJS.ProcessEnv = process.env,
+): BuildPlan {
   const stationsDir = resolve(cwd, args.stations ?? DEFAULT_STATIONS_DIR);
   if (!existsSync(stationsDir)) {
     throw new UsageError('--stations', `folder ${stationsDir} does not exist`, 'give the folder holding the station .yaml files');
@@ -24,10 +27,11 @@ export function makePlan(args: BuildArgs, cwd: string = process.cwd(), now: Date
   }
   const project = loadProjectFile(stationsDir);
   const s = project.settings;
+  const year = args.year ?? s.year ?? defaultYear(now);
   return {
     stationsDir,
     outDir: resolve(cwd, args.out ?? DEFAULT_OUT_DIR),
-    year: args.year ?? s.year ?? defaultYear(now),
+    year,
     render: {
       units: args.units ?? s.units ?? 'm',
       page: args.page ?? s.page ?? 'a5',
@@ -37,6 +41,11 @@ export function makePlan(args: BuildArgs, cwd: string = process.cwd(), now: Date
       ...((args.locale ?? s.locale) !== undefined && { locale: args.locale ?? s.locale }),
       ...(s.caution !== undefined && { caution: s.caution }),
       ...(s.hourly !== undefined && { hourly: s.hourly }),
+      ...(s.edition !== undefined && { edition: s.edition }),
+      ...(s.contact !== undefined && { contact: s.contact }),
+      ...(s.accent !== undefined && { accent: s.accent.toLowerCase() }),
+      ...(s.logo !== undefined && { logo: s.logo }),
+      stamp: outputStamp(year, s.edition, env.SOURCE_DATE_EPOCH),
     },
     quiet: args.quiet,
     workers: args.workers ?? null,

@@ -5,6 +5,8 @@ import { isMap, parseDocument } from 'yaml';
 import * as z from 'zod';
 import { StationFileError, nearestName, readTextFile } from '../../engine/index.js';
 import { LANGUAGES, languageOf } from '../../templates/locale/catalogue.js';
+import { ACCENT_PATTERN, contrastRatio, MIN_CONTRAST } from './accent.js';
+import { checkLogo } from './logo.js';
 import {
   FIRST_YEAR, IMPOSITIONS, LAST_YEAR, PAGE_SIZES, UNITS, type Imposition, type PageSize, type Units,
 } from './options.js';
@@ -24,6 +26,10 @@ const FIELD_FIX: Readonly<Record<keyof ProjectSettings, string>> = {
   imposition: 'write imposition: none, or imposition: saddle-stitch for fold-and-staple booklets',
   caution: 'write the caution as plain text, e.g. caution: Predictions only; check the official tables. Every output carries one, so it cannot be empty',
   hourly: 'write hourly: true for a page of heights on every hour after each month in the books, or leave it out',
+  edition: 'write the date of this edition as YYYY-MM-DD, e.g. edition: 2026-11-15',
+  contact: 'write who to call as text, one to four lines, e.g. contact: "Harbour Office, Quay Road · office@example.invalid"',
+  accent: 'write a darker colour as "#rrggbb" in quotes, e.g. accent: "#0b5d7a"',
+  logo: 'write the path of an SVG, PNG or JPEG file, relative to tidewright.yaml, e.g. logo: brand/logo.svg',
 };
 const KEYS = Object.keys(FIELD_FIX) as (keyof ProjectSettings)[];
 
@@ -41,6 +47,25 @@ function checkLocale(ctx: z.core.ParsePayload<string>): void {
   }
 }
 
+function checkDay(ctx: z.core.ParsePayload<string>): void {
+  const day = ctx.value;
+  const valid = /^\d{4}-\d{2}-\d{2}$/.test(day) && new Date(`${day}T00:00:00Z`).toISOString().slice(0, 10) === day;
+  if (!valid) ctx.issues.push({ code: 'custom', input: day, message: `"${day}" is not a date written YYYY-MM-DD` });
+}
+
+function checkAccent(ctx: z.core.ParsePayload<string>): void {
+  const colour = ctx.value;
+  if (!ACCENT_PATTERN.test(colour)) {
+    ctx.issues.push({ code: 'custom', input: colour, message: `"${colour}" is not a colour written #rrggbb` });
+    return;
+  }
+  const ratio = contrastRatio(colour, '#ffffff');
+  if (ratio < MIN_CONTRAST) {
+    ctx.issues.push({ code: 'custom', input: colour, message: `"${colour}" against white (white text on it, and it as text on the page) ` +
+      `has a contrast of ${ratio.toFixed(2)}:1, below ${MIN_CONTRAST}:1` });
+  }
+}
+
 const text = z.string().trim().min(1, 'is empty').max(200, 'is longer than 200 characters');
 
 const projectSchema = z.strictObject({
@@ -53,6 +78,10 @@ const projectSchema = z.strictObject({
   imposition: z.enum(IMPOSITIONS).optional(),
   caution: z.string().trim().min(1, 'is empty').max(2000, 'is longer than 2000 characters').optional(),
   hourly: z.boolean().optional(),
+  edition: z.string().check(checkDay).optional(),
+  contact: z.string().trim().min(1, 'is empty').max(400, 'is longer than 400 characters').optional(),
+  accent: z.string().check(checkAccent).optional(),
+  logo: z.string().trim().min(1, 'is empty').optional(),
 });
 
 function describe(value: unknown): string {
@@ -112,7 +141,7 @@ export function checkProjectFile(stationsDir: string): ProjectCheck {
   if (!isMap(doc.contents)) {
     return {
       file, settings: {}, problems: [new StationFileError(file, '(file)', 'is not a list of key: value settings',
-        'write settings such as title:, publisher:, year:, page:, units:, locale:, imposition:, caution:')],
+        'write settings such as title:, publisher:, year:, page:, units:, locale:, imposition:, caution:, edition:, contact:, accent:, logo:')],
     };
   }
   let data: Record<string, unknown>;
@@ -123,7 +152,18 @@ export function checkProjectFile(stationsDir: string): ProjectCheck {
     return { file, settings: {}, problems: [new StationFileError(file, '(file)', `YAML could not be read: ${what}`, 'write plain key: value lines without aliases')] };
   }
   const parsed = projectSchema.safeParse(data);
-  if (parsed.success) return { file, settings: parsed.data, problems: [] };
+  if (parsed.success) {
+    const settings = parsed.data;
+    if (settings.logo !== undefined) {
+      try {
+        settings.logo = checkLogo(file, settings.logo).path;
+      } catch (error) {
+        if (error instanceof StationFileError) return { file, settings: {}, problems: [error] };
+        throw error;
+      }
+    }
+    return { file, settings, problems: [] };
+  }
   return { file, settings: {}, problems: parsed.error.issues.flatMap((issue) => problemOf(file, data, issue)) };
 }
 

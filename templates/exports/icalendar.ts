@@ -58,9 +58,10 @@ export function eventUid(stationId: string, what: string, isoTime: string): stri
   return `${stationId}-${what}-${icalUtc(isoTime)}@tidewright`;
 }
 
-export function eventsICalendar(model: StationYear, words: Words = wordsFor()): string {
+export function eventsICalendar(model: StationYear, words: Words = wordsFor(), stampMs?: number): string {
   const st = model.station;
-  const stamp = `${model.year}0101T000000Z`; // fixed by the edition's year: reproducible builds
+  // the build's stamp (edition date), never the clock: reproducible builds; by default 1 January of the year
+  const stamp = stampMs === undefined ? `${model.year}0101T000000Z` : icalUtc(new Date(stampMs).toISOString());
   const w = words;
   const invented = model.invented ? ` ${w.t('export.invented')}` : '';
   // The caution, provenance and what the heights mean are said once, for the whole calendar; each

@@ -32,14 +32,14 @@ export function exportFileNames(model: StationYear): ExportFileNames {
 }
 
 export async function writeExports(
-  model: StationYear, dataDir: string, words: Words = wordsFor(),
+  model: StationYear, dataDir: string, words: Words = wordsFor(), stamp?: number,
 ): Promise<ExportFileNames> {
   const names = exportFileNames(model);
   await mkdir(dataDir, { recursive: true });
   await Promise.all([
     writeFile(join(dataDir, names.csv), eventsCsv(model, words)),
     writeFile(join(dataDir, names.json), eventsJson(model, words)),
-    writeFile(join(dataDir, names.ics), eventsICalendar(model, words)),
+    writeFile(join(dataDir, names.ics), eventsICalendar(model, words, stamp)),
     writeFile(join(dataDir, names.hourly), hourlyCsv(model, words)),
     ...(names.windows
       ? [writeFile(join(dataDir, names.windows.csv), windowsCsv(model, words)),

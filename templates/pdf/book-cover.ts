@@ -1,12 +1,13 @@
 // The cover of a combined book: title, edition year, how many stations, the caution.
 import { cautionBlock, inventedBanner } from './cover-parts.js';
+import { drawLogo } from './cover.js';
 import type { LogicalPage } from './page.js';
 import { unit } from './page.js';
 import type { StationView } from './station-view.js';
 import { DARK, MID } from './style.js';
 import { fitLines, put } from './text.js';
 
-export interface BookCoverText { title: string; publisher?: string; years: string }
+export interface BookCoverText { title: string; publisher?: string; years: string; logo?: Buffer }
 
 export function bookCoverPage(views: StationView[], text: BookCoverText, caution: string, invented: boolean): LogicalPage {
   return {
@@ -16,6 +17,7 @@ export function bookCoverPage(views: StationView[], text: BookCoverText, caution
       const { doc, box } = ctx;
       const s = unit(ctx);
       let y = box.y + 12 * s;
+      drawLogo(ctx, text.logo);
       const w = ctx.settings.words;
       put(doc, w.t('book.kicker').toLocaleUpperCase(w.tag), box.x, y, { font: 'bold', size: 9 * s, color: MID });
       y += 62 * s;

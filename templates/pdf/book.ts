@@ -1,4 +1,5 @@
 // Print-ready PDF tide books: one per station-year, and one combined book for a station set.
+import { readFileSync } from 'node:fs';
 import type { StationYear } from '../../engine/index.js';
 import { wordsFor, type Words } from '../locale/index.js';
 import type { StreamYear } from '../../engine/index.js';
@@ -7,6 +8,7 @@ import { bookOrder } from './contents.js';
 import { editionDate } from './document.js';
 import { printable } from './format.js';
 import { pageGeometry } from './geometry.js';
+import { imprintPage, type ImprintText } from './imprint.js';
 import { rowHeight } from './month-layout.js';
 import { notesPage } from './notes.js';
 import type { BookOptions } from './options.js';
@@ -30,17 +32,28 @@ export async function renderStationBook(model: StationYear, options: BookOptions
   const view = stationView(model, g, words);
   const title = printable(options.title ?? words.t('book.defaultTitle'));
   const settings: BookSettings = { units: options.units, geometry: g, title, publisher: options.publisher, words };
-  const pages = stationPages(view, 1, rowHeight(view.parts, g), { kicker: title, publisher: options.publisher }, false,
-    { hourly: options.hourly });
+  const logo = rasterLogo(options.logo);
+  const pages = stationPages(view, 1, rowHeight(view.parts, g),
+    { kicker: title, publisher: options.publisher, ...(logo && { logo }) }, false, { hourly: options.hourly }, imprintText(options));
   return renderBook(pages, settings, {
     title: `${view.name}: ${title} ${model.year}`,
     author: options.publisher,
     subject: words.t('book.subject', { station: view.name, year: model.year })
       + `${model.invented ? ` (${words.t('book.inventedSubject')})` : ''}`,
     keywords: words.t('book.keywords'),
-    date: editionDate(model.year),
+    date: options.stamp !== undefined ? new Date(options.stamp) : editionDate(model.year),
     lang: words.tag,
   }, options.imposition ?? 'none', () => notesPage({ invented: model.invented, label: view.name }));
+}
+
+/** The logo's bytes when pdfkit can draw it (PNG, JPEG); an SVG logo appears on the site only. */
+function rasterLogo(path: string | undefined): Buffer | undefined {
+  if (path === undefined || !/\.(png|jpe?g)$/i.test(path)) return undefined;
+  return readFileSync(path);
+}
+
+function imprintText(options: BookOptions): ImprintText {
+  return { publisher: options.publisher, contact: options.contact, stamp: options.stamp };
 }
 
 /** The whole set's book; the stream stations' pages (if any) follow the tide stations'. */
@@ -53,7 +66,10 @@ export async function renderCombinedBook(models: StationYear[], options: BookOpt
   const title = printable(options.title ?? words.t('book.defaultTitle'));
   const settings: BookSettings = { units: options.units, geometry: g, title, publisher: options.publisher, words };
   const row = rowHeight(views.flatMap((v) => v.parts), g);
-  const pages = [...combinedPages(views, g, row, { title, publisher: options.publisher, hourly: options.hourly }), ...streams.flatMap((m) => streamBookPages(m, title, words))];
+  const logo = rasterLogo(options.logo);
+  const pages = [...combinedPages(views, g, row, { title, publisher: options.publisher, hourly: options.hourly, ...(logo && { logo }) }),
+    ...streams.flatMap((m) => streamBookPages(m, title, words)),
+    imprintPage(views.map((v) => v.model), words, imprintText(options))];
   const invented = models.some((m) => m.invented) || streams.some((m) => m.invented);
   const year = Math.min(...models.map((m) => m.year));
   return renderBook(pages, settings, {
@@ -62,7 +78,7 @@ export async function renderCombinedBook(models: StationYear[], options: BookOpt
     subject: words.t('book.subjectCombined', { count: models.length })
       + `${invented ? ` (${words.t('book.inventedSubject')})` : ''}`,
     keywords: words.t('book.keywords'),
-    date: editionDate(year),
+    date: options.stamp !== undefined ? new Date(options.stamp) : editionDate(year),
     lang: words.tag,
   }, options.imposition ?? 'none', () => notesPage({ invented }));
 }

@@ -6,6 +6,7 @@ import { contentsPageCount, contentsPages } from './contents.js';
 import type { CoverText, GuideEntry } from './cover.js';
 import { coverPage } from './cover.js';
 import { factsPage } from './facts.js';
+import { imprintPage, type ImprintText } from './imprint.js';
 import { contentBox } from './geometry.js';
 import type { PageGeometry } from './geometry.js';
 import { hoursPage, windowsPage } from './after-month.js';
@@ -32,7 +33,7 @@ export interface AfterMonth { hourly?: boolean }
 
 /** The pages of one station, the first of which will be page `firstNumber`. */
 export function stationPages(view: StationView, firstNumber: number, row: number, cover: CoverText,
-  section: boolean, after: AfterMonth = {}): LogicalPage[] {
+  section: boolean, after: AfterMonth = {}, imprint: ImprintText = {}): LogicalPage[] {
   const pages: LogicalPage[] = [coverPage(view, cover, section ? 'section' : 'cover'), factsPage(view)];
   if (!section) pages.push(cautionPage(view));
   for (const part of view.parts) {
@@ -47,11 +48,12 @@ export function stationPages(view: StationView, firstNumber: number, row: number
     }
   }
   pages.push(overviewPage(view));
+  if (!section) pages.push(imprintPage([view.model], view.words, imprint, view.name));
   cover.guide = guide(pages, firstNumber);
   return pages;
 }
 
-export interface CombinedText { title: string; publisher?: string; hourly?: boolean }
+export interface CombinedText { title: string; publisher?: string; hourly?: boolean; logo?: Buffer }
 
 export function combinedPages(views: StationView[], g: PageGeometry, row: number, text: CombinedText): LogicalPage[] {
   const invented = views.some((v) => v.model.invented);

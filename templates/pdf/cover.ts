@@ -14,6 +14,17 @@ export interface CoverText {
   kicker: string; // the small line above the year
   publisher?: string;
   guide?: { parts: GuideEntry[]; months: GuideEntry[] }; // where things are, filled in once laid out
+  logo?: Buffer; // the publisher's PNG or JPEG logo, top right of the cover
+}
+
+/** The publisher's logo in the top right corner of a cover; returns the width it leaves for the top line. */
+export function drawLogo(ctx: PageContext, logo: Buffer | undefined): number {
+  const { doc, box } = ctx;
+  const s = unit(ctx);
+  if (logo === undefined) return box.width;
+  const w = 70 * s;
+  doc.image(logo, box.x + box.width - w, box.y, { fit: [w, 44 * s], align: 'right' });
+  return box.width - w - 8 * s;
 }
 
 /** "In this book": the parts and the first page of each month, if the space allows. */
@@ -72,7 +83,8 @@ export function coverPage(view: StationView, text: CoverText, kind: 'cover' | 's
       const { doc, box } = ctx;
       const s = unit(ctx);
       let y = box.y + 12 * s;
-      putFitted(doc, text.kicker.toUpperCase(), box.x, y, { font: 'bold', size: 9 * s, color: MID }, box.width, 6.5 * s);
+      const topWidth = kind === 'cover' ? drawLogo(ctx, text.logo) : box.width;
+      putFitted(doc, text.kicker.toUpperCase(), box.x, y, { font: 'bold', size: 9 * s, color: MID }, topWidth, 6.5 * s);
       y += 62 * s;
       put(doc, String(model.year), box.x - 3 * s, y, { font: 'bold', size: 70 * s });
       y += 38 * s;

@@ -12,6 +12,9 @@ export interface BookOptions {
   locale?: string; // BCP 47 tag: the language of the book (templates/locale)
   caution?: string; // the publisher's own caution, replacing the catalogue's
   hourly?: boolean; // a page of heights on every hour after each month
+  stamp?: number; // UTC ms: the creation date of the file (default 1 January of the year)
+  contact?: string; // who to call, printed on the imprint page (lines)
+  logo?: string; // path of the publisher's logo: PNG and JPEG are drawn on the covers (SVG only on the site)
 }
 
 export const PAGE_SIZE_NAMES: readonly PageSizeName[] = ['a5', 'a6', 'a4', 'letter', 'half-letter'];

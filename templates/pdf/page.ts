@@ -25,7 +25,7 @@ export interface FooterInfo {
   label?: string; // running foot, e.g. the station's name
 }
 
-export type PageKind = 'cover' | 'contents' | 'caution' | 'section' | 'facts' | 'month' | 'overview' | 'notes'
+export type PageKind = 'cover' | 'contents' | 'caution' | 'section' | 'facts' | 'month' | 'overview' | 'notes' | 'imprint'
   | 'windows' | 'hours'; // pages after a month: its access windows, its heights hour by hour
 
 export interface LogicalPage {

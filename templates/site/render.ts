@@ -36,7 +36,7 @@ export const HANDOFF_KEY = 'tidewrightSite';
 export const STATION_YEARS_PER_RUN = 25;
 
 // Which templates each kind of run leaves out.
-const SHARED_PAGES = ['index.njk', 'datums.njk', 'stream-year.njk', 'stream-month.njk'];
+const SHARED_PAGES = ['index.njk', 'datums.njk', 'imprint.njk', 'stream-year.njk', 'stream-month.njk'];
 const STATION_PAGES = ['station-year.njk', 'month.njk', 'hours.njk'];
 
 async function linkOrCopy(from: string, to: string): Promise<void> {
@@ -91,10 +91,12 @@ export async function renderSite(models: StationYear[], outDir: string, options:
   for (const batch of batches(site, size)) await runEleventy(root, out, { ...site, ...batch }, SHARED_PAGES, options);
   await runEleventy(root, out, { ...site, stationYears: [], monthPages: [] }, STATION_PAGES, options, options.siteFiles);
 
+  if (options.logo !== undefined && site.logo !== null) await copyFile(options.logo, join(out, site.logo.slice(1)));
+
   const siteData = join(out, 'data');
   await mkdir(siteData, { recursive: true });
   for (const model of models) {
-    const names = await writeExports(model, siteData, siteWords(options));
+    const names = await writeExports(model, siteData, siteWords(options), options.stamp);
     if (options.dataDir) {
       await mkdir(options.dataDir, { recursive: true });
       const extra = [names.hourly, ...(names.windows ? [names.windows.csv, names.windows.json] : [])];

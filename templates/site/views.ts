@@ -14,6 +14,10 @@ export interface SiteOptions {
   publisher?: string;
   locale?: string;
   caution?: string; // the publisher's own caution, replacing the catalogue's
+  stamp?: number; // UTC ms: the date of this edition's outputs
+  contact?: string; // who to call: the imprint page
+  accent?: string; // #rrggbb (checked for contrast by the build): headings, links and the masthead
+  logo?: string; // path of the publisher's logo (SVG, PNG or JPEG, checked by the build): the masthead
 }
 
 /** A clock change with the local date of the day it happens on. */
@@ -84,6 +88,11 @@ export interface SiteData {
   anyInvented: boolean;
   provenances: string[];
   generator: string;
+  computed: string; // ISO date (YYYY-MM-DD) the predictions are stamped with: the edition's date
+  contact: string | null;
+  accent: string | null;
+  logo: string | null; // site path of the logo, e.g. /assets/logo.svg
+  imprint: { epochs: string[]; sources: { name: string; provenance: string }[] };
   groups: IndexGroup[];
   stationYears: StationYearPage[];
   monthPages: MonthPage[];
@@ -210,6 +219,14 @@ export function buildSiteData(models: StationYear[], options: SiteOptions, downl
     anyInvented: sorted.some((m) => m.invented) || streams.some((m) => m.invented),
     provenances: [...new Set([...sorted, ...streams].map((m) => m.station.provenance))].sort(),
     generator: first ? `${first.generator.name} ${first.generator.version}` : 'tidewright',
+    computed: new Date(options.stamp ?? Date.UTC(first?.year ?? 1970, 0, 1)).toISOString().slice(0, 10),
+    contact: options.contact ?? null,
+    logo: options.logo === undefined ? null : `/assets/logo${(/\.(svg|png|jpe?g)$/i.exec(options.logo)?.[0] ?? '.png').toLowerCase()}`,
+    accent: options.accent !== undefined && /^#[0-9a-f]{6}$/i.test(options.accent) ? options.accent : null,
+    imprint: {
+      epochs: [...new Set(sorted.map((m) => `${m.datums.epoch.from}\u2013${m.datums.epoch.to}`))],
+      sources: [...new Map([...sorted, ...streams].map((m) => [m.station.id, { name: m.station.name, provenance: m.station.provenance }])).values()],
+    },
     groups: indexGroups(sorted, streams, words),
     stationYears,
     monthPages,

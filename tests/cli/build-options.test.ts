@@ -130,9 +130,10 @@ describe('makePlan', () => {
       projectFile: join(dir, 'tidewright.yaml') });
     const overridden = makePlan(parseBuildArgs(['--stations', dir, '--year', '2029', '--page', 'a5', '--out', 'x']), root, now);
     expect(overridden).toMatchObject({ year: 2029, outDir: join(root, 'x'), render: { page: 'a5', title: 'Club Almanac' } });
-    const bare = makePlan(parseBuildArgs(['--stations', stationsWithProject(null)]), root, now);
+    const bare = makePlan(parseBuildArgs(['--stations', stationsWithProject(null)]), root, now, {});
     expect(bare.year).toBe(2027);
-    expect(bare.render).toEqual({ units: 'm', page: 'a5', imposition: 'none' });
+    // without edition: or SOURCE_DATE_EPOCH every output is stamped 1 January of the year
+    expect(bare.render).toEqual({ units: 'm', page: 'a5', imposition: 'none', stamp: Date.UTC(2027, 0, 1) });
   });
 
   it('defaults to the next calendar year by the clock', () => {

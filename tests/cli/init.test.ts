@@ -24,12 +24,12 @@ describe('tidewright init', () => {
     expect(checked.code, checked.stdout + checked.stderr).toBe(0);
     // every setting present (year commented: next year by default) and each explained by a comment above it
     const settings = readFileSync(join(target, 'tidewright.yaml'), 'utf8');
-    for (const key of ['title', 'publisher', 'year', 'page', 'units', 'locale', 'imposition']) {
+    for (const key of ['title', 'publisher', 'year', 'page', 'units', 'locale', 'imposition', 'caution', 'edition', 'contact', 'accent', 'logo']) {
       expect(settings, key).toMatch(new RegExp(`# [^\\n]+\\n(# )?${key}: `));
     }
     expect(loadProjectFile(target).settings).toMatchObject({ page: 'a5', units: 'm', imposition: 'none' });
     const readme = readFileSync(join(target, 'README.md'), 'utf8');
-    expect(readme).toContain('npx tidewright build --stations . --out out');
+    expect(readme).toContain('npx tidewright build --stations . --out ../almanac-out');
     expect(readme).toContain('invented');
     expect(readme).toContain('defer to the harbour');
   });
@@ -49,6 +49,8 @@ describe('tidewright init', () => {
     const model = buildStationYear(set.byId.get('shearwater-shoal')!, set, 2027);
     expect(model.events.length).toBeGreaterThan(1300);
     expect(model.datums.LAT).toBeGreaterThan(-0.5);
+    // chart datum near LAT, so neither port warns that heights never reach the datum
+    for (const s of set.stations) expect(buildStationYear(s, set, 2027).warnings, s.id).toEqual([]);
   });
 
   it.each([

@@ -64,8 +64,8 @@ function lowered(model: StationYear, by: number): StationYear {
 const set = loadStationSet('stations-demo');
 const demo = (id: string) => buildStationYear(set.byId.get(id)!, set, 2027);
 const model = demo('brinewold-head');
-// A5 book: cover, facts, caution, two facing pages per month, the year overview
-const expectedPages = 3 + 2 * model.months.length + 1;
+// A5 book: cover, facts, caution, two facing pages per month, the year overview, the imprint
+const expectedPages = 3 + 2 * model.months.length + 1 + 1;
 let book: Buffer;
 let bookFile: string;
 
@@ -77,7 +77,7 @@ beforeAll(async () => {
 afterAll(() => { if (dir) rmSync(dir, { recursive: true, force: true }); });
 
 describe('station book (A5, metres)', () => {
-  it('has cover, facts, caution, two pages per month and the year overview', () => {
+  it('has cover, facts, caution, two pages per month, the year overview and the imprint', () => {
     expect(pageCount(book)).toBe(expectedPages);
   });
 
@@ -223,9 +223,9 @@ describe('saddle-stitched book', () => {
       '-x', right ? '421' : '0', '-y', '0', '-W', '421', '-H', '596', file, '-']);
     const n = sheets * 4;
     expect(half(1, true)).toContain('TIDE PREDICTIONS'); // page 1, the cover
-    expect(half(1, false)).toContain(n === expectedPages ? 'at a glance' : 'Notes'); // page n
+    expect(half(1, false)).toContain(n === expectedPages ? 'Imprint' : 'Notes'); // page n
     expect(half(2, false)).toContain('Station facts'); // page 2
-    expect(half(2, true)).toMatch(new RegExp(n - 1 === expectedPages ? 'at a glance' : n - 1 === expectedPages - 1 ? 'December' : 'Notes'));
+    expect(half(2, true)).toMatch(new RegExp(n - 1 === expectedPages ? 'Imprint' : n - 1 === expectedPages - 1 ? 'at a glance' : 'Notes'));
     expect(half(3, true)).toContain('Caution'); // page 3 on the second sheet's front
   });
 });

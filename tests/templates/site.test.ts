@@ -51,9 +51,10 @@ afterAll(() => {
 });
 
 describe('pages and URLs', () => {
-  it('writes the index, the datums page, and a year page, twelve month pages and twelve hour-by-hour pages per station-year', () => {
+  it('writes the index, the datums page, the imprint, and a year page, twelve month pages and twelve hour-by-hour pages per station-year', () => {
     expect(existsSync(join(site, 'index.html'))).toBe(true);
     expect(existsSync(join(site, 'datums/index.html'))).toBe(true);
+    expect(existsSync(join(site, 'imprint/index.html'))).toBe(true);
     for (const id of ids) {
       expect(existsSync(join(site, id, '2027/index.html'))).toBe(true);
       for (let m = 1; m <= 12; m++) {
@@ -61,7 +62,7 @@ describe('pages and URLs', () => {
         expect(existsSync(join(site, id, '2027', String(m).padStart(2, '0'), 'hours', 'index.html'))).toBe(true);
       }
     }
-    expect(htmlFiles(site)).toHaveLength(2 + 3 * 25);
+    expect(htmlFiles(site)).toHaveLength(3 + 3 * 25);
   });
 
   it('every relative link and stylesheet on every page points at a file that exists', () => {

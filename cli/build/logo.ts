@@ -1,0 +1,47 @@
+// logo: in tidewright.yaml: an SVG, PNG or JPEG file (path relative to tidewright.yaml), checked here
+// so a build never starts with a logo it cannot use. The books draw PNG and JPEG logos; the site shows all three.
+
+import { readFileSync, statSync } from 'node:fs';
+import { extname, resolve } from 'node:path';
+import { StationFileError } from '../../engine/index.js';
+
+export const MAX_LOGO_BYTES = 2 * 1024 * 1024;
+const FIX = 'write the path of an SVG, PNG or JPEG file, relative to tidewright.yaml, e.g. logo: brand/logo.svg';
+
+export type LogoKind = 'svg' | 'png' | 'jpeg';
+
+/** The absolute path and kind of a usable logo; a StationFileError naming tidewright.yaml otherwise. */
+export function checkLogo(projectFile: string, written: string): { path: string; kind: LogoKind } {
+  const path = resolve(projectFile, '..', written);
+  let size: number;
+  try {
+    const stat = statSync(path);
+    if (!stat.isFile()) throw new StationFileError(projectFile, 'logo', `${written} is a folder, not a file`, FIX);
+    size = stat.size;
+  } catch (error) {
+    if (error instanceof StationFileError) throw error;
+    throw new StationFileError(projectFile, 'logo', `${written} does not exist (looked for ${path})`, FIX);
+  }
+  if (size > MAX_LOGO_BYTES) {
+    throw new StationFileError(projectFile, 'logo', `${written} is ${(size / 1048576).toFixed(1)} MB, over 2 MB`, 'use a smaller file; a logo prints a few centimetres wide');
+  }
+  const bytes = readFileSync(path);
+  const ext = extname(path).toLowerCase();
+  const isPng = bytes.subarray(0, 8).equals(Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]));
+  const isJpeg = bytes[0] === 0xff && bytes[1] === 0xd8 && bytes[2] === 0xff;
+  if (ext === '.png' && isPng) return { path, kind: 'png' };
+  if ((ext === '.jpg' || ext === '.jpeg') && isJpeg) return { path, kind: 'jpeg' };
+  if (ext === '.svg') {
+    const text = bytes.toString('utf8');
+    if (!/<svg[\s>]/i.test(text)) throw new StationFileError(projectFile, 'logo', `${written} holds no <svg> element`, FIX);
+    if (/<script|\son[a-z]+\s*=|javascript:|<foreignObject/i.test(text)) {
+      throw new StationFileError(projectFile, 'logo', `${written} contains a script, an event handler or foreign content`,
+        'save the logo as a plain drawing (no scripts), or as PNG');
+    }
+    return { path, kind: 'svg' };
+  }
+  const problem = ['.png', '.jpg', '.jpeg'].includes(ext)
+    ? `${written} is not a ${ext === '.png' ? 'PNG' : 'JPEG'} file inside, despite its name`
+    : `${written} is not an SVG, PNG or JPEG file`;
+  throw new StationFileError(projectFile, 'logo', problem, FIX);
+}
