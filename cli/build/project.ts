@@ -24,6 +24,8 @@ const FIELD_FIX: Readonly<Record<keyof ProjectSettings, string>> = {
   imposition: 'write imposition: none, or imposition: saddle-stitch for fold-and-staple booklets',
   caution: 'write the caution as plain text, e.g. caution: Predictions only; check the official tables. Every output carries one, so it cannot be empty',
   hourly: 'write hourly: true for a page of heights on every hour after each month in the books, or leave it out',
+  press: 'write press: true for print-shop books (bleed, crop marks, page boxes), or press: false',
+  pocket: 'write pocket: true for a folded one-sheet pocket table beside each book, or pocket: false',
 };
 const KEYS = Object.keys(FIELD_FIX) as (keyof ProjectSettings)[];
 
@@ -53,6 +55,8 @@ const projectSchema = z.strictObject({
   imposition: z.enum(IMPOSITIONS).optional(),
   caution: z.string().trim().min(1, 'is empty').max(2000, 'is longer than 2000 characters').optional(),
   hourly: z.boolean().optional(),
+  pocket: z.boolean().optional(),
+  press: z.boolean().optional(),
 });
 
 function describe(value: unknown): string {

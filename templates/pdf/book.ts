@@ -29,7 +29,7 @@ export async function renderStationBook(model: StationYear, options: BookOptions
   const words = bookWords(options);
   const view = stationView(model, g, words);
   const title = printable(options.title ?? words.t('book.defaultTitle'));
-  const settings: BookSettings = { units: options.units, geometry: g, title, publisher: options.publisher, words };
+  const settings: BookSettings = { units: options.units, geometry: g, title, publisher: options.publisher, words, press: options.press };
   const pages = stationPages(view, 1, rowHeight(view.parts, g), { kicker: title, publisher: options.publisher }, false,
     { hourly: options.hourly });
   return renderBook(pages, settings, {
@@ -40,6 +40,7 @@ export async function renderStationBook(model: StationYear, options: BookOptions
     keywords: words.t('book.keywords'),
     date: editionDate(model.year),
     lang: words.tag,
+    tagged: options.tagged,
   }, options.imposition ?? 'none', () => notesPage({ invented: model.invented, label: view.name }));
 }
 
@@ -51,7 +52,7 @@ export async function renderCombinedBook(models: StationYear[], options: BookOpt
   const words = bookWords(options);
   const views = bookOrder(models).map((m) => stationView(m, g, words));
   const title = printable(options.title ?? words.t('book.defaultTitle'));
-  const settings: BookSettings = { units: options.units, geometry: g, title, publisher: options.publisher, words };
+  const settings: BookSettings = { units: options.units, geometry: g, title, publisher: options.publisher, words, press: options.press };
   const row = rowHeight(views.flatMap((v) => v.parts), g);
   const pages = [...combinedPages(views, g, row, { title, publisher: options.publisher, hourly: options.hourly }), ...streams.flatMap((m) => streamBookPages(m, title, words))];
   const invented = models.some((m) => m.invented) || streams.some((m) => m.invented);
@@ -64,5 +65,6 @@ export async function renderCombinedBook(models: StationYear[], options: BookOpt
     keywords: words.t('book.keywords'),
     date: editionDate(year),
     lang: words.tag,
+    tagged: options.tagged,
   }, options.imposition ?? 'none', () => notesPage({ invented }));
 }
