@@ -41,7 +41,8 @@ function drawLane(doc: PDFKit.PDFDocument, view: StationView, events: AlmanacEve
   // on a clock-change day each time carries its own offset, so the repeated hour is never ambiguous
   const entries: LaneEntry[] = events.map((e) => ({
     clock: e.clock,
-    offset: day.offsetChange ? view.words.offset(e.offset) : null,
+    // the offset in full but without its "UTC" (the month's heading names it), so the lane keeps legible type
+    offset: day.offsetChange ? view.words.offset(e.offset).replace(/^UTC/, '') : null,
     height: view.words.heightNumber(e.height, e.belowDatum),
     below: e.belowDatum,
   }));

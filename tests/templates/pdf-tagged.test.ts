@@ -14,6 +14,9 @@ import { renderCombinedBook, renderStationBook } from '../../templates/pdf/book.
 const POPPLER = ['pdfinfo', 'pdftotext'].every((t) => existsSync(`/usr/bin/${t}`));
 if (!POPPLER) console.warn('poppler-utils not found in /usr/bin: the tagged-PDF checks are SKIPPED');
 
+// Intl is the reference for printed numbers (it rounds the shortest decimal form of a tie away from zero).
+const fixed = (v: number, digits: number): string =>
+  new Intl.NumberFormat('en-GB', { minimumFractionDigits: digits, maximumFractionDigits: digits, useGrouping: false }).format(v);
 const run = (cmd: string, args: string[]) => execFileSync(cmd, args, { encoding: 'utf8', maxBuffer: 64 << 20 });
 const set = loadStationSet('stations-demo');
 const model = buildStationYear(set.byId.get('brinewold-head')!, set, 2027);
@@ -105,9 +108,9 @@ describe('tagged station book', () => {
       expect(numbers).toEqual(days.map((d) => d.dayOfMonth));
       days.forEach((d, i) => {
         const body = chunks[2 + 2 * i];
-        const seen = [...body.matchAll(/(\d\d:\d\d)(?:\s*[+\u2212]\d\d)?\s+(\d+\.\d\d)/g)].map((m) => `${m[1]} ${m[2]}`);
+        const seen = [...body.matchAll(/(\d\d:\d\d)(?:\s*(?:UTC)?[+\u2212]\d\d:\d\d)?\s+(\d+\.\d\d)/g)].map((m) => `${m[1]} ${m[2]}`);
         const want = [...d.events.filter((e) => e.type === 'high'), ...d.events.filter((e) => e.type === 'low')]
-          .map((e) => `${e.clock} ${e.height.toFixed(2)}`);
+          .map((e) => `${e.clock} ${fixed(e.height, 2)}`);
         expect(seen).toEqual(want);
       });
     }

@@ -27,7 +27,7 @@ export interface PocketMonthLayout {
 
 const SIZES = [7.2, 7, 6.8, 6.6, 6.4, 6.2, LABEL_MIN];
 const HEADER = 23;
-const SLOT_PAD = 1.6; // space after each entry, in gaps
+const SLOT_PAD = 1.2; // space after each entry, in gaps
 
 const timeStyle = (type: 'high' | 'low', size: number): TextStyle => ({ font: type === 'high' ? 'narrow-bold' : 'narrow', size });
 const heightStyle = (size: number): TextStyle => ({ font: 'narrow', size, color: '#222222' });
@@ -55,7 +55,7 @@ export function pocketMonthLayout(doc: PDFKit.PDFDocument, model: StationYear, b
     return {
       size, lows, highSlots, lowSlots, entry, gap,
       dayW: widest(['28', '30', '31'], { font: 'bold', size: size + 0.4 }) + 3,
-      weekdayW: widest([1, 2, 3, 4, 5, 6, 7].map((d) => words.weekdayShort(d)), { font: 'narrow-bold', size }) + 2,
+      weekdayW: widest([1, 2, 3, 4, 5, 6, 7].map((d) => words.weekdayShort(d)), { font: 'narrow', size }) + 1.5,
       moonW: size * 1.1,
       header: HEADER,
       footer,
@@ -148,7 +148,7 @@ export function drawPocketMonth(doc: PDFKit.PDFDocument, model: StationYear, mon
       group(doc, 'TR', {}, () => {
         tag(doc, 'TH', { scope: 'Row', actual: `${day.dayOfMonth} ${words.weekdayShort(day.weekday)}${mark}` }, () => {
           springNeapDay(doc, day, dayX, dayX + L.dayW, baseline, L.size);
-          put(doc, words.weekdayShort(day.weekday), wdX, baseline, { font: weekend ? 'narrow-bold' : 'narrow', size: L.size, color: weekend ? INK : MID });
+          put(doc, words.weekdayShort(day.weekday), wdX, baseline, { font: 'narrow', size: L.size, color: weekend ? INK : MID });
         });
         group(doc, 'TD', {}, () => {
           const moon = day.moonPhase;
