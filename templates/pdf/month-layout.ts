@@ -83,9 +83,10 @@ export function columns(box: Box, u: number, wideSun = false): Columns {
   const sunW = Math.max(FIXED.sun * u, 7.4 * u * 1.23 + 1.5 * u + EM.clock * t.clock) + (wideSun ? WIDE_SUN_EXTRA * u : 0);
   const fixed = (FIXED.badge + FIXED.gap1 + FIXED.day + FIXED.gap2 + FIXED.gap3 + FIXED.gap4) * u + moonW + sunW;
   const flex = box.width - fixed;
-  const spare = Math.max(0, flex - (FLEX.lanes + FLEX.curve) * u);
-  let lanesW = FLEX.lanes * u + spare * 0.6;
-  let curveW: number | null = FLEX.curve * u + spare * 0.4;
+  // spare room goes to lanes and curve; a shortfall (a wide sun column) comes out of the lanes first
+  const spare = flex - (FLEX.lanes + FLEX.curve) * u;
+  let lanesW = FLEX.lanes * u + (spare > 0 ? spare * 0.6 : spare);
+  let curveW: number | null = FLEX.curve * u + Math.max(0, spare) * 0.4;
   const need = laneNeed(u);
   if (lanesW < need) { curveW -= need - lanesW; lanesW = need; }
   if (curveW < MIN_CURVE) { lanesW += curveW + FIXED.gap3 * u; curveW = null; }
