@@ -1,6 +1,6 @@
 // The pocket table: a whole year of one station on one sheet, printed on both sides and folded to
 // pocket size (see pocket/fold.ts for the panels and the fold).
-import type { StationYear } from '../../engine/types.js';
+import type { StationYear } from '../../engine/index.js';
 import { createDocument, editionDate, finish } from './document.js';
 import { printable } from './format.js';
 import type { Box, Size } from './geometry.js';

@@ -7,8 +7,8 @@ import { existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { buildStationYear } from '../../engine/almanac.js';
-import { loadStationSet } from '../../engine/stations.js';
+import { buildStationYear } from '../../engine/index.js';
+import { loadStationSet } from '../../engine/index.js';
 import { renderCombinedBook, renderStationBook } from '../../templates/pdf/book.js';
 
 const POPPLER = ['pdfinfo', 'pdftotext'].every((t) => existsSync(`/usr/bin/${t}`));

@@ -1,7 +1,7 @@
 // A month on one panel of the pocket table: a line per day with its high waters and, where they fit at
 // the legible minimum, its low waters. Whether they fit is decided once per table by measuring the
 // widest times and heights of the year in the faces and sizes used.
-import type { AlmanacEvent, DayEntry, MonthEntry, StationYear } from '../../../engine/types.js';
+import type { AlmanacEvent, DayEntry, MonthEntry, StationYear } from '../../../engine/index.js';
 import type { Words } from '../../locale/index.js';
 import type { Box } from '../geometry.js';
 import { clockGlyph, laneMark, moonGlyph } from '../glyphs.js';

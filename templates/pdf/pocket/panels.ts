@@ -1,6 +1,6 @@
 // The pocket table's panels other than the months: the cover, the key on the card's back, the levels
 // of the tide, and the caution in full.
-import type { StationYear } from '../../../engine/types.js';
+import type { StationYear } from '../../../engine/index.js';
 import { DATUM_ROWS } from '../datum-scale.js';
 import type { Words } from '../../locale/index.js';
 import { printable } from '../format.js';
