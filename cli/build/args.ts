@@ -17,6 +17,7 @@ export interface BuildArgs {
   imposition?: Imposition;
   locale?: string;
   workers?: number;
+  press: boolean;
   quiet: boolean;
   help: boolean;
 }
@@ -33,14 +34,15 @@ Builds the website, the PDF tide books and the data downloads for every station 
   --imposition KIND   none, or saddle-stitch for fold-and-staple booklets (default: none)
   --locale TAG        language of the site, the books and the calendar text: ${LANGUAGES.join(', ')}
                       (a regional tag such as fr-CA or pt-BR picks its dates and numbers; default: en)
+  --press             books for a print shop: 3 mm bleed, crop marks, TrimBox and BleedBox
   --workers N         worker threads for the station computations (default: one per core)
   --quiet             print nothing but errors
   --help              show this text
 
 Settings a publisher keeps can go in tidewright.yaml beside the station files
-(title, publisher, year, page, units, locale, imposition, caution, edition, contact, accent, logo);
-options given here win. caution: replaces the translated safety caution with the publisher's own words
-(plain text). CSV and JSON downloads keep English field names and '.' decimals in every language.
+(title, publisher, year, page, units, locale, imposition, caution, edition, contact, accent, logo, hourly,
+pocket, press); options given here win. caution: replaces the translated safety caution with the publisher's
+own words (plain text). CSV and JSON downloads keep English field names and '.' decimals in every language.
 Every output is stamped with the edition date, or SOURCE_DATE_EPOCH when set (never later).`;
 
 const OPTIONS = {
@@ -52,6 +54,7 @@ const OPTIONS = {
   imposition: { type: 'string' },
   locale: { type: 'string' },
   workers: { type: 'string' },
+  press: { type: 'boolean' },
   quiet: { type: 'boolean', short: 'q' },
   help: { type: 'boolean', short: 'h' },
 } as const;
@@ -92,6 +95,7 @@ export function parseBuildArgs(argv: readonly string[]): BuildArgs {
     imposition: values.imposition === undefined ? undefined : oneOf('--imposition', values.imposition, IMPOSITIONS),
     locale: values.locale === undefined ? undefined : localeOption('--locale', values.locale),
     workers: values.workers === undefined ? undefined : integer('--workers', values.workers, 1, MAX_WORKERS, '2'),
+    press: values.press ?? false,
     quiet: values.quiet ?? false,
     help: values.help ?? false,
   };

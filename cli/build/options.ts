@@ -16,6 +16,8 @@ export interface RenderChoices {
   units: Units;
   page: PageSize;
   imposition: Imposition;
+  pocket?: boolean; // the pocket table beside each book (default on)
+  press?: boolean; // books with bleed, crop marks and page boxes for a print shop
   title?: string;
   publisher?: string;
   locale?: string; // BCP 47 tag of a language with a catalogue (templates/locale)

@@ -36,6 +36,8 @@ export function makePlan(
       units: args.units ?? s.units ?? 'm',
       page: args.page ?? s.page ?? 'a5',
       imposition: args.imposition ?? s.imposition ?? 'none',
+      pocket: s.pocket ?? true,
+      ...((args.press || s.press) && { press: true }),
       ...(s.title !== undefined && { title: s.title }),
       ...(s.publisher !== undefined && { publisher: s.publisher }),
       ...((args.locale ?? s.locale) !== undefined && { locale: args.locale ?? s.locale }),

@@ -30,6 +30,8 @@ const FIELD_FIX: Readonly<Record<keyof ProjectSettings, string>> = {
   contact: 'write who to call as text, one to four lines, e.g. contact: "Harbour Office, Quay Road · office@example.invalid"',
   accent: 'write a darker colour as "#rrggbb" in quotes, e.g. accent: "#0b5d7a"',
   logo: 'write the path of an SVG, PNG or JPEG file, relative to tidewright.yaml, e.g. logo: brand/logo.svg',
+  press: 'write press: true for print-shop books (bleed, crop marks, page boxes), or press: false',
+  pocket: 'write pocket: true for a folded one-sheet pocket table beside each book, or pocket: false',
 };
 const KEYS = Object.keys(FIELD_FIX) as (keyof ProjectSettings)[];
 
@@ -82,6 +84,8 @@ const projectSchema = z.strictObject({
   contact: z.string().trim().min(1, 'is empty').max(400, 'is longer than 400 characters').optional(),
   accent: z.string().check(checkAccent).optional(),
   logo: z.string().trim().min(1, 'is empty').optional(),
+  pocket: z.boolean().optional(),
+  press: z.boolean().optional(),
 });
 
 function describe(value: unknown): string {

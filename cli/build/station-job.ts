@@ -11,6 +11,7 @@ import { assertSafeId, stationYearFile } from './paths.js';
 export interface StationJobDeps {
   buildStationYear(station: Station, set: StationSet, year: number, engine: EngineContext): StationYear | Promise<StationYear>;
   renderStationBook(model: StationYear, options: RenderChoices): Promise<Buffer>;
+  renderPocketTable?(model: StationYear, options: RenderChoices): Promise<Buffer>;
 }
 
 export interface StationJobContext {
@@ -51,5 +52,11 @@ export async function runStationJob(id: string, ctx: StationJobContext, deps: St
   await mkdir(pdfDir, { recursive: true });
   const pdf = await deps.renderStationBook(model, ctx.render);
   await writeFile(stationYearFile(pdfDir, id, ctx.year, 'pdf'), pdf);
-  return { id, model, pdfPages: countPdfPages(pdf) };
+  let pdfPages = countPdfPages(pdf);
+  if (ctx.render.pocket !== false && deps.renderPocketTable) {
+    const pocket = await deps.renderPocketTable(model, ctx.render);
+    await writeFile(stationYearFile(pdfDir, id, ctx.year, 'pdf').replace(/\.pdf$/, '-pocket.pdf'), pocket);
+    pdfPages += countPdfPages(pocket);
+  }
+  return { id, model, pdfPages };
 }

@@ -5,6 +5,7 @@ import type { LogicalPage } from './page.js';
 import { unit } from './page.js';
 import type { StationView } from './station-view.js';
 import { DARK, MID } from './style.js';
+import { tag } from './tags.js';
 import { fitLines, put } from './text.js';
 
 export interface BookCoverText { title: string; publisher?: string; years: string; logo?: Buffer }
@@ -24,10 +25,12 @@ export function bookCoverPage(views: StationView[], text: BookCoverText, caution
       put(doc, text.years, box.x - 3 * s, y, { font: 'bold', size: 70 * s });
       y += 36 * s;
       const title = fitLines(doc, text.title, { font: 'bold', size: 22 * s }, box.width, 3, 11 * s);
-      for (const line of title.lines) {
-        put(doc, line, box.x, y, title.style);
-        y += title.style.size * 1.18;
-      }
+      tag(doc, 'H1', {}, () => {
+        for (const line of title.lines) {
+          put(doc, line, box.x, y, title.style);
+          y += title.style.size * 1.18;
+        }
+      });
       const refs = views.filter((v) => v.model.station.kind === 'reference').length;
       put(doc, w.t('book.stationCount', { count: views.length, references: w.t('book.referenceCount', { count: refs }),
         secondaries: w.t('book.secondaryCount', { count: views.length - refs }) }), box.x, y + 2 * s,

@@ -31,7 +31,7 @@ export async function renderStationBook(model: StationYear, options: BookOptions
   const words = bookWords(options);
   const view = stationView(model, g, words);
   const title = printable(options.title ?? words.t('book.defaultTitle'));
-  const settings: BookSettings = { units: options.units, geometry: g, title, publisher: options.publisher, words };
+  const settings: BookSettings = { units: options.units, geometry: g, title, publisher: options.publisher, words, press: options.press };
   const logo = rasterLogo(options.logo);
   const pages = stationPages(view, 1, rowHeight(view.parts, g),
     { kicker: title, publisher: options.publisher, ...(logo && { logo }) }, false, { hourly: options.hourly }, imprintText(options));
@@ -43,6 +43,7 @@ export async function renderStationBook(model: StationYear, options: BookOptions
     keywords: words.t('book.keywords'),
     date: options.stamp !== undefined ? new Date(options.stamp) : editionDate(model.year),
     lang: words.tag,
+    tagged: options.tagged,
   }, options.imposition ?? 'none', () => notesPage({ invented: model.invented, label: view.name }));
 }
 
@@ -64,7 +65,7 @@ export async function renderCombinedBook(models: StationYear[], options: BookOpt
   const words = bookWords(options);
   const views = bookOrder(models).map((m) => stationView(m, g, words));
   const title = printable(options.title ?? words.t('book.defaultTitle'));
-  const settings: BookSettings = { units: options.units, geometry: g, title, publisher: options.publisher, words };
+  const settings: BookSettings = { units: options.units, geometry: g, title, publisher: options.publisher, words, press: options.press };
   const row = rowHeight(views.flatMap((v) => v.parts), g);
   const logo = rasterLogo(options.logo);
   const pages = [...combinedPages(views, g, row, { title, publisher: options.publisher, hourly: options.hourly, ...(logo && { logo }) }),
@@ -80,5 +81,6 @@ export async function renderCombinedBook(models: StationYear[], options: BookOpt
     keywords: words.t('book.keywords'),
     date: options.stamp !== undefined ? new Date(options.stamp) : editionDate(year),
     lang: words.tag,
+    tagged: options.tagged,
   }, options.imposition ?? 'none', () => notesPage({ invented }));
 }

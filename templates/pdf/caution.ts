@@ -4,10 +4,13 @@ import type { MoonPhaseName } from '../../engine/index.js';
 import { drawDayCurve } from './day-curve.js';
 import { printable } from './format.js';
 import { belowDatumMark, clockGlyph, laneMark, moonGlyph, springNeapBadge, sunGlyph, sunGlyphWidth } from './glyphs.js';
+import { contentBox } from './geometry.js';
+import { columns, monthUnit } from './month-layout.js';
 import type { LogicalPage, PageContext } from './page.js';
 import { unit } from './page.js';
 import type { StationView } from './station-view.js';
 import { DARK, FAINT, INK } from './style.js';
+import { artifact, tag } from './tags.js';
 import { paragraph, put, wrapLines } from './text.js';
 
 type KeyItem = { draw: (x: number, baseline: number) => void; text: string };
@@ -31,7 +34,9 @@ function keyItems(ctx: PageContext, view: StationView, mixed: boolean, combined:
     x + put(doc, text, x, y, { font, size: size * s });
   const sampleLow = -0.12;
   const spring = view.model.days.find((d) => d.springNeap === 'spring') ?? view.model.days[0];
-  return [
+  const g = ctx.settings.geometry;
+  const curves = columns(contentBox(g, 1), monthUnit(g)).curve !== null; // small pages leave the curve out
+  const items: (KeyItem | null)[] = [
     { text: words.t('key.high'),
       draw: (x, y) => { laneMark(doc, 'high', x, y, 7.5 * s); t('narrow', t('narrow-bold', x + 8 * s, y, '06:29') + 2.5 * s, y, words.heightNumber(4.54), 8.6); } },
     { text: words.t('key.low'),
@@ -54,8 +59,8 @@ function keyItems(ctx: PageContext, view: StationView, mixed: boolean, combined:
       draw: (x: number, y: number) => (['new', 'first-quarter', 'full', 'last-quarter'] as MoonPhaseName[]).forEach((p, i) =>
         moonGlyph(doc, p, x + 5 * s + i * 13 * s, y - 3.5 * s, 4.6 * s, southern)),
     })),
-    { text: words.t('key.curve'),
-      draw: (x, y) => drawDayCurve(doc, spring, { x, y: y - 14 * s, width: 48 * s, height: 20 * s }, view.curve, s) },
+    curves ? { text: words.t('key.curve'),
+      draw: (x: number, y: number) => drawDayCurve(doc, spring, { x, y: y - 14 * s, width: 48 * s, height: 20 * s }, view.curve, s) } : null,
     { text: words.t('key.sun', { up: words.t('sun.upAllDay'), down: words.t('sun.downAllDay') }),
       draw: (x, y) => { sunGlyph(doc, true, x, y, 7.4 * s); const w = sunGlyphWidth(7.4 * s); t('narrow', x + w + 1.5 * s, y, '07:12', 7.4);
         sunGlyph(doc, false, x + 34 * s, y, 7.4 * s); t('narrow', x + 34 * s + w + 1.5 * s, y, '19:03', 7.4); } },
@@ -64,6 +69,7 @@ function keyItems(ctx: PageContext, view: StationView, mixed: boolean, combined:
     { text: words.t('key.weekend'),
       draw: (x, y) => { doc.save().rect(x, y - 12 * s, 30 * s, 16 * s).fill(FAINT).restore(); put(doc, words.weekdayShort(6), x + 15 * s, y, { font: 'narrow-bold', size: 7 * s }, 'center'); } },
   ];
+  return items.filter((item): item is KeyItem => item !== null);
 }
 
 /** For a combined book: `mixedHemispheres` when its stations lie both north and south of the equator. */
@@ -80,7 +86,7 @@ export function cautionPage(view: StationView, scope: CautionScope = { combined:
       const { doc, box } = ctx;
       const s = unit(ctx);
       let y = box.y + 14 * s;
-      put(doc, view.words.t('caution.heading'), box.x, y, { font: 'bold', size: 16 * s });
+      tag(doc, 'H1', {}, () => put(doc, view.words.t('caution.heading'), box.x, y, { font: 'bold', size: 16 * s }));
       y += 18 * s;
       const barTop = y - 10 * s;
       y = paragraph(doc, ctx.settings.words.caution, box.x + 9 * s, y, box.width - 9 * s, { font: 'regular', size: 10 * s }, 13.4 * s);
@@ -100,7 +106,7 @@ export function cautionPage(view: StationView, scope: CautionScope = { combined:
       box.x, y + 3 * s, box.width, { font: 'regular', size: 8.4 * s, color: DARK }, 11 * s);
 
       y += 10 * s;
-      put(doc, view.words.t('book.howToRead'), box.x, y, { font: 'bold', size: 11.5 * s });
+      tag(doc, 'H2', {}, () => put(doc, view.words.t('book.howToRead'), box.x, y, { font: 'bold', size: 11.5 * s }));
       y += 8 * s;
       const textX = box.x + 74 * s;
       const items = keyItems(ctx, view, mixedHemispheres, scope.combined);
@@ -118,7 +124,7 @@ export function cautionPage(view: StationView, scope: CautionScope = { combined:
       const lead = plan.style.size * 1.22;
       plan.rows.forEach(({ item, lines }, k) => {
         const base = y + Math.min(15 * s, plan.heights[k] * 0.62);
-        item.draw(box.x, base);
+        artifact(doc, () => item.draw(box.x, base));
         lines.forEach((line, i) => put(doc, line, textX, base + (i - (lines.length - 1) / 2) * lead, plan.style));
         y += plan.heights[k];
       });

@@ -5,6 +5,7 @@ import type { LogicalPage, PageContext } from './page.js';
 import { unit } from './page.js';
 import type { StationView } from './station-view.js';
 import { MID, RULE } from './style.js';
+import { tag } from './tags.js';
 import { put, putFitted, widthOf } from './text.js';
 
 export interface ContentsEntry { view: StationView; page: number }
@@ -67,7 +68,7 @@ export function contentsPages(entries: ContentsEntry[], boxHeight: number, s: nu
       draw(ctx: PageContext) {
         const { doc, box } = ctx;
         let y = box.y + (first ? 14 : 0) * s;
-        if (first) put(doc, words.t('book.contents'), box.x, y, { font: 'bold', size: 16 * s });
+        if (first) tag(doc, 'H1', {}, () => put(doc, words.t('book.contents'), box.x, y, { font: 'bold', size: 16 * s }));
         y = box.y + (first ? FIRST_TOP : NEXT_TOP) * s;
         for (const [k, e] of chunk.entries()) {
           const num = String(e.page);

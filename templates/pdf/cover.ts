@@ -6,6 +6,7 @@ import { unit } from './page.js';
 import type { StationView } from './station-view.js';
 import { cautionBlock, inventedBanner } from './cover-parts.js';
 import { DARK, INK, LIGHT, MID } from './style.js';
+import { tag } from './tags.js';
 import { fitLines, paragraph, put, putFitted } from './text.js';
 
 export interface GuideEntry { label: string; page: number }
@@ -90,7 +91,7 @@ export function coverPage(view: StationView, text: CoverText, kind: 'cover' | 's
       y += 38 * s;
 
       const name = fitLines(doc, view.name, { font: 'bold', size: 25 * s }, box.width, 4, 9 * s);
-      for (const line of name.lines) { put(doc, line, box.x, y, name.style); y += name.style.size * 1.16; }
+      tag(doc, 'H1', {}, () => { for (const line of name.lines) { put(doc, line, box.x, y, name.style); y += name.style.size * 1.16; } });
       y += 4 * s;
       const station = model.station;
       const kindLine = station.kind === 'secondary'
@@ -111,7 +112,8 @@ export function coverPage(view: StationView, text: CoverText, kind: 'cover' | 's
       }
 
       y += 16 * s;
-      drawFortnight(ctx, view, box.x, y, box.width, 70 * s);
+      tag(doc, 'Figure', { alt: `The predicted tide at ${view.name} over the first two weeks of ${model.year}, drawn as a curve.` },
+        () => drawFortnight(ctx, view, box.x, y, box.width, 70 * s));
       y += 70 * s + 26 * s;
 
       if (model.invented) y = inventedBanner(ctx, y) + 20 * s;

@@ -2,6 +2,7 @@
 // identifier (an MD5 of the info dictionary and creation date) is fixed too; no clock is read.
 import { defaultFontPath, registerFonts } from './fonts.js';
 import { PDFDocument } from './pdfkit.js';
+import { startTagging } from './tags.js';
 
 export interface DocumentMeta {
   title: string;
@@ -10,6 +11,7 @@ export interface DocumentMeta {
   keywords: string;
   date: Date; // stands for both creation and modification date
   lang: string;
+  tagged?: boolean; // a structure tree for screen readers (default true)
 }
 
 export function createDocument(meta: DocumentMeta): PDFKit.PDFDocument {
@@ -30,20 +32,43 @@ export function createDocument(meta: DocumentMeta): PDFKit.PDFDocument {
     compress: true,
     lang: meta.lang,
     displayTitle: true,
+    tagged: meta.tagged !== false,
     info,
   });
+  collectOutput(doc);
   registerFonts(doc);
+  if (meta.tagged !== false) startTagging(doc);
   return doc;
+}
+
+interface Output { chunks: Uint8Array[]; ended: boolean; done: (() => void) | null }
+
+const outputs = new WeakMap<PDFKit.PDFDocument, Output>();
+
+/**
+ * Takes the document's bytes as pdfkit writes them. Its platform-neutral build queues them in an array
+ * it empties with shift(), which grows quadratic in the number of objects (a tagged combined book has
+ * hundreds of thousands), so the chunks are taken at the source instead.
+ */
+function collectOutput(doc: PDFKit.PDFDocument): void {
+  const stream = doc as unknown as { _buffer: Uint8Array[]; push(chunk: Uint8Array | null): boolean };
+  // what the constructor wrote (the header) is already queued
+  const out: Output = { chunks: stream._buffer.splice(0), ended: false, done: null };
+  outputs.set(doc, out);
+  stream.push = (chunk) => {
+    if (chunk === null) { out.ended = true; out.done?.(); } else out.chunks.push(chunk);
+    return true;
+  };
 }
 
 /** Ends the document and collects its bytes. */
 export function finish(doc: PDFKit.PDFDocument): Promise<Buffer> {
-  return new Promise((resolve, reject) => {
-    const chunks: Buffer[] = [];
-    doc.on('data', (c: Buffer) => chunks.push(c));
-    doc.on('end', () => resolve(Buffer.concat(chunks)));
-    doc.on('error', reject);
+  const out = outputs.get(doc);
+  if (!out) throw new Error('finish() needs a document made by createDocument()');
+  return new Promise((resolve) => {
+    out.done = () => resolve(Buffer.concat(out.chunks));
     doc.end();
+    if (out.ended) out.done();
   });
 }
 

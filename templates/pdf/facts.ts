@@ -10,11 +10,12 @@ import type { LogicalPage, PageContext } from './page.js';
 import { unit } from './page.js';
 import type { StationView } from './station-view.js';
 import { DARK, HAIRLINE, INK, MID, RULE } from './style.js';
+import { tag } from './tags.js';
 import { paragraph, put, putFitted } from './text.js';
 
 function sectionTitle(ctx: PageContext, title: string, y: number): number {
   const s = unit(ctx);
-  putFitted(ctx.doc, title, ctx.box.x, y, { font: 'bold', size: 10.5 * s }, ctx.box.width, 7 * s);
+  tag(ctx.doc, 'H2', {}, () => putFitted(ctx.doc, title, ctx.box.x, y, { font: 'bold', size: 10.5 * s }, ctx.box.width, 7 * s));
   ctx.doc.save().lineWidth(0.6 * s).strokeColor(INK)
     .moveTo(ctx.box.x, y + 3.5 * s).lineTo(ctx.box.x + ctx.box.width, y + 3.5 * s).stroke().restore();
   return y + 15 * s;
@@ -45,7 +46,7 @@ export function factsPage(view: StationView): LogicalPage {
       const w = view.words;
       const st = model.station;
       let y = box.y + 14 * s;
-      put(doc, w.t('book.facts'), box.x, y, { font: 'bold', size: 16 * s });
+      tag(doc, 'H1', {}, () => put(doc, w.t('book.facts'), box.x, y, { font: 'bold', size: 16 * s }));
       y += 14 * s;
       putFitted(doc, view.name, box.x, y, { font: 'regular', size: 10 * s, color: DARK }, box.width, 6 * s);
       y += 18 * s;

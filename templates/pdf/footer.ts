@@ -2,10 +2,16 @@
 import type { LogicalPage, PageContext } from './page.js';
 import { unit } from './page.js';
 import { INK, MID } from './style.js';
+import { artifact } from './tags.js';
 import { clipText, put, widthOf, wrapLines } from './text.js';
 
 
+/** The running foot is decoration to a screen reader: the caution is read in full on the cover and caution page. */
 export function drawFooter(ctx: PageContext, page: LogicalPage): void {
+  artifact(ctx.doc, () => drawFooterMarks(ctx, page));
+}
+
+function drawFooterMarks(ctx: PageContext, page: LogicalPage): void {
   const { doc, box, number } = ctx;
   const s = unit(ctx);
   const recto = number % 2 === 1;

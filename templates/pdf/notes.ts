@@ -3,6 +3,7 @@
 import type { FooterInfo, LogicalPage } from './page.js';
 import { unit } from './page.js';
 import { LIGHT } from './style.js';
+import { tag } from './tags.js';
 import { put } from './text.js';
 
 export function notesPage(footer: FooterInfo): LogicalPage {
@@ -12,7 +13,7 @@ export function notesPage(footer: FooterInfo): LogicalPage {
     draw(ctx) {
       const { doc, box } = ctx;
       const s = unit(ctx);
-      put(doc, ctx.settings.words.t('book.notes'), box.x, box.y + 14 * s, { font: 'bold', size: 14 * s });
+      tag(doc, 'H1', {}, () => put(doc, ctx.settings.words.t('book.notes'), box.x, box.y + 14 * s, { font: 'bold', size: 14 * s }));
       doc.save().lineWidth(0.4 * s).strokeColor(LIGHT);
       for (let y = box.y + 42 * s; y < box.y + box.height - 4 * s; y += 20 * s) {
         doc.moveTo(box.x, y).lineTo(box.x + box.width, y).stroke();

@@ -7,6 +7,8 @@ export interface BookOptions {
   units: HeightUnits;
   page: PageSizeName;
   imposition?: 'none' | 'saddle-stitch';
+  press?: boolean; // bleed, crop marks, TrimBox/BleedBox, black ink only
+  tagged?: boolean; // a structure tree for screen readers (default true; false only to measure its cost)
   title?: string;
   publisher?: string;
   locale?: string; // BCP 47 tag: the language of the book (templates/locale)

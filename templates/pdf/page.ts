@@ -10,6 +10,7 @@ export interface BookSettings {
   title: string;
   publisher?: string;
   words: Words; // the reader's language and the one formatter
+  press?: boolean; // bleed, crop marks, page boxes, black ink (templates/pdf/press.ts)
 }
 
 export interface PageContext {
@@ -18,6 +19,7 @@ export interface PageContext {
   number: number; // 1-based page number in the book
   box: Box; // content box in page coordinates (binding margin applied)
   interactive: boolean; // links and named destinations allowed (not on imposed sheets)
+  bleed: number; // how far colour that runs to the page's edge continues past it (press output), else 0
 }
 
 export interface FooterInfo {

@@ -9,3 +9,8 @@ export const FAINT = '#efefef';
 export const WHITE = '#ffffff';
 
 export const HAIRLINE = 0.3;
+
+// Legible minimums in points, whatever the format's scale: times and heights on month pages, and
+// any other text a reader needs (labels, the pocket table's smallest type).
+export const READING_MIN = 7.5;
+export const LABEL_MIN = 6;

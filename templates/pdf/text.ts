@@ -4,6 +4,7 @@ import type { FontName } from './fonts.js';
 import { useFont } from './fonts.js';
 import { printable } from './format.js';
 import { needsBidi, visualPieces, withReplacements, type GlyphCoverage } from './script.js';
+import { tag } from './tags.js';
 
 export interface TextStyle {
   font: FontName;
@@ -33,6 +34,11 @@ export function widthOf(doc: PDFKit.PDFDocument, text: string, style: TextStyle)
 export function put(doc: PDFKit.PDFDocument, text: string, x: number, y: number, style: TextStyle,
   align: Align = 'left'): number {
   if (printable(text).length === 0) return 0;
+  // text a layout has not tagged otherwise reads as a paragraph of its own
+  return tag(doc, 'P', {}, () => putUntagged(doc, text, x, y, style, align));
+}
+
+function putUntagged(doc: PDFKit.PDFDocument, text: string, x: number, y: number, style: TextStyle, align: Align): number {
   useFont(doc, style.font).fontSize(style.size).fillColor(style.color ?? '#000000');
   const s = drawable(doc, text);
   const w = doc.widthOfString(s);
@@ -111,7 +117,7 @@ export function paragraph(doc: PDFKit.PDFDocument, text: string, x: number, y: n
   const shown = lines.slice(0, maxLines);
   if (lines.length > shown.length) shown[shown.length - 1] = clipText(doc, `${shown[shown.length - 1]} …`, style, width);
   let yy = y;
-  for (const line of shown) { put(doc, line, x, yy, style); yy += leading; }
+  tag(doc, 'P', {}, () => { for (const line of shown) { put(doc, line, x, yy, style); yy += leading; } });
   return yy;
 }
 

@@ -31,13 +31,13 @@ function thrown(fn: () => unknown): Error {
 describe('parseBuildArgs', () => {
   it('reads every option', () => {
     expect(parseBuildArgs(['--stations', 's', '--year', '2030', '--out', 'o', '--units', 'ft', '--page', 'a6',
-      '--imposition', 'saddle-stitch', '--workers', '3', '--quiet'])).toEqual({
+      '--imposition', 'saddle-stitch', '--workers', '3', '--press', '--quiet'])).toEqual({
       stations: 's', year: 2030, out: 'o', units: 'ft', page: 'a6', imposition: 'saddle-stitch', workers: 3,
-      quiet: true, help: false,
+      press: true, quiet: true, help: false,
     });
     expect(parseBuildArgs([])).toEqual({
       stations: undefined, year: undefined, out: undefined, units: undefined, page: undefined,
-      imposition: undefined, workers: undefined, quiet: false, help: false,
+      imposition: undefined, workers: undefined, press: false, quiet: false, help: false,
     });
   });
 
@@ -126,14 +126,24 @@ describe('makePlan', () => {
     const now = new Date(2026, 9, 1);
     const fromProject = makePlan(parseBuildArgs(['--stations', dir]), root, now);
     expect(fromProject).toMatchObject({ stationsDir: dir, outDir: join(root, 'out'), year: 2031,
-      render: { units: 'm', page: 'letter', imposition: 'none', title: 'Club Almanac' }, workers: null,
+      render: { units: 'm', page: 'letter', imposition: 'none', pocket: true, title: 'Club Almanac' }, workers: null,
       projectFile: join(dir, 'tidewright.yaml') });
     const overridden = makePlan(parseBuildArgs(['--stations', dir, '--year', '2029', '--page', 'a5', '--out', 'x']), root, now);
     expect(overridden).toMatchObject({ year: 2029, outDir: join(root, 'x'), render: { page: 'a5', title: 'Club Almanac' } });
     const bare = makePlan(parseBuildArgs(['--stations', stationsWithProject(null)]), root, now, {});
     expect(bare.year).toBe(2027);
     // without edition: or SOURCE_DATE_EPOCH every output is stamped 1 January of the year
-    expect(bare.render).toEqual({ units: 'm', page: 'a5', imposition: 'none', stamp: Date.UTC(2027, 0, 1) });
+    expect(bare.render).toEqual({ units: 'm', page: 'a5', imposition: 'none', stamp: Date.UTC(2027, 0, 1), pocket: true });
+  });
+
+  it('leaves the pocket table out when the project file says pocket: false, and refuses a word for it', () => {
+    const off = makePlan(parseBuildArgs(['--stations', stationsWithProject('pocket: false\n')]), root, new Date(2026, 9, 1));
+    expect(off.render.pocket).toBe(false);
+    expect(off.render.press).toBeUndefined();
+    const pressed = makePlan(parseBuildArgs(['--stations', stationsWithProject('press: true\n')]), root, new Date(2026, 9, 1));
+    expect(pressed.render.press).toBe(true);
+    expect(() => makePlan(parseBuildArgs(['--stations', stationsWithProject('pocket: sometimes\n')]), root))
+      .toThrow(/pocket.*write pocket: true/);
   });
 
   it('defaults to the next calendar year by the clock', () => {

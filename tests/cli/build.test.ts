@@ -97,7 +97,7 @@ describe('a good build', () => {
     expect(goodRun.code).toBe(0);
     expect(goodRun.stdout).toMatch(/^built 2 stations for 2027: \d+ web pages, \d+ PDF pages, \d+ files \([\d.]+ MiB\) in \d+:\d\d with \d workers? → .*out\/\n$/);
     const files = Object.keys(goodHash);
-    for (const f of ['pdf/brinewold-head-2027.pdf', 'pdf/saltgrist-cove-2027.pdf', 'pdf/almanac-2027.pdf', 'site/index.html',
+    for (const f of ['pdf/brinewold-head-2027.pdf', 'pdf/brinewold-head-2027-pocket.pdf', 'pdf/saltgrist-cove-2027.pdf', 'pdf/almanac-2027.pdf', 'site/index.html',
       'data/brinewold-head-2027.ics', 'data/saltgrist-cove-2027-events.csv', 'data/saltgrist-cove-2027-events.json']) {
       expect(files).toContain(f);
     }
@@ -120,7 +120,7 @@ describe('a good build', () => {
   });
 
   it.skipIf(!hasPdftotext)('prints the same texts literally in the PDF books', () => {
-    for (const book of ['saltgrist-cove-2027.pdf', 'almanac-2027.pdf']) {
+    for (const book of ['saltgrist-cove-2027.pdf', 'saltgrist-cove-2027-pocket.pdf', 'almanac-2027.pdf']) {
       const text = execFileSync('pdftotext', [join(goodOut, 'pdf', book), '-'], { encoding: 'utf8' }).replace(/\s+/g, ' ');
       expect(text, book).toContain('<script>alert(1)</script> & Saltgrist Cove');
       expect(text, book).toContain(HOSTILE_PROVENANCE);

@@ -37,8 +37,8 @@ function printed(e: AlmanacEvent, units: 'm' | 'ft'): string {
 /** All "clock height" pairs in the text (a clock-change day adds a small offset such as +01 after the clock). */
 function pairs(text: string, units: 'm' | 'ft'): string[] {
   const re = units === 'ft'
-    ? /(\d\d:\d\d)(?:\s*UTC[+\u2212]\d\d:\d\d(?::\d\d)?)?\s+(\u2212?\d+\.\d)(?!\d)/g
-    : /(\d\d:\d\d)(?:\s*UTC[+\u2212]\d\d:\d\d(?::\d\d)?)?\s+(\u2212?\d+\.\d\d)(?!\d)/g;
+    ? /(\d\d:\d\d)(?:\s*(?:UTC)?[+\u2212]\d\d:\d\d(?::\d\d)?)?\s+(\u2212?\d+\.\d)(?!\d)/g
+    : /(\d\d:\d\d)(?:\s*(?:UTC)?[+\u2212]\d\d:\d\d(?::\d\d)?)?\s+(\u2212?\d+\.\d\d)(?!\d)/g;
   return [...text.matchAll(re)].map((m) => `${m[1]} ${m[2]}`).sort();
 }
 

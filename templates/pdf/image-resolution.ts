@@ -1,0 +1,26 @@
+// Images a publisher supplies (a logo, a sponsor's page) must print sharp: 300 pixels per inch or more
+// at the size they are printed. This says, in one line naming the file, when one would print blurry.
+const PRINT_DPI = 300;
+
+export interface PixelSize { width: number; height: number }
+
+/** Pixels per inch of an image of `pixels` printed at `widthPt` × `heightPt` points. */
+export function printedDpi(pixels: PixelSize, widthPt: number, heightPt: number): number {
+  return Math.min(pixels.width / (widthPt / 72), pixels.height / (heightPt / 72));
+}
+
+/** A warning if the image would print below 300 dpi at that size, else null. */
+export function resolutionWarning(file: string, pixels: PixelSize, widthPt: number, heightPt: number): string | null {
+  const dpi = printedDpi(pixels, widthPt, heightPt);
+  if (dpi >= PRINT_DPI) return null;
+  const mm = (pt: number) => Math.round((pt / 72) * 25.4);
+  const need = { w: Math.ceil((widthPt / 72) * PRINT_DPI), h: Math.ceil((heightPt / 72) * PRINT_DPI) };
+  return `${file}: ${Math.floor(dpi)} dpi at its printed size of ${mm(widthPt)} \u00d7 ${mm(heightPt)} mm would print blurry; `
+    + `supply it at ${need.w} \u00d7 ${need.h} pixels or more (300 dpi)`;
+}
+
+/** The pixel size of a JPEG or PNG as pdfkit reads it. */
+export function imagePixels(doc: PDFKit.PDFDocument, bytes: Uint8Array): PixelSize {
+  const image = (doc as unknown as { openImage(src: Uint8Array): PixelSize }).openImage(bytes);
+  return { width: image.width, height: image.height };
+}

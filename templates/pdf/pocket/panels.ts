@@ -1,0 +1,144 @@
+// The pocket table's panels other than the months: the cover, the key on the card's back, the levels
+// of the tide, and the caution in full.
+import type { StationYear } from '../../../engine/index.js';
+import { DATUM_ROWS } from '../datum-scale.js';
+import type { Words } from '../../locale/index.js';
+import { printable } from '../format.js';
+import type { Box } from '../geometry.js';
+import { clockGlyph, laneMark, moonGlyph } from '../glyphs.js';
+import { DARK, INK, LABEL_MIN, MID, WHITE } from '../style.js';
+import { fitLines, paragraph, put, putFitted, wrapLines } from '../text.js';
+
+export interface PanelText { title: string; publisher?: string; words: Words; southern: boolean }
+
+const BODY = 6.6;
+
+function inventedStrip(doc: PDFKit.PDFDocument, box: Box, y: number, words: Words): number {
+  doc.save().rect(box.x, y, box.width, 17).fill(INK).restore();
+  putFitted(doc, words.t('book.inventedBanner'), box.x + 4, y + 11.5, { font: 'bold', size: 7.5, color: WHITE }, box.width - 8, LABEL_MIN);
+  return y + 17;
+}
+
+export function drawCover(doc: PDFKit.PDFDocument, model: StationYear, box: Box, text: PanelText): void {
+  let y = box.y + 8;
+  putFitted(doc, text.title.toUpperCase(), box.x, y, { font: 'bold', size: 7, color: MID }, box.width, LABEL_MIN);
+  y += 38;
+  put(doc, String(model.year), box.x - 1.5, y, { font: 'bold', size: 40 });
+  y += 20;
+  const name = fitLines(doc, printable(model.station.name), { font: 'bold', size: 15 }, box.width, 3, 8);
+  for (const line of name.lines) { put(doc, line, box.x, y, name.style); y += name.style.size * 1.15; }
+  y += 2;
+  const rows: [string, string][] = [
+    ['Heights', text.words.t('site.heightsAbove', { unit: text.words.unitName(), datum: printable(model.station.datum) })],
+    ['Times', `${text.words.zoneSummary(model)} (${printable(model.timezone)})`],
+    ['Position', text.words.position(model.station.position)],
+  ];
+  if (model.station.kind === 'secondary') rows.push(['Predicted from', printable(model.reference?.name ?? model.station.reference)]);
+  for (const [k, v] of rows) {
+    put(doc, k, box.x, y, { font: 'narrow', size: LABEL_MIN, color: MID });
+    y = paragraph(doc, v, box.x + 38, y, box.width - 38, { font: 'narrow', size: BODY }, BODY * 1.2, 2) + 1;
+  }
+  y += 4;
+  if (model.invented) y = inventedStrip(doc, box, y, text.words) + 6;
+  // the caution in short at the foot, the publisher above it
+  const cautionStyle = { font: 'narrow' as const, size: LABEL_MIN, color: DARK };
+  const lines = wrapLines(doc, text.words.cautionShort, cautionStyle, box.width).length;
+  let foot = box.y + box.height - lines * LABEL_MIN * 1.2;
+  if (text.publisher) {
+    putFitted(doc, text.publisher, box.x, foot - 10, { font: 'bold', size: 8 }, box.width, LABEL_MIN);
+  }
+  doc.save().lineWidth(0.5).strokeColor(INK).moveTo(box.x, foot - 6).lineTo(box.x + box.width, foot - 6).stroke().restore();
+  foot += LABEL_MIN;
+  paragraph(doc, text.words.cautionShort, box.x, foot, box.width, cautionStyle, LABEL_MIN * 1.2);
+}
+
+export function drawKey(doc: PDFKit.PDFDocument, model: StationYear, box: Box, text: PanelText): void {
+  let y = box.y + 9;
+  put(doc, 'How to read this table', box.x, y, { font: 'bold', size: 9 });
+  y += 14;
+  const textX = box.x + 34;
+  const style = { font: 'narrow' as const, size: BODY };
+  const item = (draw: (x: number, baseline: number) => void, words: string) => {
+    draw(box.x, y);
+    y = paragraph(doc, words, textX, y, box.width - 34, style, BODY * 1.2) + 4;
+  };
+  const sample = (x: number, b: number, time: string, font: 'narrow' | 'narrow-bold') => {
+    const w = put(doc, time, x, b, { font, size: LABEL_MIN });
+    put(doc, text.words.heightNumber(4.54), x + w + 1.5, b, { font: 'narrow', size: LABEL_MIN });
+  };
+  item((x, b) => { laneMark(doc, 'high', x, b, 7); put(doc, text.words.eventShort('high'), x + 5.5, b, { font: 'narrow-bold', size: LABEL_MIN, color: MID }); },
+    'High waters: clock time (bold) and height, in time order.');
+  item((x, b) => { laneMark(doc, 'low', x, b, 7); put(doc, text.words.eventShort('low'), x + 5.5, b, { font: 'narrow-bold', size: LABEL_MIN, color: MID }); },
+    'Low waters, where the panel has room for them.');
+  item((x, b) => sample(x, b, '06:29', 'narrow-bold'), text.words.t('site.heightsAbove', { unit: text.words.unitName(), datum: printable(model.station.datum) }));
+  item((x, b) => {
+    const w = put(doc, text.words.heightNumber(-0.12, true), x, b, { font: 'narrow-bold', size: BODY });
+    doc.save().lineWidth(0.5).moveTo(x, b + 1).lineTo(x + w, b + 1).stroke(INK).restore();
+  }, 'Below chart datum: minus sign, bold, underlined. Less water than the chart shows.');
+  item((x, b) => {
+    doc.save().roundedRect(x, b - BODY * 0.92, 11, BODY * 1.18, 1.2).fill(INK).restore();
+    put(doc, '12', x + 9.5, b, { font: 'bold', size: BODY, color: WHITE }, 'right');
+  }, 'Spring tide: the day of the fortnight\u2019s largest range.');
+  item((x, b) => {
+    doc.save().lineWidth(0.7).roundedRect(x + 0.35, b - BODY * 0.92 + 0.35, 10.3, BODY * 1.18 - 0.7, 1.2).stroke(INK).restore();
+    put(doc, '19', x + 9.5, b, { font: 'bold', size: BODY }, 'right');
+  }, 'Neap tide: the day of the smallest range.');
+  item((x, b) => (['new', 'first-quarter', 'full', 'last-quarter'] as const).forEach((p, i) =>
+    moonGlyph(doc, p, x + 3 + i * 7.5, b - 2.3, 2.8, text.southern)), 'New moon, first quarter, full moon, last quarter.');
+  if (model.offsetChanges.length > 0) {
+    item((x, b) => clockGlyph(doc, x + 3, b - 2.3, 2.8), 'The clocks change that day: the note under the month says how.');
+  }
+  put(doc, 'Saturdays and Sundays are shaded; a heavy rule ends each week.', box.x, y, { font: 'narrow', size: LABEL_MIN, color: DARK });
+  y += 12;
+  if (model.invented) y = inventedStrip(doc, box, y, text.words) + 8;
+  paragraph(doc, text.words.cautionShort, box.x, Math.max(y + 2, box.y + box.height - 5 * LABEL_MIN * 1.2), box.width,
+    { font: 'narrow-bold', size: LABEL_MIN }, LABEL_MIN * 1.2);
+}
+
+export function drawLevels(doc: PDFKit.PDFDocument, model: StationYear, box: Box, text: PanelText): void {
+  let y = box.y + 9;
+  put(doc, 'Levels of the tide', box.x, y, { font: 'bold', size: 9 });
+  y += 6;
+  put(doc, text.words.t('site.heightsAbove', { unit: text.words.unit(), datum: printable(model.station.datum) }), box.x + box.width, y - 6, { font: 'narrow', size: LABEL_MIN, color: MID }, 'right');
+  y += 9;
+  for (const row of DATUM_ROWS) {
+    put(doc, row.key, box.x, y, { font: 'narrow-bold', size: BODY });
+    putFitted(doc, text.words.t(`datum.${row.key}`), box.x + 24, y, { font: 'narrow', size: BODY, color: DARK }, box.width - 52, LABEL_MIN);
+    put(doc, text.words.heightNumber(model.datums[row.key]), box.x + box.width, y, { font: 'narrow-bold', size: BODY }, 'right');
+    y += BODY * 1.45;
+  }
+  y += 6;
+  const facts: [string, string][] = [
+    ['Tide type', text.words.tideType(model.tideType.kind)],
+    ['Mean spring range', text.words.height(model.meanSpringRange)],
+    ['Mean neap range', text.words.height(model.meanNeapRange)],
+    ['Highest this year', `${text.words.height(model.extremes.highest.height)} (${text.words.date(model.extremes.highest.local.slice(0, 10))})`],
+    ['Lowest this year', `${text.words.height(model.extremes.lowest.height)} (${text.words.date(model.extremes.lowest.local.slice(0, 10))})`],
+  ];
+  for (const [k, v] of facts) {
+    put(doc, k, box.x, y, { font: 'narrow', size: BODY, color: MID });
+    putFitted(doc, v, box.x + box.width, y, { font: 'narrow', size: BODY }, box.width * 0.5, LABEL_MIN, 'right');
+    y += BODY * 1.45;
+  }
+  y += 8;
+  paragraph(doc, 'Depth available = charted depth + predicted height. Strong winds, high or low pressure and river '
+    + 'flow change the real tide by more than the predictions\u2019 last figure.', box.x, y, box.width,
+  { font: 'narrow', size: BODY, color: DARK }, BODY * 1.25);
+}
+
+export function drawCaution(doc: PDFKit.PDFDocument, model: StationYear, box: Box, text: PanelText): void {
+  let y = box.y + 9;
+  put(doc, text.words.t('caution.heading'), box.x, y, { font: 'bold', size: 9 });
+  y += 13;
+  y = paragraph(doc, text.words.caution, box.x, y, box.width, { font: 'regular', size: BODY }, BODY * 1.3);
+  if (model.invented) {
+    y = paragraph(doc, text.words.t('book.inventedCaution'),
+      box.x, y + 3, box.width, { font: 'bold', size: BODY }, BODY * 1.3);
+  }
+  y += 8;
+  put(doc, 'Source', box.x, y, { font: 'narrow-bold', size: LABEL_MIN, color: MID });
+  y = paragraph(doc, printable(model.station.provenance), box.x, y + 8, box.width, { font: 'narrow', size: LABEL_MIN, color: DARK }, LABEL_MIN * 1.25, 6);
+  const bottom = box.y + box.height;
+  if (text.publisher) putFitted(doc, text.publisher, box.x, bottom - 10, { font: 'bold', size: 8 }, box.width, LABEL_MIN);
+  put(doc, `Predictions computed with tidewright for ${model.year}.`, box.x, bottom, { font: 'narrow', size: LABEL_MIN, color: MID });
+}

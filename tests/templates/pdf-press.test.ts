@@ -1,0 +1,115 @@
+// Press output: page boxes read back with pdfinfo -box, crop marks and thumb tabs found in the rendered
+// pixels, colours written as black ink only, and the image-resolution warning.
+import { execFileSync } from 'node:child_process';
+import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { inflateSync } from 'node:zlib';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { buildStationYear } from '../../engine/index.js';
+import { loadStationSet } from '../../engine/index.js';
+import { renderStationBook } from '../../templates/pdf/book.js';
+import { pageGeometry } from '../../templates/pdf/geometry.js';
+import { resolutionWarning } from '../../templates/pdf/image-resolution.js';
+import { BLEED, blackInk, SLUG } from '../../templates/pdf/press.js';
+
+const POPPLER = ['pdfinfo', 'pdftoppm'].every((t) => existsSync(`/usr/bin/${t}`));
+if (!POPPLER) console.warn('poppler-utils not found in /usr/bin: the press output\u2019s box and pixel checks are SKIPPED');
+
+const MM = 72 / 25.4;
+let dir = '';
+let press: Buffer;
+let file = '';
+const set = loadStationSet('stations-demo');
+const model = buildStationYear(set.byId.get('brinewold-head')!, set, 2027);
+const a5 = pageGeometry('a5');
+
+beforeAll(async () => {
+  dir = mkdtempSync(join(tmpdir(), 'tidewright-press-'));
+  press = await renderStationBook(model, { units: 'm', page: 'a5', press: true });
+  file = join(dir, 'press.pdf');
+  writeFileSync(file, press);
+});
+afterAll(() => { if (dir) rmSync(dir, { recursive: true, force: true }); });
+
+/** Grey levels of page p rendered at `dpi` (pdftoppm writes a binary PGM). */
+function raster(p: number, dpi: number): { w: number; h: number; at: (xPt: number, yPt: number) => number } {
+  const out = join(dir, `p${p}`);
+  execFileSync('pdftoppm', ['-gray', '-r', String(dpi), '-f', String(p), '-l', String(p), '-singlefile', file, out]);
+  const buf = readFileSync(`${out}.pgm`);
+  const header = buf.toString('latin1', 0, 40).match(/^P5\s+(\d+)\s+(\d+)\s+255\s/)!;
+  const w = Number(header[1]);
+  const h = Number(header[2]);
+  const start = header[0].length;
+  return { w, h, at: (x, y) => buf[start + Math.round((y * dpi) / 72) * w + Math.round((x * dpi) / 72)] };
+}
+
+describe('press output', () => {
+  it.skipIf(!POPPLER)('sets TrimBox to the A5 page and BleedBox 3 mm beyond it on every page', () => {
+    const boxes = execFileSync('pdfinfo', ['-box', '-f', '1', '-l', '30', file], { encoding: 'utf8' });
+    const trims = [...boxes.matchAll(/TrimBox:\s+([\d.]+)\s+([\d.]+)\s+([\d.]+)\s+([\d.]+)/g)].map((m) => m.slice(1).map(Number));
+    const bleeds = [...boxes.matchAll(/BleedBox:\s+([\d.]+)\s+([\d.]+)\s+([\d.]+)\s+([\d.]+)/g)].map((m) => m.slice(1).map(Number));
+    expect(trims.length).toBe(3 + 24 + 1);
+    for (const [i, t] of trims.entries()) {
+      expect(t[2] - t[0]).toBeCloseTo(148 * MM, 1);
+      expect(t[3] - t[1]).toBeCloseTo(210 * MM, 1);
+      const b = bleeds[i];
+      for (const k of [0, 1]) expect(t[k] - b[k]).toBeCloseTo(3 * MM, 1);
+      for (const k of [2, 3]) expect(b[k] - t[k]).toBeCloseTo(3 * MM, 1);
+    }
+  });
+
+  it.skipIf(!POPPLER)('draws crop marks outside the bleed in line with the trim, and nothing else out there', () => {
+    const r = raster(4, 150);
+    const lines = (xPt: number, yPt: number) => r.at(xPt, yPt) < 128;
+    // the mark above the top-left corner lies on the trim's x, beyond the bleed
+    expect(lines(SLUG, SLUG - BLEED - 2 * MM)).toBe(true);
+    expect(lines(SLUG - BLEED - 2 * MM, SLUG)).toBe(true);
+    // inside the bleed at that corner: paper
+    expect(lines(SLUG - BLEED / 2, SLUG - BLEED / 2)).toBe(false);
+  });
+
+  it.skipIf(!POPPLER)('runs each month\u2019s thumb tab through the trim into the bleed at the outer edge', () => {
+    // page 4 is January's left-hand (verso) page: tab on the left, first twelfth of the type area
+    const r = raster(4, 150);
+    const y = SLUG + a5.margins.top + (a5.size.height - a5.margins.top - a5.margins.bottom) / 24;
+    expect(r.at(SLUG - BLEED / 2, y)).toBeLessThan(64); // in the bleed
+    expect(r.at(SLUG + 1, y)).toBeLessThan(64); // just inside the trim
+    // page 9 is March's right-hand page: tab on the right, third twelfth
+    const r9 = raster(9, 150);
+    const y9 = SLUG + a5.margins.top + (5 / 24) * (a5.size.height - a5.margins.top - a5.margins.bottom);
+    expect(r9.at(SLUG + a5.size.width + BLEED / 2, y9)).toBeLessThan(64);
+  });
+
+  it('writes every colour as black ink: DeviceCMYK, never DeviceRGB', () => {
+    const text = press.toString('latin1');
+    let cmyk = 0;
+    for (const m of text.matchAll(/stream\r?\n/g)) {
+      const start = m.index! + m[0].length;
+      const end = text.indexOf('endstream', start);
+      let content = '';
+      try { content = inflateSync(press.subarray(start, end)).toString('latin1'); } catch { continue; } // fonts etc.
+      expect(content).not.toMatch(/DeviceRGB|\brg\b|\bRG\b/);
+      if (content.includes('/DeviceCMYK')) cmyk++;
+    }
+    expect(cmyk).toBeGreaterThan(20);
+    expect(blackInk('#666666')).toEqual([0, 0, 0, 0.6]);
+    expect(() => blackInk('#0055aa')).toThrow(/not a grey/);
+  });
+
+  it('is byte-identical when rendered again, and a book without press has no page boxes', async () => {
+    expect((await renderStationBook(model, { units: 'm', page: 'a5', press: true })).equals(press)).toBe(true);
+    const plain = (await renderStationBook(model, { units: 'm', page: 'a5' })).toString('latin1');
+    expect(plain).not.toContain('/TrimBox');
+  });
+});
+
+describe('image resolution', () => {
+  it('warns, naming the file, when an image would print under 300 dpi', () => {
+    // 600 × 300 pixels printed 50.8 mm wide (144 pt, 2 in) is 300 dpi: fine; at 4 in it is 150 dpi
+    expect(resolutionWarning('logo.png', { width: 600, height: 300 }, 144, 72)).toBeNull();
+    const w = resolutionWarning('sponsor/logo.png', { width: 600, height: 300 }, 288, 144)!;
+    expect(w).toMatch(/^sponsor\/logo\.png: 150 dpi at its printed size of 102 × 51 mm would print blurry; supply it at 1200 × 600 pixels/);
+    expect(w).not.toContain('\n');
+  });
+});
