@@ -1,12 +1,11 @@
 // `tidewright analyse` on a current-meter record: a tidal stream station file out. Recognised by its
 // header line (time,speed,direction or time,east,north); nothing is written unless the analysis succeeded.
 
-import { readFileSync } from 'node:fs';
 import {
-  UsageError, analyseCurrentRecord, isCurrentRecord, majorAxisBearings, parseAnyStation, parseCurrentRecord, streamStationYaml,
+  UsageError, analyseCurrentRecord, readTextFile, isCurrentRecord, majorAxisBearings, parseAnyStation, parseCurrentRecord, streamStationYaml,
 } from '../engine/index.js';
 import { oneOf } from './args.js';
-import { numberOption, outputTargets, readRecordFile, stationMeta, writeOutputs } from './analyse.js';
+import { MAX_RECORD_BYTES, numberOption, outputTargets, readRecordFile, stationMeta, writeOutputs } from './analyse.js';
 import { checkOutputFiles } from './output-files.js';
 
 interface CurrentValues {
@@ -25,13 +24,13 @@ interface CurrentValues {
 
 /** Exit code when RECORD is a current-meter record (analysed and written), null when it is a tide record. */
 export function analyseCurrentFile(file: string, values: CurrentValues): number | null {
-  let text: string;
-  try {
-    text = readFileSync(file, 'utf8');
-  } catch {
+  // read with the same checks and size limit as a tide record (never a device or a pipe)
+  const read = readTextFile(file, MAX_RECORD_BYTES, 'a CSV file of time,height rows');
+  if (!('text' in read)) {
     readRecordFile(file); // the tide path's one-line error for a missing or unreadable file
     return null;
   }
+  const text = read.text;
   if (!isCurrentRecord(text)) return null;
   if (values.report !== undefined) {
     throw new UsageError('--report', 'is only for tide gauge records', 'remove --report; the stream station file carries the fit\'s figures as comments');
