@@ -49,7 +49,7 @@ describe('press output', () => {
     const boxes = execFileSync('pdfinfo', ['-box', '-f', '1', '-l', '30', file], { encoding: 'utf8' });
     const trims = [...boxes.matchAll(/TrimBox:\s+([\d.]+)\s+([\d.]+)\s+([\d.]+)\s+([\d.]+)/g)].map((m) => m.slice(1).map(Number));
     const bleeds = [...boxes.matchAll(/BleedBox:\s+([\d.]+)\s+([\d.]+)\s+([\d.]+)\s+([\d.]+)/g)].map((m) => m.slice(1).map(Number));
-    expect(trims.length).toBe(3 + 24 + 1);
+    expect(trims.length).toBe(3 + 24 + 1 + 1); // cover, facts, caution; 24 month pages; overview; imprint
     for (const [i, t] of trims.entries()) {
       expect(t[2] - t[0]).toBeCloseTo(148 * MM, 1);
       expect(t[3] - t[1]).toBeCloseTo(210 * MM, 1);
