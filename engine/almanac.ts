@@ -1,20 +1,19 @@
 // Build the StationYear model: everything a tide book prints about one station for one year, in
 // plain JSON-serialisable data that the website and the PDF books read and never recompute.
-import { basename } from 'node:path';
 import { isInvented } from './almanac/caution.js';
 import { dayEntries, monthEntries } from './almanac/days.js';
 import { almanacEvent, mm } from './almanac/format.js';
 import { generator } from './almanac/generator.js';
+import { modelStation, paddingDays, springNeapEntries } from './almanac/year-span.js';
 import { hourlyHeights } from './almanac/hourly.js';
 import { outOfRangeWarning, yearWindows } from './almanac/windows.js';
 import { lowWaterBelowLat, stationDatums } from './datums.js';
 import { UsageError } from './errors.js';
 import {
-  clock, dayIndexOf, isoLocal, isoUtc, localDate, localDays, parseDateInZone, type LocalDay,
+  clock, dayIndexOf, isoLocal, isoUtc, localDate, localDays, type LocalDay,
 } from './localtime.js';
 import { createEngineContext, type EngineContext } from './context.js';
 import { moonQuarters, skyForDays, type DaySpan, type MoonQuarter } from './sky.js';
-import { dayRange, springNeapMarkers } from './springneap.js';
 import {
   cosineCurve, harmonicStationOf, predictorFor, tideEvents, type StationLookup,
 } from './tides.js';
@@ -38,8 +37,6 @@ export interface AlmanacOptions {
 
 const MINUTE = 60_000;
 const DAY = 86_400_000;
-// Days beyond the year so the fortnightly envelope has its peaks and troughs near 1 January / 31 December.
-const SPRING_NEAP_PAD_DAYS = 20;
 
 /** The whole model of one station for one calendar year in the station's own time zone. */
 export function buildStationYear(
@@ -122,24 +119,6 @@ export function buildStationYear(
   };
 }
 
-// The SPRING_NEAP_PAD_DAYS local days before (-1) or after (+1) the year, as bare spans.
-function paddingDays(year: number, zone: string, side: -1 | 1): DaySpan[] {
-  const dates: string[] = [];
-  for (let i = 0; i <= SPRING_NEAP_PAD_DAYS; i++) {
-    const first = side < 0 ? Date.UTC(year, 0, 1 - SPRING_NEAP_PAD_DAYS) : Date.UTC(year + 1, 0, 1);
-    dates.push(new Date(first + i * DAY).toISOString().slice(0, 10));
-  }
-  const starts = dates.map((d) => parseDateInZone(d, zone));
-  return dates.slice(0, -1).map((date, i) => ({ date, start: starts[i]!, end: starts[i + 1]! }));
-}
-
-// A deep copy as loaded, its source path cut to the file name (no machine paths in published data).
-function modelStation(station: Station): Station {
-  const copy = structuredClone(station);
-  if (copy.sourceFile !== undefined) copy.sourceFile = basename(copy.sourceFile);
-  return copy;
-}
-
 // Heights from local midnight every `stepMs`, ending exactly on the next local midnight.
 function dayCurve(
   day: LocalDay, stepMs: number, sample: (start: number, step: number, count: number) => Float64Array,
@@ -157,26 +136,6 @@ function yearQuarters(quarters: readonly MoonQuarter[], days: readonly LocalDay[
       time: isoUtc(q.time), local: isoLocal(q.time, zone), clock: clock(q.time, zone),
       date: localDate(q.time, zone), phase: q.phase,
     }));
-}
-
-function springNeapEntries(
-  events: readonly TideEvent[], padDays: readonly DaySpan[], days: readonly LocalDay[],
-  quarters: readonly MoonQuarter[], ageHours: number,
-): SpringNeapEntry[] {
-  const first = days[0]!.date;
-  const last = days[days.length - 1]!.date;
-  return springNeapMarkers(events, padDays, quarters, ageHours)
-    .filter((m) => m.date >= first && m.date <= last)
-    .map((m) => {
-      const day = padDays.find((d) => d.date === m.date)!;
-      return {
-        date: m.date,
-        kind: m.kind,
-        range: mm(dayRange(events, day.start, day.end) ?? m.envelope),
-        astronomical: isoUtc(m.astronomical),
-        lagHours: Math.round(m.lagHours * 10) / 10,
-      };
-    });
 }
 
 /** The mean lag of the year's spring marks after the syzygy each follows, hours to the tenth. */

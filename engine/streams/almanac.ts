@@ -9,18 +9,17 @@
 // age of the tide (Pugh 1987) from the M2 and S2 ellipse phases.
 
 import { createEngineContext, type EngineContext } from '../context.js';
-import { basename } from 'node:path';
 import { CAUTION, isInvented } from '../almanac/caution.js';
 import { monthEntries } from '../almanac/days.js';
 import { generator } from '../almanac/generator.js';
+import { modelStation, paddingDays, springNeapEntries } from '../almanac/year-span.js';
 import { ageOfTideHours } from '../datums.js';
 import { UsageError } from '../errors.js';
 import {
-  clock, dayIndexOf, isoLocal, isoUtc, localDate, localDays, offsetString, parseDateInZone, roundToMinute,
+  clock, dayIndexOf, isoLocal, isoUtc, localDate, localDays, offsetString, roundToMinute,
   type LocalDay,
 } from '../localtime.js';
-import { moonQuarters, skyForDays, type DaySpan, type MoonQuarter } from '../sky.js';
-import { dayRange, springNeapMarkers } from '../springneap.js';
+import { moonQuarters, skyForDays, type MoonQuarter } from '../sky.js';
 import { harmonicStationOf, tideEvents, type StationLookup } from '../tides.js';
 import type { MoonPhaseEntry, MoonPhaseName, SpringNeapEntry, SpringNeapKind, Station, TideEvent } from '../types.js';
 import { STREAM_CAUTION } from './caution.js';
@@ -33,7 +32,6 @@ import { streamAlongFlood, streamEventsFor } from '../streams.js';
 
 const MINUTE = 60_000;
 const DAY = 86_400_000;
-const SPRING_NEAP_PAD_DAYS = 20;
 
 export type StreamYearLookup = StreamLookup & Partial<StationLookup>;
 
@@ -51,16 +49,6 @@ export function streamAlmanacEvent(e: StreamEvent, zone: string): StreamAlmanacE
     speed: knots(e.speed),
     direction: degrees(e.direction),
   };
-}
-
-function paddingDays(year: number, zone: string, side: -1 | 1): DaySpan[] {
-  const dates: string[] = [];
-  for (let i = 0; i <= SPRING_NEAP_PAD_DAYS; i++) {
-    const first = side < 0 ? Date.UTC(year, 0, 1 - SPRING_NEAP_PAD_DAYS) : Date.UTC(year + 1, 0, 1);
-    dates.push(new Date(first + i * DAY).toISOString().slice(0, 10));
-  }
-  const starts = dates.map((d) => parseDateInZone(d, zone));
-  return dates.slice(0, -1).map((date, i) => ({ date, start: starts[i]!, end: starts[i + 1]! }));
 }
 
 /** Stream events as the tide engine's events, for the spring–neap envelope: flood + rate, ebb − rate. */
@@ -150,12 +138,6 @@ export function buildStreamYear(
   };
 }
 
-function modelStation(station: AnyStreamStation): AnyStreamStation {
-  const copy = structuredClone(station);
-  if (copy.sourceFile !== undefined) copy.sourceFile = basename(copy.sourceFile);
-  return copy;
-}
-
 function dayCurve(station: AnyStreamStation, set: StreamYearLookup, day: LocalDay, stepMs: number, ctx: EngineContext): number[] {
   const n = Math.floor((day.end - day.start) / stepMs) + 1;
   const out = Array.from(streamAlongFlood(station, set, day.start, stepMs, n, ctx), knots);
@@ -197,24 +179,4 @@ function streamDay(
     strongestFlood: most('flood'),
     strongestEbb: most('ebb'),
   };
-}
-
-function springNeapEntries(
-  events: readonly TideEvent[], padDays: readonly DaySpan[], days: readonly LocalDay[],
-  quarters: readonly MoonQuarter[], ageHours: number,
-): SpringNeapEntry[] {
-  const first = days[0]!.date;
-  const last = days[days.length - 1]!.date;
-  return springNeapMarkers(events, padDays, quarters, ageHours)
-    .filter((m) => m.date >= first && m.date <= last)
-    .map((m) => {
-      const day = padDays.find((d) => d.date === m.date)!;
-      return {
-        date: m.date,
-        kind: m.kind,
-        range: Math.round((dayRange(events, day.start, day.end) ?? m.envelope) * 1000) / 1000,
-        astronomical: isoUtc(m.astronomical),
-        lagHours: Math.round(m.lagHours * 10) / 10,
-      };
-    });
 }
