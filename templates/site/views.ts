@@ -51,6 +51,13 @@ export interface IndexGroup {
   streamsOnly: boolean; // a group of stream stations that name no tide station
 }
 
+/** One year of the same station (and, on a month page, the same month) in the year switch. */
+export interface YearLink {
+  year: number;
+  url: string;
+  current: boolean;
+}
+
 export interface PageLink {
   url: string;
   label: string;
@@ -63,6 +70,7 @@ export interface StationYearPage {
   referenceUrl: string | null;
   months: { month: MonthEntry; url: string }[];
   clockChanges: DatedChange[];
+  years: YearLink[]; // every year of this station in the build (a switch is shown when there are several)
   downloads: { csv: string; json: string; ics: string; hourly: string; windows: null | { csv: string; json: string } };
 }
 
@@ -76,6 +84,7 @@ export interface MonthPage {
   next: PageLink | null;
   siblings: PageLink[]; // every month of the same station-year, for the month strip
   clockChanges: DatedChange[];
+  years: YearLink[]; // the same month in every year of this station in the build
 }
 
 export interface SiteData {
@@ -162,7 +171,7 @@ function monthPagesOf(model: StationYear, yearUrl: string, words: Words): MonthP
   const pages: MonthPage[] = model.months.map((month) => {
     const days = model.days.slice(month.firstDayIndex, month.firstDayIndex + month.dayCount);
     const clockChanges = clockChangesOf(days);
-    return { url: `${yearUrl}${month.slug}/`, yearUrl, model, month, days, prev: null, next: null, siblings: [], clockChanges };
+    return { url: `${yearUrl}${month.slug}/`, yearUrl, model, month, days, prev: null, next: null, siblings: [], clockChanges, years: [] };
   });
   const label = (p: MonthPage): string => words.monthName(p.month.month);
   const siblings = pages.map((p) => ({ url: p.url, label: label(p), short: words.monthShort(p.month.month) }));
@@ -188,18 +197,25 @@ export function buildSiteData(models: StationYear[], options: SiteOptions, downl
   const stationYears: StationYearPage[] = [];
   const monthPages: MonthPage[] = [];
   const seen = new Set<string>();
+  const yearsOf = new Map<string, number[]>();
+  for (const m of sorted) yearsOf.set(m.station.id, [...(yearsOf.get(m.station.id) ?? []), m.year]);
   for (const model of sorted) {
     const names = exportFileNames(model); // also checks the id is safe for a file name and a URL
     const url = stationYearUrl(model.station.id, model.year);
     if (seen.has(url)) throw new Error(`two models for ${model.station.id} ${model.year}: each station-year may appear once`);
     seen.add(url);
     const months = monthPagesOf(model, url, words);
+    const years = [...new Set(yearsOf.get(model.station.id))];
+    const yearLinks = (suffix: string): YearLink[] => years.map((year) =>
+      ({ year, url: `${stationYearUrl(model.station.id, year)}${suffix}`, current: year === model.year }));
+    for (const p of months) p.years = yearLinks(`${p.month.slug}/`);
     const ref = model.reference;
     stationYears.push({
       url, model,
       referenceUrl: ref && built.has(stationYearUrl(ref.id, model.year)) ? stationYearUrl(ref.id, model.year) : null,
       months: months.map((p) => ({ month: p.month, url: p.url })),
       clockChanges: clockChangesOf(model.days),
+      years: yearLinks(''),
       downloads: {
         csv: `/data/${names.csv}`, json: `/data/${names.json}`, ics: `/data/${names.ics}`, hourly: `/data/${names.hourly}`,
         windows: names.windows ? { csv: `/data/${names.windows.csv}`, json: `/data/${names.windows.json}` } : null,

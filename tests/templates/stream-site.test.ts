@@ -13,19 +13,17 @@ import { demoModels, htmlFiles, read, textOf } from './site-build.js';
 const DEMO = join(import.meta.dirname, '..', '..', 'stations-demo');
 let tmp: string;
 let site: string;
-let dataDir: string;
 let narrows: StreamYear;
 let gut: StreamYear;
 
 beforeAll(async () => {
   tmp = mkdtempSync(join(tmpdir(), 'tidewright-streams-'));
   site = join(tmp, 'site');
-  dataDir = join(tmp, 'data');
   const set = loadStationSet(DEMO);
   const [narrowsStation, gutStation] = ['wrackrun-narrows', 'spindrift-gut'].map((id) => set.streams!.find((s) => s.id === id)!);
   narrows = buildStreamYear(narrowsStation!, set, 2027);
   gut = buildStreamYear(gutStation!, set, 2027);
-  await renderSite(demoModels(['brinewold-head']), site, { units: 'm', quiet: true, dataDir, streams: [narrows, gut] });
+  await renderSite(demoModels(['brinewold-head']), site, { units: 'm', quiet: true, streams: [narrows, gut] });
 }, 120_000);
 
 afterAll(() => rmSync(tmp, { recursive: true, force: true }));
@@ -68,7 +66,7 @@ describe('stream pages', () => {
     expect(text).toMatch(/Secondary stream station of Wrackrun Narrows \(invented\), by time differences and rate ratios/);
     expect(text).toMatch(/Flood sets toward\s+095° true/);
     expect(text).toMatch(/Ebb sets toward\s+280° true/);
-    const csv = readFileSync(join(dataDir, 'spindrift-gut-2027-streams.csv'), 'utf8');
+    const csv = readFileSync(join(site, 'data', 'spindrift-gut-2027-streams.csv'), 'utf8');
     expect(csv).toContain('# Caution: Astronomical predictions only.');
     expect(csv).toContain('# Streams vary. Tidal streams vary across a channel');
     expect(csv).toContain('# These data are INVENTED');
@@ -76,7 +74,7 @@ describe('stream pages', () => {
     expect(rows[0]).toBe('station_id,time,time_local,type,speed_kn,direction_deg_true');
     expect(rows).toHaveLength(gut.events.length + 1);
     const json = JSON.parse(readFileSync(join(site, 'data', 'spindrift-gut-2027-streams.json'), 'utf8')) as { events: unknown[]; streamCaution: string };
-    const ics = readFileSync(join(dataDir, 'spindrift-gut-2027-streams.ics'), 'utf8');
+    const ics = readFileSync(join(site, 'data', 'spindrift-gut-2027-streams.ics'), 'utf8');
     expect(ics.match(/BEGIN:VEVENT/g)).toHaveLength(gut.events.length);
     expect(ics.replace(/\r\n /g, '')).toContain('Tidal streams vary across a channel');
     expect(ics.split('\r\n').every((l) => Buffer.byteLength(l) <= 75)).toBe(true);
