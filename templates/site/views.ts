@@ -6,6 +6,7 @@ import type {
 } from '../../engine/index.js';
 import { exportFileNames } from '../exports/write.js';
 import { wordsFor, type Units, type Words } from '../locale/index.js';
+import { siteIndex, type SiteIndex } from './index-views.js';
 import { indexStreams, streamPages, type IndexStream, type StreamMonthPage, type StreamYearPage } from './stream-views.js';
 
 export interface SiteOptions {
@@ -40,15 +41,20 @@ export interface IndexStation {
   tideType: TideTypeCode;
   invented: boolean;
   number?: string; // the publisher's station number
+  region?: string; // the region it is listed under
   years: IndexYear[];
 }
 
 export interface IndexGroup {
+  id: string; // the group's anchor on the index
+  referenceId: string | null; // null for the group of stream stations that name no tide station
   referenceName: string;
   reference: IndexStation | null; // null when the reference port itself is not in this build
   secondaries: IndexStation[];
   streams: IndexStream[]; // tidal stream stations of the same area
   streamsOnly: boolean; // a group of stream stations that name no tide station
+  /** The reference port when it is in this build but listed under another region: its page and region. */
+  elsewhere: { url: string; region: string | null } | null;
 }
 
 /** One year of the same station (and, on a month page, the same month) in the year switch. */
@@ -103,6 +109,7 @@ export interface SiteData {
   logo: string | null; // site path of the logo, e.g. /assets/logo.svg
   imprint: { epochs: string[]; sources: { name: string; provenance: string }[] };
   groups: IndexGroup[];
+  index: SiteIndex; // the groups by region, the A–Z jump list, the map, the search's words
   stationYears: StationYearPage[];
   monthPages: MonthPage[];
   streamYears: StreamYearPage[];
@@ -114,7 +121,8 @@ const byName = (a: { name: string }, b: { name: string }): number => a.name.loca
 
 export const stationYearUrl = (id: string, year: number): string => `/${id}/${year}/`;
 
-function indexGroups(models: StationYear[], streams: readonly StreamYear[], words: Words): IndexGroup[] {
+/** The index's groups of a set of station-years: each reference port with its secondary ports and streams. */
+export function indexGroups(models: readonly StationYear[], streams: readonly StreamYear[], words: Words): IndexGroup[] {
   const stations = new Map<string, IndexStation>();
   const referenceOf = new Map<string, { id: string; name: string } | null>();
   for (const m of models) {
@@ -122,7 +130,8 @@ function indexGroups(models: StationYear[], streams: readonly StreamYear[], word
     let entry = stations.get(st.id);
     if (!entry) {
       entry = { id: st.id, name: st.name, kind: st.kind, position: st.position, timezone: m.timezone,
-        tideType: m.tideType.kind, invented: m.invented, ...(st.number === undefined ? {} : { number: st.number }), years: [] };
+        tideType: m.tideType.kind, invented: m.invented, ...(st.number === undefined ? {} : { number: st.number }),
+        ...(st.region === undefined ? {} : { region: st.region }), years: [] };
       stations.set(st.id, entry);
       referenceOf.set(st.id, st.kind === 'secondary' ? (m.reference ?? { id: st.reference, name: st.reference }) : null);
     }
@@ -134,7 +143,7 @@ function indexGroups(models: StationYear[], streams: readonly StreamYear[], word
     if (entry.kind === 'reference') {
       const g = groups.get(entry.id);
       if (g) g.reference = entry;
-      else groups.set(entry.id, { referenceName: entry.name, reference: entry, secondaries: [], streams: [], streamsOnly: false });
+      else groups.set(entry.id, groupOf(entry.id, entry.name, entry));
     }
   }
   for (const entry of stations.values()) {
@@ -142,25 +151,30 @@ function indexGroups(models: StationYear[], streams: readonly StreamYear[], word
     if (!ref) continue;
     let g = groups.get(ref.id);
     if (!g) {
-      g = { referenceName: ref.name, reference: null, secondaries: [], streams: [], streamsOnly: false };
+      g = groupOf(ref.id, ref.name, null);
       groups.set(ref.id, g);
     }
     g.secondaries.push(entry);
   }
-  const groupOf = (tideId: string): string | null => {
+  const tideGroupOf = (tideId: string): string | null => {
     const key = referenceOf.get(tideId)?.id ?? tideId;
     return groups.has(key) ? key : null;
   };
   let loose: IndexStream[] = [];
-  for (const [key, list] of indexStreams(streams, groupOf)) {
+  for (const [key, list] of indexStreams(streams, tideGroupOf)) {
     if (key === null) loose = list;
     else groups.get(key)!.streams.push(...list);
   }
   const list = [...groups.values()];
   for (const g of list) g.secondaries.sort(byName);
   list.sort((a, b) => a.referenceName.localeCompare(b.referenceName, 'en'));
-  if (loose.length > 0) list.push({ referenceName: words.t('stream.groupName'), reference: null, secondaries: [], streams: loose, streamsOnly: true });
+  if (loose.length > 0) list.push({ ...groupOf(null, words.t('stream.groupName'), null), streams: loose, streamsOnly: true });
   return list;
+}
+
+function groupOf(referenceId: string | null, referenceName: string, reference: IndexStation | null): IndexGroup {
+  return { id: referenceId === null ? 'streams' : `port-${referenceId}`, referenceId, referenceName, reference,
+    secondaries: [], streams: [], streamsOnly: false, elsewhere: null };
 }
 
 function clockChangesOf(days: StationYear['days']): DatedChange[] {
@@ -225,6 +239,7 @@ export function buildSiteData(models: StationYear[], options: SiteOptions, downl
   }
   const first = sorted[0];
   const stream = streamPages(streams, words);
+  const groups = indexGroups(sorted, streams, words);
   return {
     title: options.title ?? words.t('site.defaultTitle'),
     publisher: options.publisher ?? null,
@@ -243,7 +258,8 @@ export function buildSiteData(models: StationYear[], options: SiteOptions, downl
       epochs: [...new Set(sorted.map((m) => `${m.datums.epoch.from}\u2013${m.datums.epoch.to}`))],
       sources: [...new Map([...sorted, ...streams].map((m) => [m.station.id, { name: m.station.name, provenance: m.station.provenance }])).values()],
     },
-    groups: indexGroups(sorted, streams, words),
+    groups,
+    index: siteIndex(sorted, streams, words, groups),
     stationYears,
     monthPages,
     ...stream,

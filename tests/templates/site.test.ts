@@ -247,7 +247,8 @@ describe('footer, escaping and units', () => {
 
   it('shows station text with markup as text, never as markup', () => {
     for (const file of htmlFiles(site)) {
-      const html = readFileSync(file, 'utf8');
+      // The one script of the site is the index's search box, loaded from the site's own assets.
+      const html = readFileSync(file, 'utf8').replace('<script src="assets/find.js" defer></script>', '');
       expect(html, file).not.toMatch(/<script|<b>|<i>/);
     }
     const page = read(site, 'odd-name/2027/04/index.html');

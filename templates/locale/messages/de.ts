@@ -147,6 +147,7 @@ export const de: Catalogue = {
   'index.mapHeading': "Karte der Stationen",
   'index.mapHelp': "Jeder Punkt ist eine Station; wählen Sie eine, um ihre Tafeln zu öffnen. Land: Umrisse von Natural Earth.",
   'index.mapLabel': "Karte der Stationen, jede ein Link zu ihren Tafeln",
+  'index.referenceIn': "Aufgeführt unter {region}; es folgen seine Anschlussorte in dieser Region.",
   'site.year': 'Jahr',
   'site.keySummary': 'So liest man diese Seite',
   'site.keyHigh': 'Hochwasser, in der oberen Zeile jedes Tages (auf Papier das linke Spaltenpaar),',

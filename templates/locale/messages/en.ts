@@ -142,6 +142,7 @@ export const en = {
   'index.mapHeading': "Map of the stations",
   'index.mapHelp': "Each dot is a station; choose one to open its tables. Land: Natural Earth outlines.",
   'index.mapLabel': "Map of the stations, each a link to its tables",
+  'index.referenceIn': "Listed under {region}; its secondary ports in this region follow.",
   'site.year': 'Year',
   'site.keySummary': 'How to read this page',
   'site.keyHigh': 'high water, on the upper line of each day (on paper, the left pair of columns),',

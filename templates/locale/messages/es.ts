@@ -147,6 +147,7 @@ export const es: Catalogue = {
   'index.mapHeading': "Mapa de las estaciones",
   'index.mapHelp': "Cada punto es una estación; elija una para abrir sus tablas. Tierra: contornos de Natural Earth.",
   'index.mapLabel': "Mapa de las estaciones, cada una un enlace a sus tablas",
+  'index.referenceIn': "Figura en {region}; a continuación, sus puertos secundarios de esta región.",
   'site.year': 'Año',
   'site.keySummary': 'Cómo leer esta página',
   'site.keyHigh': 'pleamar, en la línea de arriba de cada día (en papel, el par de columnas de la izquierda),',

@@ -147,6 +147,7 @@ export const fr: Catalogue = {
   'index.mapHeading': "Carte des stations",
   'index.mapHelp': "Chaque point est une station ; choisissez-en une pour ouvrir ses tables. Terres : contours Natural Earth.",
   'index.mapLabel': "Carte des stations, chacune un lien vers ses tables",
+  'index.referenceIn': "Classé sous {region} ; ses ports secondaires de cette région suivent.",
   'site.year': 'Année',
   'site.keySummary': 'Comment lire cette page',
   'site.keyHigh': 'pleine mer, sur la ligne du haut de chaque jour (sur papier, la paire de colonnes de gauche),',

@@ -146,6 +146,7 @@ export const nb: Catalogue = {
   'index.mapHeading': "Kart over stasjonene",
   'index.mapHelp': "Hvert punkt er en stasjon; velg en for å åpne tabellene. Land: omriss fra Natural Earth.",
   'index.mapLabel': "Kart over stasjonene, hver en lenke til tabellene",
+  'index.referenceIn': "Oppført under {region}; dens sekundærhavner i denne regionen følger.",
   'site.year': 'År',
   'site.keySummary': 'Slik leser du denne siden',
   'site.keyHigh': 'høyvann, på den øverste linjen hver dag (på papir det venstre kolonneparet),',

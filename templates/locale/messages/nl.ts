@@ -147,6 +147,7 @@ export const nl: Catalogue = {
   'index.mapHeading': "Kaart van de stations",
   'index.mapHelp': "Elke stip is een station; kies er een om de tabellen te openen. Land: contouren van Natural Earth.",
   'index.mapLabel': "Kaart van de stations, elk een link naar de tabellen",
+  'index.referenceIn': "Vermeld onder {region}; hieronder de secundaire havens in deze regio.",
   'site.year': 'Jaar',
   'site.keySummary': 'Zo leest u deze pagina',
   'site.keyHigh': 'hoogwater, op de bovenste regel van elke dag (op papier het linker kolommenpaar),',

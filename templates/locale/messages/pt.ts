@@ -147,6 +147,7 @@ export const pt: Catalogue = {
   'index.mapHeading': "Mapa das estações",
   'index.mapHelp': "Cada ponto é uma estação; escolha uma para abrir as suas tabelas. Terra: contornos Natural Earth.",
   'index.mapLabel': "Mapa das estações, cada uma uma ligação para as suas tabelas",
+  'index.referenceIn': "Listado em {region}; seguem-se os seus portos secundários desta região.",
   'site.year': 'Ano',
   'site.keySummary': 'Como ler esta página',
   'site.keyHigh': 'preia-mar, na linha de cima de cada dia (no papel, o par de colunas da esquerda),',
