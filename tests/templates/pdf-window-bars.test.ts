@@ -74,7 +74,7 @@ describe('window bars under the day curve', () => {
   it('the curve figure says the openings in words', () => {
     const day = model.days.find((d) => d.date === '2027-03-10')!;
     const sill = model.windows[0]!.days.find((d) => d.date === '2027-03-10')!;
-    const alt = windowsAlt(windowLookup(model.windows), day, wordsFor('en'));
+    const alt = windowsAlt(windowLookup(model.windows), day, wordsFor({ locale: 'en' }));
     expect(alt.startsWith('Marina sill: ')).toBe(true);
     for (const p of sill.pieces) expect(alt).toContain(`${p.startClock}\u2013${p.endClock}`);
     expect(alt).toContain('Road bridge: ');
