@@ -1,5 +1,6 @@
 // Lays out books as lists of logical pages: the order of the parts, and a notes page where a month
 // that fills two pages would otherwise start on a right-hand page and not face itself.
+import { firstOf, lastOf } from '../../engine/index.js';
 import { bookCoverPage } from './book-cover.js';
 import { cautionPage } from './caution.js';
 import { contentsPageCount, contentsPages } from './contents.js';
@@ -57,12 +58,14 @@ export interface CombinedText { title: string; publisher?: string; hourly?: bool
 
 export function combinedPages(views: StationView[], g: PageGeometry, row: number, text: CombinedText): LogicalPage[] {
   const invented = views.some((v) => v.model.invented);
+  const lead = firstOf(views, 'stations of the combined book');
   const years = [...new Set(views.map((v) => v.model.year))].sort((a, b) => a - b);
-  const yearText = years.length === 1 ? String(years[0]) : `${years[0]}\u2013${years[years.length - 1]}`;
-  const front: LogicalPage[] = [bookCoverPage(views, { ...text, years: yearText }, views[0].words.caution, invented)];
+  const [firstYear, lastYear] = [firstOf(years, 'years'), lastOf(years, 'years')];
+  const yearText = firstYear === lastYear ? String(firstYear) : `${firstYear}\u2013${lastYear}`;
+  const front: LogicalPage[] = [bookCoverPage(views, { ...text, years: yearText }, lead.words.caution, invented)];
   const contentsCount = contentsPageCount(views.length, contentBox(g, 1).height, g.scale);
   const mixed = views.some((v) => v.southern) && views.some((v) => !v.southern);
-  const caution = cautionPage(views[0], { combined: true, mixedHemispheres: mixed });
+  const caution = cautionPage(lead, { combined: true, mixedHemispheres: mixed });
   let next = 1 + contentsCount + 2; // after the cover, the contents and the caution page
   const sections: LogicalPage[] = [];
   const entries = views.map((view) => {
@@ -73,5 +76,5 @@ export function combinedPages(views: StationView[], g: PageGeometry, row: number
     sections.push(...pages);
     return entry;
   });
-  return [...front, ...contentsPages(entries, contentBox(g, 1).height, g.scale, invented, views[0]!.words), caution, ...sections];
+  return [...front, ...contentsPages(entries, contentBox(g, 1).height, g.scale, invented, lead.words), caution, ...sections];
 }
