@@ -18,8 +18,11 @@ export interface MapStation {
 }
 
 export interface MapDot extends MapStation {
-  x: number;
+  x: number; // where the dot is drawn
   y: number;
+  atX: number; // where the station is; a dot moved off it to stay clickable gets a leader line
+  atY: number;
+  moved: boolean;
 }
 
 export interface StationMap {
@@ -37,6 +40,52 @@ const PAD = 28; // room around the outermost dots, in SVG units
 const MARGIN_DEG = 1.5; // sea shown beyond the outermost stations, in degrees of latitude
 const WORLD_SPAN_DEG = 100; // wider than this, a whole-world projection reads better than Mercator
 const COARSE_SPAN_DEG = 40; // wider than this, the 1:110 million outline is detailed enough
+const DOT_GAP = 13; // dots closer than this (SVG units) are moved apart, so each can be chosen
+const SPREAD_ROUNDS = 40;
+
+/**
+ * Moves dots apart until none is closer than DOT_GAP to another (or the rounds run out): each pair too
+ * close is pushed apart along the line between them, dots on the same spot in a circle first.
+ */
+export function spreadDots(points: { x: number; y: number }[], width: number, height: number): { x: number; y: number }[] {
+  const at = points.map((p) => ({ x: p.x, y: p.y }));
+  const same = new Map<string, number>();
+  for (const p of at) {
+    const key = `${Math.round(p.x)},${Math.round(p.y)}`;
+    const n = same.get(key) ?? 0;
+    same.set(key, n + 1);
+    if (n > 0) { // a ring around the shared spot, a little wider for each dot already there
+      p.x += Math.cos(n * 2.4) * (DOT_GAP / 2) * Math.sqrt(n);
+      p.y += Math.sin(n * 2.4) * (DOT_GAP / 2) * Math.sqrt(n);
+    }
+  }
+  for (let round = 0; round < SPREAD_ROUNDS; round++) {
+    let moved = false;
+    for (let i = 0; i < at.length; i++) {
+      for (let j = i + 1; j < at.length; j++) {
+        const a = at[i]!;
+        const b = at[j]!;
+        const dx = b.x - a.x;
+        const dy = b.y - a.y;
+        const d = Math.hypot(dx, dy);
+        if (d >= DOT_GAP) continue;
+        const push = (DOT_GAP - d) / 2 + 0.01;
+        const [ux, uy] = d > 1e-6 ? [dx / d, dy / d] : [Math.cos(j), Math.sin(j)];
+        a.x -= ux * push;
+        a.y -= uy * push;
+        b.x += ux * push;
+        b.y += uy * push;
+        moved = true;
+      }
+    }
+    for (const p of at) {
+      p.x = Math.min(width - DOT_GAP / 2, Math.max(DOT_GAP / 2, p.x));
+      p.y = Math.min(height - DOT_GAP / 2, Math.max(DOT_GAP / 2, p.y));
+    }
+    if (!moved) break;
+  }
+  return at;
+}
 
 /**
  * The smallest run of longitudes holding every station (it may cross 180°): its west end and its
@@ -99,9 +148,14 @@ export function stationMap(stations: readonly MapStation[]): StationMap | null {
   const path = geoPath(projection).digits(1);
   const land = path(landOutline(wideSpan > COARSE_SPAN_DEG ? '110m' : '50m')) ?? '';
   const round = (v: number): number => Math.round(v * 10) / 10;
-  const dots = stations.map((s) => {
+  const places = stations.map((s) => {
     const [x, y] = projection([s.longitude, s.latitude]) ?? [NaN, NaN];
-    return { ...s, x: round(x), y: round(y) };
+    return { x, y };
+  });
+  const drawn = spreadDots(places, MAP_WIDTH, height);
+  const dots = stations.map((s, i) => {
+    const [x, y, atX, atY] = [drawn[i]!.x, drawn[i]!.y, places[i]!.x, places[i]!.y].map(round) as [number, number, number, number];
+    return { ...s, x, y, atX, atY, moved: Math.hypot(x - atX, y - atY) > 1 };
   });
   return { width: MAP_WIDTH, height, land, dots };
 }
