@@ -81,6 +81,9 @@ function textOf(limit: number) {
 /** Other text fields (levelling notes, window names, stream texts…). */
 export const text = textOf(TEXT_LIMITS.other);
 
+/** The optional region a station is grouped under in the index and the combined volumes. */
+export const region = textOf(TEXT_LIMITS.name).optional();
+
 /** Every name a station file may use for a constituent (canonical names and aliases) → canonical name. */
 export const CANONICAL_CONSTITUENT: ReadonlyMap<string, string> = new Map(
   CONSTITUENTS.flatMap((c) => [c.name, ...c.aliases].map((alias) => [alias, c.name] as const)),
@@ -103,9 +106,11 @@ function checkDay(ctx: CheckContext): void {
   if (!valid) fail(ctx, `"${day}" is not a date written YYYY-MM-DD`, 'write a date such as 2019-03-01');
 }
 
-// The station's records (all optional): the publisher's number, chart datum against the land-levelling
-// datum, the observations the constants come from, and the authority for the datum.
+// The station's records (all optional): the region it is listed and bound under, the publisher's number,
+// chart datum against the land-levelling datum, the observations the constants come from, and the
+// authority for the datum.
 const stationRecords = {
+  region,
   number: z.string().check(checkText).check((ctx) => {
     if (ctx.value.length > 16) fail(ctx, `"${ctx.value.slice(0, 20)}" is ${ctx.value.length} characters long`, 'write a short number of at most 16 characters, e.g. number: "0412"');
   }).optional(),
@@ -277,6 +282,7 @@ export const FIELD_HELP: Readonly<Record<string, string>> = {
   'constituents.*': 'write { amplitude: metres, phase: degrees }, e.g. M2: { amplitude: 1.734, phase: 211.6 }',
   'constituents.*.amplitude': 'write the amplitude in metres, zero or more, e.g. amplitude: 1.734',
   'constituents.*.phase': 'write the Greenwich phase lag in degrees from 0 up to (not including) 360, e.g. phase: 211.6',
+  region: 'write the coast or area the station belongs to, used to group the index and the combined volumes, e.g. region: "Outer Skerries", or leave it out',
   number: 'write the publisher\'s station number as quoted text, e.g. number: "0412", or leave it out',
   levelling: 'write levelling: { datum: "Land Levelling Datum", chart_datum_below: 2.71 }, or leave it out',
   'levelling.datum': 'write the name of the land-levelling datum, e.g. datum: "Land Levelling Datum"',

@@ -3,12 +3,12 @@
 
 export const STREAM_KEYS = [
   'id', 'name', 'kind', 'position', 'timezone', 'flood_direction', 'ebb_direction', 'unit', 'mean_current',
-  'constituents', 'tide_reference', 'provenance',
+  'constituents', 'tide_reference', 'provenance', 'region',
 ] as const;
 
 export const STREAM_SECONDARY_KEYS = [
   'id', 'name', 'kind', 'reference', 'position', 'timezone', 'flood_direction', 'ebb_direction', 'differences',
-  'tide_reference', 'provenance',
+  'tide_reference', 'provenance', 'region',
 ] as const;
 
 export const ELLIPSE_KEYS = ['major', 'minor', 'inclination', 'phase'] as const;

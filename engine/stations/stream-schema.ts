@@ -2,7 +2,7 @@
 // `kind: stream-secondary` (time differences and rate ratios from a stream station).
 
 import * as z from 'zod';
-import { checkConstituentName, checkTimezone, positionSchema, stationId, text } from './schema.js';
+import { checkConstituentName, checkTimezone, positionSchema, region, stationId, text } from './schema.js';
 
 const bearing = z.number().min(0).lt(360);
 
@@ -30,6 +30,7 @@ export const streamStationSchema = z.strictObject({
     }),
   tide_reference: stationId.optional(),
   provenance: text,
+  region,
 });
 
 const timeDifference = z.number().min(-720).max(720);
@@ -53,4 +54,5 @@ export const streamSecondarySchema = z.strictObject({
   }),
   tide_reference: stationId.optional(),
   provenance: text,
+  region,
 });

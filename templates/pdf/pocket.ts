@@ -84,11 +84,11 @@ export async function renderPocketTable(model: StationYear, options: PocketOptio
   const title = printable(options.title ?? words.t('book.defaultTitle'));
   const name = printable(model.station.name);
   const doc = createDocument({
-    title: `${name}: pocket tide table ${model.year}`,
+    title: words.t('pocket.title', { station: name, year: String(model.year) }),
     author: options.publisher,
-    subject: `High and low waters for ${name} in ${model.year} on one folded sheet`
-      + `${model.invented ? ' (invented demonstration data)' : ''}`,
-    keywords: 'tide predictions, high water, low water, chart datum, pocket table',
+    subject: words.t('pocket.subject', { station: name, year: String(model.year) })
+      + `${model.invented ? ` (${words.t('book.inventedSubject')})` : ''}`,
+    keywords: words.t('pocket.keywords'),
     date: editionDate(model.year),
     lang: words.tag,
   });
