@@ -33,12 +33,12 @@ export function streamSummary(model: StreamYear): string {
   for (const month of model.months) {
     const events = model.days.slice(month.firstDayIndex, month.firstDayIndex + month.dayCount).flatMap((d) => d.events);
     const best = (type: 'flood' | 'ebb') => events.filter((e) => e.type === type).reduce<(typeof events)[number] | null>((a, e) => (!a || e.speed > a.speed ? e : a), null);
-    const at = (e: (typeof events)[number] | null) => (e === null ? '—'.padEnd(25) : `${kn(e.speed)} ${deg(e.direction)} ${e.local.slice(5, 10)} ${e.clock}`.padEnd(25));
+    const at = (e: (typeof events)[number] | null) => (e === null ? '—'.padEnd(25) : `${kn(e.speed)} ${deg(e.direction)} ${e.date.slice(5, 10)} ${e.clock}`.padEnd(25));
     lines.push(`${wordsFor().monthName(month.month).padEnd(10)} ${String(events.filter((e) => e.type === 'slack').length).padStart(6)}  ${at(best('flood'))}  ${at(best('ebb'))}`);
   }
   lines.push('');
   for (const c of model.offsetChanges) lines.push(`Clock change: ${wordsFor().offsetChange(c)}`);
-  for (const w of model.warnings) lines.push(`WARNING: ${w}`);
-  lines.push(`Caution: ${model.caution}`, `Streams: ${model.streamCaution}`, '');
+  for (const w of model.warnings) lines.push(`WARNING: ${wordsFor().warning(w, '')}`);
+  lines.push(`Caution: ${wordsFor().caution}`, `Streams: ${wordsFor().t('caution.streams')}`, '');
   return lines.join('\n');
 }

@@ -3,10 +3,11 @@
 
 import { DateTime } from 'luxon';
 import {
-  CAUTION, isoLocal, isoUtc, STREAM_CAUTION, bearingOf, streamEventsFor, streamVelocities, type StreamLookup,
+  isoLocal, isoUtc, bearingOf, streamEventsFor, streamVelocities, type StreamLookup,
 } from '../engine/index.js';
 import type { AnyStreamStation, StreamEvent } from '../engine/index.js';
 import { csvTable, csvText, type ExportRecord } from '../templates/exports/fields.js';
+import { wordsFor } from '../templates/locale/index.js';
 
 const MINUTE = 60_000;
 
@@ -60,8 +61,8 @@ function header(req: StreamPredictRequest, what: string): string[] {
     `${what}, ${span} local time (end not included)`,
     'Times: local time at the station with its UTC offset. Rates: knots. Directions: degrees true toward which the stream sets.',
     `Constants: ${station.provenance}`,
-    `Caution: ${CAUTION}`,
-    `Streams: ${STREAM_CAUTION}`,
+    `Caution: ${wordsFor().caution}`,
+    `Streams: ${wordsFor().t('caution.streams')}`,
     '',
   ];
 }

@@ -1,5 +1,6 @@
 // Lays out books as lists of logical pages: the order of the parts, and a notes page where a month
 // that fills two pages would otherwise start on a right-hand page and not face itself.
+import { firstOf, lastOf } from '../../engine/index.js';
 import { bookCoverPage } from './book-cover.js';
 import { cautionPage } from './caution.js';
 import { contentsPageCount, contentsPages } from './contents.js';
@@ -64,12 +65,14 @@ export interface CombinedText { title: string; publisher?: string; hourly?: bool
 /** The combined book up to the last station's pages; the caller adds what follows (streams, back pages, imprint). */
 export function combinedPages(views: StationView[], g: PageGeometry, row: number, text: CombinedText, front: LogicalPage[] = []): LogicalPage[] {
   const invented = views.some((v) => v.model.invented);
+  const lead = firstOf(views, 'stations of the combined book');
   const years = [...new Set(views.map((v) => v.model.year))].sort((a, b) => a - b);
-  const yearText = years.length === 1 ? String(years[0]) : `${years[0]}\u2013${years[years.length - 1]}`;
-  const cover: LogicalPage[] = [bookCoverPage(views, { ...text, years: yearText }, views[0].words.caution, invented)];
+  const [firstYear, lastYear] = [firstOf(years, 'years'), lastOf(years, 'years')];
+  const yearText = firstYear === lastYear ? String(firstYear) : `${firstYear}\u2013${lastYear}`;
+  const cover: LogicalPage[] = [bookCoverPage(views, { ...text, years: yearText }, lead.words.caution, invented)];
   const contentsCount = contentsPageCount(views.length, contentBox(g, 1).height, g.scale);
   const mixed = views.some((v) => v.southern) && views.some((v) => !v.southern);
-  const caution = cautionPage(views[0], { combined: true, mixedHemispheres: mixed });
+  const caution = cautionPage(lead, { combined: true, mixedHemispheres: mixed });
   let next = 1 + contentsCount + 2 + front.length; // after the cover, the contents, the caution page and the publisher's front pages
   const sections: LogicalPage[] = [];
   const entries = views.map((view) => {
@@ -80,5 +83,5 @@ export function combinedPages(views: StationView[], g: PageGeometry, row: number
     sections.push(...pages);
     return entry;
   });
-  return [...cover, ...contentsPages(entries, contentBox(g, 1).height, g.scale, invented, views[0]!.words), caution, ...front, ...sections];
+  return [...cover, ...contentsPages(entries, contentBox(g, 1).height, g.scale, invented, lead.words), caution, ...front, ...sections];
 }

@@ -1,5 +1,6 @@
 // The cover of a station book, also used (as a section title page) for each station of a combined
 // book: station, year, position, datum, the kind of port, a real fortnight of its tide, the caution.
+import { firstOf, lastOf } from '../../engine/index.js';
 import { cautionBlock, coverImage, inventedBanner } from './cover-parts.js';
 import { printable } from './format.js';
 import type { LogicalPage, PageContext } from './page.js';
@@ -78,13 +79,13 @@ function drawFortnight(ctx: PageContext, view: StationView, x: number, y: number
   doc.moveTo(px(0), y + h);
   heights.forEach((v, i) => doc.lineTo(px(i), py(v)));
   doc.lineTo(px(heights.length - 1), y + h).closePath().fill(LIGHT);
-  doc.moveTo(px(0), py(heights[0]));
+  doc.moveTo(px(0), py(firstOf(heights, 'fortnight heights')));
   heights.forEach((v, i) => doc.lineTo(px(i), py(v)));
   doc.lineWidth(1.1 * s).strokeColor(INK).stroke();
   doc.lineWidth(0.5 * s).strokeColor(INK).moveTo(x, y + h).lineTo(x + w, y + h).stroke();
   doc.restore();
-  const first = days[0].date;
-  const last = days[days.length - 1].date;
+  const first = firstOf(days, 'fortnight days').date;
+  const last = lastOf(days, 'fortnight days').date;
   put(doc, view.words.t('book.fortnight', { from: view.words.date(first, { year: false }), to: view.words.date(last) }), x, y + h + 10 * s,
     { font: 'narrow', size: 7 * s, color: MID });
 }

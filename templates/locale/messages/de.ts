@@ -376,6 +376,7 @@ export const de: Catalogue = {
   'hours.other': '{month}, Stunde für Stunde',
   'window.allDay': 'ganztägig offen',
   'window.noOpening': 'keine Öffnung',
+  'window.barKey': 'offen: {window}', // the month page's key to the bar under each day curve
   'window.key': 'Zugangsfenster, minutengenau ({rules}). 00:00 oder 24:00: über Mitternacht offen. Lassen Sie Spielraum: Wind und Luftdruck verändern die Höhe.',
   'window.secondaryNote': 'In einem Anschlussort stammen die Zeiten der Fenster und die stündlichen Höhen aus einer halben Kosinuskurve zwischen den vorausberechneten Hoch- und Niedrigwassern des Ortes selbst, nicht aus einer harmonischen Vorausberechnung. Die Kurve stimmt nur bei Hoch- und Niedrigwasser; dazwischen kann sie um 0,1 bis 0,7 m abweichen und ein Fenster um 10 bis 30 Minuten verschieben, um Stunden, wo die Tide nahe dem Niveau stillsteht. Lassen Sie reichlich Spielraum.',
   'site.dlHourly': 'Höhen zu jeder Stunde des Jahres',

@@ -371,6 +371,7 @@ export const en = {
   'hours.other': '{month}, hour by hour',
   'window.allDay': 'open all day',
   'window.noOpening': 'no opening',
+  'window.barKey': 'open: {window}', // the month page's key to the bar under each day curve
   'window.key': 'access windows, to the minute ({rules}). 00:00 or 24:00: open across midnight. Leave a margin: wind and pressure change the height.',
   'window.secondaryNote': "At a secondary port, window times and hourly heights come from a half-cosine curve drawn between the port's own predicted high and low waters, not from a harmonic prediction. The curve is exact at high and low water only; between them it can be out by 0.1 to 0.7 m and move a window by 10 to 30 minutes, and by hours where the tide stands near the level. Leave a wide margin.",
   'site.dlHourly': 'Heights on every hour of the year',

@@ -376,6 +376,7 @@ export const es: Catalogue = {
   'hours.other': '{month}, hora a hora',
   'window.allDay': 'abierto todo el día',
   'window.noOpening': 'sin apertura',
+  'window.barKey': 'abierto: {window}', // the month page's key to the bar under each day curve
   'window.key': 'ventanas de acceso, al minuto ({rules}). 00:00 o 24:00: abierto a través de la medianoche. Deje margen: el viento y la presión cambian la altura.',
   'window.secondaryNote': 'En un puerto secundario, las horas de las ventanas y las alturas horarias salen de una curva de medio coseno trazada entre las pleamares y bajamares previstas del propio puerto, no de una predicción armónica. La curva solo es exacta en pleamar y bajamar; entre ellas puede desviarse de 0,1 a 0,7 m y mover una ventana de 10 a 30 minutos, y horas donde la marea se estanca cerca del nivel. Deje un margen amplio.',
   'site.dlHourly': 'Alturas en cada hora del año',

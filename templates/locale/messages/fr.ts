@@ -376,6 +376,7 @@ export const fr: Catalogue = {
   'hours.other': '{month}, heure par heure',
   'window.allDay': 'ouvert toute la journée',
   'window.noOpening': 'aucune ouverture',
+  'window.barKey': 'ouvert : {window}', // the month page's key to the bar under each day curve
   'window.key': 'fenêtres d’accès, à la minute près ({rules}). 00:00 ou 24:00 : ouvert à cheval sur minuit. Gardez une marge : le vent et la pression modifient la hauteur.',
   'window.secondaryNote': 'Dans un port secondaire, les heures des fenêtres et les hauteurs horaires proviennent d’une demi-cosinusoïde tracée entre les pleines et basses mers prédites du port, et non d’une prédiction harmonique. La courbe n’est exacte qu’aux pleines et basses mers ; entre elles elle peut s’écarter de 0,1 à 0,7 m et décaler une fenêtre de 10 à 30 minutes, et de plusieurs heures quand la marée stationne près du niveau. Gardez une large marge.',
   'site.dlHourly': 'Hauteurs à chaque heure de l’année',

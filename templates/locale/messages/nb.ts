@@ -375,6 +375,7 @@ export const nb: Catalogue = {
   'hours.other': '{month}, time for time',
   'window.allDay': 'åpent hele dagen',
   'window.noOpening': 'ingen åpning',
+  'window.barKey': 'åpent: {window}', // the month page's key to the bar under each day curve
   'window.key': 'tilgangsvinduer, på minuttet ({rules}). 00:00 eller 24:00: åpent over midnatt. Hold margin: vind og lufttrykk endrer høyden.',
   'window.secondaryNote': 'I en sekundærhavn kommer vindustidene og timehøydene fra en halv cosinuskurve trukket mellom havnens egne beregnede høy- og lavvann, ikke fra en harmonisk beregning. Kurven er riktig bare ved høy- og lavvann; mellom dem kan den bomme med 0,1 til 0,7 m og flytte et vindu 10 til 30 minutter, og timer der tidevannet står stille nær nivået. Hold god margin.',
   'site.dlHourly': 'Høyder hver time gjennom året',

@@ -376,6 +376,7 @@ export const nl: Catalogue = {
   'hours.other': '{month}, uur voor uur',
   'window.allDay': 'de hele dag open',
   'window.noOpening': 'geen opening',
+  'window.barKey': 'open: {window}', // the month page's key to the bar under each day curve
   'window.key': 'toegangsvensters, op de minuut ({rules}). 00:00 of 24:00: open over middernacht heen. Houd marge: wind en luchtdruk veranderen de hoogte.',
   'window.secondaryNote': 'In een secundaire haven komen de tijden van de vensters en de uurhoogten uit een halve cosinuskromme tussen de voorspelde hoog- en laagwaters van de haven zelf, niet uit een harmonische voorspelling. De kromme klopt alleen bij hoog- en laagwater; daartussen kan zij 0,1 tot 0,7 m afwijken en een venster 10 tot 30 minuten verschuiven, en uren waar het getij stilstaat bij het niveau. Houd ruime marge.',
   'site.dlHourly': 'Hoogten op elk uur van het jaar',

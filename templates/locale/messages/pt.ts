@@ -376,6 +376,7 @@ export const pt: Catalogue = {
   'hours.other': '{month}, hora a hora',
   'window.allDay': 'aberto todo o dia',
   'window.noOpening': 'sem abertura',
+  'window.barKey': 'aberto: {window}', // the month page's key to the bar under each day curve
   'window.key': 'janelas de acesso, ao minuto ({rules}). 00:00 ou 24:00: aberto através da meia-noite. Deixe margem: o vento e a pressão alteram a altura.',
   'window.secondaryNote': 'Num porto secundário, as horas das janelas e as alturas horárias vêm de uma curva de meio cosseno traçada entre as preia-mares e baixa-mares previstas do próprio porto, não de uma previsão harmónica. A curva só é exata na preia-mar e na baixa-mar; entre elas pode errar de 0,1 a 0,7 m e deslocar uma janela de 10 a 30 minutos, e horas onde a maré estaciona perto do nível. Deixe uma margem larga.',
   'site.dlHourly': 'Alturas em cada hora do ano',
