@@ -176,9 +176,9 @@ function drawSun(doc: PDFKit.PDFDocument, day: DayEntry, f: RowFrame, y: { high:
   const style: TextStyle = { font: 'narrow', size: monthType(u).clock };
   if (day.sunNote) {
     const w = f.words;
-    const words = day.sunNote === 'sun-up-all-day' ? [w.t('sun.upShort'), w.t('sun.allDayShort')] : [w.t('sun.downShort'), w.t('sun.allDayShort')];
-    putFitted(doc, words[0], sun.x, y.high, { ...style, font: 'narrow-bold' }, sun.w, 4.5 * u);
-    putFitted(doc, words[1], sun.x, y.low, { ...style, font: 'narrow-bold' }, sun.w, 4.5 * u);
+    const upper = w.t(day.sunNote === 'sun-up-all-day' ? 'sun.upShort' : 'sun.downShort');
+    putFitted(doc, upper, sun.x, y.high, { ...style, font: 'narrow-bold' }, sun.w, 4.5 * u);
+    putFitted(doc, w.t('sun.allDayShort'), sun.x, y.low, { ...style, font: 'narrow-bold' }, sun.w, 4.5 * u);
     return;
   }
   const glyph = 7.4 * u;

@@ -1,6 +1,6 @@
 // A month page: heading with the month, the station, the clock offsets in force and the height
 // unit; column heads; then one row per day.
-import type { DayEntry } from '../../engine/index.js';
+import { firstOf, lastOf, type DayEntry } from '../../engine/index.js';
 import type { Words } from '../locale/index.js';
 import { drawDayRow } from './day-row.js';
 import { laneMark } from './glyphs.js';
@@ -47,8 +47,8 @@ export function monthPage(view: StationView, part: MonthPart, row: number): Logi
       const rightX = box.x + box.width;
       const headW = box.width - mw - widthOf(doc, ` ${model.year}`, { font: 'regular', size: 21 * u }) - 14 * u;
       putFitted(doc, view.name, rightX, y0 + 8 * u, { font: 'bold', size: 9.5 * u }, headW, 6 * u, 'right');
-      const first = part.days[0].dayOfMonth;
-      const last = part.days[part.days.length - 1].dayOfMonth;
+      const first = firstOf(part.days, 'days of the month part').dayOfMonth;
+      const last = lastOf(part.days, 'days of the month part').dayOfMonth;
       const w = view.words;
       const span = part.partCount > 1
         ? w.t('book.daySpan', { first, last, count: part.month.dayCount })

@@ -1,6 +1,6 @@
 // The pocket table: a whole year of one station on one sheet, printed on both sides and folded to
 // pocket size (see pocket/fold.ts for the panels and the fold).
-import type { StationYear } from '../../engine/index.js';
+import { itemAt, type StationYear } from '../../engine/index.js';
 import { createDocument, editionDate, finish } from './document.js';
 import { printable } from './format.js';
 import type { Box, Size } from './geometry.js';
@@ -73,7 +73,7 @@ function drawPanel(doc: PDFKit.PDFDocument, model: StationYear, content: PanelCo
     case 'key': return drawKey(doc, model, box, text);
     case 'levels': return drawLevels(doc, model, box, text);
     case 'caution': return drawCaution(doc, model, box, text);
-    case 'month': return drawPocketMonth(doc, model, model.months[content.month - 1], box, layout, text.words, text.southern);
+    case 'month': return drawPocketMonth(doc, model, itemAt(model.months, content.month - 1, 'months'), box, layout, text.words, text.southern);
   }
 }
 

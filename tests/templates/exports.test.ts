@@ -5,7 +5,8 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import ICAL from 'ical.js';
 import { beforeAll, describe, expect, it } from 'vitest';
-import type { StationYear } from '../../engine/index.js';
+import { firstOf, itemAt, type StationYear } from '../../engine/index.js';
+import { zipSame } from '../fixtures/lists.js';
 import { csvField, eventsCsv } from '../../templates/exports/csv.js';
 import { escapeText, eventsICalendar, foldLine } from '../../templates/exports/icalendar.js';
 import { eventsJson } from '../../templates/exports/json.js';
@@ -27,7 +28,7 @@ beforeAll(() => {
 function csvRows(text: string): { header: string[]; rows: string[][]; notes: string[] } {
   const lines = text.split('\r\n').filter((l) => l !== '');
   const notes = lines.filter((l) => l.startsWith('# '));
-  const [header, ...rows] = lines.filter((l) => !l.startsWith('#')).map((l) => l.split(','));
+  const [header = [], ...rows] = lines.filter((l) => !l.startsWith('#')).map((l) => l.split(','));
   return { header, rows, notes };
 }
 
@@ -38,12 +39,11 @@ describe('CSV', () => {
     const { header, rows, notes } = csvRows(text);
     expect(header).toEqual(['station_id', 'time', 'time_local', 'date_local', 'type', 'height_m', 'below_chart_datum']);
     expect(rows).toHaveLength(model.events.length);
-    rows.forEach((row, i) => {
-      const e = model.events[i];
+    zipSame(rows, model.events, 'CSV rows').forEach(([row, e]) => {
       expect(row).toEqual(['brinewold-head', e.time, e.local, e.date, e.type, e.height.toFixed(3), String(e.belowDatum)]);
     });
-    const below = { ...model, events: [{ ...model.events[1]!, height: -0.12, belowDatum: true }] };
-    expect(csvRows(eventsCsv(below, wordsFor({ units: 'm' }))).rows[0]!.slice(5)).toEqual(['-0.120', 'true']);
+    const below = { ...model, events: [{ ...itemAt(model.events, 1, 'events'), height: -0.12, belowDatum: true }] };
+    expect(csvRows(eventsCsv(below, wordsFor({ units: 'm' }))).rows[0]?.slice(5)).toEqual(['-0.120', 'true']);
     expect(notes.join(' ')).toContain(wordsFor().caution);
     expect(notes.join(' ')).toContain('INVENTED');
     expect(notes.join(' ')).toContain(model.station.provenance);
@@ -52,7 +52,7 @@ describe('CSV', () => {
   it('in feet converts with the international foot and names the column so', () => {
     const { header, rows } = csvRows(eventsCsv(model, wordsFor({ units: 'ft' })));
     expect(header[5]).toBe('height_ft');
-    expect(Number(rows[0][5])).toBeCloseTo(model.events[0].height / 0.3048, 2); // 1 ft = 0.3048 m exactly
+    expect(Number(rows[0]?.[5])).toBeCloseTo(firstOf(model.events, 'events').height / 0.3048, 2); // 1 ft = 0.3048 m exactly
   });
 
   it('quotes fields holding commas, quotes or line breaks (RFC 4180 §2.6–2.7)', () => {
@@ -90,7 +90,7 @@ describe('iCalendar', () => {
     const events = calendar.getAllSubcomponents('vevent');
     expect(events).toHaveLength(model.events.length);
     const first = new ICAL.Event(events[0]);
-    const e = model.events[0];
+    const e = firstOf(model.events, 'events');
     expect(first.startDate.toJSDate().toISOString().replace('.000', '')).toBe(e.time);
     expect(first.startDate.zone?.tzid).toBe('UTC');
     expect(first.summary).toBe(`${e.type === 'high' ? 'High' : 'Low'} water ${fixed(e.height, 2)} m`);
@@ -159,7 +159,7 @@ describe('iCalendar', () => {
 
   it('in feet says feet in each summary', () => {
     const calendar = new ICAL.Component(ICAL.parse(eventsICalendar(model, wordsFor({ units: 'ft' }))));
-    const e = model.events[0];
+    const e = firstOf(model.events, 'events');
     expect(new ICAL.Event(calendar.getAllSubcomponents('vevent')[0]).summary)
       .toBe(`${e.type === 'high' ? 'High' : 'Low'} water ${fixed(e.height / 0.3048, 1)} ft`);
   });
