@@ -40,7 +40,7 @@ const PAD = 28; // room around the outermost dots, in SVG units
 const MARGIN_DEG = 1.5; // sea shown beyond the outermost stations, in degrees of latitude
 const WORLD_SPAN_DEG = 100; // wider than this, a whole-world projection reads better than Mercator
 const COARSE_SPAN_DEG = 40; // wider than this, the 1:110 million outline is detailed enough
-const DOT_GAP = 13; // dots closer than this (SVG units) are moved apart, so each can be chosen
+const DOT_GAP = 15; // dots closer than this (SVG units) are moved apart, so each can be chosen
 const SPREAD_ROUNDS = 40;
 
 /**
