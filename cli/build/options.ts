@@ -1,4 +1,5 @@
 // The choices a build can be given (command line, project file, defaults) and their allowed values.
+import type { PublisherPage } from '../../templates/pages/types.js';
 
 export const UNITS = ['m', 'ft'] as const;
 export const PAGE_SIZES = ['a5', 'a6', 'a4', 'letter', 'half-letter'] as const;
@@ -28,6 +29,8 @@ export interface RenderChoices {
   contact?: string; // who to call: the imprint page and the site
   accent?: string; // #rrggbb, contrast-checked: the site's accent colour
   logo?: string; // absolute path of a checked SVG, PNG or JPEG file
+  coverImage?: string; // absolute path of a checked picture: the book covers and the site's front page
+  pages?: PublisherPage[]; // the publisher's own pages, checked (cli/build/pages.ts)
 }
 
 /** Everything one build needs to know, after the command line, the project file and the defaults. */
