@@ -134,7 +134,7 @@ export async function renderSite(models: StationYear[], outDir: string, options:
     }
   }
   for (const model of options.streams ?? []) {
-    const names = await writeStreamExports(model, siteData, siteWords(options));
+    const names = await writeStreamExports(model, siteData, siteWords(options), options.stamp);
     if (options.dataDir) {
       await mkdir(options.dataDir, { recursive: true });
       for (const name of [names.csv, names.json, names.ics]) await linkOrCopy(join(siteData, name), join(options.dataDir, name));
