@@ -20,6 +20,8 @@ interface OffsetTable {
   offsets: number[]; // offset in minutes from starts[i] to starts[i + 1]
 }
 
+// Module scope on purpose, unlike the station caches of EngineContext: the tables depend on no station
+// (only on the tz database luxon reads), are bounded by MAX_TABLES and are cleared whole.
 const tables = new Map<string, OffsetTable>();
 const lastUsed = new Map<string, OffsetTable>(); // per zone name, the table used last
 

@@ -12,6 +12,7 @@ import { commitOutput, createTemp, discardTemp, planOutput, recoverStale, type O
 import { combinedBookName, stationYearFile } from './paths.js';
 import type { Progress } from './progress.js';
 import { siteFilesFolder } from './site-files.js';
+import { siteThemeFolder } from './site-theme.js';
 import { countPdfPages, type StationOutcome } from './station-job.js';
 
 export interface ComputeRequest {
@@ -137,6 +138,7 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
   const years = plan.years ?? [plan.year];
   const streamStations = checked.streams ?? [];
   const siteFiles = siteFilesFolder(plan.stationsDir, [...stations, ...streamStations].map((s) => s.id));
+  const siteTheme = siteThemeFolder(plan.stationsDir);
 
   createTemp(target);
   events.tempCreated(target);
@@ -176,7 +178,8 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
     const beside = workers > 1 && stations.length <= BESIDE_MAX_STATIONS;
     const name = combinedBookName(plan.render.title, stations.map((s) => s.id));
     const site = (): Promise<unknown> => step('rendering the website and downloads', times,
-      () => deps.renderSite(models, join(target.temp, 'site'), plan.render, siteFiles ?? undefined, streamModels));
+      () => deps.renderSite(models, join(target.temp, 'site'),
+        siteTheme === null ? plan.render : { ...plan.render, siteTheme }, siteFiles ?? undefined, streamModels));
     const book = (): Promise<void> => step('rendering the combined book', times, async () => {
       for (const year of years) {
         const pdf = await deps.renderCombinedBook(models.filter((m) => m.year === year), plan.render, beside, events.signal,

@@ -5,10 +5,12 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import ICAL from 'ical.js';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { firstOf, itemAt, type StationYear } from '../../engine/index.js';
+import { buildStreamYear, firstOf, itemAt, loadStationSet, type StationYear } from '../../engine/index.js';
+import { streamEventsICalendar } from '../../templates/exports/streams.js';
 import { zipSame } from '../fixtures/lists.js';
 import { csvField, eventsCsv } from '../../templates/exports/csv.js';
-import { escapeText, eventsICalendar, foldLine } from '../../templates/exports/icalendar.js';
+import { escapeText, foldLine } from '../../templates/exports/calendar.js';
+import { eventsICalendar } from '../../templates/exports/icalendar.js';
 import { eventsJson } from '../../templates/exports/json.js';
 import { wordsFor } from '../../templates/locale/index.js';
 import { exportFileNames, writeExports } from '../../templates/exports/write.js';
@@ -112,6 +114,31 @@ describe('iCalendar', () => {
       expect(event.description).not.toMatch(/\n/);
       expect(event.description.length).toBeLessThanOrEqual(80);
       expect(event.summary.length).toBeLessThanOrEqual(40);
+    }
+  });
+
+  it('writes the stream calendar the same way: one head with both cautions once, short events, the edition stamp', () => {
+    const set = loadStationSet(join(import.meta.dirname, '..', '..', 'stations-demo'));
+    const station = set.streams?.find((s) => s.id === 'spindrift-gut');
+    if (station === undefined) throw new Error('the demo has no spindrift-gut stream station');
+    const streams = buildStreamYear(station, set, 2027);
+    const stamp = Date.parse('2026-11-15T00:00:00Z');
+    const text = streamEventsICalendar(streams, wordsFor(), stamp);
+    const unfolded = text.replace(/\r\n /g, '');
+    expect(unfolded.split(escapeText(wordsFor().caution)).length - 1).toBe(1);
+    expect(unfolded.split(escapeText(wordsFor().t('caution.streams'))).length - 1).toBe(1);
+    const calendar = new ICAL.Component(ICAL.parse(text));
+    const events = calendar.getAllSubcomponents('vevent');
+    expect(events).toHaveLength(streams.events.length);
+    expect(new Set(text.match(/^DTSTAMP:.*$/gm))).toEqual(new Set(['DTSTAMP:20261115T000000Z']));
+    // the tide calendar of the same edition carries the same head lines and stamp
+    const tide = eventsICalendar(model, wordsFor(), stamp).split('\r\n');
+    const stream = text.split('\r\n');
+    expect(stream.slice(0, 5)).toEqual(tide.slice(0, 5).map((l) => l.replace(model.generator.version, streams.generator.version)));
+    for (const v of events) {
+      const event = new ICAL.Event(v);
+      expect(event.uid).toMatch(/^spindrift-gut-(slack|flood|ebb)-\d{8}T\d{6}Z@tidewright$/);
+      expect(event.description.length).toBeLessThanOrEqual(80);
     }
   });
 
