@@ -13,6 +13,7 @@ import { combinedBookName, stationYearFile } from './paths.js';
 import type { Progress } from './progress.js';
 import { siteFilesFolder } from './site-files.js';
 import { siteThemeFolder } from './site-theme.js';
+import { pictureWarnings } from './picture-warnings.js';
 import { countPdfPages, type StationOutcome } from './station-job.js';
 
 export interface ComputeRequest {
@@ -108,6 +109,7 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
   events.progress.stage('checking the station files');
   const checked = deps.checkSet(plan.stationsDir);
   for (const note of checked.notes ?? []) events.note(note);
+  for (const warning of pictureWarnings(plan.render)) events.note(warning);
   if (checked.problems.length > 0) throw new StationSetInvalid(checked.problems);
   const stations = checked.stations;
   const year = plan.year;
