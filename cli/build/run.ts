@@ -15,6 +15,7 @@ import { siteFilesFolder } from './site-files.js';
 import { siteThemeFolder } from './site-theme.js';
 import { pictureWarnings } from './picture-warnings.js';
 import { countPdfPages, type StationOutcome } from './station-job.js';
+import { worstPerFile, type ImageWarning } from '../../templates/pdf/image-resolution.js';
 
 export interface ComputeRequest {
   stationsDir: string;
@@ -123,11 +124,13 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
     const units = workUnits(stations, plan.workers ?? deps.cores());
     const workers = poolSize(plan.workers, deps.cores(), units.length);
     const outcomes = new Map<string, StationOutcome>();
+    const imageWarnings: ImageWarning[] = []; // every book places the same pictures: one line per file below
     events.progress.stage('computing', stations.length);
     await step('computing the stations', times, () => deps.computeStations(
       { stationsDir: plan.stationsDir, year, tempDir: target.temp, render: plan.render, units, workers },
       (outcome) => {
         outcomes.set(outcome.id, outcome);
+        imageWarnings.push(...outcome.imageWarnings ?? []);
         events.progress.tick(outcomes.size);
       },
       events.signal,
@@ -141,6 +144,7 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
       : [];
     let pdfPages = stations.reduce((n, s) => n + outcomes.get(s.id)!.pdfPages, 0);
     outcomes.clear();
+    for (const w of worstPerFile(imageWarnings)) events.note(w.text);
     if (streamModels.length > 0 && deps.renderStreamBook) {
       await step('rendering the stream books', times, async () => {
         const pdfDir = join(target.temp, 'pdf');
