@@ -38,7 +38,9 @@ const FIELD_FIX: Readonly<Record<keyof ProjectSettings, string>> = {
   press: 'write press: true for print-shop books (bleed, crop marks, page boxes), or press: false',
   pocket: 'write pocket: true for a folded one-sheet pocket table beside each book, or pocket: false',
 };
-const KEYS = Object.keys(FIELD_FIX) as (keyof ProjectSettings)[];
+/** Every setting tidewright.yaml may hold, in the order messages list them. */
+export const PROJECT_KEYS = Object.keys(FIELD_FIX) as (keyof ProjectSettings)[];
+const KEYS = PROJECT_KEYS;
 
 function checkLocale(ctx: z.core.ParsePayload<string>): void {
   let canonical: string[] = [];

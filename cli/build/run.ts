@@ -13,7 +13,9 @@ import { combinedBookName, stationYearFile } from './paths.js';
 import type { Progress } from './progress.js';
 import { siteFilesFolder } from './site-files.js';
 import { siteThemeFolder } from './site-theme.js';
+import { pictureWarnings } from './picture-warnings.js';
 import { countPdfPages, type StationOutcome } from './station-job.js';
+import { worstPerFile, type ImageWarning } from '../../templates/pdf/image-resolution.js';
 
 export interface ComputeRequest {
   stationsDir: string;
@@ -104,14 +106,16 @@ async function allSettledOrFirstError(work: Promise<unknown>[]): Promise<void> {
 async function computeYear(
   plan: BuildPlan, deps: BuildDeps, events: BuildEvents, times: Record<string, number>,
   job: { year: number; tempDir: string; units: string[][]; workers: number }, stations: readonly Station[],
-): Promise<{ models: StationYear[]; pdfPages: number }> {
+): Promise<{ models: StationYear[]; pdfPages: number; imageWarnings: ImageWarning[] }> {
   const outcomes = new Map<string, StationOutcome>();
+  const imageWarnings: ImageWarning[] = [];
   const several = (plan.years ?? [plan.year]).length > 1;
   events.progress.stage(several ? `computing ${job.year}` : 'computing', stations.length);
   await step('computing the stations', times, () => deps.computeStations(
     { stationsDir: plan.stationsDir, render: plan.render, ...job },
     (outcome) => {
       outcomes.set(outcome.id, outcome);
+      imageWarnings.push(...outcome.imageWarnings ?? []);
       events.progress.tick(outcomes.size);
     },
     events.signal,
@@ -121,6 +125,7 @@ async function computeYear(
   return {
     models: stations.map((s) => outcomes.get(s.id)!.model),
     pdfPages: stations.reduce((n, s) => n + outcomes.get(s.id)!.pdfPages, 0),
+    imageWarnings,
   };
 }
 
@@ -133,6 +138,7 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
   events.progress.stage('checking the station files');
   const checked = deps.checkSet(plan.stationsDir);
   for (const note of checked.notes ?? []) events.note(note);
+  for (const warning of pictureWarnings(plan.render)) events.note(warning);
   if (checked.problems.length > 0) throw new StationSetInvalid(checked.problems);
   const stations = checked.stations;
   const years = plan.years ?? [plan.year];
@@ -148,10 +154,12 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
     // Year after year: each year's station-years, then its stream-years and their books.
     const models: StationYear[] = [];
     const streamModels: StreamYear[] = [];
+    const imageWarnings: ImageWarning[] = []; // every book places the same pictures: one line per file below
     let pdfPages = 0;
     for (const year of years) {
       const computed = await computeYear(plan, deps, events, times, { year, tempDir: target.temp, units, workers }, stations);
       models.push(...computed.models);
+      imageWarnings.push(...computed.imageWarnings);
       pdfPages += computed.pdfPages;
       const yearStreams = streamStations.length > 0 && deps.computeStreams
         ? await step('computing the stream stations', times, async () => deps.computeStreams!(stations, streamStations, year))
@@ -169,6 +177,7 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
         });
       }
     }
+    for (const w of worstPerFile(imageWarnings)) events.note(w.text);
 
     // With more than one worker the combined book is drawn beside the website, else after it. The
     // combined book's worker holds its own copy of every model (about 0.85 MiB each) and the whole PDF,

@@ -7,10 +7,11 @@ import { createEngineContext } from '../../engine/index.js';
 import type { EngineContext, SkyEphemeris, StationSet, Station, StationYear } from '../../engine/index.js';
 import type { RenderChoices } from './options.js';
 import { assertSafeId, stationYearFile } from './paths.js';
+import { worstPerFile, type ImageWarning, type ImageWarningSink } from '../../templates/pdf/image-resolution.js';
 
 export interface StationJobDeps {
   buildStationYear(station: Station, set: StationSet, year: number, engine: EngineContext): StationYear | Promise<StationYear>;
-  renderStationBook(model: StationYear, options: RenderChoices): Promise<Buffer>;
+  renderStationBook(model: StationYear, options: RenderChoices, warn?: ImageWarningSink): Promise<Buffer>;
   renderPocketTable?(model: StationYear, options: RenderChoices): Promise<Buffer>;
 }
 
@@ -26,6 +27,7 @@ export interface StationOutcome {
   id: string;
   model: StationYear;
   pdfPages: number;
+  imageWarnings?: ImageWarning[]; // pictures of the book that would print below 300 dpi, one per file
 }
 
 /**
@@ -50,7 +52,8 @@ export async function runStationJob(id: string, ctx: StationJobContext, deps: St
   if (model.station.id !== id) throw new Error(`the model built for "${id}" names station "${model.station.id}"`);
   const pdfDir = join(ctx.tempDir, 'pdf');
   await mkdir(pdfDir, { recursive: true });
-  const pdf = await deps.renderStationBook(model, ctx.render);
+  const warnings: ImageWarning[] = [];
+  const pdf = await deps.renderStationBook(model, ctx.render, (w) => warnings.push(w));
   await writeFile(stationYearFile(pdfDir, id, ctx.year, 'pdf'), pdf);
   let pdfPages = countPdfPages(pdf);
   if (ctx.render.pocket !== false && deps.renderPocketTable) {
@@ -58,5 +61,5 @@ export async function runStationJob(id: string, ctx: StationJobContext, deps: St
     await writeFile(stationYearFile(pdfDir, id, ctx.year, 'pdf').replace(/\.pdf$/, '-pocket.pdf'), pocket);
     pdfPages += countPdfPages(pocket);
   }
-  return { id, model, pdfPages };
+  return { id, model, pdfPages, imageWarnings: worstPerFile(warnings) };
 }
