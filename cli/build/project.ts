@@ -7,6 +7,7 @@ import { StationFileError, nearestName, readTextFile } from '../../engine/index.
 import { LANGUAGES, languageOf } from '../../templates/locale/catalogue.js';
 import { ACCENT_PATTERN, contrastRatio, MIN_CONTRAST } from './accent.js';
 import { checkLogo } from './logo.js';
+import { COMBINED_MODES, MAX_VOLUME_PAGES, MIN_VOLUME_PAGES } from './volume-options.js';
 import {
   FIRST_YEAR, IMPOSITIONS, LAST_YEAR, PAGE_SIZES, UNITS, type Imposition, type PageSize, type Units,
 } from './options.js';
@@ -32,6 +33,8 @@ const FIELD_FIX: Readonly<Record<keyof ProjectSettings, string>> = {
   logo: 'write the path of an SVG, PNG or JPEG file, relative to tidewright.yaml, e.g. logo: brand/logo.svg',
   press: 'write press: true for print-shop books (bleed, crop marks, page boxes), or press: false',
   pocket: 'write pocket: true for a folded one-sheet pocket table beside each book, or pocket: false',
+  combined: `write combined: full (every station's months), compact (reference ports in full, secondary ports as differences and datums) or none, or leave it out`,
+  volume_pages: `write the most pages a combined volume may have, a whole number from ${MIN_VOLUME_PAGES} to ${MAX_VOLUME_PAGES}, e.g. volume_pages: 600`,
 };
 const KEYS = Object.keys(FIELD_FIX) as (keyof ProjectSettings)[];
 
@@ -86,6 +89,8 @@ const projectSchema = z.strictObject({
   logo: z.string().trim().min(1, 'is empty').optional(),
   pocket: z.boolean().optional(),
   press: z.boolean().optional(),
+  combined: z.enum(COMBINED_MODES).optional(),
+  volume_pages: z.int().min(MIN_VOLUME_PAGES).max(MAX_VOLUME_PAGES).optional(),
 });
 
 function describe(value: unknown): string {

@@ -11,8 +11,11 @@ import type { BuildPlan, RenderChoices } from './options.js';
 import { commitOutput, createTemp, discardTemp, planOutput, recoverStale, type OutputTarget } from './output.js';
 import { combinedBookName, stationYearFile } from './paths.js';
 import type { Progress } from './progress.js';
+import { cacheDirFor } from './cache.js';
+import { stationYearKeys } from './cache-keys.js';
 import { siteFilesFolder } from './site-files.js';
-import { countPdfPages, type StationOutcome } from './station-job.js';
+import { combinedStations, type CombinedPlan } from './volumes-step.js';
+import { countPdfPages, type StationCache, type StationOutcome } from './station-job.js';
 
 export interface ComputeRequest {
   stationsDir: string;
@@ -21,6 +24,7 @@ export interface ComputeRequest {
   render: RenderChoices;
   units: string[][];
   workers: number;
+  cache?: StationCache; // the build cache and each station-year's key
 }
 
 /** The pieces a build is made of; the CLI passes the real ones, tests may pass their own. */
@@ -119,9 +123,10 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
     const units = workUnits(stations, plan.workers ?? deps.cores());
     const workers = poolSize(plan.workers, deps.cores(), units.length);
     const outcomes = new Map<string, StationOutcome>();
+    const cache = { dir: cacheDirFor(target.out), keys: Object.fromEntries(stationYearKeys(stations, year, plan.render)) };
     events.progress.stage('computing', stations.length);
     await step('computing the stations', times, () => deps.computeStations(
-      { stationsDir: plan.stationsDir, year, tempDir: target.temp, render: plan.render, units, workers },
+      { stationsDir: plan.stationsDir, year, tempDir: target.temp, render: plan.render, units, workers, cache },
       (outcome) => {
         outcomes.set(outcome.id, outcome);
         events.progress.tick(outcomes.size);
@@ -136,6 +141,8 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
       ? await step('computing the stream stations', times, async () => deps.computeStreams!(stations, streamStations, year))
       : [];
     let pdfPages = stations.reduce((n, s) => n + outcomes.get(s.id)!.pdfPages, 0);
+    const combined: CombinedPlan = await step('planning the combined volumes', times,
+      () => combinedStations(stations, outcomes, plan, cache, target.temp, workers, events.signal));
     outcomes.clear();
     if (streamModels.length > 0 && deps.renderStreamBook) {
       await step('rendering the stream books', times, async () => {
@@ -153,11 +160,16 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
     // combined book's worker holds its own copy of every model (about 0.85 MiB each) and the whole PDF,
     // so large sets draw them one after the other (measured when the site still rendered in one
     // Eleventy run, 200 stations: 2.4 GiB peak beside, 1.9 GiB after; the threshold wants re-measuring).
-    const beside = workers > 1 && stations.length <= BESIDE_MAX_STATIONS;
+    const beside = combined.volumes || (workers > 1 && stations.length <= BESIDE_MAX_STATIONS);
     const name = combinedBookName(plan.render.title, stations.map((s) => s.id));
     const site = (): Promise<unknown> => step('rendering the website and downloads', times,
       () => deps.renderSite(models, join(target.temp, 'site'), join(target.temp, 'data'), plan.render, siteFiles ?? undefined, streamModels));
     const book = (): Promise<void> => step('rendering the combined book', times, async () => {
+      if (combined.plan.mode === 'none') return;
+      if (combined.volumes) {
+        pdfPages += await combined.draw();
+        return;
+      }
       const pdf = await deps.renderCombinedBook(models, plan.render, beside, events.signal, streamModels);
       await mkdir(join(target.temp, 'pdf'), { recursive: true });
       await writeFile(stationYearFile(join(target.temp, 'pdf'), name, year, 'pdf'), pdf);
