@@ -6,6 +6,7 @@ import { buildStationYear, UsageError, loadAnyStationFile, loadStationSet } from
 import type { Station, StationYear } from '../engine/index.js';
 import { wordsFor, type Words } from '../templates/locale/index.js';
 import { oneOf, parseCommandLine, positionalArguments } from './args.js';
+import { commandWords, LOCALE_HELP, LOCALE_OPTION, row } from './locale.js';
 import { streamSummary, streamYearFor } from './almanac-stream.js';
 import { FIRST_YEAR, LAST_YEAR, yearOption } from './years.js';
 
@@ -19,13 +20,14 @@ moon, springs and neaps (from its tide_reference, else from its own rates).
   --stations DIR   folder of the station set, to find a secondary port's reference port
                    (default: the station file's own folder)
   --format json    print the whole model as JSON; table (default) prints a short summary
-`;
+${LOCALE_HELP}`;
 
 interface AlmanacArgs {
   file: string;
   year: number;
   stations: string | null;
   format: 'table' | 'json';
+  locale: string | undefined;
 }
 
 function parseAlmanacArgs(argv: readonly string[]): AlmanacArgs | 'help' {
@@ -33,6 +35,7 @@ function parseAlmanacArgs(argv: readonly string[]): AlmanacArgs | 'help' {
     year: { type: 'string' },
     stations: { type: 'string' },
     format: { type: 'string', default: 'table' },
+    ...LOCALE_OPTION,
     help: { type: 'boolean', short: 'h' },
   });
   if (values.help) return 'help';
@@ -42,7 +45,7 @@ function parseAlmanacArgs(argv: readonly string[]): AlmanacArgs | 'help' {
     year = yearOption('--year', values.year);
   }
   const format = oneOf('--format', values.format ?? 'table', ['table', 'json'] as const);
-  return { file, year, stations: values.stations ?? null, format };
+  return { file, year, stations: values.stations ?? null, format, locale: values.locale };
 }
 
 // The station and the set its reference port is looked up in: the --stations folder, else the
@@ -73,17 +76,17 @@ export async function runAlmanac(argv: readonly string[]): Promise<number> {
     process.stdout.write(HELP);
     return 0;
   }
+  const words = commandWords(args.locale, args.stations ?? dirname(args.file));
   const loaded = loadAnyStationFile(args.file);
   if (loaded.kind === 'stream' || loaded.kind === 'stream-secondary') {
     const model = streamYearFor(args.file, loaded, args.stations, args.year);
     ignoreClosedPipe();
-    process.stdout.write(args.format === 'json' ? `${JSON.stringify(model)}\n` : streamSummary(model));
+    process.stdout.write(args.format === 'json' ? `${JSON.stringify(model)}\n` : streamSummary(model, words));
     return 0;
   }
   const { station, set } = loadStation(args, loaded);
   const model = buildStationYear(station, set, args.year);
   ignoreClosedPipe();
-  const words = wordsFor();
   // the model holds facts only; the printed JSON also carries the caution every output carries
   const json = (): string => `${JSON.stringify({ ...model, caution: words.caution })}\n`;
   process.stdout.write(args.format === 'json' ? json() : summary(model, words));
@@ -95,16 +98,20 @@ export function summary(model: StationYear, words: Words = wordsFor()): string {
   const m = (x: number): string => words.height(x);
   const s = model.station;
   const d = model.datums;
+  const heads = [words.t('cli.colMonth'), words.t('cli.colHighWaters'), words.t('cli.colLowWaters'), words.t('cli.colHighest'), words.t('cli.colLowest')];
+  const monthWidth = Math.max(...model.months.map((mo) => words.monthName(mo.month).length));
+  const widths = [Math.max(monthWidth, heads[0]!.length), heads[1]!.length, heads[2]!.length, Math.max(18, heads[3]!.length), 0];
   const lines = [
-    `${s.name} (${s.id}) — ${model.year}, times in ${model.timezone}${model.invented ? ' — INVENTED DEMO DATA' : ''}`,
-    model.reference ? `Secondary port of ${model.reference.name} (${model.reference.id})` : 'Reference port',
-    `Tide type: ${words.tideType(model.tideType.kind)} (form number ${words.number(model.tideType.formNumber, 2)}); `
-      + `mean ranges springs ${m(model.meanSpringRange)}, neaps ${m(model.meanNeapRange)}; `
-      + `age of the tide ${words.hours(model.ageOfTideHours)}`,
-    `Heights above ${s.datum}: HAT ${m(d.HAT)}  MHWS ${m(d.MHWS)}  MHWN ${m(d.MHWN)}  MSL ${m(d.MSL)}  `
+    `${words.t('cli.almanacHead', { station: s.name, id: s.id, year: String(model.year), zone: model.timezone })}${model.invented ? ` — ${words.t('cli.invented')}` : ''}`,
+    model.reference ? words.t('cli.secondaryOf', { station: model.reference.name, id: model.reference.id }) : words.t('port.reference'),
+    words.t('cli.almanacTide', {
+      type: words.tideType(model.tideType.kind), form: words.number(model.tideType.formNumber, 2),
+      springs: m(model.meanSpringRange), neaps: m(model.meanNeapRange), age: words.hours(model.ageOfTideHours),
+    }),
+    `${words.t('cli.heightsAboveColon', { datum: s.datum })} HAT ${m(d.HAT)}  MHWS ${m(d.MHWS)}  MHWN ${m(d.MHWN)}  MSL ${m(d.MSL)}  `
       + `MLWN ${m(d.MLWN)}  MLWS ${m(d.MLWS)}  LAT ${m(d.LAT)}  (LAT/HAT ${d.epoch.from}–${d.epoch.to})`,
     '',
-    'Month      high waters  low waters  highest           lowest',
+    row(heads, widths),
   ];
   for (const month of model.months) {
     const days = model.days.slice(month.firstDayIndex, month.firstDayIndex + month.dayCount);
@@ -114,11 +121,11 @@ export function summary(model: StationYear, words: Words = wordsFor()): string {
     const top = highs.reduce((a, b) => (b.height > a.height ? b : a), highs[0]!);
     const bottom = lows.reduce((a, b) => (b.height < a.height ? b : a), lows[0]!);
     const at = (e: typeof top) => `${m(e.height).padStart(7)} ${e.date.slice(5, 10)} ${e.clock}`;
-    lines.push(`${words.monthName(month.month).padEnd(10)} ${String(highs.length).padStart(11)} ${String(lows.length).padStart(11)}  ${at(top)}  ${at(bottom)}`);
+    lines.push(row([words.monthName(month.month), String(highs.length).padStart(widths[1]!), String(lows.length).padStart(widths[2]!), at(top), at(bottom)], widths));
   }
   lines.push('');
-  for (const c of model.offsetChanges) lines.push(`Clock change: ${words.offsetChange(c)}`);
-  for (const w of model.warnings) lines.push(`WARNING: ${words.warning(w, s.datum)}`);
-  lines.push(`Caution: ${words.caution}`, '');
+  for (const c of model.offsetChanges) lines.push(words.t('cli.clockChange', { change: words.offsetChange(c) }));
+  for (const w of model.warnings) lines.push(words.t('cli.warning', { warning: words.warning(w, s.datum) }));
+  lines.push(`${words.t('caution.heading')}: ${words.caution}`, '');
   return lines.join('\n');
 }

@@ -1,12 +1,13 @@
 // `tidewright predict` on a tidal stream station: slack water and the strongest flood and ebb, or with
 // --every the velocity at that step, as a table for people or as JSON/CSV for programs.
 
-import { DateTime } from 'luxon';
 import {
-  CAUTION, isoLocal, isoUtc, STREAM_CAUTION, bearingOf, streamEventsFor, streamVelocities, type StreamLookup,
+  isoLocal, isoUtc, bearingOf, streamEventsFor, streamVelocities, type StreamLookup,
 } from '../engine/index.js';
 import type { AnyStreamStation, StreamEvent } from '../engine/index.js';
 import { csvTable, csvText, type ExportRecord } from '../templates/exports/fields.js';
+import type { Words } from '../templates/locale/index.js';
+import { row, tableHeader, tableStamp, weekdayWidth } from './locale.js';
 
 const MINUTE = 60_000;
 
@@ -17,6 +18,7 @@ export interface StreamPredictRequest {
   to: number;
   stepMinutes: number | undefined;
   format: 'table' | 'json' | 'csv';
+  words: Words;
 }
 
 /** Knots to the hundredth, never −0. */
@@ -45,41 +47,40 @@ function samples(req: StreamPredictRequest, stepMs: number): Sample[] {
 }
 
 function header(req: StreamPredictRequest, what: string): string[] {
-  const { station } = req;
-  const zone = station.timezone;
-  const span = `${DateTime.fromMillis(req.from, { zone }).toFormat('yyyy-MM-dd HH:mm')} to ${DateTime.fromMillis(req.to, { zone }).toFormat('yyyy-MM-dd HH:mm')}`;
+  const { station, words } = req;
   const reference = station.kind === 'stream-secondary' ? req.set.streams.find((s) => s.id === station.reference) : undefined;
   const kind = station.kind === 'stream'
-    ? 'tidal stream station'
-    : `secondary stream station of ${reference?.name ?? station.reference}, by time differences and rate ratios`;
-  const { latitude, longitude } = station.position;
-  const where = `${Math.abs(latitude).toFixed(3)}° ${latitude < 0 ? 'S' : 'N'}, ${Math.abs(longitude).toFixed(3)}° ${longitude < 0 ? 'W' : 'E'}`;
-  return [
-    `${station.name}: ${kind} (id ${station.id})`,
-    `${where}; time zone ${zone}; flood sets toward ${station.flood_direction}° true`,
-    `${what}, ${span} local time (end not included)`,
-    'Times: local time at the station with its UTC offset. Rates: knots. Directions: degrees true toward which the stream sets.',
-    `Constants: ${station.provenance}`,
-    `Caution: ${CAUTION}`,
-    `Streams: ${STREAM_CAUTION}`,
-    '',
-  ];
+    ? words.t('cli.streamKind')
+    : words.t('cli.streamSecondaryKind', { station: reference?.name ?? station.reference });
+  return [...tableHeader(words, {
+    station: words.t('cli.stationLine', { station: station.name, kind, id: station.id }),
+    where: words.t('cli.whereZoneFlood', { position: words.position(station.position), zone: station.timezone, bearing: bearing(station.flood_direction) }),
+    what, from: req.from, to: req.to, zone: station.timezone,
+    reading: words.t('cli.timesStreams'),
+    provenance: station.provenance,
+  }), `${words.t('cli.streamsLabel')}: ${words.t('caution.streams')}`, ''];
 }
 
-function tableRows(rows: readonly { t: number; type?: string; speed: number; direction: number | null }[], zone: string, withType: boolean): string[] {
-  const lines = [withType ? 'Date        Day  Time   UTC±    Stream  Rate      Direction' : 'Date        Day  Time   UTC±    Rate      Direction'];
+const bearing = (d: number | null): string => (d === null ? '—' : `${String(Math.round(d) % 360).padStart(3, '0')}°`);
+
+function tableRows(rows: readonly { t: number; type?: 'slack' | 'flood' | 'ebb'; speed: number; direction: number | null }[], zone: string, words: Words): string[] {
+  const withType = rows.some((r) => r.type !== undefined);
+  const names = { slack: words.t('cli.slack'), flood: words.t('cli.flood'), ebb: words.t('cli.ebb') };
+  const heads = [words.t('cli.colDate'), words.t('cli.colDay'), words.t('cli.colTime'), 'UTC±',
+    ...(withType ? [words.t('cli.colStream')] : []), words.t('cli.colRate'), words.t('cli.colDirection')];
+  const widths = [10, weekdayWidth(words), 5, 6, ...(withType ? [Math.max(...Object.values(names).map((x) => x.length))] : []), 7, 4]
+    .map((w, i) => Math.max(w, heads[i]!.length));
+  const lines = [row(heads, widths)];
   let lastDate = '';
-  for (const row of rows) {
-    const local = DateTime.fromMillis(Math.round(row.t / MINUTE) * MINUTE, { zone });
-    const date = local.toFormat('yyyy-MM-dd');
-    const dayPart = date === lastDate ? ' '.repeat(15) : `${date}  ${local.toFormat('ccc')}`;
-    lastDate = date;
-    const rate = Number.isFinite(row.speed) ? `${row.speed.toFixed(1).padStart(4)} kn` : '   — ';
-    const dir = row.direction === null ? '   —' : `${String(Math.round(row.direction) % 360).padStart(3, '0')}°`;
-    const type = withType ? `  ${(row.type ?? '').padEnd(6)}` : '';
-    lines.push(`${dayPart}  ${local.toFormat('HH:mm')}  ${local.toFormat('ZZ')}${type}  ${rate}   ${dir}`);
+  for (const r of rows) {
+    const at = tableStamp(words, Math.round(r.t / MINUTE) * MINUTE, zone);
+    const first = at.date !== lastDate;
+    lastDate = at.date;
+    const rate = Number.isFinite(r.speed) ? `${words.number(r.speed, 1).padStart(4)} kn` : '   —';
+    const type = withType ? [r.type ? names[r.type] : ''] : [];
+    lines.push(row([first ? at.date : '', first ? at.weekday : '', at.clock, at.offset, ...type, rate, bearing(r.direction).padStart(4)], widths));
   }
-  if (rows.length === 0) lines.push('(none in this span)');
+  if (rows.length === 0) lines.push(words.t('cli.none'));
   return lines;
 }
 
@@ -96,7 +97,7 @@ export function renderStreamPrediction(req: StreamPredictRequest): string {
     if (req.format === 'json') return jsonList(records);
     if (req.format === 'csv') return csvText(csvTable(['station_id', 'time', 'time_local', 'type', 'speed_kn', 'direction_deg_true'], records, STREAM_DIGITS));
     const rows = events.map((e) => ({ t: e.time, type: e.type, speed: e.speed, direction: e.direction }));
-    return [...header(req, 'Slack water and the strongest flood and ebb'), ...tableRows(rows, zone, true)].join('\n') + '\n';
+    return [...header(req, req.words.t('cli.streamEvents')), ...tableRows(rows, zone, req.words)].join('\n') + '\n';
   }
   const list = samples(req, Math.round(req.stepMinutes * MINUTE));
   const num = (x: number): number | null => (Number.isFinite(x) ? knots(x) : null);
@@ -108,6 +109,7 @@ export function renderStreamPrediction(req: StreamPredictRequest): string {
   if (req.format === 'csv') {
     return csvText(csvTable(['station_id', 'time', 'time_local', 'speed_kn', 'direction_deg_true', 'east_kn', 'north_kn'], records, STREAM_DIGITS));
   }
-  const what = `The stream every ${req.stepMinutes} minutes${req.station.kind === 'stream-secondary' ? ' (between its events a half-cosine curve, a drawing aid)' : ''}`;
-  return [...header(req, what), ...tableRows(list.map((s) => ({ ...s })), zone, false)].join('\n') + '\n';
+  const step = req.words.t('unit.minutes', { count: req.stepMinutes });
+  const what = req.words.t(req.station.kind === 'stream-secondary' ? 'cli.streamEverySecondary' : 'cli.streamEvery', { step });
+  return [...header(req, what), ...tableRows(list.map((s) => ({ ...s })), zone, req.words)].join('\n') + '\n';
 }

@@ -3,13 +3,14 @@
 
 import { dirname } from 'node:path';
 import { DateTime } from 'luxon';
-import { wordsFor } from '../templates/locale/index.js';
+import type { Words } from '../templates/locale/index.js';
 import {
   UsageError, isoLocal, isoUtc, localDate, loadAnyStationFile, loadStationSet, type StationSet, tideEvents, tideHeights,
 } from '../engine/index.js';
 import type { AnyStreamStation, Station, TideEvent } from '../engine/index.js';
 import { csvTable, csvText, eventFields, eventRecord, HEIGHT_DIGITS, heightFields, heightRecord, type ExportRecord } from '../templates/exports/fields.js';
 import { oneOf, parseCommandLine, parseMinutes, parseWhen, positionalArguments } from './args.js';
+import { commandWords, LOCALE_HELP, LOCALE_OPTION, row, tableHeader, tableStamp, weekdayWidth } from './locale.js';
 import { renderStreamPrediction, type StreamPredictRequest } from './predict-stream.js';
 import { FIRST_YEAR, instantInRange, LAST_YEAR } from './years.js';
 
@@ -37,7 +38,7 @@ ebb (rates in knots, directions in degrees true), or with --every the stream's v
                     height_m to the mm, below_chart_datum; see the README's table of fields)
   --stations DIR    the station set a secondary port's reference port is found in
                     (default: the folder of STATION.yaml)
-
+${LOCALE_HELP}
 Example: tidewright predict stations-demo/brinewold-head.yaml --from 2027-01-01 --to 2027-02-01 --format json
 `;
 
@@ -48,6 +49,7 @@ interface PredictRequest {
   to: number;
   stepMinutes: number | undefined;
   format: Format;
+  words: Words;
 }
 
 /** The station set a prediction draws on: the named folder, or the station file's own folder for a secondary port. */
@@ -76,11 +78,13 @@ function request(argv: readonly string[]): PredictRequest | StreamPredictRequest
     every: { type: 'string' },
     format: { type: 'string', default: 'table' },
     stations: { type: 'string' },
+    ...LOCALE_OPTION,
     help: { type: 'boolean', short: 'h' },
   });
   if (values.help) return undefined;
   const [file] = positionalArguments('predict', positionals, ['STATION.yaml']) as [string];
   const format = oneOf('--format', values.format, FORMATS);
+  const words = commandWords(values.locale, values.stations ?? dirname(file));
   const stepMinutes = values.every === undefined ? undefined : parseMinutes('--every', values.every);
   const station = loadAnyStationFile(file);
   const zone = station.timezone;
@@ -95,20 +99,14 @@ function request(argv: readonly string[]): PredictRequest | StreamPredictRequest
     throw new UsageError('--every', `${stepMinutes} minutes over this span gives more than ${MAX_ROWS} heights`, 'choose a shorter span or a larger step');
   }
   if (station.kind === 'stream' || station.kind === 'stream-secondary') {
-    return { station, set: streamSetFor(file, station, values.stations), from, to, stepMinutes, format };
+    return { station, set: streamSetFor(file, station, values.stations), from, to, stepMinutes, format, words };
   }
-  return { station, set: stationSetFor(file, station, values.stations), from, to, stepMinutes, format };
+  return { station, set: stationSetFor(file, station, values.stations), from, to, stepMinutes, format, words };
 }
 
 // --- formatting --------------------------------------------------------------------------------
 
 const toMinute = (t: number): number => Math.round(t / MINUTE) * MINUTE;
-
-
-function cm(h: number): string {
-  const text = (Math.round(h * 100) / 100 + 0).toFixed(2);
-  return text === '-0.00' ? '0.00' : text;
-}
 
 // JSON and CSV use the exports' one vocabulary (templates/exports/fields.ts, README "Fields of the exports").
 function eventRecords(events: readonly TideEvent[], station: Station): ExportRecord[] {
@@ -124,47 +122,46 @@ function jsonRecords(records: readonly ExportRecord[]): string {
   return records.length === 0 ? '[]\n' : `[\n${records.map((r) => JSON.stringify(r)).join(',\n')}\n]\n`;
 }
 
-function tableHeader(req: PredictRequest, what: string): string[] {
-  const { station, set } = req;
-  const zone = station.timezone;
-  const span = `${DateTime.fromMillis(req.from, { zone }).toFormat('yyyy-MM-dd HH:mm')} to ${DateTime.fromMillis(req.to, { zone }).toFormat('yyyy-MM-dd HH:mm')}`;
+function tideHeader(req: PredictRequest, what: string): string[] {
+  const { station, set, words } = req;
   const reference = station.kind === 'secondary' ? set.byId.get(station.reference) : undefined;
-  const kind =
-    station.kind === 'reference'
-      ? 'reference port'
-      : `secondary port of ${reference?.name ?? station.reference}, by time and height differences`;
-  const where = wordsFor().position(station.position); // the same rule as the site and the books
-  return [
-    `${station.name}: ${kind} (id ${station.id})`,
-    `${where}; time zone ${zone}`,
-    `${what}, ${span} local time (end not included)`,
-    `Times: local time at the station with its UTC offset. Heights: metres above ${station.datum}; "below datum" marks negative heights.`,
-    `Constants: ${station.provenance}`,
-    `Caution: ${wordsFor().caution}`,
-    '',
-  ];
+  const kind = station.kind === 'reference'
+    ? words.t('port.referenceLower')
+    : words.t('cli.secondaryKind', { station: reference?.name ?? station.reference });
+  return [...tableHeader(words, {
+    station: words.t('cli.stationLine', { station: station.name, kind, id: station.id }),
+    where: words.t('cli.whereZone', { position: words.position(station.position), zone: station.timezone }),
+    what, from: req.from, to: req.to, zone: station.timezone,
+    reading: words.t('cli.timesHeights', { unit: words.unitName(), datum: station.datum, below: words.t('cli.belowDatum') }),
+    provenance: station.provenance,
+  }), ''];
 }
 
 interface TableRow {
   t: number;
-  type?: string;
+  type?: 'high' | 'low';
   height: number;
 }
 
-function tableRows(rows: readonly TableRow[], zone: string, withType: boolean): string[] {
-  const head = withType ? 'Date        Day  Time   UTC±    Tide  Height' : 'Date        Day  Time   UTC±    Height';
-  const lines = [head];
+function tableRows(rows: readonly TableRow[], zone: string, words: Words): string[] {
+  const withType = rows.some((r) => r.type !== undefined);
+  const heads = [words.t('cli.colDate'), words.t('cli.colDay'), words.t('cli.colTime'), 'UTC±',
+    ...(withType ? [words.t('cli.colTide')] : []), words.t('cli.colHeight')];
+  const types = [words.t('cli.tideHigh'), words.t('cli.tideLow')];
+  const widths = [10, weekdayWidth(words), 5, 6, ...(withType ? [Math.max(...types.map((x) => x.length))] : []), 6].map((w, i) => Math.max(w, heads[i]!.length));
+  const lines = [row(heads, widths)];
   let lastDate = '';
-  for (const row of rows) {
-    const local = DateTime.fromMillis(toMinute(row.t), { zone });
-    const date = local.toFormat('yyyy-MM-dd');
-    const dayPart = date === lastDate ? ' '.repeat(15) : `${date}  ${local.toFormat('ccc')}`;
-    lastDate = date;
-    const height = Number.isFinite(row.height) ? `${cm(row.height).padStart(6)} m${row.height < -0.005 ? '  below datum' : ''}` : '     — (no value)';
-    const type = withType ? `  ${(row.type ?? '').padEnd(4)}` : '';
-    lines.push(`${dayPart}  ${local.toFormat('HH:mm')}  ${local.toFormat('ZZ')}${type}  ${height}`);
+  for (const r of rows) {
+    const at = tableStamp(words, toMinute(r.t), zone);
+    const first = at.date !== lastDate;
+    lastDate = at.date;
+    const height = Number.isFinite(r.height)
+      ? `${words.heightNumber(r.height, Math.round(r.height * 100) < 0).padStart(widths[widths.length - 1]!)} m${Math.round(r.height * 100) < 0 ? `  ${words.t('cli.belowDatum')}` : ''}`
+      : words.t('cli.noValue');
+    const type = withType ? [r.type === 'high' ? types[0]! : types[1]!] : [];
+    lines.push(row([first ? at.date : '', first ? at.weekday : '', at.clock, at.offset, ...type, height], widths));
   }
-  if (rows.length === 0) lines.push('(none in this span)');
+  if (rows.length === 0) lines.push(words.t('cli.none'));
   return lines;
 }
 
@@ -174,9 +171,9 @@ function render(req: PredictRequest): string {
     const events = tideEvents(req.station, req.set, req.from, req.to);
     if (req.format === 'json') return jsonRecords(eventRecords(events, req.station));
     if (req.format === 'csv') return csvText(csvTable(eventFields('m'), eventRecords(events, req.station), HEIGHT_DIGITS));
-    const header = tableHeader(req, 'High and low waters');
+    const header = tideHeader(req, req.words.t('site.colTides'));
     const rows = events.map((e) => ({ t: e.time, type: e.type, height: e.height }));
-    return [...header, ...tableRows(rows, zone, true)].join('\n') + '\n';
+    return [...header, ...tableRows(rows, zone, req.words)].join('\n') + '\n';
   }
   const stepMs = Math.round(req.stepMinutes * MINUTE);
   const count = Math.ceil((req.to - req.from) / stepMs);
@@ -184,9 +181,10 @@ function render(req: PredictRequest): string {
   const times = Array.from({ length: count }, (_, i) => req.from + i * stepMs);
   if (req.format === 'json') return jsonRecords(heightRecords(times, heights, req.station));
   if (req.format === 'csv') return csvText(csvTable(heightFields('m'), heightRecords(times, heights, req.station), HEIGHT_DIGITS));
-  const what = `Heights every ${req.stepMinutes} minutes${req.station.kind === 'secondary' ? ' (between its high and low waters a half-cosine curve, a drawing aid)' : ''}`;
+  const step = req.words.t('unit.minutes', { count: req.stepMinutes });
+  const what = req.words.t(req.station.kind === 'secondary' ? 'cli.heightsEverySecondary' : 'cli.heightsEvery', { step });
   const rows = times.map((t, i) => ({ t, height: heights[i]! }));
-  return [...tableHeader(req, what), ...tableRows(rows, zone, false)].join('\n') + '\n';
+  return [...tideHeader(req, what), ...tableRows(rows, zone, req.words)].join('\n') + '\n';
 }
 
 export async function runPredict(argv: string[]): Promise<number> {

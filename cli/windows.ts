@@ -3,11 +3,14 @@
 
 import { DateTime } from 'luxon';
 import {
-  CAUTION, UsageError, isoLocal, isoUtc, loadStationFile, openIntervals, SECONDARY_WINDOW_NOTE,
+  UsageError, isoLocal, isoUtc, loadStationFile, openIntervals,
   type OpenInterval, type WindowSide,
 } from '../engine/index.js';
 import type { Station } from '../engine/index.js';
+import { dirname } from 'node:path';
+import type { Words } from '../templates/locale/index.js';
 import { oneOf, parseCommandLine, parseWhen, positionalArguments } from './args.js';
+import { commandWords, LOCALE_HELP, LOCALE_OPTION, row, tableHeader, tableStamp } from './locale.js';
 import { csvTable, csvText, type ExportRecord } from '../templates/exports/fields.js';
 import { stationSetFor } from './predict.js';
 
@@ -34,7 +37,7 @@ datum. Intervals are clipped to the span: one already open at --from starts ther
                     "duration_min":…}], UTC to the second) or csv with the same fields
   --stations DIR    the station set a secondary port's reference port is found in
                     (default: the folder of STATION.yaml)
-
+${LOCALE_HELP}
 Reference ports: each crossing of the level is found on the harmonic prediction itself, between two
 consecutive high and low waters (where the curve is monotone). Secondary ports: on the half-cosine curve
 between the port's own high and low waters, an approximation; leave a margin.
@@ -50,6 +53,7 @@ interface WindowsRequest {
   to: number;
   format: Format;
   intervals: OpenInterval[];
+  words: Words;
 }
 
 /** A level in metres: a plain decimal number. */
@@ -69,6 +73,7 @@ function request(argv: readonly string[]): WindowsRequest | undefined {
     to: { type: 'string' },
     format: { type: 'string', default: 'table' },
     stations: { type: 'string' },
+    ...LOCALE_OPTION,
     help: { type: 'boolean', short: 'h' },
   });
   if (values.help) return undefined;
@@ -81,6 +86,7 @@ function request(argv: readonly string[]): WindowsRequest | undefined {
   const side: WindowSide = values.above !== undefined ? 'above' : 'below';
   const level = parseLevel(`--${side}`, (values.above ?? values.below)!);
   const format = oneOf('--format', values.format, FORMATS);
+  const words = commandWords(values.locale, values.stations ?? dirname(file));
   const station = loadStationFile(file);
   const set = stationSetFor(file, station, values.stations);
   const zone = station.timezone;
@@ -92,7 +98,7 @@ function request(argv: readonly string[]): WindowsRequest | undefined {
   if (to - from > MAX_SPAN_MS) {
     throw new UsageError('--to', 'is more than 400 years after --from', 'ask for a shorter span');
   }
-  return { station, side, level, from, to, format, intervals: openIntervals(station, set, side, level, from, to) };
+  return { station, side, level, from, to, format, words, intervals: openIntervals(station, set, side, level, from, to) };
 }
 
 // JSON and CSV use the exports' one vocabulary (templates/exports/fields.ts, README "Fields of the exports").
@@ -113,35 +119,42 @@ function csv(req: WindowsRequest): string {
   return csvText(csvTable(['station_id', 'start', 'start_local', 'end', 'end_local', 'duration_min'], records(req)));
 }
 
-const stamp = (t: number, zone: string): string => DateTime.fromMillis(Math.round(t / MINUTE) * MINUTE, { zone }).toFormat('yyyy-MM-dd ccc HH:mm ZZ');
-
 function duration(ms: number): string {
   const minutes = Math.round(ms / MINUTE);
   return `${Math.floor(minutes / 60)} h ${String(minutes % 60).padStart(2, '0')} min`;
 }
 
 function table(req: WindowsRequest): string {
-  const { station, from, to } = req;
+  const { station, from, to, words } = req;
   const zone = station.timezone;
-  const span = `${DateTime.fromMillis(from, { zone }).toFormat('yyyy-MM-dd HH:mm')} to ${DateTime.fromMillis(to, { zone }).toFormat('yyyy-MM-dd HH:mm')}`;
-  const rule = req.side === 'above' ? 'at or above' : 'at or below';
+  const level = words.height(req.level).replace('\u00a0', ' ');
+  const stamp = (t: number): string => {
+    const at = tableStamp(words, Math.round(t / MINUTE) * MINUTE, zone);
+    return `${at.date} ${at.weekday} ${at.clock} ${at.offset}`;
+  };
+  const rule = words.t(req.side === 'above' ? 'window.ruleAbove' : 'window.ruleBelow', { level });
+  const heads = [words.t('cli.opens'), words.t('cli.closes'), words.t('cli.openFor')];
+  const width = Math.max(...[from, to].map((t) => stamp(t).length)) + 2;
+  const widths = [Math.max(width, heads[0]!.length), Math.max(width, heads[1]!.length), 0];
   const lines = [
-    `${station.name} (id ${station.id}); time zone ${zone}`,
-    `Open while the tide is ${rule} ${req.level.toFixed(2)} m above ${station.datum}, ${span} local time (end not included)`,
-    `Times: local time at the station to the minute, with its UTC offset.`,
-    ...(station.kind === 'secondary' ? [`Secondary port: ${SECONDARY_WINDOW_NOTE}`] : []),
-    `Constants: ${station.provenance}`,
-    `Caution: ${CAUTION}`,
+    ...tableHeader(words, {
+      station: words.t('cli.stationLine', { station: station.name, kind: words.t(station.kind === 'reference' ? 'port.referenceLower' : 'port.secondaryLower'), id: station.id }),
+      where: words.t('cli.whereZone', { position: words.position(station.position), zone }),
+      what: words.t('cli.windowRule', { rule, datum: station.datum }), from, to, zone,
+      reading: words.t('cli.windowTimes'),
+      provenance: station.provenance,
+    }),
+    ...(station.kind === 'secondary' ? [words.t('cli.secondaryNote', { note: words.t('window.secondaryNote') })] : []),
     '',
-    `${'Opens'.padEnd(28)}  ${'Closes'.padEnd(28)}  Open for`,
+    row(heads, widths),
   ];
   for (const w of req.intervals) {
-    const opens = `${stamp(w.start, zone)}${w.start <= from ? ' *' : ''}`;
-    const closes = `${stamp(w.end, zone)}${w.end >= to ? ' *' : ''}`;
-    lines.push(`${opens.padEnd(28)}  ${closes.padEnd(28)}  ${duration(w.end - w.start)}`);
+    const opens = `${stamp(w.start)}${w.start <= from ? ' *' : ''}`;
+    const closes = `${stamp(w.end)}${w.end >= to ? ' *' : ''}`;
+    lines.push(row([opens, closes, duration(w.end - w.start)], widths));
   }
-  if (req.intervals.length === 0) lines.push(`(never ${rule} ${req.level.toFixed(2)} m in this span)`);
-  if (req.intervals.some((w) => w.start <= from || w.end >= to)) lines.push('* open at the start or end of the span: it opened earlier or closes later');
+  if (req.intervals.length === 0) lines.push(words.t(req.side === 'above' ? 'cli.neverAbove' : 'cli.neverBelow', { level }));
+  if (req.intervals.some((w) => w.start <= from || w.end >= to)) lines.push(words.t('cli.openAtEdge'));
   return lines.join('\n') + '\n';
 }
 

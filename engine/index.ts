@@ -17,6 +17,7 @@ export * from './almanac.js';
 export * from './windows.js';
 export * from './streams.js';
 export * from './errors.js';
+export * from './item.js';
 export type * from './types.js';
 export type { OffsetChange } from './types.js'; // the same shape as localtime's, named once
 export * from './windows-check.js';

@@ -12,6 +12,7 @@
 import { DateTime, IANAZone } from 'luxon';
 import { UsageError } from './errors.js';
 import { zoneOffset } from './zone-offsets.js';
+import { itemAt } from './item.js';
 
 const MINUTE = 60_000;
 const HOUR = 3_600_000;
@@ -172,8 +173,8 @@ export function localDays(year: number, zone: string): LocalDay[] {
   }
   const days: LocalDay[] = [];
   for (let i = 0; i + 1 < dates.length; i++) {
-    const { y, m, d, start } = dates[i];
-    const end = dates[i + 1].start;
+    const { y, m, d, start } = itemAt(dates, i, 'local dates');
+    const end = itemAt(dates, i + 1, 'local dates').start;
     const weekday = (new Date(Date.UTC(y, m - 1, d)).getUTCDay() + 6) % 7; // 0 = Monday here
     days.push({
       date: `${y}-${pad2(m)}-${pad2(d)}`,
@@ -198,8 +199,9 @@ export function dayIndexOf(days: readonly Pick<LocalDay, 'start' | 'end'>[], ms:
   let hi = days.length - 1;
   while (lo <= hi) {
     const mid = (lo + hi) >> 1;
-    if (t < days[mid].start) hi = mid - 1;
-    else if (t >= days[mid].end) lo = mid + 1;
+    const day = itemAt(days, mid, 'days');
+    if (t < day.start) hi = mid - 1;
+    else if (t >= day.end) lo = mid + 1;
     else return mid;
   }
   return -1;

@@ -45,7 +45,6 @@ export function streamVelocities(
 }
 export { buildStreamYear, streamAlmanacEvent, type StreamYearLookup } from './streams/almanac.js';
 export { suspiciousStream, MAX_PLAUSIBLE_MAJOR_KNOTS } from './streams/check.js';
-export { STREAM_CAUTION } from './streams/caution.js';
 
 /**
  * The stream toward the flood direction, knots (ebb negative), at start + i·stepMs: for a stream station

@@ -87,22 +87,119 @@ export interface KernelValue {
 
 type Evaluate = ReturnType<typeof kernelEvaluator>;
 
+/** Degree of the Taylor series a crossing is solved on, the bound's factorial, and its origins' spacing. */
+const SERIES_DEGREE = 11;
+const NEXT_FACTORIAL = 479_001_600; // (SERIES_DEGREE + 1)!
+const MARK_HOURS = 1;
+const MARKS = 24 / MARK_HOURS + 1; // both midnights of a kernel day window
+const REUSE_MS = 7_200_000; // a series is tried again for a crossing this near its origin
+
+/** A Taylor series of the prediction: h(origin + δ) ≈ Σ coef[n]·δⁿ (δ in hours), within remainder·|δ|^(d+1). */
+export interface KernelSeries {
+  origin: number; // UTC ms
+  coef: Float64Array;
+  remainder: number;
+}
+
+export function newKernelSeries(): KernelSeries {
+  return { origin: Number.NaN, coef: new Float64Array(SERIES_DEGREE + 1), remainder: Number.NaN };
+}
+
+/**
+ * The Taylor series of the prediction about the half-hour mark (UTC) nearest an instant, from one pass over
+ * the constituents: each is a phasor w = fH·e^{i(V+u−g)} turning as e^{λτ} (λ = β + iω), so
+ * h⁽ⁿ⁾ = Re Σ λⁿw. The turn to each mark of a kernel day window is tabulated once per window (one cosine
+ * and sine per constituent, then products), so a series costs no trigonometry. The remainder is Lagrange's,
+ * with |h⁽ᵈ⁺¹⁾| ≤ Σ|λ|^(d+1)|w| and a margin of 1 % for fH's growth over the step.
+ */
+export function kernelSeries(predictor: Predictor): (t: number, out: KernelSeries) => void {
+  const n = predictor.names.length;
+  const newSlot = () => ({
+    day: Number.NaN, w: newPhasorWindow(n), turnRe: new Float64Array(n * MARKS), turnIm: new Float64Array(n * MARKS),
+  });
+  const slots = [newSlot(), newSlot()];
+  let next = 0;
+  const slotFor = (day: number) => {
+    for (const slot of slots) if (slot.day === day) return slot;
+    const slot = slots[next]!;
+    next = 1 - next;
+    const w = predictor.window(day * DAY, (day + 1) * DAY, slot.w);
+    for (let i = 0; i < n; i++) {
+      const stepRe = Math.cos(w.omega[i]! * MARK_HOURS);
+      const stepIm = Math.sin(w.omega[i]! * MARK_HOURS);
+      let re = w.re[i]!;
+      let im = w.im[i]!;
+      for (let j = 0; j < MARKS; j++) {
+        slot.turnRe[i * MARKS + j] = re;
+        slot.turnIm[i * MARKS + j] = im;
+        const r = re * stepRe - im * stepIm;
+        im = re * stepIm + im * stepRe;
+        re = r;
+      }
+    }
+    slot.day = day;
+    return slot;
+  };
+  return (t, out) => {
+    const day = Math.floor(t / DAY);
+    const { w, turnRe, turnIm } = slotFor(day);
+    const j = Math.min(MARKS - 1, Math.max(0, Math.round((t - w.start) / (MARK_HOURS * 3_600_000))));
+    const tau = j * MARK_HOURS;
+    const coef = out.coef;
+    coef.fill(0);
+    let bound = 0;
+    for (let i = 0; i < n; i++) {
+      const beta = w.beta[i]!;
+      const omega = w.omega[i]!;
+      const b = beta * tau;
+      const grow = 1 + b * (1 + b / 2); // e^{βτ}, as the kernel grows it
+      let x = grow * turnRe[i * MARKS + j]!;
+      let y = grow * turnIm[i * MARKS + j]!;
+      for (let k = 0; k <= SERIES_DEGREE; k++) {
+        coef[k] = coef[k]! + x;
+        const nx = beta * x - omega * y; // multiply by λ
+        y = beta * y + omega * x;
+        x = nx;
+      }
+      bound += Math.sqrt(x * x + y * y); // |λ^(d+1)·w|
+    }
+    let factorial = 1;
+    for (let k = 1; k <= SERIES_DEGREE; k++) {
+      factorial *= k;
+      coef[k] = coef[k]! / factorial;
+    }
+    coef[0] = coef[0]! + predictor.meanLevel;
+    out.origin = w.start + tau * 3_600_000;
+    out.remainder = (1.01 * bound) / NEXT_FACTORIAL;
+  };
+}
+
 /**
  * Root of h − level between a and b, where h(a) − level and h(b) − level differ in sign. The first
- * guess is the half-cosine between the two ends (close to a tide's shape), then Halley's method with the
- * analytic h′ and h″ (cubic convergence: a step under 5 s leaves an error of a few milliseconds,
- * so it is taken without another evaluation), falling back to bisection whenever a step would leave the
- * bracket.
+ * guess is the half-cosine between the two ends (close to a tide's shape). About it the prediction is
+ * expanded once in its Taylor series (kernelSeries) and the root of the polynomial found by Newton's
+ * method; it is taken when it lies in the bracket and the series' remainder bound puts it within the
+ * tolerance of the true crossing. Otherwise Halley's method runs on the prediction itself, with the
+ * analytic h′ and h″ (cubic convergence: a step under 5 s leaves an error of a few milliseconds, so it is
+ * taken without another evaluation), falling back to bisection whenever a step would leave the bracket.
  */
 export function harmonicCrossing(
-  evaluate: Evaluate, a: number, b: number, level: number, ha: number, hb: number,
+  evaluate: Evaluate, series: ReturnType<typeof kernelSeries>, scratch: KernelSeries,
+  a: number, b: number, level: number, ha: number, hb: number,
 ): number {
+  let x = cosineCrossing({ time: a, height: ha, type: 'low' }, { time: b, height: hb, type: 'high' }, level);
+  if (!(x > a && x < b)) x = (a + b) / 2;
+  // The series of the previous crossing often serves the next level on the same piece.
+  let fromSeries = Math.abs(x - scratch.origin) < REUSE_MS ? seriesRoot(scratch, (x - scratch.origin) / 3_600_000, level) : Number.NaN;
+  if (!(fromSeries > a && fromSeries < b)) {
+    series(x, scratch);
+    fromSeries = seriesRoot(scratch, (x - scratch.origin) / 3_600_000, level);
+  }
+  if (fromSeries > a && fromSeries < b) return fromSeries;
   let lo = a;
   let hi = b;
   const rising = hb > ha;
   const v: KernelValue = { h: 0, rate: 0, curvature: 0 };
-  let x = cosineCrossing({ time: a, height: ha, type: 'low' }, { time: b, height: hb, type: 'high' }, level);
-  if (!(x > lo && x < hi)) x = (lo + hi) / 2;
   for (let iter = 0; iter < 100 && hi - lo > ROOT_TOLERANCE_MS; iter++) {
     evaluate(x, v);
     const f = v.h - level;
@@ -118,6 +215,31 @@ export function harmonicCrossing(
   return (lo + hi) / 2;
 }
 
+/**
+ * The crossing of the level by a Taylor series, by Newton's method from δ0 hours after its origin, in UTC
+ * ms, when the remainder bound proves it within ROOT_TOLERANCE_MS / 2 of the prediction's own; else NaN.
+ */
+function seriesRoot(series: KernelSeries, d0: number, level: number): number {
+  const { coef, remainder, origin } = series;
+  let d = d0;
+  for (let iter = 0; iter < 30; iter++) {
+    let p = coef[SERIES_DEGREE]!;
+    let slope = 0;
+    for (let k = SERIES_DEGREE - 1; k >= 0; k--) {
+      slope = slope * d + p;
+      p = p * d + coef[k]!;
+    }
+    if (slope === 0) return Number.NaN;
+    const step = (p - level) / slope;
+    d -= step;
+    if (Math.abs(step) < 1e-10) {
+      const heightError = remainder * Math.abs(d) ** (SERIES_DEGREE + 1);
+      return (heightError / Math.abs(slope)) * 3_600_000 < ROOT_TOLERANCE_MS / 2 ? origin + d * 3_600_000 : Number.NaN;
+    }
+  }
+  return Number.NaN;
+}
+
 /** Where the half-cosine from event a to event b meets the level (closed form; a and b bracket it). */
 export function cosineCrossing(a: TideEvent, b: TideEvent, level: number): number {
   const c = 1 - (2 * (level - a.height)) / (b.height - a.height);
@@ -126,6 +248,8 @@ export function cosineCrossing(a: TideEvent, b: TideEvent, level: number): numbe
 
 function harmonicBreakpoints(predictor: Predictor, events: readonly TideEvent[], from: number, to: number): Breakpoints {
   const evaluate = kernelEvaluator(predictor);
+  const series = kernelSeries(predictor);
+  const scratch = newKernelSeries();
   // The ends of the span are breakpoints too: the curve is monotone from `from` to the first event.
   const inside = events.filter((e) => e.time > from && e.time < to);
   const times = [from, ...inside.map((e) => e.time), to];
@@ -133,7 +257,9 @@ function harmonicBreakpoints(predictor: Predictor, events: readonly TideEvent[],
   return {
     times,
     heights,
-    crossing: (i, level) => harmonicCrossing(evaluate, times[i]!, times[i + 1]!, level, heights[i]!, heights[i + 1]!),
+    crossing: (i, level) => harmonicCrossing(
+      evaluate, series, scratch, times[i]!, times[i + 1]!, level, heights[i]!, heights[i + 1]!,
+    ),
   };
 }
 

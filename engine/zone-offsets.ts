@@ -5,6 +5,7 @@
 // lookup answers exactly what luxon answers, for every instant of the years the table covers.
 
 import type { IANAZone } from 'luxon';
+import { itemAt } from './item.js';
 
 const HOUR = 3_600_000;
 // Years outside this span go straight to luxon (no table is built for them).
@@ -19,6 +20,8 @@ interface OffsetTable {
   offsets: number[]; // offset in minutes from starts[i] to starts[i + 1]
 }
 
+// Module scope on purpose, unlike the station caches of EngineContext: the tables depend on no station
+// (only on the tz database luxon reads), are bounded by MAX_TABLES and are cleared whole.
 const tables = new Map<string, OffsetTable>();
 const lastUsed = new Map<string, OffsetTable>(); // per zone name, the table used last
 
@@ -38,10 +41,10 @@ export function zoneOffset(zone: IANAZone, ms: number): number {
   let hi = starts.length - 1;
   while (lo < hi) {
     const mid = (lo + hi + 1) >> 1;
-    if (starts[mid] <= ms) lo = mid;
+    if (itemAt(starts, mid, 'offset starts') <= ms) lo = mid;
     else hi = mid - 1;
   }
-  return offsets[lo];
+  return itemAt(offsets, lo, 'offsets');
 }
 
 function tableFor(zone: IANAZone, year: number, month: number): OffsetTable {
@@ -60,10 +63,10 @@ function tableFor(zone: IANAZone, year: number, month: number): OffsetTable {
 
 // Hourly samples: no zone changes its offset twice within an hour.
 function buildTable(zone: IANAZone, from: number, to: number): OffsetTable {
+  let prev = zone.offset(from);
   const starts = [from];
-  const offsets = [zone.offset(from)];
+  const offsets = [prev];
   let prevT = from;
-  let prev = offsets[0];
   for (let t = from + HOUR; t < to + HOUR; t += HOUR) {
     const at = Math.min(t, to - 1);
     const offset = zone.offset(at);

@@ -1,5 +1,6 @@
 // The choices a build can be given (command line, project file, defaults) and their allowed values.
 import type { VolumeChoices } from './volume-options.js';
+import type { PublisherPage } from '../../templates/pages/types.js';
 
 export const UNITS = ['m', 'ft'] as const;
 export const PAGE_SIZES = ['a5', 'a6', 'a4', 'letter', 'half-letter'] as const;
@@ -29,6 +30,8 @@ export interface RenderChoices {
   contact?: string; // who to call: the imprint page and the site
   accent?: string; // #rrggbb, contrast-checked: the site's accent colour
   logo?: string; // absolute path of a checked SVG, PNG or JPEG file
+  coverImage?: string; // absolute path of a checked picture: the book covers and the site's front page
+  pages?: PublisherPage[]; // the publisher's own pages, checked (cli/build/pages.ts)
 }
 
 /** Everything one build needs to know, after the command line, the project file and the defaults. */

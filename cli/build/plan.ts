@@ -48,6 +48,8 @@ export function makePlan(
       ...(s.contact !== undefined && { contact: s.contact }),
       ...(s.accent !== undefined && { accent: s.accent.toLowerCase() }),
       ...(s.logo !== undefined && { logo: s.logo }),
+      ...(s.cover_image !== undefined && { coverImage: s.cover_image }),
+      ...(project.pages.length > 0 && { pages: project.pages }),
       stamp: outputStamp(year, s.edition, env.SOURCE_DATE_EPOCH),
     },
     quiet: args.quiet,

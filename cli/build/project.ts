@@ -6,8 +6,10 @@ import * as z from 'zod';
 import { StationFileError, nearestName, readTextFile } from '../../engine/index.js';
 import { LANGUAGES, languageOf } from '../../templates/locale/catalogue.js';
 import { ACCENT_PATTERN, contrastRatio, MIN_CONTRAST } from './accent.js';
-import { checkLogo } from './logo.js';
 import { COMBINED_MODES, MAX_VOLUME_PAGES, MIN_VOLUME_PAGES } from './volume-options.js';
+import { checkLogo, checkPicture } from './logo.js';
+import { readPages } from './pages.js';
+import type { PublisherPage } from '../../templates/pages/types.js';
 import {
   FIRST_YEAR, IMPOSITIONS, LAST_YEAR, PAGE_SIZES, UNITS, type Imposition, type PageSize, type Units,
 } from './options.js';
@@ -31,6 +33,8 @@ const FIELD_FIX: Readonly<Record<keyof ProjectSettings, string>> = {
   contact: 'write who to call as text, one to four lines, e.g. contact: "Harbour Office, Quay Road · office@example.invalid"',
   accent: 'write a darker colour as "#rrggbb" in quotes, e.g. accent: "#0b5d7a"',
   logo: 'write the path of an SVG, PNG or JPEG file, relative to tidewright.yaml, e.g. logo: brand/logo.svg',
+  cover_image: 'write the path of a photo or drawing (JPEG, PNG or SVG), relative to tidewright.yaml, e.g. cover_image: brand/cover.jpg',
+  pages: 'write the folder of your Markdown pages, relative to tidewright.yaml, e.g. pages: pages/',
   press: 'write press: true for print-shop books (bleed, crop marks, page boxes), or press: false',
   pocket: 'write pocket: true for a folded one-sheet pocket table beside each book, or pocket: false',
   combined: `write combined: full (every station's months), compact (reference ports in full, secondary ports as differences and datums) or none, or leave it out`,
@@ -87,6 +91,8 @@ const projectSchema = z.strictObject({
   contact: z.string().trim().min(1, 'is empty').max(400, 'is longer than 400 characters').optional(),
   accent: z.string().check(checkAccent).optional(),
   logo: z.string().trim().min(1, 'is empty').optional(),
+  cover_image: z.string().trim().min(1, 'is empty').optional(),
+  pages: z.string().trim().min(1, 'is empty').optional(),
   pocket: z.boolean().optional(),
   press: z.boolean().optional(),
   combined: z.enum(COMBINED_MODES).optional(),
@@ -127,18 +133,19 @@ export interface ProjectCheck {
   file: string | null;
   settings: ProjectSettings; // the settings that are valid
   problems: StationFileError[];
+  pages: PublisherPage[]; // the publisher's own pages (`pages:`), read and checked
 }
 
 /** Every problem of the project file beside the stations, if there is one. */
 export function checkProjectFile(stationsDir: string): ProjectCheck {
   const file = join(stationsDir, PROJECT_FILE_NAME);
-  if (!existsSync(file)) return { file: null, settings: {}, problems: [] };
+  if (!existsSync(file)) return { file: null, settings: {}, problems: [], pages: [] };
   const read = readTextFile(file, MAX_PROJECT_FILE_BYTES, `a ${PROJECT_FILE_NAME} of key: value settings`);
-  if (!('text' in read)) return { file, settings: {}, problems: [new StationFileError(file, '(file)', read.problem, read.fix)] };
+  if (!('text' in read)) return { file, settings: {}, problems: [new StationFileError(file, '(file)', read.problem, read.fix)], pages: [] };
   const doc = parseDocument(read.text, { uniqueKeys: true });
   if (doc.errors.length > 0) {
     return {
-      file, settings: {}, problems: doc.errors.map((syntax) => {
+      file, settings: {}, pages: [], problems: doc.errors.map((syntax) => {
         const where = syntax.linePos?.[0];
         const what = (syntax.message.split('\n')[0] ?? '').replace(/ at line \d+, column \d+:?$/, '');
         return new StationFileError(file, where ? `line ${where.line}, column ${where.col}` : '(file)',
@@ -146,11 +153,11 @@ export function checkProjectFile(stationsDir: string): ProjectCheck {
       }),
     };
   }
-  if (doc.contents === null) return { file, settings: {}, problems: [] };
+  if (doc.contents === null) return { file, settings: {}, problems: [], pages: [] };
   if (!isMap(doc.contents)) {
     return {
-      file, settings: {}, problems: [new StationFileError(file, '(file)', 'is not a list of key: value settings',
-        'write settings such as title:, publisher:, year:, page:, units:, locale:, imposition:, caution:, edition:, contact:, accent:, logo:')],
+      file, settings: {}, pages: [], problems: [new StationFileError(file, '(file)', 'is not a list of key: value settings',
+        'write settings such as title:, publisher:, year:, page:, units:, locale:, imposition:, caution:, edition:, contact:, accent:, logo:, cover_image:, pages:')],
     };
   }
   let data: Record<string, unknown>;
@@ -158,27 +165,28 @@ export function checkProjectFile(stationsDir: string): ProjectCheck {
     data = doc.toJS({ maxAliasCount: 100 }) as Record<string, unknown>;
   } catch (error) {
     const what = error instanceof Error ? (error.message.split('\n')[0] ?? '') : String(error);
-    return { file, settings: {}, problems: [new StationFileError(file, '(file)', `YAML could not be read: ${what}`, 'write plain key: value lines without aliases')] };
+    return { file, settings: {}, pages: [], problems: [new StationFileError(file, '(file)', `YAML could not be read: ${what}`, 'write plain key: value lines without aliases')] };
   }
   const parsed = projectSchema.safeParse(data);
   if (parsed.success) {
     const settings = parsed.data;
-    if (settings.logo !== undefined) {
-      try {
-        settings.logo = checkLogo(file, settings.logo).path;
-      } catch (error) {
-        if (error instanceof StationFileError) return { file, settings: {}, problems: [error] };
-        throw error;
-      }
+    let pages: PublisherPage[] = [];
+    try {
+      if (settings.logo !== undefined) settings.logo = checkLogo(file, settings.logo).path;
+      if (settings.cover_image !== undefined) settings.cover_image = checkPicture(file, 'cover_image', settings.cover_image, FIELD_FIX.cover_image).path;
+      if (settings.pages !== undefined) pages = readPages(file, settings.pages);
+    } catch (error) {
+      if (error instanceof StationFileError) return { file, settings: {}, problems: [error], pages: [] };
+      throw error;
     }
-    return { file, settings, problems: [] };
+    return { file, settings, problems: [], pages };
   }
-  return { file, settings: {}, problems: parsed.error.issues.flatMap((issue) => problemOf(file, data, issue)) };
+  return { file, settings: {}, pages: [], problems: parsed.error.issues.flatMap((issue) => problemOf(file, data, issue)) };
 }
 
 /** Reads the project file beside the stations, if there is one; a bad one is a StationFileError (its first problem). */
-export function loadProjectFile(stationsDir: string): { file: string | null; settings: ProjectSettings } {
-  const { file, settings, problems } = checkProjectFile(stationsDir);
+export function loadProjectFile(stationsDir: string): { file: string | null; settings: ProjectSettings; pages: PublisherPage[] } {
+  const { file, settings, problems, pages } = checkProjectFile(stationsDir);
   if (problems[0]) throw problems[0];
-  return { file, settings };
+  return { file, settings, pages };
 }

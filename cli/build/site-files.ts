@@ -9,7 +9,7 @@ import { StationFileError } from '../../engine/index.js';
 export const SITE_FILES_DIR = 'site-files';
 
 /** Top-level names the website uses whatever the stations are (each station also has its id). */
-const SITE_NAMES = ['index.html', 'assets', 'data', 'datums', 'imprint'];
+const SITE_NAMES = ['index.html', 'assets', 'data', 'datums', 'imprint', 'pages'];
 
 /** At most this many files, so a folder linked by mistake to something huge cannot swamp the site. */
 export const MAX_SITE_FILES = 1000;

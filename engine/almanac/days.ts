@@ -22,6 +22,37 @@ export interface DayInputs {
 const isoOrNull = (t: number | null): string | null => (t === null ? null : isoUtc(t));
 const clockOrNull = (t: number | null, zone: string): string | null => (t === null ? null : clock(t, zone));
 
+/** The fields every kind of day shares (tide and stream days alike): the calendar, the clock, sun and moon. */
+export type CommonDayFields = Omit<DayEntry, 'events' | 'curve' | 'springNeap' | 'range'>;
+
+/** The calendar, clock and sky fields of one local day, in the one shape tide and stream days share. */
+export function commonDayFields(day: LocalDay, sky: SkyDay, zone: string, moonPhase: MoonPhaseName | null): CommonDayFields {
+  return {
+    date: day.date,
+    weekday: day.weekday,
+    month: day.month,
+    dayOfMonth: day.dayOfMonth,
+    start: isoUtc(day.start),
+    end: isoUtc(day.end),
+    hours: day.hours,
+    offsetStart: day.offsetStart,
+    offsetEnd: day.offsetEnd,
+    offsetChange: day.offsetChange ? { ...day.offsetChange } : null,
+    sunrise: isoOrNull(sky.sunrise),
+    sunset: isoOrNull(sky.sunset),
+    sunriseClock: clockOrNull(sky.sunrise, zone),
+    sunsetClock: clockOrNull(sky.sunset, zone),
+    sunNote: sky.sunNote,
+    moonrise: isoOrNull(sky.moonrise),
+    moonset: isoOrNull(sky.moonset),
+    moonriseClock: clockOrNull(sky.moonrise, zone),
+    moonsetClock: clockOrNull(sky.moonset, zone),
+    sky: sky.events.map((e) => ({ body: e.body, type: e.type, time: isoUtc(e.time), clock: clock(e.time, zone) })),
+    moonPhase,
+    moonIllumination: sky.moonIllumination,
+  };
+}
+
 /** One DayEntry per local day; every event lands on exactly one day (the day of its rounded minute). */
 export function dayEntries(input: DayInputs): DayEntry[] {
   const { zone, days } = input;
@@ -32,33 +63,11 @@ export function dayEntries(input: DayInputs): DayEntry[] {
     perDay[d]!.push(input.formatted[i]!);
   });
   return days.map((day, i): DayEntry => {
-    const sky = input.sky[i]!;
     const range = dayRange(input.rangeEvents, day.start, day.end);
     return {
-      date: day.date,
-      weekday: day.weekday,
-      month: day.month,
-      dayOfMonth: day.dayOfMonth,
-      start: isoUtc(day.start),
-      end: isoUtc(day.end),
-      hours: day.hours,
-      offsetStart: day.offsetStart,
-      offsetEnd: day.offsetEnd,
-      offsetChange: day.offsetChange ? { ...day.offsetChange } : null,
+      ...commonDayFields(day, input.sky[i]!, zone, input.moonPhaseOn.get(day.date) ?? null),
       events: perDay[i]!,
       curve: input.curves[i]!,
-      sunrise: isoOrNull(sky.sunrise),
-      sunset: isoOrNull(sky.sunset),
-      sunriseClock: clockOrNull(sky.sunrise, zone),
-      sunsetClock: clockOrNull(sky.sunset, zone),
-      sunNote: sky.sunNote,
-      moonrise: isoOrNull(sky.moonrise),
-      moonset: isoOrNull(sky.moonset),
-      moonriseClock: clockOrNull(sky.moonrise, zone),
-      moonsetClock: clockOrNull(sky.moonset, zone),
-      sky: sky.events.map((e) => ({ body: e.body, type: e.type, time: isoUtc(e.time), clock: clock(e.time, zone) })),
-      moonPhase: input.moonPhaseOn.get(day.date) ?? null,
-      moonIllumination: sky.moonIllumination,
       springNeap: input.springNeapOn.get(day.date) ?? null,
       range: range === null ? null : mm(range),
     };

@@ -3,6 +3,7 @@
 // 180°, 270°). Cross-checked in the tests against Meeus (1998) ch. 49 (tests/fixtures/meeus-phases.ts).
 
 import { NextMoonQuarter, SearchMoonQuarter } from 'astronomy-engine';
+import { itemAt } from '../item.js';
 import type { MoonPhaseName } from '../types.js';
 
 export interface MoonQuarter {
@@ -26,7 +27,7 @@ export function moonQuarters(startMs: number, endMs: number): MoonQuarter[] {
   let q = SearchMoonQuarter(new Date(startMs));
   while (q.time.date.getTime() < endMs) {
     const time = q.time.date.getTime();
-    if (time >= startMs) out.push({ time, phase: QUARTER_NAMES[q.quarter] });
+    if (time >= startMs) out.push({ time, phase: itemAt(QUARTER_NAMES, q.quarter, 'moon quarter names') });
     q = NextMoonQuarter(q);
   }
   return out;

@@ -9,8 +9,8 @@
 // age of the tide (Pugh 1987) from the M2 and S2 ellipse phases.
 
 import { createEngineContext, type EngineContext } from '../context.js';
-import { CAUTION, isInvented } from '../almanac/caution.js';
-import { monthEntries } from '../almanac/days.js';
+import { isInvented } from '../almanac/caution.js';
+import { commonDayFields, monthEntries } from '../almanac/days.js';
 import { generator } from '../almanac/generator.js';
 import { modelStation, paddingDays, springNeapEntries } from '../almanac/year-span.js';
 import { ageOfTideHours } from '../datums.js';
@@ -21,8 +21,7 @@ import {
 } from '../localtime.js';
 import { moonQuarters, skyForDays, type MoonQuarter } from '../sky.js';
 import { harmonicStationOf, tideEvents, type StationLookup } from '../tides.js';
-import type { MoonPhaseEntry, MoonPhaseName, SpringNeapEntry, SpringNeapKind, Station, TideEvent } from '../types.js';
-import { STREAM_CAUTION } from './caution.js';
+import type { MoonPhaseEntry, MoonPhaseName, SpringNeapKind, Station, TideEvent } from '../types.js';
 import { isRotary } from './predict.js';
 import { ebbDirectionOf, referenceStreamOf, type StreamLookup } from './secondary.js';
 import type {
@@ -44,6 +43,7 @@ export function streamAlmanacEvent(e: StreamEvent, zone: string): StreamAlmanacE
     time: isoUtc(e.time),
     local: isoLocal(e.time, zone),
     clock: clock(e.time, zone),
+    date: localDate(e.time, zone),
     offset: offsetString(roundToMinute(e.time), zone),
     type: e.type,
     speed: knots(e.speed),
@@ -103,10 +103,17 @@ export function buildStreamYear(
   const perDay: StreamAlmanacEvent[][] = days.map(() => []);
   yearEvents.forEach((e, i) => perDay[dayIndexOf(days, e.time)]!.push(events[i]!));
   const moonPhaseOn = new Map(moonPhases.map((m) => [m.date, m.phase] as [string, MoonPhaseName]));
-  const dayList = days.map((day, i) => ({
-    ...streamDay(day, sky[i]!, perDay[i]!, dayCurve(station, set, day, step, ctx), springNeapOn, zone),
-    moonPhase: moonPhaseOn.get(day.date) ?? null,
-  }));
+  const dayList = days.map((day, i): StreamDayEntry => {
+    const most = (type: 'flood' | 'ebb') => perDay[i]!.filter((e) => e.type === type).reduce<number | null>((m, e) => (m === null || e.speed > m ? e.speed : m), null);
+    return {
+      ...commonDayFields(day, sky[i]!, zone, moonPhaseOn.get(day.date) ?? null),
+      events: perDay[i]!,
+      curve: dayCurve(station, set, day, step, ctx),
+      springNeap: springNeapOn.get(day.date) ?? null,
+      strongestFlood: most('flood'),
+      strongestEbb: most('ebb'),
+    };
+  });
 
   const strongest = (type: 'flood' | 'ebb') =>
     events.filter((e) => e.type === type).reduce<StreamAlmanacEvent | null>((best, e) => (!best || e.speed > best.speed ? e : best), null);
@@ -117,8 +124,6 @@ export function buildStreamYear(
     year,
     timezone: zone,
     invented: isInvented(station),
-    caution: CAUTION,
-    streamCaution: STREAM_CAUTION,
     reference: reference ? { id: reference.id, name: reference.name } : null,
     tideReference: tide ? { id: tide.id, name: tide.name } : null,
     floodDirection: station.flood_direction,
@@ -143,40 +148,4 @@ function dayCurve(station: AnyStreamStation, set: StreamYearLookup, day: LocalDa
   const out = Array.from(streamAlongFlood(station, set, day.start, stepMs, n, ctx), knots);
   if (day.start + (n - 1) * stepMs < day.end) out.push(knots(streamAlongFlood(station, set, day.end, stepMs, 1, ctx)[0]!));
   return out;
-}
-
-const isoOrNull = (t: number | null): string | null => (t === null ? null : isoUtc(t));
-const clockOrNull = (t: number | null, zone: string): string | null => (t === null ? null : clock(t, zone));
-
-function streamDay(
-  day: LocalDay, sky: ReturnType<typeof skyForDays>[number], events: StreamAlmanacEvent[], curve: number[],
-  springNeapOn: ReadonlyMap<string, SpringNeapKind>, zone: string,
-): StreamDayEntry {
-  const most = (type: 'flood' | 'ebb') => events.filter((e) => e.type === type).reduce<number | null>((m, e) => (m === null || e.speed > m ? e.speed : m), null);
-  return {
-    date: day.date,
-    weekday: day.weekday,
-    month: day.month,
-    dayOfMonth: day.dayOfMonth,
-    hours: day.hours,
-    offsetStart: day.offsetStart,
-    offsetEnd: day.offsetEnd,
-    offsetChange: day.offsetChange ? { ...day.offsetChange } : null,
-    events,
-    curve,
-    sunrise: isoOrNull(sky.sunrise),
-    sunset: isoOrNull(sky.sunset),
-    sunriseClock: clockOrNull(sky.sunrise, zone),
-    sunsetClock: clockOrNull(sky.sunset, zone),
-    sunNote: sky.sunNote,
-    moonrise: isoOrNull(sky.moonrise),
-    moonset: isoOrNull(sky.moonset),
-    moonriseClock: clockOrNull(sky.moonrise, zone),
-    moonsetClock: clockOrNull(sky.moonset, zone),
-    moonPhase: null,
-    moonIllumination: sky.moonIllumination,
-    springNeap: springNeapOn.get(day.date) ?? null,
-    strongestFlood: most('flood'),
-    strongestEbb: most('ebb'),
-  };
 }

@@ -3,7 +3,7 @@
 // direction the stream sets toward, clockwise from north).
 
 import type {
-  DayEntry, MonthEntry, MoonPhaseEntry, Position, SpringNeapEntry, SpringNeapKind,
+  DayEntry, ModelWarning, MonthEntry, MoonPhaseEntry, Position, SpringNeapEntry, SpringNeapKind,
 } from '../types.js';
 
 /** One constituent's tidal current ellipse (axes in the station's `unit`). */
@@ -87,16 +87,15 @@ export interface StreamAlmanacEvent {
   time: string; // ISO UTC to the second
   local: string; // ISO with the station's offset
   clock: string; // local "HH:mm" of the nearest minute
+  date: string; // local date "YYYY-MM-DD" of the printed minute (23:59:40 prints 00:00 on the next day)
   offset: string; // "+01:00"
   type: StreamEventType;
   speed: number; // knots
   direction: number | null; // degrees true toward which the stream sets; null at a slack without set
 }
 
-type SharedDayFields = Pick<DayEntry,
-  | 'date' | 'weekday' | 'month' | 'dayOfMonth' | 'hours' | 'offsetStart' | 'offsetEnd' | 'offsetChange'
-  | 'sunrise' | 'sunset' | 'sunriseClock' | 'sunsetClock' | 'sunNote' | 'moonrise' | 'moonset'
-  | 'moonriseClock' | 'moonsetClock' | 'moonPhase' | 'moonIllumination'>;
+/** The calendar, clock (`start`/`end` instants) and sky fields, the same as a tide day's (one builder makes both). */
+type SharedDayFields = Omit<DayEntry, 'events' | 'curve' | 'springNeap' | 'range'>;
 
 export interface StreamDayEntry extends SharedDayFields {
   events: StreamAlmanacEvent[]; // this day's slacks and strongest floods and ebbs, in time order
@@ -112,9 +111,7 @@ export interface StreamYear {
   station: AnyStreamStation; // as loaded
   year: number;
   timezone: string;
-  invented: boolean;
-  caution: string; // the general caution
-  streamCaution: string; // streams vary across a channel, with wind and river flow
+  invented: boolean; // demo data: every output says so (both cautions are the renderers' words)
   reference: null | { id: string; name: string }; // a stream-secondary station's reference stream station
   tideReference: null | { id: string; name: string }; // the tide station springs and neaps come from
   floodDirection: number;
@@ -130,6 +127,6 @@ export interface StreamYear {
   months: MonthEntry[];
   offsetChanges: NonNullable<DayEntry['offsetChange']>[];
   extremes: { strongestFlood: StreamAlmanacEvent | null; strongestEbb: StreamAlmanacEvent | null };
-  warnings: string[];
+  warnings: ModelWarning[]; // none yet for streams; the same codes as a tide station's
   generator: { name: 'tidewright'; version: string };
 }

@@ -5,7 +5,7 @@ import { join } from 'node:path';
 import type { StreamYear } from '../../engine/index.js';
 import { wordsFor, type Words } from '../locale/index.js';
 import { csvTable, csvText, type ExportRecord } from './fields.js';
-import { escapeText, eventUid, foldLine, icalUtc } from './icalendar.js';
+import { calendarStamp, calendarText } from './calendar.js';
 
 const SAFE_ID = /^[a-z0-9-]+$/;
 const oneLine = (text: string): string => text.replace(/[\r\n\t]+/g, ' ').trim();
@@ -77,48 +77,31 @@ export function streamEventsJson(model: StreamYear, words: Words = wordsFor()): 
 const bearing = (d: number | null): string => (d === null ? '' : `${String(Math.round(d) % 360).padStart(3, '0')}°`);
 
 /** Slack water and the strongest floods and ebbs as one iCalendar file (RFC 5545), reproducible like the tide calendar. */
-export function streamEventsICalendar(model: StreamYear, words: Words = wordsFor()): string {
+export function streamEventsICalendar(model: StreamYear, words: Words = wordsFor(), stampMs?: number): string {
   const st = model.station;
   const w = words;
-  const stamp = `${model.year}0101T000000Z`;
   const invented = model.invented ? ` ${w.t('export.invented')}` : '';
   const cautions = `${w.caution} ${w.t('caution.streams')}${invented}`;
-  const lines: string[] = [
-    'BEGIN:VCALENDAR',
-    'VERSION:2.0',
-    `PRODID:-//tidewright//tidewright ${model.generator.version}//${w.language.toUpperCase()}`,
-    'CALSCALE:GREGORIAN',
-    'METHOD:PUBLISH',
-    `X-WR-CALNAME:${escapeText(`${w.t('stream.groupName')} ${model.year}: ${st.name}`)}`,
-    `X-WR-CALDESC:${escapeText(`${w.t('stream.caption', { station: st.name, month: '', year: model.year })}. ${w.t('caution.heading')}: ${cautions} ${w.t('fact.provenance')}: ${st.provenance}`)}`,
-  ];
-  model.events.forEach((e) => {
+  return calendarText({
+    name: `${w.t('stream.groupName')} ${model.year}: ${st.name}`,
+    description: `${w.t('stream.caption', { station: st.name, month: '', year: model.year })}. ${w.t('caution.heading')}: ${cautions} ${w.t('fact.provenance')}: ${st.provenance}`,
+    generatorVersion: model.generator.version,
+  }, w, st, calendarStamp(model.year, stampMs), model.events.map((e) => {
     const what = w.t(e.type === 'slack' ? 'stream.colSlack' : e.type === 'flood' ? 'stream.strongestFlood' : 'stream.strongestEbb');
     const rate = e.type === 'slack' ? '' : ` ${w.number(e.speed, 1)} kn, ${bearing(e.direction)}`;
-    lines.push(
-      'BEGIN:VEVENT',
-      `UID:${eventUid(st.id, e.type, e.time)}`,
-      `DTSTAMP:${stamp}`,
-      `DTSTART:${icalUtc(e.time)}`,
-      `SUMMARY:${escapeText(`${what}${rate}`)}`,
-      `DESCRIPTION:${escapeText(`${what}, ${st.name}: ${e.clock} (${w.offset(e.offset)})${rate}.`)}`,
-      `LOCATION:${escapeText(st.name)}`,
-      `GEO:${st.position.latitude.toFixed(6)};${st.position.longitude.toFixed(6)}`,
-      'TRANSP:TRANSPARENT',
-      'END:VEVENT',
-    );
-  });
-  lines.push('END:VCALENDAR');
-  return `${lines.map(foldLine).join('\r\n')}\r\n`;
+    return { what: e.type, start: e.time, summary: `${what}${rate}`, description: `${what}, ${st.name}: ${e.clock} (${w.offset(e.offset)})${rate}.` };
+  }));
 }
 
-export async function writeStreamExports(model: StreamYear, dataDir: string, words: Words = wordsFor()): Promise<StreamExportFileNames> {
+export async function writeStreamExports(
+  model: StreamYear, dataDir: string, words: Words = wordsFor(), stamp?: number,
+): Promise<StreamExportFileNames> {
   const names = streamExportFileNames(model);
   await mkdir(dataDir, { recursive: true });
   await Promise.all([
     writeFile(join(dataDir, names.csv), streamEventsCsv(model, words)),
     writeFile(join(dataDir, names.json), streamEventsJson(model, words)),
-    writeFile(join(dataDir, names.ics), streamEventsICalendar(model, words)),
+    writeFile(join(dataDir, names.ics), streamEventsICalendar(model, words, stamp)),
   ]);
   return names;
 }

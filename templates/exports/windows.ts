@@ -1,10 +1,9 @@
 // Access windows and hourly heights of a station-year as downloads: windows as CSV and JSON (whole
 // intervals, UTC and local), as iCalendar events for the station's calendar, and the hourly heights as CSV.
-import { SECONDARY_WINDOW_NOTE } from '../../engine/index.js';
 import type { StationYear, WindowYear } from '../../engine/index.js';
 import { wordsFor, type Words } from '../locale/index.js';
 import { csvTable, csvText, exportHeight, HEIGHT_DIGITS, heightField, heightRecord, type ExportRecord } from './fields.js';
-import { escapeText, eventUid, icalUtc } from './icalendar.js';
+import type { CalendarEvent } from './calendar.js';
 import { exportNotes } from './notes.js';
 
 const MINUTE = 60_000;
@@ -17,7 +16,7 @@ function rule(w: WindowYear, words: Words): string {
 function notes(model: StationYear, words: Words, what: 'export.windowsFor' | 'export.hourlyFor', secondary: boolean): string[] {
   const lines = exportNotes(model, words);
   lines[0] = words.t(what, { station: model.station.name.replace(/[\r\n\t]+/g, ' ').trim(), id: model.station.id, year: model.year });
-  if (secondary) lines.splice(2, 0, SECONDARY_WINDOW_NOTE);
+  if (secondary) lines.splice(2, 0, words.t('window.secondaryNote'));
   return lines;
 }
 
@@ -46,7 +45,7 @@ export function windowsJson(model: StationYear, words: Words = wordsFor()): stri
     units: 'm',
     invented: model.invented,
     caution: words.caution,
-    secondary_note: model.windows.some((w) => w.method === 'secondary-curve') ? SECONDARY_WINDOW_NOTE : null,
+    secondary_note: model.windows.some((w) => w.method === 'secondary-curve') ? words.t('window.secondaryNote') : null,
     provenance: st.provenance,
     generator: model.generator,
     windows: model.windows.map((w) => ({
@@ -60,29 +59,17 @@ export function windowsJson(model: StationYear, words: Words = wordsFor()): stri
   return `${JSON.stringify(doc, null, 2)}\n`;
 }
 
-/** VEVENT lines of every window opening ("Marina sill open"), one short line each, for the station-year's calendar. */
-export function windowCalendarEvents(model: StationYear, words: Words, stamp: string): string[] {
+/** Every window opening ("Marina sill open") as a calendar event, one short line each, for the station-year's calendar. */
+export function windowCalendarEvents(model: StationYear, words: Words): CalendarEvent[] {
   const st = model.station;
-  const lines: string[] = [];
-  for (const w of model.windows) {
-    const secondary = w.method === 'secondary-curve' ? ` ${SECONDARY_WINDOW_NOTE}` : '';
-    for (const i of w.intervals) {
-      const description = `${words.t('window.calendar', { window: w.name, rule: rule(w, words), datum: st.datum, from: i.startLocal.slice(11, 16), to: i.endLocal.slice(11, 16) })}${secondary}`;
-      lines.push(
-        'BEGIN:VEVENT',
-        `UID:${eventUid(st.id, w.id, i.start)}`,
-        `DTSTAMP:${stamp}`,
-        `DTSTART:${icalUtc(i.start)}`,
-        `DTEND:${icalUtc(i.end)}`,
-        `SUMMARY:${escapeText(words.t('window.open', { window: w.name }))}`,
-        `DESCRIPTION:${escapeText(description)}`,
-        `LOCATION:${escapeText(st.name)}`,
-        'TRANSP:TRANSPARENT',
-        'END:VEVENT',
-      );
-    }
-  }
-  return lines;
+  return model.windows.flatMap((w) => {
+    const secondary = w.method === 'secondary-curve' ? ` ${words.t('window.secondaryNote')}` : '';
+    return w.intervals.map((i) => ({
+      what: w.id, start: i.start, end: i.end,
+      summary: words.t('window.open', { window: w.name }),
+      description: `${words.t('window.calendar', { window: w.name, rule: rule(w, words), datum: st.datum, from: i.startLocal.slice(11, 16), to: i.endLocal.slice(11, 16) })}${secondary}`,
+    }));
+  });
 }
 
 export function hourlyCsv(model: StationYear, words: Words = wordsFor()): string {

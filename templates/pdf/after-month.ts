@@ -1,9 +1,8 @@
 // Pages that follow a month in a book: the month's access windows (for a station that has them) and,
 // when the project asks for it (hourly: true), its heights on every hour of local time.
-import { SECONDARY_WINDOW_NOTE } from '../../engine/index.js';
 import type { DayEntry, StationYear } from '../../engine/index.js';
 import { drawDayCurve } from './day-curve.js';
-import { inUnits, MINUS } from '../locale/index.js';
+import { inUnits } from '../locale/index.js';
 import type { LogicalPage, PageContext } from './page.js';
 import type { StationView } from './station-view.js';
 import type { MonthEntry } from '../../engine/index.js';
@@ -63,16 +62,17 @@ export function windowsPage(view: StationView, month: MonthEntry): LogicalPage {
       const { doc, box } = ctx;
       const u = ctx.settings.geometry.scale;
       const units = ctx.settings.units;
-      const rules = model.windows.map((w) => `${w.name}: at or ${w.side} ${view.words.height(w.level)}`);
-      const top = heading(ctx, view, month, 'access windows', [
-        `Open while the tide stands at the level (${rules.join('; ')}), local time to the minute; 00:00 or 24:00: open across midnight. Leave a margin: wind and pressure change the height.`,
-        ...(model.windows.some((w) => w.method === 'secondary-curve') ? [SECONDARY_WINDOW_NOTE] : []),
+      const w = view.words;
+      const rules = model.windows.map((win) => `${win.name}: ${w.t(win.side === 'above' ? 'window.ruleAbove' : 'window.ruleBelow', { level: w.height(win.level) })}`);
+      const top = heading(ctx, view, month, w.t('book.windowsTitle'), [
+        w.t('book.windowsNote', { rules: rules.join('; ') }),
+        ...(model.windows.some((win) => win.method === 'secondary-curve') ? [w.t('window.secondaryNote')] : []),
       ]);
       const days = monthDays(model, month);
       const dayW = 31 * u;
-      const cellText = (w: (typeof model.windows)[number], i: number): string => {
-        const d = w.days[month.firstDayIndex + i]!;
-        return d.state === 'open' ? 'open all day' : d.state === 'closed' ? 'no opening' : d.pieces.map((p) => `${p.startClock}\u2013${p.endClock}`).join('  ');
+      const cellText = (win: (typeof model.windows)[number], i: number): string => {
+        const d = win.days[month.firstDayIndex + i]!;
+        return d.state === 'open' ? w.t('window.allDay') : d.state === 'closed' ? w.t('window.noOpening') : d.pieces.map((p) => `${p.startClock}\u2013${p.endClock}`).join('  ');
       };
       // columns as wide as their longest line; one smaller type size for all if they would not fit
       const row = Math.min(16 * u, (box.y + box.height - top) / days.length);
@@ -121,10 +121,9 @@ export function hoursPage(view: StationView, month: MonthEntry): LogicalPage {
       const units = ctx.settings.units;
       const days = monthDays(model, month);
       const offsets = [...new Set(days.flatMap((d) => [d.offsetStart, d.offsetEnd]))].map((o) => view.words.offset(o)).join(', ');
-      const top = heading(ctx, view, month, 'heights hour by hour', [
-        `Heights in ${view.words.unitName()} above ${model.station.datum} to the tenth, on the hour of local time (${offsets}). `
-        + 'When the clocks go forward the skipped hour shows \u2013; when they go back the repeated hour shows both heights, before the change above the one after.',
-        ...(model.hourly.method === 'secondary-curve' ? [SECONDARY_WINDOW_NOTE] : []),
+      const top = heading(ctx, view, month, view.words.t('book.hoursTitle'), [
+        view.words.t('hours.intro', { unit: view.words.unitName(), datum: model.station.datum, zone: offsets }),
+        ...(model.hourly.method === 'secondary-curve' ? [view.words.t('window.secondaryNote')] : []),
       ]);
       const dayW = 22 * u;
       const curveW = Math.min(48 * u, box.width * 0.12);
@@ -141,7 +140,7 @@ export function hoursPage(view: StationView, month: MonthEntry): LogicalPage {
         const cells: string[][] = Array.from({ length: 24 }, () => []);
         hourly?.clocks.forEach((c, k) => {
           const v = inUnits(hourly.heights[k]!, units);
-          cells[Number(c.slice(0, 2))]!.push((Math.round(v * 10) / 10 + 0).toFixed(1).replace('-', MINUS));
+          cells[Number(c.slice(0, 2))]!.push(view.words.number(Math.round(v * 10) / 10 + 0, 1));
         });
         cells.forEach((values, h) => {
           const right = box.x + dayW + (h + 1) * cellW - 1 * u;

@@ -1,14 +1,15 @@
 // Print-ready PDF tide books: one per station-year, and one combined book for a station set.
-import { readFileSync } from 'node:fs';
 import type { StationYear } from '../../engine/index.js';
 import { wordsFor, type Words } from '../locale/index.js';
 import type { StreamYear } from '../../engine/index.js';
 import { combinedPages, stationPages } from './compose.js';
+import type { CoverText } from './cover.js';
 import { bookOrder } from './contents.js';
 import { editionDate } from './document.js';
 import { printable } from './format.js';
 import { pageGeometry } from './geometry.js';
-import { imprintPage, type ImprintText } from './imprint.js';
+import { imprintPage } from './imprint.js';
+import { imprintText, publisherParts } from './publisher.js';
 import { rowHeight } from './month-layout.js';
 import { notesPage } from './notes.js';
 import type { BookOptions } from './options.js';
@@ -32,9 +33,9 @@ export async function renderStationBook(model: StationYear, options: BookOptions
   const view = stationView(model, g, words);
   const title = printable(options.title ?? words.t('book.defaultTitle'));
   const settings: BookSettings = { units: options.units, geometry: g, title, publisher: options.publisher, words, press: options.press };
-  const logo = rasterLogo(options.logo);
-  const pages = stationPages(view, 1, rowHeight(view.parts, g),
-    { kicker: title, publisher: options.publisher, ...(logo && { logo }) }, false, { hourly: options.hourly }, imprintText(options));
+  const own = publisherParts(options, g, model.invented, 1);
+  const pages = stationPages(view, 1, rowHeight(view.parts, g), { kicker: title, publisher: options.publisher, ...coverParts(own) },
+    false, { hourly: options.hourly }, imprintText(options), own.own);
   return renderBook(pages, settings, {
     title: `${view.name}: ${title} ${model.year}`,
     author: options.publisher,
@@ -47,14 +48,8 @@ export async function renderStationBook(model: StationYear, options: BookOptions
   }, options.imposition ?? 'none', () => notesPage({ invented: model.invented, label: view.name }));
 }
 
-/** The logo's bytes when pdfkit can draw it (PNG, JPEG); an SVG logo appears on the site only. */
-function rasterLogo(path: string | undefined): Buffer | undefined {
-  if (path === undefined || !/\.(png|jpe?g)$/i.test(path)) return undefined;
-  return readFileSync(path);
-}
-
-function imprintText(options: BookOptions): ImprintText {
-  return { publisher: options.publisher, contact: options.contact, stamp: options.stamp };
+function coverParts(own: ReturnType<typeof publisherParts>): Pick<CoverText, 'logo' | 'coverImage' | 'accent'> {
+  return { ...(own.logo && { logo: own.logo }), ...(own.coverImage && { coverImage: own.coverImage }), ...(own.accent && { accent: own.accent }) };
 }
 
 /** The whole set's book; the stream stations' pages (if any) follow the tide stations'. */
@@ -67,11 +62,12 @@ export async function renderCombinedBook(models: StationYear[], options: BookOpt
   const title = printable(options.title ?? words.t('book.defaultTitle'));
   const settings: BookSettings = { units: options.units, geometry: g, title, publisher: options.publisher, words, press: options.press };
   const row = rowHeight(views.flatMap((v) => v.parts), g);
-  const logo = rasterLogo(options.logo);
-  const pages = [...combinedPages(views, g, row, { title, publisher: options.publisher, hourly: options.hourly, ...(logo && { logo }) }),
-    ...streams.flatMap((m) => streamBookPages(m, title, words)),
-    imprintPage(views.map((v) => v.model), words, imprintText(options))];
   const invented = models.some((m) => m.invented) || streams.some((m) => m.invented);
+  const own = publisherParts(options, g, invented, 0);
+  const pages = [...combinedPages(views, g, row, { title, publisher: options.publisher, hourly: options.hourly, ...coverParts(own) }, own.own.front),
+    ...streams.flatMap((m) => streamBookPages(m, title, words)),
+    ...own.own.back,
+    imprintPage([...views.map((v) => v.model), ...streams], words, imprintText(options))];
   const year = Math.min(...models.map((m) => m.year));
   return renderBook(pages, settings, {
     title,

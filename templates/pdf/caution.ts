@@ -1,6 +1,7 @@
 // The caution page: the model's caution in full, then a key to every mark used on the month pages,
 // each drawn with the same code that draws it on the months.
 import type { MoonPhaseName } from '../../engine/index.js';
+import { firstOf } from '../../engine/index.js';
 import { drawDayCurve } from './day-curve.js';
 import { printable } from './format.js';
 import { belowDatumMark, clockGlyph, laneMark, moonGlyph, springNeapBadge, sunGlyph, sunGlyphWidth } from './glyphs.js';
@@ -33,7 +34,7 @@ function keyItems(ctx: PageContext, view: StationView, mixed: boolean, combined:
   const t = (font: 'narrow' | 'narrow-bold', x: number, y: number, text: string, size = 9.4) =>
     x + put(doc, text, x, y, { font, size: size * s });
   const sampleLow = -0.12;
-  const spring = view.model.days.find((d) => d.springNeap === 'spring') ?? view.model.days[0];
+  const spring = view.model.days.find((d) => d.springNeap === 'spring') ?? firstOf(view.model.days, 'days of the year');
   const g = ctx.settings.geometry;
   const curves = columns(contentBox(g, 1), monthUnit(g)).curve !== null; // small pages leave the curve out
   const items: (KeyItem | null)[] = [
@@ -114,20 +115,20 @@ export function cautionPage(view: StationView, scope: CautionScope = { combined:
       const layout = (size: number, gap: number) => {
         const style = { font: 'narrow' as const, size, color: DARK };
         const rows = items.map((item) => ({ item, lines: wrapLines(doc, item.text, style, box.x + box.width - textX) }));
-        const heights = rows.map((r) => Math.max(17 * s, r.lines.length * size * 1.22 + gap));
-        return { style, rows, heights, total: heights.reduce((a, b) => a + b, 0) };
+        const sized = rows.map((r) => ({ ...r, height: Math.max(17 * s, r.lines.length * size * 1.22 + gap) }));
+        return { style, rows: sized, total: sized.reduce((a, r) => a + r.height, 0) };
       };
       const room = box.y + box.height - y - 6 * s;
       let plan = layout(8.2 * s, 10 * s);
       if (plan.total > room) plan = layout(8.2 * s, 4 * s);
       if (plan.total > room) plan = layout(7.2 * s, 3 * s);
       const lead = plan.style.size * 1.22;
-      plan.rows.forEach(({ item, lines }, k) => {
-        const base = y + Math.min(15 * s, plan.heights[k] * 0.62);
+      for (const { item, lines, height } of plan.rows) {
+        const base = y + Math.min(15 * s, height * 0.62);
         artifact(doc, () => item.draw(box.x, base));
         lines.forEach((line, i) => put(doc, line, textX, base + (i - (lines.length - 1) / 2) * lead, plan.style));
-        y += plan.heights[k];
-      });
+        y += height;
+      }
     },
   };
 }

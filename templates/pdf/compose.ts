@@ -1,5 +1,6 @@
 // Lays out books as lists of logical pages: the order of the parts, and a notes page where a month
 // that fills two pages would otherwise start on a right-hand page and not face itself.
+import { firstOf, lastOf } from '../../engine/index.js';
 import { bookCoverPage } from './book-cover.js';
 import { cautionPage } from './caution.js';
 import { contentsPageCount, contentsPages } from './contents.js';
@@ -15,6 +16,7 @@ import { notesPage } from './notes.js';
 import { overviewPage } from './overview.js';
 import type { LogicalPage } from './page.js';
 import type { StationView } from './station-view.js';
+import type { Picture } from './picture.js';
 
 /** Where the parts and the months of a station's pages start, for its cover. */
 function guide(pages: LogicalPage[], firstNumber: number): NonNullable<CoverText['guide']> {
@@ -31,11 +33,16 @@ function guide(pages: LogicalPage[], firstNumber: number): NonNullable<CoverText
 /** What follows each month besides its own pages: its hourly heights (a project's `hourly: true`). */
 export interface AfterMonth { hourly?: boolean }
 
+/** The publisher's own pages before the tide tables and after them. */
+export interface OwnPlaces { front: LogicalPage[]; back: LogicalPage[] }
+
+const NO_OWN: OwnPlaces = { front: [], back: [] };
+
 /** The pages of one station, the first of which will be page `firstNumber`. */
 export function stationPages(view: StationView, firstNumber: number, row: number, cover: CoverText,
-  section: boolean, after: AfterMonth = {}, imprint: ImprintText = {}): LogicalPage[] {
+  section: boolean, after: AfterMonth = {}, imprint: ImprintText = {}, own: OwnPlaces = NO_OWN): LogicalPage[] {
   const pages: LogicalPage[] = [coverPage(view, cover, section ? 'section' : 'cover'), factsPage(view)];
-  if (!section) pages.push(cautionPage(view));
+  if (!section) pages.push(cautionPage(view), ...own.front);
   for (const part of view.parts) {
     const next = firstNumber + pages.length;
     if (part.partIndex === 0 && part.partCount % 2 === 0 && next % 2 === 1) {
@@ -48,22 +55,25 @@ export function stationPages(view: StationView, firstNumber: number, row: number
     }
   }
   pages.push(overviewPage(view));
-  if (!section) pages.push(imprintPage([view.model], view.words, imprint, view.name));
+  if (!section) pages.push(...own.back, imprintPage([view.model], view.words, imprint, view.name));
   cover.guide = guide(pages, firstNumber);
   return pages;
 }
 
-export interface CombinedText { title: string; publisher?: string; hourly?: boolean; logo?: Buffer }
+export interface CombinedText { title: string; publisher?: string; hourly?: boolean; logo?: Picture; coverImage?: Picture; accent?: string }
 
-export function combinedPages(views: StationView[], g: PageGeometry, row: number, text: CombinedText): LogicalPage[] {
+/** The combined book up to the last station's pages; the caller adds what follows (streams, back pages, imprint). */
+export function combinedPages(views: StationView[], g: PageGeometry, row: number, text: CombinedText, front: LogicalPage[] = []): LogicalPage[] {
   const invented = views.some((v) => v.model.invented);
+  const lead = firstOf(views, 'stations of the combined book');
   const years = [...new Set(views.map((v) => v.model.year))].sort((a, b) => a - b);
-  const yearText = years.length === 1 ? String(years[0]) : `${years[0]}\u2013${years[years.length - 1]}`;
-  const front: LogicalPage[] = [bookCoverPage(views, { ...text, years: yearText }, views[0].words.caution, invented)];
+  const [firstYear, lastYear] = [firstOf(years, 'years'), lastOf(years, 'years')];
+  const yearText = firstYear === lastYear ? String(firstYear) : `${firstYear}\u2013${lastYear}`;
+  const cover: LogicalPage[] = [bookCoverPage(views, { ...text, years: yearText }, lead.words.caution, invented)];
   const contentsCount = contentsPageCount(views.length, contentBox(g, 1).height, g.scale);
   const mixed = views.some((v) => v.southern) && views.some((v) => !v.southern);
-  const caution = cautionPage(views[0], { combined: true, mixedHemispheres: mixed });
-  let next = 1 + contentsCount + 2; // after the cover, the contents and the caution page
+  const caution = cautionPage(lead, { combined: true, mixedHemispheres: mixed });
+  let next = 1 + contentsCount + 2 + front.length; // after the cover, the contents, the caution page and the publisher's front pages
   const sections: LogicalPage[] = [];
   const entries = views.map((view) => {
     const kicker = view.words.t(view.model.station.kind === 'secondary' ? 'port.secondary' : 'port.reference');
@@ -73,5 +83,5 @@ export function combinedPages(views: StationView[], g: PageGeometry, row: number
     sections.push(...pages);
     return entry;
   });
-  return [...front, ...contentsPages(entries, contentBox(g, 1).height, g.scale, invented, views[0]!.words), caution, ...sections];
+  return [...cover, ...contentsPages(entries, contentBox(g, 1).height, g.scale, invented, lead.words), caution, ...front, ...sections];
 }

@@ -74,7 +74,7 @@ export function contentsPages(entries: ContentsEntry[], boxHeight: number, s: nu
           const num = String(e.page);
           const numW = widthOf(doc, num, { font: 'bold', size: 9.5 * s });
           const st = e.view.model.station;
-          const prev = k > 0 ? chunk[k - 1].view.model : start > 0 ? entries[start - 1].view.model : null;
+          const prev = entries[start + k - 1]?.view.model ?? null; // the entry above, on this page or the last
           const underReference = st.kind === 'secondary' && prev !== null
             && (prev.station.id === st.reference || prev.reference?.id === st.reference);
           const indent = underReference ? 12 * s : 0;

@@ -3,6 +3,8 @@ import type { PageContext } from './page.js';
 import { unit } from './page.js';
 import { DARK, INK, WHITE } from './style.js';
 import { put, putFitted, wrapLines } from './text.js';
+import type { Picture } from './picture.js';
+import { tag } from './tags.js';
 
 /** The black "invented data" banner; returns the y below it. */
 export function inventedBanner(ctx: PageContext, y: number): number {
@@ -30,4 +32,20 @@ export function cautionBlock(ctx: PageContext, caution: string, publisher?: stri
   doc.save().lineWidth(0.6 * s).strokeColor(INK).moveTo(box.x, ruleY).lineTo(box.x + box.width, ruleY).stroke().restore();
   for (const line of lines) { put(doc, line, box.x, y, style); y += lead; }
   return publisher ? ruleY - 20 * s : ruleY;
+}
+
+/** The publisher's cover picture filling the free band from `top` to `bottom` (cropped to it, centred). */
+export function coverImage(ctx: PageContext, picture: Picture, top: number, bottom: number): void {
+  const { doc, box } = ctx;
+  const s = unit(ctx);
+  const h = Math.min(bottom - top, 190 * s);
+  if (h < 40 * s) return; // no room worth a picture on this format
+  const k = Math.max(box.width / picture.pixels.width, h / picture.pixels.height);
+  const w = picture.pixels.width * k;
+  const ih = picture.pixels.height * k;
+  tag(doc, 'Figure', { alt: 'Cover picture' }, () => {
+    doc.save().rect(box.x, top, box.width, h).clip();
+    doc.image(picture.data, box.x - (w - box.width) / 2, top - (ih - h) / 2, { width: w, height: ih });
+    doc.restore();
+  });
 }

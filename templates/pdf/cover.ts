@@ -1,13 +1,18 @@
 // The cover of a station book, also used (as a section title page) for each station of a combined
 // book: station, year, position, datum, the kind of port, a real fortnight of its tide, the caution.
+import { firstOf, lastOf } from '../../engine/index.js';
+import { cautionBlock, coverImage, inventedBanner } from './cover-parts.js';
 import { printable } from './format.js';
 import type { LogicalPage, PageContext } from './page.js';
 import { unit } from './page.js';
 import type { StationView } from './station-view.js';
-import { cautionBlock, inventedBanner } from './cover-parts.js';
 import { DARK, INK, LIGHT, MID } from './style.js';
 import { tag } from './tags.js';
 import { fitLines, paragraph, put, putFitted } from './text.js';
+import { fitted, type Picture } from './picture.js';
+
+/** The largest a logo prints on a cover, in design points (A5). */
+export const LOGO_BOX = { width: 70, height: 44 };
 
 export interface GuideEntry { label: string; page: number }
 
@@ -15,17 +20,29 @@ export interface CoverText {
   kicker: string; // the small line above the year
   publisher?: string;
   guide?: { parts: GuideEntry[]; months: GuideEntry[] }; // where things are, filled in once laid out
-  logo?: Buffer; // the publisher's PNG or JPEG logo, top right of the cover
+  logo?: Picture; // the publisher's logo, top right of the cover
+  coverImage?: Picture; // the publisher's photo or drawing, in the cover's free space
+  accent?: string; // the publisher's colour: the year and a bar above it
 }
 
 /** The publisher's logo in the top right corner of a cover; returns the width it leaves for the top line. */
-export function drawLogo(ctx: PageContext, logo: Buffer | undefined): number {
+export function drawLogo(ctx: PageContext, logo: Picture | undefined, publisher?: string): number {
   const { doc, box } = ctx;
   const s = unit(ctx);
   if (logo === undefined) return box.width;
-  const w = 70 * s;
-  doc.image(logo, box.x + box.width - w, box.y, { fit: [w, 44 * s], align: 'right' });
-  return box.width - w - 8 * s;
+  const size = fitted(logo.pixels, LOGO_BOX.width * s, LOGO_BOX.height * s);
+  tag(doc, 'Figure', { alt: publisher ? `Logo of ${publisher}` : 'Logo of the publisher' }, () => {
+    doc.image(logo.data, box.x + box.width - size.width, box.y, { width: size.width, height: size.height });
+  });
+  return box.width - size.width - 8 * s;
+}
+
+/** The year in the publisher's colour (black without one), with a bar of it above the top line. */
+export function accentBar(ctx: PageContext, accent: string | undefined): void {
+  if (accent === undefined) return;
+  const { doc, box } = ctx;
+  const s = unit(ctx);
+  doc.save().rect(box.x, box.y - 2 * s, 36 * s, 3.2 * s).fill(accent).restore();
 }
 
 /** "In this book": the parts and the first page of each month, if the space allows. */
@@ -62,13 +79,13 @@ function drawFortnight(ctx: PageContext, view: StationView, x: number, y: number
   doc.moveTo(px(0), y + h);
   heights.forEach((v, i) => doc.lineTo(px(i), py(v)));
   doc.lineTo(px(heights.length - 1), y + h).closePath().fill(LIGHT);
-  doc.moveTo(px(0), py(heights[0]));
+  doc.moveTo(px(0), py(firstOf(heights, 'fortnight heights')));
   heights.forEach((v, i) => doc.lineTo(px(i), py(v)));
   doc.lineWidth(1.1 * s).strokeColor(INK).stroke();
   doc.lineWidth(0.5 * s).strokeColor(INK).moveTo(x, y + h).lineTo(x + w, y + h).stroke();
   doc.restore();
-  const first = days[0].date;
-  const last = days[days.length - 1].date;
+  const first = firstOf(days, 'fortnight days').date;
+  const last = lastOf(days, 'fortnight days').date;
   put(doc, view.words.t('book.fortnight', { from: view.words.date(first, { year: false }), to: view.words.date(last) }), x, y + h + 10 * s,
     { font: 'narrow', size: 7 * s, color: MID });
 }
@@ -84,10 +101,11 @@ export function coverPage(view: StationView, text: CoverText, kind: 'cover' | 's
       const { doc, box } = ctx;
       const s = unit(ctx);
       let y = box.y + 12 * s;
-      const topWidth = kind === 'cover' ? drawLogo(ctx, text.logo) : box.width;
+      const topWidth = kind === 'cover' ? drawLogo(ctx, text.logo, text.publisher) : box.width;
+      if (kind === 'cover') accentBar(ctx, text.accent);
       putFitted(doc, text.kicker.toUpperCase(), box.x, y, { font: 'bold', size: 9 * s, color: MID }, topWidth, 6.5 * s);
       y += 62 * s;
-      put(doc, String(model.year), box.x - 3 * s, y, { font: 'bold', size: 70 * s });
+      put(doc, String(model.year), box.x - 3 * s, y, { font: 'bold', size: 70 * s, color: text.accent ?? INK });
       y += 38 * s;
 
       const name = fitLines(doc, view.name, { font: 'bold', size: 25 * s }, box.width, 4, 9 * s);
@@ -118,7 +136,8 @@ export function coverPage(view: StationView, text: CoverText, kind: 'cover' | 's
 
       if (model.invented) y = inventedBanner(ctx, y) + 20 * s;
       const cautionTop = cautionBlock(ctx, view.words.caution, text.publisher);
-      if (text.guide) drawGuide(ctx, text.guide, y, cautionTop - 4 * s);
+      if (kind === 'cover' && text.coverImage) coverImage(ctx, text.coverImage, y - 6 * s, cautionTop - 4 * s);
+      else if (text.guide) drawGuide(ctx, text.guide, y, cautionTop - 4 * s);
     },
   };
 }

@@ -1,6 +1,6 @@
 // A tide staff drawn to scale beside the datums table: each datum a line at its true height, the
 // chart datum heavy, labels spread apart where datums lie close together.
-import type { Datums } from '../../engine/index.js';
+import { itemAt, type Datums } from '../../engine/index.js';
 import type { Box } from './geometry.js';
 import { inUnits, type Words } from '../locale/index.js';
 import type { HeightUnits } from './options.js';
@@ -13,14 +13,15 @@ export const DATUM_ROWS: { key: keyof Omit<Datums, 'epoch'> }[] = [
 ];
 
 /** Spreads label positions (sorted top to bottom) so neighbours are at least `gap` apart. */
-export function spreadLabels(ys: number[], gap: number): number[] {
-  const out = [...ys];
-  for (let i = 1; i < out.length; i++) if (out[i] < out[i - 1] + gap) out[i] = out[i - 1] + gap;
+export function spreadLabels(ys: readonly number[], gap: number): number[] {
+  const pushDown = (list: readonly number[]) => {
+    let above = -Infinity;
+    return list.map((y) => (above = Math.max(y, above + gap)));
+  };
+  const down = pushDown(ys);
   // pull the stack back up around its centre so it does not only grow downwards
-  const shift = (out[out.length - 1] - ys[ys.length - 1]) / 2;
-  if (shift > 0) for (let i = 0; i < out.length; i++) out[i] -= shift;
-  for (let i = 1; i < out.length; i++) if (out[i] < out[i - 1] + gap) out[i] = out[i - 1] + gap;
-  return out;
+  const shift = ((down.at(-1) ?? 0) - (ys.at(-1) ?? 0)) / 2;
+  return shift > 0 ? pushDown(down.map((y) => y - shift)) : down;
 }
 
 function staffStep(span: number, units: HeightUnits): number {
@@ -62,10 +63,11 @@ export function drawDatumScale(doc: PDFKit.PDFDocument, datums: Datums, datumLab
   rows.forEach((r, i) => {
     const isDatum = r.zero;
     const ly = y(r.v);
+    const labelY = itemAt(ys, i, 'datum label positions'); // one position per row, by spreadLabels
     doc.save().lineWidth(isDatum ? 1.6 * s : 0.6 * s).strokeColor(INK)
       .moveTo(staffX - (isDatum ? 2 * s : 0), ly).lineTo(lineEnd, ly)
-      .lineTo(lineEnd + 6 * s, ys[i]).lineTo(labelX - 1.5 * s, ys[i]).stroke().restore();
-    putFitted(doc, r.label, labelX, ys[i] + 2.4 * s,
+      .lineTo(lineEnd + 6 * s, labelY).lineTo(labelX - 1.5 * s, labelY).stroke().restore();
+    putFitted(doc, r.label, labelX, labelY + 2.4 * s,
       { font: isDatum ? 'narrow-bold' : 'narrow', size: 7 * s }, box.x + box.width - labelX, 5 * s);
   });
   put(doc, words.unitName(), staffX + staffW / 2, box.y - 5 * s,

@@ -40,7 +40,7 @@ export function drawDayCurve(doc: PDFKit.PDFDocument, day: DayEntry, box: Box, s
     // water below chart datum: solid fill between the curve and the datum line
     doc.save().rect(box.x, zero, box.width, box.y + box.height - zero).clip();
     doc.moveTo(x(0), zero);
-    for (let i = 0; i < n; i++) doc.lineTo(x(i), y(day.curve[i]));
+    day.curve.forEach((h, i) => doc.lineTo(x(i), y(h)));
     doc.lineTo(x(n - 1), zero).closePath().fill(INK);
     doc.restore();
   }
@@ -48,8 +48,7 @@ export function drawDayCurve(doc: PDFKit.PDFDocument, day: DayEntry, box: Box, s
     doc.lineWidth(0.4 * u).strokeColor(INK).dash(1.2 * u, { space: 1.2 * u })
       .moveTo(box.x, zero).lineTo(box.x + box.width, zero).stroke().undash();
   }
-  doc.moveTo(x(0), y(day.curve[0]));
-  for (let i = 1; i < n; i++) doc.lineTo(x(i), y(day.curve[i]));
+  day.curve.forEach((h, i) => (i === 0 ? doc.moveTo(x(i), y(h)) : doc.lineTo(x(i), y(h))));
   doc.lineWidth(0.9 * u).lineJoin('round').strokeColor(INK).stroke();
   doc.restore();
 }

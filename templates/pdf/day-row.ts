@@ -4,6 +4,7 @@ import type { AlmanacEvent, DayEntry } from '../../engine/index.js';
 import { dayLanes } from '../day-lanes.js';
 import type { Words } from '../locale/index.js';
 import { drawDayCurve } from './day-curve.js';
+import { barsHeight, drawWindowBars, windowsAlt } from './window-bars.js';
 import { belowDatumMark, clockGlyph, laneMark, moonGlyph, springNeapBadge, sunGlyph, sunGlyphWidth } from './glyphs.js';
 import type { Columns } from './month-layout.js';
 import { monthType, noteBand } from './month-layout.js';
@@ -141,8 +142,14 @@ export function drawDayRow(doc: PDFKit.PDFDocument, view: StationView, day: DayE
     const pad = 2.2 * u;
     const curve = cols.curve;
     if (curve) {
-      group(doc, 'TD', {}, () => tag(doc, 'Figure', { alt: curveAlt(day, f.words) }, () => drawDayCurve(doc, day,
-        { x: curve.x, y: top + pad, width: curve.w, height: height - 2 * pad }, view.curve, u)));
+      const windows = view.windows.windows.length;
+      const bars = barsHeight(windows, u);
+      const box = { x: curve.x, y: top + pad, width: curve.w, height: height - 2 * pad - Math.max(0, bars - pad * 0.6) };
+      const alt = windows ? `${curveAlt(day, f.words)}; ${windowsAlt(view.windows, day, f.words)}` : curveAlt(day, f.words);
+      group(doc, 'TD', {}, () => tag(doc, 'Figure', { alt }, () => {
+        drawDayCurve(doc, day, box, view.curve, u);
+        if (windows) drawWindowBars(doc, view.windows, day, box, view.curve, u);
+      }));
     }
 
     group(doc, 'TD', {}, () => drawSun(doc, day, f, lanesY));
@@ -169,9 +176,9 @@ function drawSun(doc: PDFKit.PDFDocument, day: DayEntry, f: RowFrame, y: { high:
   const style: TextStyle = { font: 'narrow', size: monthType(u).clock };
   if (day.sunNote) {
     const w = f.words;
-    const words = day.sunNote === 'sun-up-all-day' ? [w.t('sun.upShort'), w.t('sun.allDayShort')] : [w.t('sun.downShort'), w.t('sun.allDayShort')];
-    putFitted(doc, words[0], sun.x, y.high, { ...style, font: 'narrow-bold' }, sun.w, 4.5 * u);
-    putFitted(doc, words[1], sun.x, y.low, { ...style, font: 'narrow-bold' }, sun.w, 4.5 * u);
+    const upper = w.t(day.sunNote === 'sun-up-all-day' ? 'sun.upShort' : 'sun.downShort');
+    putFitted(doc, upper, sun.x, y.high, { ...style, font: 'narrow-bold' }, sun.w, 4.5 * u);
+    putFitted(doc, w.t('sun.allDayShort'), sun.x, y.low, { ...style, font: 'narrow-bold' }, sun.w, 4.5 * u);
     return;
   }
   const glyph = 7.4 * u;

@@ -1,21 +1,22 @@
 // The imprint page, last in every book: who publishes it and how to reach them, the edition's date,
 // the tidewright version, the datum epochs, where the constants of each station come from, and the
 // caution in full.
-import type { StationYear } from '../../engine/index.js';
+import type { StationYear, StreamYear } from '../../engine/index.js';
 import type { Words } from '../locale/index.js';
 import { printable } from './format.js';
 import type { LogicalPage } from './page.js';
 import { unit } from './page.js';
-import { MID } from './style.js';
+import { INK, MID } from './style.js';
 import { paragraph, put } from './text.js';
 
 export interface ImprintText {
   publisher?: string | undefined;
   contact?: string | undefined;
   stamp?: number | undefined; // UTC ms of the edition
+  accent?: string | undefined; // the publisher's colour, for the page's heading
 }
 
-export function imprintPage(models: readonly StationYear[], words: Words, text: ImprintText, label?: string): LogicalPage {
+export function imprintPage(models: readonly (StationYear | StreamYear)[], words: Words, text: ImprintText, label?: string): LogicalPage {
   const first = models[0]!;
   const invented = models.some((m) => m.invented);
   return {
@@ -29,7 +30,7 @@ export function imprintPage(models: readonly StationYear[], words: Words, text: 
       const body = { font: 'regular', size: 8.4 * s } as const;
       let y = box.y + 14 * s;
       const w = words;
-      put(doc, w.t('site.imprint'), box.x, y, { font: 'bold', size: 16 * s });
+      put(doc, w.t('site.imprint'), box.x, y, { font: 'bold', size: 16 * s, color: text.accent ?? INK });
       y += 22 * s;
       const block = (label: string, value: string, maxLines = 12): void => {
         put(doc, label, box.x, y, { font: 'narrow-bold', size: 7.8 * s, color: MID });
@@ -44,8 +45,8 @@ export function imprintPage(models: readonly StationYear[], words: Words, text: 
       block(w.t('imprint.edition'), w.date(edition));
       if (text.contact !== undefined) block(w.t('imprint.contact'), text.contact, 4);
       block(w.t('imprint.madeWith'), w.t('imprint.method', { generator: `${first.generator.name} ${first.generator.version}` }));
-      const epochs = [...new Set(models.map((m) => `${m.datums.epoch.from}\u2013${m.datums.epoch.to}`))];
-      block(w.t('imprint.datumEpoch'), w.t('site.latHatOver', { epoch: epochs.join(', ') }));
+      const epochs = [...new Set(models.flatMap((m) => (!('datums' in m) ? [] : [`${m.datums.epoch.from}\u2013${m.datums.epoch.to}`])))];
+      if (epochs.length > 0) block(w.t('imprint.datumEpoch'), w.t('site.latHatOver', { epoch: epochs.join(', ') }));
       const sources = models.length === 1
         ? first.station.provenance
         : [...new Map(models.map((m) => [m.station.id, `${m.station.name}: ${m.station.provenance}`])).values()].join('\n');

@@ -1,10 +1,11 @@
 // A month page: heading with the month, the station, the clock offsets in force and the height
 // unit; column heads; then one row per day.
-import type { DayEntry } from '../../engine/index.js';
+import { firstOf, lastOf, type DayEntry } from '../../engine/index.js';
 import type { Words } from '../locale/index.js';
 import { drawDayRow } from './day-row.js';
 import { laneMark } from './glyphs.js';
 import { drawMonthTab } from './month-tab.js';
+import { drawWindowKey } from './window-bars.js';
 import { group, tag } from './tags.js';
 import type { MonthPart } from './month-layout.js';
 import { columns, HEADER_HEIGHT, monthType, monthUnit, needsWideSun } from './month-layout.js';
@@ -46,8 +47,8 @@ export function monthPage(view: StationView, part: MonthPart, row: number): Logi
       const rightX = box.x + box.width;
       const headW = box.width - mw - widthOf(doc, ` ${model.year}`, { font: 'regular', size: 21 * u }) - 14 * u;
       putFitted(doc, view.name, rightX, y0 + 8 * u, { font: 'bold', size: 9.5 * u }, headW, 6 * u, 'right');
-      const first = part.days[0].dayOfMonth;
-      const last = part.days[part.days.length - 1].dayOfMonth;
+      const first = firstOf(part.days, 'days of the month part').dayOfMonth;
+      const last = lastOf(part.days, 'days of the month part').dayOfMonth;
       const w = view.words;
       const span = part.partCount > 1
         ? w.t('book.daySpan', { first, last, count: part.month.dayCount })
@@ -55,7 +56,10 @@ export function monthPage(view: StationView, part: MonthPart, row: number): Logi
       put(doc, span, rightX, y0 + 17.5 * u, { font: 'narrow', size: 7.6 * u, color: MID }, 'right');
 
       const info = `${offsetStatement(monthDays, w)} \u00b7 ${w.t('site.heightsAbove', { unit: w.unitName(), datum: model.station.datum })}`;
-      putFitted(doc, info, box.x, y0 + 29 * u, { font: 'narrow', size: 7.6 * u }, box.width, 5 * u);
+      const keyWidth = model.windows.length
+        ? drawWindowKey(doc, model.windows, w, rightX, y0 + 29 * u, box.width * 0.45, u) + 6 * u
+        : 0;
+      putFitted(doc, info, box.x, y0 + 29 * u, { font: 'narrow', size: 7.6 * u }, box.width - keyWidth, 5 * u);
 
       // the month's table: a row of column heads, then a row per day
       group(doc, 'Table', { title: `${w.monthName(part.month.month)} ${model.year}` }, () => {

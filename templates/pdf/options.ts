@@ -1,5 +1,7 @@
 // Options of a printed tide book, and their defaults.
 
+import type { PublisherPage } from '../pages/types.js';
+
 export type PageSizeName = 'a5' | 'a6' | 'a4' | 'letter' | 'half-letter';
 export type HeightUnits = 'm' | 'ft';
 
@@ -16,7 +18,10 @@ export interface BookOptions {
   hourly?: boolean; // a page of heights on every hour after each month
   stamp?: number; // UTC ms: the creation date of the file (default 1 January of the year)
   contact?: string; // who to call, printed on the imprint page (lines)
-  logo?: string; // path of the publisher's logo: PNG and JPEG are drawn on the covers (SVG only on the site)
+  logo?: string; // path of the publisher's logo (SVG, PNG or JPEG): top right of the covers
+  coverImage?: string; // path of the publisher's cover picture: in the covers' free space
+  accent?: string; // #rrggbb: the covers' year and bar, the titles of the publisher's pages (not in press output)
+  pages?: readonly PublisherPage[]; // the publisher's own pages (templates/pages/types.ts)
 }
 
 export const PAGE_SIZE_NAMES: readonly PageSizeName[] = ['a5', 'a6', 'a4', 'letter', 'half-letter'];

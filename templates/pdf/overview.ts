@@ -54,8 +54,8 @@ export function overviewPage(view: StationView): LogicalPage {
           const scaleStyle = { font: 'narrow' as const, size: 5.6 * s, color: MID };
           put(doc, w.number(inUnits(model.meanSpringRange, units), 1), plotX + plotW + 2 * s, yr(model.meanSpringRange) + 2 * s, scaleStyle);
           put(doc, w.number(inUnits(model.meanNeapRange, units), 1), plotX + plotW + 2 * s, yr(model.meanNeapRange) + 2 * s, scaleStyle);
-          for (let i = 0; i < m.dayCount; i++) {
-            const d = model.days[m.firstDayIndex + i];
+          const monthDays = model.days.slice(m.firstDayIndex, m.firstDayIndex + m.dayCount);
+          for (const [i, d] of monthDays.entries()) {
             const cx = plotX + (i + 0.5) * slot;
             if (d.range !== null) {
               const marked = d.springNeap !== null;

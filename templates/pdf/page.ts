@@ -27,7 +27,7 @@ export interface FooterInfo {
   label?: string; // running foot, e.g. the station's name
 }
 
-export type PageKind = 'cover' | 'contents' | 'caution' | 'section' | 'facts' | 'month' | 'overview' | 'notes' | 'imprint'
+export type PageKind = 'own' | 'cover' | 'contents' | 'caution' | 'section' | 'facts' | 'month' | 'overview' | 'notes' | 'imprint'
   | 'windows' | 'hours'; // pages after a month: its access windows, its heights hour by hour
 
 export interface LogicalPage {

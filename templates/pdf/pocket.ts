@@ -1,6 +1,6 @@
 // The pocket table: a whole year of one station on one sheet, printed on both sides and folded to
 // pocket size (see pocket/fold.ts for the panels and the fold).
-import type { StationYear } from '../../engine/index.js';
+import { itemAt, type StationYear } from '../../engine/index.js';
 import { createDocument, editionDate, finish } from './document.js';
 import { printable } from './format.js';
 import type { Box, Size } from './geometry.js';
@@ -73,7 +73,7 @@ function drawPanel(doc: PDFKit.PDFDocument, model: StationYear, content: PanelCo
     case 'key': return drawKey(doc, model, box, text);
     case 'levels': return drawLevels(doc, model, box, text);
     case 'caution': return drawCaution(doc, model, box, text);
-    case 'month': return drawPocketMonth(doc, model, model.months[content.month - 1], box, layout, text.words, text.southern);
+    case 'month': return drawPocketMonth(doc, model, itemAt(model.months, content.month - 1, 'months'), box, layout, text.words, text.southern);
   }
 }
 
@@ -84,11 +84,11 @@ export async function renderPocketTable(model: StationYear, options: PocketOptio
   const title = printable(options.title ?? words.t('book.defaultTitle'));
   const name = printable(model.station.name);
   const doc = createDocument({
-    title: `${name}: pocket tide table ${model.year}`,
+    title: words.t('pocket.title', { station: name, year: String(model.year) }),
     author: options.publisher,
-    subject: `High and low waters for ${name} in ${model.year} on one folded sheet`
-      + `${model.invented ? ' (invented demonstration data)' : ''}`,
-    keywords: 'tide predictions, high water, low water, chart datum, pocket table',
+    subject: words.t('pocket.subject', { station: name, year: String(model.year) })
+      + `${model.invented ? ` (${words.t('book.inventedSubject')})` : ''}`,
+    keywords: words.t('pocket.keywords'),
     date: editionDate(model.year),
     lang: words.tag,
   });

@@ -17,9 +17,9 @@ export interface PagePlacement {
 
 /** A grey '#rrggbb' (r = g = b) as black ink: [0, 0, 0, K] with K = 1 − grey, in pdfkit's 0…1 form. */
 export function blackInk(color: string): number[] {
-  const m = /^#([0-9a-f]{2})\1\1$/i.exec(color);
-  if (!m) throw new RangeError(`colour ${color} is not a grey of the book's palette, so it has no black-ink equivalent`);
-  return [0, 0, 0, Math.round((1 - parseInt(m[1], 16) / 255) * 1000) / 1000];
+  const grey = /^#([0-9a-f]{2})\1\1$/i.exec(color)?.[1];
+  if (grey === undefined) throw new RangeError(`colour ${color} is not a grey of the book's palette, so it has no black-ink equivalent`);
+  return [0, 0, 0, Math.round((1 - parseInt(grey, 16) / 255) * 1000) / 1000];
 }
 
 interface ColorNormalizer { _normalizeColor(color: unknown): unknown }

@@ -1,5 +1,6 @@
 // Draws a laid-out book: each logical page on its own PDF page, or two-up on sheets in saddle-stitch
 // order. Pages are drawing callbacks, so the same page draws anywhere on any sheet.
+import { itemAt } from '../../engine/index.js';
 import type { DocumentMeta } from './document.js';
 import { createDocument, finish } from './document.js';
 import { drawFooter } from './footer.js';
@@ -58,7 +59,7 @@ export async function renderBook(pages: LogicalPage[], settings: BookSettings, m
       const at = addTrimmedPage(doc, g.size.width, g.size.height, press);
       if (page.anchor) doc.addNamedDestination(page.anchor);
       addOutline(doc, page, parent);
-      within(doc, sects[i], () => drawLogical(doc, settings, page, i + 1, at.dx, at.dy, true, at.bleed));
+      within(doc, itemAt(sects, i, 'page sections'), () => drawLogical(doc, settings, page, i + 1, at.dx, at.dy, true, at.bleed));
     });
     return finish(doc);
   }
@@ -75,11 +76,11 @@ export async function renderBook(pages: LogicalPage[], settings: BookSettings, m
       const at = addTrimmedPage(doc, g.sheet.width, g.sheet.height, press);
       for (const [n, x, edges] of [[side.left, at.dx + offset, { left: true, right: false }],
         [side.right, at.dx + offset + g.size.width, { left: false, right: true }]] as const) {
-        const page = all[n - 1];
+        const page = itemAt(all, n - 1, 'pages of the booklet'); // the plan numbers the padded pages 1…paddedCount
         sheetOf[n - 1] = sheetPage;
         // links and their targets work wherever a page lands on a sheet
         if (page.anchor) doc.addNamedDestination(page.anchor, 'XYZ', x, at.dy, null);
-        within(doc, sects[n - 1], () => drawLogical(doc, settings, page, n, x, at.dy, true, at.bleed, edges));
+        within(doc, itemAt(sects, n - 1, 'page sections'), () => drawLogical(doc, settings, page, n, x, at.dy, true, at.bleed, edges));
       }
       sheetPage++;
       // fold marks at the top and bottom edge, outside the type area

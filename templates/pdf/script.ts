@@ -35,14 +35,14 @@ export function visualPieces(text: string): Piece[] {
   const levels = bidi.getEmbeddingLevels(text);
   const mirrored = bidi.getMirroredCharactersMap(text, levels.levels);
   const units = [...text].map((c, i, all) => ({ c, at: all.slice(0, i).join('').length }));
-  const chars = units.map(({ c, at }) => ({ c: mirrored.get(at) ?? c, level: levels.levels[at]! }));
+  const chars = units.map(({ c, at }) => ({ c: mirrored.get(at) ?? c, level: levels.levels[at] ?? 0 })); // bidi-js gives a level per code unit
   // Visual order: reverse the runs bidi-js names, over code points (a surrogate pair stays whole).
   const indexOfUnit = new Map(units.map((u, i) => [u.at, i]));
   const order = chars.map((_, i) => i);
-  for (const [start, end] of bidi.getReorderSegments(text, levels)) {
+  for (const [start = 0, end = -1] of bidi.getReorderSegments(text, levels)) {
     const from = indexOfUnit.get(start) ?? 0;
     let to = from;
-    while (to + 1 < units.length && units[to + 1]!.at <= end) to++;
+    while ((units[to + 1]?.at ?? Infinity) <= end) to++;
     order.splice(from, to - from + 1, ...order.slice(from, to + 1).reverse());
   }
   const pieces: Piece[] = [];

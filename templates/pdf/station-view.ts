@@ -7,6 +7,7 @@ import type { CurveScale } from './day-curve.js';
 import type { MonthPart } from './month-layout.js';
 import { monthParts } from './month-layout.js';
 import { printable } from './format.js';
+import { windowLookup, type WindowLookup } from './window-bars.js';
 
 export interface StationView {
   model: StationYear;
@@ -15,6 +16,7 @@ export interface StationView {
   curve: CurveScale; // one vertical scale for every day curve of the station, so days compare
   parts: MonthPart[];
   words: Words;
+  windows: WindowLookup; // access windows drawn on the month pages (none when the station has none)
 }
 
 export function stationView(model: StationYear, g: PageGeometry, words: Words): StationView {
@@ -29,6 +31,7 @@ export function stationView(model: StationYear, g: PageGeometry, words: Words): 
     name: printable(model.station.name),
     southern: model.station.position.latitude < 0,
     curve: { low: low - pad, high: high + pad },
+    windows: windowLookup(model.windows),
     parts: monthParts(model, g),
     words,
   };

@@ -8,7 +8,9 @@ import { printable } from './format.js';
 import { contentBox, pageGeometry } from './geometry.js';
 import { springNeapBadge } from './glyphs.js';
 import { offsetStatement } from './month-page.js';
+import { imprintPage } from './imprint.js';
 import { notesPage } from './notes.js';
+import { imprintText, publisherParts } from './publisher.js';
 import { checkBookOptions, type BookOptions } from './options.js';
 import type { BookSettings, LogicalPage, PageContext } from './page.js';
 import { renderBook } from './render.js';
@@ -140,14 +142,17 @@ export async function renderStreamBook(model: StreamYear, options: BookOptions):
   contentBox(g, 1);
   const title = printable(options.title ?? wordsFor({ locale: options.locale }).t('book.defaultTitle'));
   const words = wordsFor({ locale: options.locale, units: options.units, caution: options.caution });
-  const settings: BookSettings = { units: options.units, geometry: g, title, publisher: options.publisher, words };
-  const pages = streamBookPages(model, title, words);
+  const settings: BookSettings = { units: options.units, geometry: g, title, publisher: options.publisher, words, press: options.press };
+  const own = publisherParts(options, g, model.invented, 0).own;
+  const [first, ...months] = streamBookPages(model, title, words);
+  const pages = [first!, ...own.front, ...months, ...own.back, imprintPage([model], words, imprintText(options), model.station.name)];
   return renderBook(pages, settings, {
     title: `${model.station.name}: ${words.t('stream.title', { year: model.year })}`,
     author: options.publisher,
     subject: `${words.t('stream.caption', { station: model.station.name, month: '', year: model.year }).replace(', ', ' ').replace('  ', ' ')}${model.invented ? ` (${words.t('book.inventedSubject')})` : ''}`,
     keywords: `${words.t('stream.groupName')}, ${words.t('stream.colSlack')}, ${words.t('stream.flood')}, ${words.t('stream.ebb')}`,
-    date: editionDate(model.year),
+    date: options.stamp !== undefined ? new Date(options.stamp) : editionDate(model.year),
     lang: words.tag,
+    tagged: options.tagged,
   }, options.imposition ?? 'none', () => notesPage({ invented: model.invented, label: model.station.name }));
 }

@@ -17,7 +17,8 @@ export interface TagOptions {
 }
 
 interface TagState {
-  parents: PDFKit.PDFStructureElement[]; // innermost last
+  root: PDFKit.PDFStructureElement; // the Document element
+  parents: PDFKit.PDFStructureElement[]; // open containers below the root, innermost last
   leaf: boolean; // inside a leaf's content: nested tags only draw
   artifact: boolean; // an artifact is open on the page
   decor: number; // inside `artifact`: tags only draw
@@ -29,7 +30,12 @@ const states = new WeakMap<PDFKit.PDFDocument, TagState>();
 export function startTagging(doc: PDFKit.PDFDocument): void {
   const root = doc.struct('Document');
   doc.addStructure(root);
-  states.set(doc, { parents: [root], leaf: false, artifact: false, decor: 0 });
+  states.set(doc, { root, parents: [], leaf: false, artifact: false, decor: 0 });
+}
+
+/** The container that new elements join: the innermost open one, else the document. */
+function innermost(state: TagState): PDFKit.PDFStructureElement {
+  return state.parents.at(-1) ?? state.root;
 }
 
 export function isTagged(doc: PDFKit.PDFDocument): boolean {
@@ -58,7 +64,7 @@ export function tag<T>(doc: PDFKit.PDFDocument, type: TagType, options: TagOptio
   if (!state || state.leaf || state.decor > 0) return draw();
   let result: T | undefined;
   const el = element(doc, type, options);
-  state.parents[state.parents.length - 1].add(el);
+  innermost(state).add(el);
   state.leaf = true;
   state.artifact = false; // pdfkit closes the open artifact when marked content with an id begins
   try {
@@ -76,7 +82,7 @@ export function group<T>(doc: PDFKit.PDFDocument, type: TagType, options: TagOpt
   const state = states.get(doc);
   if (!state || state.leaf || state.decor > 0) return build();
   const el = element(doc, type, options);
-  state.parents[state.parents.length - 1].add(el);
+  innermost(state).add(el);
   return within(doc, el, build);
 }
 
@@ -98,7 +104,7 @@ export function sections(doc: PDFKit.PDFDocument, titles: (string | undefined)[]
   if (!state) return titles.map(() => null);
   return titles.map((title) => {
     const el = element(doc, 'Sect', title ? { title } : {});
-    state.parents[state.parents.length - 1].add(el);
+    innermost(state).add(el);
     return el;
   });
 }

@@ -1,7 +1,6 @@
 // One volume of the combined output of a large set: its own cover, contents and bookmarks, the
 // stations' sections (full, or compact for secondary ports), and an imprint. The page counts a
 // planner needs to fill volumes come from the same composition, before anything is drawn.
-import { readFileSync } from 'node:fs';
 import type { StationYear } from '../../engine/index.js';
 import { wordsFor } from '../locale/index.js';
 import { bookCoverPage } from './book-cover.js';
@@ -12,6 +11,7 @@ import { editionDate } from './document.js';
 import { printable } from './format.js';
 import { contentBox, pageGeometry } from './geometry.js';
 import { imprintPage } from './imprint.js';
+import { imprintText, publisherParts } from './publisher.js';
 import { rowHeight } from './month-layout.js';
 import { notesPage } from './notes.js';
 import { checkBookOptions, type BookOptions } from './options.js';
@@ -75,9 +75,10 @@ export async function renderVolume(stations: VolumeStation[], options: BookOptio
   const yearText = years.length === 1 ? String(years[0]) : `${years[0]}\u2013${years[years.length - 1]}`;
   const volumeLine = text.volumes > 1 ? w.t('volume.label', { volume: text.volume, count: text.volumes })
     + (text.label ? ` \u00b7 ${printable(text.label)}` : '') : undefined;
-  const logo = options.logo !== undefined && /\.(png|jpe?g)$/i.test(options.logo) ? readFileSync(options.logo) : undefined;
+  const own = publisherParts(options, g, invented, 0);
   const cover = bookCoverPage(views, { title, years: yearText, ...(options.publisher !== undefined && { publisher: options.publisher }),
-    ...(logo && { logo }), ...(volumeLine !== undefined && { volume: volumeLine }) }, w.caution, invented);
+    ...(own.logo && { logo: own.logo }), ...(own.coverImage && { coverImage: own.coverImage }), ...(own.accent && { accent: own.accent }),
+    ...(volumeLine !== undefined && { volume: volumeLine }) }, w.caution, invented);
   const fullParts = views.filter((v, i) => !(stations[i]!.compact && v.model.station.kind === 'secondary')).flatMap((v) => v.parts);
   const row = rowHeight(fullParts, g);
   const contentsCount = contentsPageCount(views.length, contentBox(g, 1).height, g.scale);
@@ -94,7 +95,7 @@ export async function renderVolume(stations: VolumeStation[], options: BookOptio
     return entry;
   });
   const pages = [cover, ...contentsPages(entries, contentBox(g, 1).height, g.scale, invented, w), caution, ...sections,
-    imprintPage(views.map((v) => v.model), w, { publisher: options.publisher, contact: options.contact, stamp: options.stamp })];
+    imprintPage(views.map((v) => v.model), w, imprintText(options))];
   const pdf = await renderBook(pages, { units: options.units, geometry: g, title, publisher: options.publisher, words: w, press: options.press }, {
     title: volumeLine === undefined ? title : `${title}: ${volumeLine}`,
     author: options.publisher,

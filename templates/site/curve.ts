@@ -76,11 +76,7 @@ export function dayCurve(day: DayEntry, stepMinutes: number, scale: HeightScale)
   const start = instant(day.start);
   const minutes = (instant(day.end) - start) / 60_000;
   const xOf = (elapsed: number): number => r1((elapsed / minutes) * CURVE_WIDTH);
-  const parts: string[] = [];
-  for (let i = 0; i < day.curve.length; i++) {
-    parts.push(`${i === 0 ? 'M' : 'L'}${xOf(i * stepMinutes)} ${yOf(day.curve[i], scale)}`);
-  }
-  const line = parts.join('');
+  const line = day.curve.map((h, i) => `${i === 0 ? 'M' : 'L'}${xOf(i * stepMinutes)} ${yOf(h, scale)}`).join('');
   const lastX = xOf((day.curve.length - 1) * stepMinutes);
   const water = day.curve.length > 0 ? `${line}L${lastX} ${CURVE_HEIGHT}L0 ${CURVE_HEIGHT}Z` : '';
   const dots = day.events.map((e) => ({
@@ -89,7 +85,8 @@ export function dayCurve(day: DayEntry, stepMinutes: number, scale: HeightScale)
     type: e.type,
     belowDatum: e.belowDatum,
   }));
-  const ticks = [6, 12, 18].map((h) => xOf(elapsedToClock(day, h)));
+  const clockX = (hour: number): number => xOf(elapsedToClock(day, hour));
+  const noon = clockX(12);
   const night = nightSpans(day, start, minutes).map(([a, b]) => ({ x: xOf(a), width: r1(xOf(b) - xOf(a)) }));
-  return { line, water, datumY: yOf(0, scale), dots, ticks, noon: ticks[1], night };
+  return { line, water, datumY: yOf(0, scale), dots, ticks: [clockX(6), noon, clockX(18)], noon, night };
 }

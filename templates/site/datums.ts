@@ -1,6 +1,6 @@
 // The station's datums as a ladder: highest first, with the y of each level on a small vertical
 // scale and label positions pushed apart where levels lie close (LAT and MLWS often do).
-import type { Datums } from '../../engine/index.js';
+import { firstOf, lastOf, type Datums } from '../../engine/index.js';
 import { datumsInHeightOrder } from '../datum-order.js';
 
 export const LADDER_HEIGHT = 210;
@@ -21,25 +21,23 @@ export interface DatumRow {
 export function datumLadder(datums: Datums): DatumRow[] {
   // highest first; chart datum lands where it belongs (the book's facts page uses the same order)
   const rows = datumsInHeightOrder(datums).map(({ key, value }) => ({ key, name: key as string, value }));
-  const hi = rows[0].value;
-  const lo = rows[rows.length - 1].value;
+  const hi = firstOf(rows, 'datum levels').value; // never empty: chart datum is always a row
+  const lo = lastOf(rows, 'datum levels').value;
   const span = hi - lo || 1;
   const placed: DatumRow[] = rows.map((r) => {
     const y = Math.round((TOP + ((hi - r.value) / span) * (BOTTOM - TOP)) * 10) / 10;
     return { ...r, y, labelY: y };
   });
   // Push labels down where they crowd, then back up from the bottom edge if they ran past it.
-  for (let i = 1; i < placed.length; i++) {
-    placed[i].labelY = Math.max(placed[i].labelY, placed[i - 1].labelY + LABEL_GAP);
-  }
-  for (let i = placed.length - 1; i >= 0; i--) {
-    const limit = i === placed.length - 1 ? BOTTOM + 4 : placed[i + 1].labelY - LABEL_GAP;
-    placed[i].labelY = Math.min(placed[i].labelY, limit);
-  }
+  let above = -Infinity;
+  for (const row of placed) above = row.labelY = Math.max(row.labelY, above + LABEL_GAP);
+  let below = BOTTOM + 4 + LABEL_GAP;
+  for (const row of [...placed].reverse()) below = row.labelY = Math.min(row.labelY, below - LABEL_GAP);
   return placed;
 }
 
 /** Height on the diagram from the top level to the bottom one (the band drawn behind the lines). */
 export function ladderSpan(rows: DatumRow[]): number {
-  return rows.length === 0 ? 0 : Math.round((rows[rows.length - 1].y - rows[0].y) * 10) / 10;
+  const [top, bottom] = [rows.at(0), rows.at(-1)];
+  return top === undefined || bottom === undefined ? 0 : Math.round((bottom.y - top.y) * 10) / 10;
 }

@@ -54,8 +54,8 @@ export function glanceMonth(model: StationYear, month: MonthEntry, maxRange: num
   const springDays: number[] = [];
   const neapDays: number[] = [];
   const usable = BARS_BOTTOM - BARS_TOP;
-  for (let i = 0; i < month.dayCount; i++) {
-    const day = model.days[month.firstDayIndex + i];
+  const days = model.days.slice(month.firstDayIndex, month.firstDayIndex + month.dayCount);
+  for (const [i, day] of days.entries()) {
     const x = GLANCE_LEFT + i * GLANCE_PITCH;
     const cx = x + GLANCE_BAR / 2;
     const h = day.range === null ? 0 : Math.round((day.range / maxRange) * usable * 10) / 10;

@@ -36,7 +36,7 @@ export const HANDOFF_KEY = 'tidewrightSite';
 export const STATION_YEARS_PER_RUN = 25;
 
 // Which templates each kind of run leaves out.
-const SHARED_PAGES = ['index.njk', 'datums.njk', 'imprint.njk', 'stream-year.njk', 'stream-month.njk'];
+const SHARED_PAGES = ['index.njk', 'datums.njk', 'imprint.njk', 'stream-year.njk', 'stream-month.njk', 'own-page.njk'];
 const STATION_PAGES = ['station-year.njk', 'month.njk', 'hours.njk'];
 
 async function linkOrCopy(from: string, to: string): Promise<void> {
@@ -92,6 +92,10 @@ export async function renderSite(models: StationYear[], outDir: string, options:
   await runEleventy(root, out, { ...site, stationYears: [], monthPages: [] }, STATION_PAGES, options, options.siteFiles);
 
   if (options.logo !== undefined && site.logo !== null) await copyFile(options.logo, join(out, site.logo.slice(1)));
+  if (options.coverImage !== undefined && site.coverImage !== null) await copyFile(options.coverImage, join(out, site.coverImage.slice(1)));
+  for (const own of site.ownPages) {
+    for (const file of own.files) await copyFile(file.from, join(out, own.url.slice(1), file.name));
+  }
 
   const siteData = join(out, 'data');
   await mkdir(siteData, { recursive: true });
@@ -106,7 +110,7 @@ export async function renderSite(models: StationYear[], outDir: string, options:
     }
   }
   for (const model of options.streams ?? []) {
-    const names = await writeStreamExports(model, siteData, siteWords(options));
+    const names = await writeStreamExports(model, siteData, siteWords(options), options.stamp);
     if (options.dataDir) {
       await mkdir(options.dataDir, { recursive: true });
       for (const name of [names.csv, names.json, names.ics]) await linkOrCopy(join(siteData, name), join(options.dataDir, name));

@@ -4,7 +4,10 @@
 import type {
   MonthEntry, OffsetChange, Station, StationYear, TideTypeCode, StreamYear,
 } from '../../engine/index.js';
+import { extname } from 'node:path';
 import { exportFileNames } from '../exports/write.js';
+import type { PublisherPage } from '../pages/types.js';
+import { siteOwnPages, type SiteOwnPage } from './own-pages.js';
 import { wordsFor, type Units, type Words } from '../locale/index.js';
 import { indexStreams, streamPages, type IndexStream, type StreamMonthPage, type StreamYearPage } from './stream-views.js';
 
@@ -18,6 +21,8 @@ export interface SiteOptions {
   contact?: string; // who to call: the imprint page
   accent?: string; // #rrggbb (checked for contrast by the build): headings, links and the masthead
   logo?: string; // path of the publisher's logo (SVG, PNG or JPEG, checked by the build): the masthead
+  coverImage?: string; // path of the publisher's cover picture (checked by the build): the front page
+  pages?: readonly PublisherPage[]; // the publisher's own pages (checked by the build)
 }
 
 /** A clock change with the local date of the day it happens on. */
@@ -92,6 +97,8 @@ export interface SiteData {
   contact: string | null;
   accent: string | null;
   logo: string | null; // site path of the logo, e.g. /assets/logo.svg
+  coverImage: string | null; // site path of the cover picture, e.g. /assets/cover.jpg
+  ownPages: SiteOwnPage[]; // the publisher's pages, front ones first
   imprint: { epochs: string[]; sources: { name: string; provenance: string }[] };
   groups: IndexGroup[];
   stationYears: StationYearPage[];
@@ -222,6 +229,8 @@ export function buildSiteData(models: StationYear[], options: SiteOptions, downl
     computed: new Date(options.stamp ?? Date.UTC(first?.year ?? 1970, 0, 1)).toISOString().slice(0, 10),
     contact: options.contact ?? null,
     logo: options.logo === undefined ? null : `/assets/logo${(/\.(svg|png|jpe?g)$/i.exec(options.logo)?.[0] ?? '.png').toLowerCase()}`,
+    coverImage: options.coverImage === undefined ? null : `/assets/cover${extname(options.coverImage).toLowerCase()}`,
+    ownPages: siteOwnPages(options.pages),
     accent: options.accent !== undefined && /^#[0-9a-f]{6}$/i.test(options.accent) ? options.accent : null,
     imprint: {
       epochs: [...new Set(sorted.map((m) => `${m.datums.epoch.from}\u2013${m.datums.epoch.to}`))],

@@ -1,6 +1,5 @@
 // View helpers for access windows and hourly heights: what each day's window line and hour row read.
 // The numbers come from the model (StationYear.windows, StationYear.hourly); nothing is recomputed.
-import { SECONDARY_WINDOW_NOTE } from '../../engine/index.js';
 import type { DayEntry, StationYear, WindowDay, WindowYear } from '../../engine/index.js';
 import { inUnits, type Words } from '../locale/index.js';
 
@@ -59,16 +58,10 @@ export function hourCells(day: DayEntry, model: StationYear, words: Words): Hour
   return cells;
 }
 
-/** The note a page prints when its windows or hourly heights come from a secondary port's curve. */
-export function secondaryCurveNote(model: StationYear): string | null {
-  return model.hourly.method === 'secondary-curve' ? SECONDARY_WINDOW_NOTE : null;
-}
-
 export function windowFilters(words: Words): Record<string, (...args: never[]) => unknown> {
   return {
     dayWindows: (day: DayEntry, model: StationYear) => dayWindows(day, model),
     windowRule: (w: WindowYear) => windowRule(w, words),
     hourCells: (day: DayEntry, model: StationYear) => hourCells(day, model, words),
-    secondaryCurveNote: (model: StationYear) => secondaryCurveNote(model),
   };
 }

@@ -61,7 +61,7 @@ describe('parseBuildArgs', () => {
 
 describe('project file', () => {
   it('is optional', () => {
-    expect(loadProjectFile(stationsWithProject(null))).toEqual({ file: null, settings: {} });
+    expect(loadProjectFile(stationsWithProject(null))).toEqual({ file: null, settings: {}, pages: [] });
     expect(loadProjectFile(stationsWithProject('')).settings).toEqual({});
   });
 
@@ -74,6 +74,7 @@ describe('project file', () => {
       file: join(dir, 'tidewright.yaml'),
       settings: { title: 'Brinewold Bay Tide Almanac', publisher: 'Brinewold Bay Harbour Office', year: 2028, page: 'a6',
         units: 'ft', locale: 'en-GB', imposition: 'saddle-stitch', hourly: true },
+      pages: [],
     });
   });
 

@@ -98,7 +98,7 @@ describe('tidewright windows', () => {
     expect(lines.length).toBeGreaterThan(3);
     expect(lines[1]).toMatch(/^cove-invented,\d{4}-\d\d-\d\dT\d\d:\d\d:\d\dZ,[^,]+,[^,]+Z,[^,]+,\d+$/);
     const table = await runCli(['windows', join(DIR, 'cove.yaml'), '--below', '2.0', '--from', '2027-03-27', '--to', '2027-03-30']);
-    expect(table.stdout).toContain('Open while the tide is at or below 2.00 m above Chart Datum');
+    expect(table.stdout).toContain('Window: open while the tide is at or below 2.00 m above Chart Datum');
     expect(table.stdout).toContain('Secondary port: ');
     expect(table.stdout).toContain('Caution: ');
     const never = await runCli(['windows', join(DIR, 'solar.yaml'), '--above', '9', '--from', '2027-03-27', '--to', '2027-03-30']);

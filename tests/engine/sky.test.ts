@@ -6,6 +6,8 @@ import {
 } from '../../engine/sky.js';
 import type { Position } from '../../engine/types.js';
 import { meeusPhaseJde, meeusQuarters } from '../fixtures/meeus-phases.js';
+import { neighbours, zipSame } from '../fixtures/lists.js';
+import { firstOf, itemAt, lastOf } from '../../engine/index.js';
 
 const MINUTE = 60_000;
 const DAY = 86_400_000;
@@ -24,8 +26,9 @@ describe('moon quarters', () => {
       const t = utc(p.time);
       const found = moonQuarters(t - DAY, t + DAY);
       expect(found).toHaveLength(1);
-      expect(found[0].phase).toBe(p.phase);
-      expect(Math.abs(found[0].time - t)).toBeLessThanOrEqual(3 * MINUTE);
+      const [quarter] = found;
+      expect(quarter?.phase).toBe(p.phase);
+      expect(Math.abs((quarter?.time ?? NaN) - t)).toBeLessThanOrEqual(3 * MINUTE);
     }
   });
 
@@ -37,9 +40,9 @@ describe('moon quarters', () => {
     expect(ephemeris.length).toBe(meeus.length);
     expect(ephemeris.length).toBeGreaterThan(540); // 11 years × 12.37 lunations × 4
     let worst = 0;
-    for (let i = 0; i < ephemeris.length; i++) {
-      expect(ephemeris[i].phase).toBe(meeus[i].phase);
-      worst = Math.max(worst, Math.abs(ephemeris[i].time - meeus[i].time));
+    for (const [mine, theirs] of zipSame(ephemeris, meeus, 'moon quarters')) {
+      expect(mine.phase).toBe(theirs.phase);
+      worst = Math.max(worst, Math.abs(mine.time - theirs.time));
     }
     expect(worst).toBeLessThanOrEqual(2 * MINUTE);
   });
@@ -56,15 +59,15 @@ describe('moon quarters', () => {
     const order = ['new', 'first-quarter', 'full', 'last-quarter'];
     expect(q.length).toBeGreaterThanOrEqual(48);
     expect(q.length).toBeLessThanOrEqual(50);
-    for (let i = 0; i < q.length; i++) {
-      expect(q[i].time).toBeGreaterThanOrEqual(from);
-      expect(q[i].time).toBeLessThan(to);
-      if (i > 0) {
-        expect(order.indexOf(q[i].phase)).toBe((order.indexOf(q[i - 1].phase) + 1) % 4);
-        const gap = (q[i].time - q[i - 1].time) / DAY;
-        expect(gap).toBeGreaterThan(6);
-        expect(gap).toBeLessThan(9);
-      }
+    for (const { time } of q) {
+      expect(time).toBeGreaterThanOrEqual(from);
+      expect(time).toBeLessThan(to);
+    }
+    for (const [before, after] of neighbours(q)) {
+      expect(order.indexOf(after.phase)).toBe((order.indexOf(before.phase) + 1) % 4);
+      const gap = (after.time - before.time) / DAY;
+      expect(gap).toBeGreaterThan(6);
+      expect(gap).toBeLessThan(9);
     }
     expect(moonQuarters(to, from)).toEqual([]);
   });
@@ -116,9 +119,8 @@ describe('sun and moon rise and set per local day', () => {
       const sky = skyForDays(days, place.position, place.zone);
       expectWellFormed(days, sky);
       let checked = 0;
-      for (let i = 0; i < days.length; i += 9) {
-        const { start, end } = days[i];
-        for (const [mine, direction] of [[sky[i].sunrise, 1], [sky[i].sunset, -1]] as const) {
+      for (const [{ start, end }, skyDay] of zipSame(days, sky, 'sky days').filter((_, i) => i % 9 === 0)) {
+        for (const [mine, direction] of [[skyDay.sunrise, 1], [skyDay.sunset, -1]] as const) {
           expect(mine).not.toBeNull(); // below the polar circles the Sun rises and sets every day
           const other = secondLibrary(Body.Sun, place.position, direction, start - MINUTE, end);
           expect(other).not.toBeNull();
@@ -131,16 +133,16 @@ describe('sun and moon rise and set per local day', () => {
   });
 
   it('moonrise and moonset agree with astronomy-engine within 2 minutes, and a day without moonrise gives null', () => {
-    const place = MID_LATITUDES[0];
+    const place = firstOf(MID_LATITUDES, 'places');
     const days = localDays(2027, place.zone);
     const sky = skyForDays(days, place.position, place.zone);
     let withoutRise = 0;
     let withoutSet = 0;
-    for (let i = 0; i < days.length; i++) {
+    for (const [day, skyDay] of zipSame(days, sky, 'sky days')) {
       // A time belongs to the day of its printed minute: search from 30 s before midnight to 30 s before the next.
-      const start = days[i].start - MINUTE / 2;
-      const end = days[i].end - MINUTE / 2;
-      for (const [mine, direction] of [[sky[i].moonrise, 1], [sky[i].moonset, -1]] as const) {
+      const start = day.start - MINUTE / 2;
+      const end = day.end - MINUTE / 2;
+      for (const [mine, direction] of [[skyDay.moonrise, 1], [skyDay.moonset, -1]] as const) {
         const other = secondLibrary(Body.Moon, place.position, direction, start, end);
         if (mine === null) {
           // No event that day: the second library finds none either (or only within a minute of midnight).
@@ -166,7 +168,7 @@ describe('sun and moon rise and set per local day', () => {
     const days = localDays(2027, zone);
     const sky = skyForDays(days, position, zone);
     expectWellFormed(days, sky);
-    const on = (date: string) => sky[days.findIndex((d) => d.date === date)];
+    const on = (date: string) => itemAt(sky, days.findIndex((d) => d.date === date), date);
     expect(on('2027-06-21')).toMatchObject({ sunrise: null, sunset: null, sunNote: 'sun-up-all-day' });
     expect(on('2027-12-21')).toMatchObject({ sunrise: null, sunset: null, sunNote: 'sun-down-all-day' });
     expect(on('2027-03-21').sunNote).toBeNull(); // equinox: an ordinary day
@@ -187,11 +189,9 @@ describe('sun and moon rise and set per local day', () => {
     const sky = skyForDays(days, position, zone);
     expectWellFormed(days, sky);
     expect(JSON.stringify(sky)).not.toMatch(/NaN|Invalid|undefined/);
-    for (let i = 0; i < days.length; i++) {
-      const note = sky[i].sunNote;
+    for (const [{ start, end }, { sunNote: note }] of zipSame(days, sky, 'sky days')) {
       if (note === null) continue;
       // No sunrise or sunset all day: the second library finds none either, and the Sun's side matches.
-      const { start, end } = days[i];
       expect(secondLibrary(Body.Sun, position, 1, start, end)).toBeNull();
       expect(secondLibrary(Body.Sun, position, -1, start, end)).toBeNull();
       // Apparent altitude of the Sun's centre at mid-day: its upper limb is on the horizon at −0.27°;
@@ -220,17 +220,17 @@ describe('sun and moon rise and set per local day', () => {
   });
 
   it("illumination at local noon agrees with astronomy-engine's illuminated fraction within 0.01", () => {
-    const place = MID_LATITUDES[0];
+    const place = firstOf(MID_LATITUDES, 'places');
     const days = localDays(2027, place.zone);
     const sky = skyForDays(days, place.position, place.zone);
-    for (let i = 0; i < days.length; i += 5) {
-      const noon = days[i].start + 12 * 3_600_000; // no daylight-saving change falls on these days before noon
-      if (days[i].offsetChange) continue;
-      expect(Math.abs(sky[i].moonIllumination - Illumination(Body.Moon, new Date(noon)).phase_fraction)).toBeLessThan(0.01);
+    for (const [day, skyDay] of zipSame(days, sky, 'sky days').filter((_, i) => i % 5 === 0)) {
+      const noon = day.start + 12 * 3_600_000; // no daylight-saving change falls on these days before noon
+      if (day.offsetChange) continue;
+      expect(Math.abs(skyDay.moonIllumination - Illumination(Body.Moon, new Date(noon)).phase_fraction)).toBeLessThan(0.01);
     }
     // On the day of a full moon it is nearly full; on a new moon nearly dark.
-    for (const q of moonQuarters(days[0].start, days[364].end)) {
-      const s = sky[dayIndexOf(days, q.time)];
+    for (const q of moonQuarters(firstOf(days, 'days').start, lastOf(days, 'days').end)) {
+      const s = itemAt(sky, dayIndexOf(days, q.time), 'sky days');
       if (q.phase === 'full') expect(s.moonIllumination).toBeGreaterThan(0.95);
       if (q.phase === 'new') expect(s.moonIllumination).toBeLessThan(0.05);
     }

@@ -5,7 +5,7 @@ import { join } from 'node:path';
 import { beforeAll, describe, expect, test } from 'vitest';
 import { buildStationYear } from '../../engine/almanac.js';
 import { loadStationSet, type StationSet } from '../../engine/stations.js';
-import { buildStreamYear, streamEventsFor, type StreamStation, type StreamYear } from '../../engine/streams.js';
+import { buildStreamYear, streamAlmanacEvent, streamEventsFor, type StreamStation, type StreamYear } from '../../engine/streams.js';
 
 const DEMO = join(import.meta.dirname, '..', '..', 'stations-demo');
 let set: StationSet;
@@ -24,7 +24,7 @@ describe('buildStreamYear', () => {
     expect(model.months).toHaveLength(12);
     const all = model.days.flatMap((d) => d.events);
     expect(all).toEqual(model.events);
-    for (const day of model.days) for (const e of day.events) expect(e.local.slice(0, 10)).toBe(day.date);
+    for (const day of model.days) for (const e of day.events) expect(e.date).toBe(day.date);
     const raw = streamEventsFor(narrows, set, Date.parse('2026-12-30T00:00:00Z'), Date.parse('2027-01-03T00:00:00Z'));
     const first = raw.find((e) => e.time >= Date.parse('2027-01-01T00:00:00Z'))!;
     expect(model.events[0]!.time).toBe(new Date(Math.round(first.time / 1000) * 1000).toISOString().replace('.000Z', 'Z'));
@@ -71,9 +71,33 @@ describe('buildStreamYear', () => {
   test('plain JSON, cautions and the invented mark', () => {
     expect(JSON.parse(JSON.stringify(model))).toEqual(model);
     expect(model.invented).toBe(true);
-    expect(model.caution).toMatch(/not a substitute for the official tide tables/);
-    expect(model.streamCaution).toMatch(/vary across a channel/);
+    // facts only: the cautions are the renderers' words (the catalogue's caution.full and caution.streams)
+    expect(model).not.toHaveProperty('caution');
+    expect(model).not.toHaveProperty('streamCaution');
     expect(model.station.sourceFile).toBe('wrackrun-narrows.yaml');
     expect(model.moonPhases.length).toBeGreaterThanOrEqual(48);
   });
+
+  test('an event at 23:59:40 prints 00:00 and is dated the next day, as a tide event is', () => {
+    // 2027-05-14 23:59:40 in Lisbon (summer time, UTC+01:00) is 22:59:40 UTC
+    const late = streamAlmanacEvent({ time: Date.parse('2027-05-14T22:59:40Z'), type: 'flood', speed: 2.5, direction: 70 }, 'Europe/Lisbon');
+    expect(late.local).toBe('2027-05-14T23:59:40+01:00');
+    expect(late.clock).toBe('00:00');
+    expect(late.date).toBe('2027-05-15');
+    expect(late.offset).toBe('+01:00');
+    // and the year's events sit on the day their date names
+    const onDay = new Map(model.days.flatMap((d) => d.events.map((e) => [e.time, d.date] as const)));
+    for (const e of model.events) expect(onDay.get(e.time)).toBe(e.date);
+  });
+
+  test('stream days carry the same calendar, clock and sky fields as tide days (one day builder)', () => {
+    const tide = buildStationYear(set.byId.get('brinewold-head')!, set, 2027);
+    const shared = (d: object) => Object.keys(d).filter((k) => !['events', 'curve', 'springNeap', 'range', 'strongestFlood', 'strongestEbb'].includes(k)).sort();
+    expect(shared(model.days[0]!)).toEqual(shared(tide.days[0]!));
+    const day = model.days.find((d) => d.date === '2027-03-28')!;
+    expect(day.start).toBe('2027-03-28T00:00:00Z');
+    expect(day.end).toBe('2027-03-28T23:00:00Z');
+    expect(day.sky.length).toBeGreaterThanOrEqual(3);
+    expect(day.sky.find((e) => e.body === 'sun' && e.type === 'rise')!.time).toBe(day.sunrise);
+  }, 60_000);
 });

@@ -4,8 +4,8 @@ import { localDays } from '../../engine/localtime.js';
 import { loadStationSet } from '../../engine/stations.js';
 import { cosineCurve, predictorFor, tideEvents } from '../../engine/tides.js';
 import type { ReferenceStation, Station } from '../../engine/types.js';
-import { openIntervals, type OpenInterval, type WindowSide } from '../../engine/windows.js';
-import { diurnalStation, standStation } from '../fixtures/engine-stations.js';
+import { kernelSeries, newKernelSeries, openIntervals, type OpenInterval, type WindowSide } from '../../engine/windows.js';
+import { diurnalStation, sixtyConstituentStation, standStation } from '../fixtures/engine-stations.js';
 
 const SECOND = 1000;
 const HOUR = 3_600_000;
@@ -64,7 +64,9 @@ describe('closed form: two solar constituents', () => {
     const station = referenceStation('solar-invented', Z0, { S2: { amplitude: A, phase: g }, S4: { amplitude: B, phase: 2 * g } });
     const from = Date.UTC(2027, 0, 1);
     const open = openIntervals(station, solo(station), 'above', 2.6, from, from + DAY);
-    expect(open.map((w) => [new Date(w.start).toISOString(), new Date(w.end).toISOString()]).flat().map((s) => s.slice(11, 19)))
+    // crossings are solved to within 10 ms: compared to the nearest second
+    const second = (t: number) => new Date(Math.round(t / 1000) * 1000).toISOString().slice(11, 19);
+    expect(open.flatMap((w) => [second(w.start), second(w.end)]))
       .toEqual(['00:00:00', '03:20:00', '11:20:00', '15:20:00', '23:20:00', '00:00:00']);
   });
 
@@ -127,6 +129,33 @@ function levelsFor(station: Station, set: ReturnType<typeof solo>, days: number)
   // the last level lies between the lowest and highest low water: some tides reach it, some do not
   return [lo + 0.25 * (hi - lo), (lo + hi) / 2, lo + 0.8 * (hi - lo), (Math.min(...lows) + Math.max(...lows)) / 2];
 }
+
+describe('the Taylor series crossings are solved on', () => {
+  // The oracle is the kernel's own height (predictor.heightAt, itself checked against direct cosine sums in
+  // tests/engine/predict.test.ts): the series about a mark must agree with it within its stated remainder.
+  it('stays within its remainder bound up to 90 minutes from its origin, 60 constituents', () => {
+    const station = sixtyConstituentStation();
+    const predictor = predictorFor(station);
+    const series = kernelSeries(predictor);
+    const s = newKernelSeries();
+    const start = Date.UTC(2027, 2, 28);
+    let worst = 0;
+    for (let i = 0; i < 200; i++) {
+      const t = start + i * 3_917_000; // about 9 days, at minutes unrelated to the marks
+      series(t, s);
+      expect(Math.abs(t - s.origin)).toBeLessThanOrEqual(1_800_000); // the nearest whole hour
+      for (const hours of [-1.5, -0.7, -0.2, 0.1, 0.45, 1.0, 1.5]) {
+        let p = 0;
+        for (let k = s.coef.length - 1; k >= 0; k--) p = p * hours + s.coef[k]!;
+        const error = Math.abs(p - predictor.heightAt(s.origin + hours * 3_600_000));
+        // + 1e-8 m: the kernel re-anchors at each UTC midnight, where its pieces agree to a few nanometres
+        expect(error).toBeLessThanOrEqual(s.remainder * Math.abs(hours) ** s.coef.length + 1e-8);
+        worst = Math.max(worst, error);
+      }
+    }
+    expect(worst).toBeLessThan(1e-3);
+  });
+});
 
 describe('brute force: 1-second sampling of the engine', () => {
   const set = loadStationSet('stations-demo');

@@ -5,7 +5,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import ICAL from 'ical.js';
 import { describe, expect, it } from 'vitest';
-import { buildStationYear, SECONDARY_WINDOW_NOTE } from '../../engine/index.js';
+import { buildStationYear } from '../../engine/index.js';
 import type { ReferenceStation, Station } from '../../engine/index.js';
 import { eventsICalendar } from '../../templates/exports/icalendar.js';
 import { hourlyCsv, windowsCsv, windowsJson } from '../../templates/exports/windows.js';
@@ -74,7 +74,7 @@ describe('hourly heights CSV', () => {
 
   it('a secondary port says its heights come from its curve; writeExports writes all five files', async () => {
     const secondary = { ...model, hourly: { ...model.hourly, method: 'secondary-curve' as const } };
-    expect(hourlyCsv(secondary)).toContain(`# ${SECONDARY_WINDOW_NOTE}`);
+    expect(hourlyCsv(secondary)).toContain(`# ${wordsFor().t('window.secondaryNote')}`);
     const dir = mkdtempSync(join(tmpdir(), 'tidewright-window-exports-'));
     try {
       const names = await writeExports(model, dir);

@@ -5,9 +5,12 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import ICAL from 'ical.js';
 import { beforeAll, describe, expect, it } from 'vitest';
-import type { StationYear } from '../../engine/index.js';
+import { buildStreamYear, firstOf, itemAt, loadStationSet, type StationYear } from '../../engine/index.js';
+import { streamEventsICalendar } from '../../templates/exports/streams.js';
+import { zipSame } from '../fixtures/lists.js';
 import { csvField, eventsCsv } from '../../templates/exports/csv.js';
-import { escapeText, eventsICalendar, foldLine } from '../../templates/exports/icalendar.js';
+import { escapeText, foldLine } from '../../templates/exports/calendar.js';
+import { eventsICalendar } from '../../templates/exports/icalendar.js';
 import { eventsJson } from '../../templates/exports/json.js';
 import { wordsFor } from '../../templates/locale/index.js';
 import { exportFileNames, writeExports } from '../../templates/exports/write.js';
@@ -27,7 +30,7 @@ beforeAll(() => {
 function csvRows(text: string): { header: string[]; rows: string[][]; notes: string[] } {
   const lines = text.split('\r\n').filter((l) => l !== '');
   const notes = lines.filter((l) => l.startsWith('# '));
-  const [header, ...rows] = lines.filter((l) => !l.startsWith('#')).map((l) => l.split(','));
+  const [header = [], ...rows] = lines.filter((l) => !l.startsWith('#')).map((l) => l.split(','));
   return { header, rows, notes };
 }
 
@@ -38,12 +41,11 @@ describe('CSV', () => {
     const { header, rows, notes } = csvRows(text);
     expect(header).toEqual(['station_id', 'time', 'time_local', 'date_local', 'type', 'height_m', 'below_chart_datum']);
     expect(rows).toHaveLength(model.events.length);
-    rows.forEach((row, i) => {
-      const e = model.events[i];
+    zipSame(rows, model.events, 'CSV rows').forEach(([row, e]) => {
       expect(row).toEqual(['brinewold-head', e.time, e.local, e.date, e.type, e.height.toFixed(3), String(e.belowDatum)]);
     });
-    const below = { ...model, events: [{ ...model.events[1]!, height: -0.12, belowDatum: true }] };
-    expect(csvRows(eventsCsv(below, wordsFor({ units: 'm' }))).rows[0]!.slice(5)).toEqual(['-0.120', 'true']);
+    const below = { ...model, events: [{ ...itemAt(model.events, 1, 'events'), height: -0.12, belowDatum: true }] };
+    expect(csvRows(eventsCsv(below, wordsFor({ units: 'm' }))).rows[0]?.slice(5)).toEqual(['-0.120', 'true']);
     expect(notes.join(' ')).toContain(wordsFor().caution);
     expect(notes.join(' ')).toContain('INVENTED');
     expect(notes.join(' ')).toContain(model.station.provenance);
@@ -52,7 +54,7 @@ describe('CSV', () => {
   it('in feet converts with the international foot and names the column so', () => {
     const { header, rows } = csvRows(eventsCsv(model, wordsFor({ units: 'ft' })));
     expect(header[5]).toBe('height_ft');
-    expect(Number(rows[0][5])).toBeCloseTo(model.events[0].height / 0.3048, 2); // 1 ft = 0.3048 m exactly
+    expect(Number(rows[0]?.[5])).toBeCloseTo(firstOf(model.events, 'events').height / 0.3048, 2); // 1 ft = 0.3048 m exactly
   });
 
   it('quotes fields holding commas, quotes or line breaks (RFC 4180 §2.6–2.7)', () => {
@@ -90,7 +92,7 @@ describe('iCalendar', () => {
     const events = calendar.getAllSubcomponents('vevent');
     expect(events).toHaveLength(model.events.length);
     const first = new ICAL.Event(events[0]);
-    const e = model.events[0];
+    const e = firstOf(model.events, 'events');
     expect(first.startDate.toJSDate().toISOString().replace('.000', '')).toBe(e.time);
     expect(first.startDate.zone?.tzid).toBe('UTC');
     expect(first.summary).toBe(`${e.type === 'high' ? 'High' : 'Low'} water ${fixed(e.height, 2)} m`);
@@ -112,6 +114,31 @@ describe('iCalendar', () => {
       expect(event.description).not.toMatch(/\n/);
       expect(event.description.length).toBeLessThanOrEqual(80);
       expect(event.summary.length).toBeLessThanOrEqual(40);
+    }
+  });
+
+  it('writes the stream calendar the same way: one head with both cautions once, short events, the edition stamp', () => {
+    const set = loadStationSet(join(import.meta.dirname, '..', '..', 'stations-demo'));
+    const station = set.streams?.find((s) => s.id === 'spindrift-gut');
+    if (station === undefined) throw new Error('the demo has no spindrift-gut stream station');
+    const streams = buildStreamYear(station, set, 2027);
+    const stamp = Date.parse('2026-11-15T00:00:00Z');
+    const text = streamEventsICalendar(streams, wordsFor(), stamp);
+    const unfolded = text.replace(/\r\n /g, '');
+    expect(unfolded.split(escapeText(wordsFor().caution)).length - 1).toBe(1);
+    expect(unfolded.split(escapeText(wordsFor().t('caution.streams'))).length - 1).toBe(1);
+    const calendar = new ICAL.Component(ICAL.parse(text));
+    const events = calendar.getAllSubcomponents('vevent');
+    expect(events).toHaveLength(streams.events.length);
+    expect(new Set(text.match(/^DTSTAMP:.*$/gm))).toEqual(new Set(['DTSTAMP:20261115T000000Z']));
+    // the tide calendar of the same edition carries the same head lines and stamp
+    const tide = eventsICalendar(model, wordsFor(), stamp).split('\r\n');
+    const stream = text.split('\r\n');
+    expect(stream.slice(0, 5)).toEqual(tide.slice(0, 5).map((l) => l.replace(model.generator.version, streams.generator.version)));
+    for (const v of events) {
+      const event = new ICAL.Event(v);
+      expect(event.uid).toMatch(/^spindrift-gut-(slack|flood|ebb)-\d{8}T\d{6}Z@tidewright$/);
+      expect(event.description.length).toBeLessThanOrEqual(80);
     }
   });
 
@@ -159,7 +186,7 @@ describe('iCalendar', () => {
 
   it('in feet says feet in each summary', () => {
     const calendar = new ICAL.Component(ICAL.parse(eventsICalendar(model, wordsFor({ units: 'ft' }))));
-    const e = model.events[0];
+    const e = firstOf(model.events, 'events');
     expect(new ICAL.Event(calendar.getAllSubcomponents('vevent')[0]).summary)
       .toBe(`${e.type === 'high' ? 'High' : 'Low'} water ${fixed(e.height / 0.3048, 1)} ft`);
   });

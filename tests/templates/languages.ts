@@ -12,6 +12,7 @@ import { renderStreamBook } from '../../templates/pdf/stream-book.js';
 import { CATALOGUES, type Catalogue, type Language } from '../../templates/locale/catalogue.js';
 import { wordsFor } from '../../templates/locale/index.js';
 import { renderStationBook } from '../../templates/pdf/book.js';
+import { renderPocketTable } from '../../templates/pdf/pocket.js';
 import { renderSite } from '../../templates/site/render.js';
 import { DEMO_DIR, htmlFiles, read } from './site-build.js';
 
@@ -58,7 +59,7 @@ export interface BuiltLanguage {
   dir: string;
   site: string;
   pages: Map<string, string>; // site-relative path → visible text
-  book: string; // pdftotext of the secondary port's book and of the stream book ('' without poppler)
+  book: string; // pdftotext of the secondary port's book and pocket table and of the stream book ('' without poppler)
   models: StationYear[];
 }
 
@@ -80,6 +81,9 @@ export async function buildIn(locale: string, models: StationYear[], stream: Str
     const pdf = join(dir, 'book.pdf');
     writeFileSync(pdf, await renderStationBook(models[1]!, { units: 'm', page: 'a5', locale }));
     book = execFileSync('pdftotext', ['-layout', pdf, '-'], { encoding: 'utf8', maxBuffer: 64 << 20 });
+    const pocket = join(dir, 'pocket.pdf');
+    writeFileSync(pocket, await renderPocketTable(models[1]!, { units: 'm', sheet: 'a4', locale }));
+    book += execFileSync('pdftotext', ['-layout', pocket, '-'], { encoding: 'utf8', maxBuffer: 64 << 20 });
     if (stream) {
       const streamPdf = join(dir, 'stream.pdf');
       writeFileSync(streamPdf, await renderStreamBook(stream, { units: 'm', page: 'a5', locale }));

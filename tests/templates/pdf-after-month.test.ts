@@ -66,4 +66,22 @@ describe('pages after each month', () => {
     const numbers = lines.slice(at - 1, at + 2).join(' ').match(/\d+\.\d\b/g) ?? [];
     expect(numbers.length).toBeGreaterThanOrEqual(25);
   });
+
+  it.skipIf(!POPPLER)('speak the book\u2019s language: French headings, notes, window states and decimal commas', async () => {
+    const pages = pageTexts(await renderStationBook(model, { units: 'm', page: 'a5', hourly: true, locale: 'fr' }), 'fr.pdf');
+    const windows = pages.filter((p) => /· fenêtres d’accès/.test(p));
+    const hours = pages.filter((p) => /· hauteurs heure par heure/.test(p));
+    expect(windows).toHaveLength(12);
+    expect(hours).toHaveLength(12);
+    const text = [...windows, ...hours].join('\n');
+    // English words of these pages' old wording (window names come from the station file and stay)
+    for (const english of ['access windows', 'hour by hour', 'open all day', 'no opening', 'Open while', 'Leave a margin', 'skipped hour', 'Heights in'])
+      expect(text).not.toContain(english);
+    expect(text).toContain('à la minute près');
+    // hourly heights with the decimal comma Intl gives French (outside reference: Intl.NumberFormat('fr'))
+    const comma = new Intl.NumberFormat('fr', { minimumFractionDigits: 1 }).format(1.5).replace(/\d/g, '');
+    expect(comma).toBe(',');
+    expect(hours[2]).toMatch(/\b\d+,\d\b/);
+    expect(hours[2]).not.toMatch(/\b\d+\.\d\b/);
+  });
 });

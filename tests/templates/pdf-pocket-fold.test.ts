@@ -3,6 +3,7 @@
 // What the reader meets must read cover, January, February, key (the card's back), then March to June
 // when the strip is turned over, then July to December and the reference panels inside.
 import { describe, expect, it } from 'vitest';
+import { itemAt } from '../../engine/index.js';
 import type { PanelContent } from '../../templates/pdf/pocket/fold.js';
 import { POCKET_COLUMNS, POCKET_ROWS, pocketPlan } from '../../templates/pdf/pocket/fold.js';
 
@@ -23,9 +24,10 @@ const label = (p: PanelContent) => (p.kind === 'month' ? `month-${p.month}` : p.
 function sheet(): Piece[] {
   const plan = pocketPlan();
   const pieces: Piece[] = [];
-  for (let r = 0; r < POCKET_ROWS; r++) {
-    for (let c = 0; c < POCKET_COLUMNS; c++) {
-      pieces.push({ front: label(plan.outside[r][c]), back: label(plan.inside[r][POCKET_COLUMNS - 1 - c]),
+  for (const [r, outsideRow] of plan.outside.entries()) {
+    const insideRow = itemAt(plan.inside, r, 'inside rows');
+    for (const [c, front] of outsideRow.entries()) {
+      pieces.push({ front: label(front), back: label(itemAt(insideRow, POCKET_COLUMNS - 1 - c, 'inside panels')),
         x: c, y: r, z: 0, flipped: false, mirrorX: false, mirrorY: false });
     }
   }
@@ -72,8 +74,8 @@ function facesInView(pieces: Piece[]): { face: string; upright: boolean }[] {
   const cells = new Map<string, Piece[]>();
   for (const p of pieces) cells.set(`${p.y},${p.x}`, [...(cells.get(`${p.y},${p.x}`) ?? []), p]);
   return [...cells.entries()].sort(([a], [b]) => {
-    const [ay, ax] = a.split(',').map(Number);
-    const [by, bx] = b.split(',').map(Number);
+    const [ay = 0, ax = 0] = a.split(',').map(Number);
+    const [by = 0, bx = 0] = b.split(',').map(Number);
     return ay - by || ax - bx;
   }).map(([, stack]) => topFace(stack));
 }

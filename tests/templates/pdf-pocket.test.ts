@@ -5,7 +5,8 @@ import { existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { buildStationYear } from '../../engine/index.js';
+import { buildStationYear, firstOf } from '../../engine/index.js';
+import { pdfWords } from '../fixtures/pdf-words.js';
 import { loadStationSet } from '../../engine/index.js';
 import { createDocument, finish } from '../../templates/pdf/document.js';
 import type { PocketSheet } from '../../templates/pdf/pocket.js';
@@ -24,8 +25,7 @@ let dir = '';
 let heightPerPoint = 0;
 
 function wordBoxes(file: string): { text: string; h: number }[] {
-  return [...run('pdftotext', ['-bbox', file, '-']).matchAll(/<word xMin="[\d.]+" yMin="([\d.]+)" xMax="[\d.]+" yMax="([\d.]+)">([^<]*)<\/word>/g)]
-    .map((m) => ({ text: m[3], h: Number(m[2]) - Number(m[1]) }));
+  return pdfWords(file).map((w) => ({ text: w.text, h: w.y1 - w.y0 }));
 }
 
 beforeAll(async () => {
@@ -37,7 +37,7 @@ beforeAll(async () => {
   put(doc, '12:34', 20, 50, { font: 'narrow', size: 10 });
   const file = join(dir, 'ruler.pdf');
   writeFileSync(file, await finish(doc));
-  heightPerPoint = wordBoxes(file)[0].h / 10;
+  heightPerPoint = firstOf(wordBoxes(file), 'ruler words').h / 10;
 });
 afterAll(() => { if (dir) rmSync(dir, { recursive: true, force: true }); });
 

@@ -12,6 +12,7 @@ import { renderStationBook } from '../../templates/pdf/book.js';
 import { pageGeometry } from '../../templates/pdf/geometry.js';
 import { resolutionWarning } from '../../templates/pdf/image-resolution.js';
 import { BLEED, blackInk, SLUG } from '../../templates/pdf/press.js';
+import { zipSame } from '../fixtures/lists.js';
 
 const POPPLER = ['pdfinfo', 'pdftoppm'].every((t) => existsSync(`/usr/bin/${t}`));
 if (!POPPLER) console.warn('poppler-utils not found in /usr/bin: the press output\u2019s box and pixel checks are SKIPPED');
@@ -37,25 +38,26 @@ function raster(p: number, dpi: number): { w: number; h: number; at: (xPt: numbe
   const out = join(dir, `p${p}`);
   execFileSync('pdftoppm', ['-gray', '-r', String(dpi), '-f', String(p), '-l', String(p), '-singlefile', file, out]);
   const buf = readFileSync(`${out}.pgm`);
-  const header = buf.toString('latin1', 0, 40).match(/^P5\s+(\d+)\s+(\d+)\s+255\s/)!;
-  const w = Number(header[1]);
-  const h = Number(header[2]);
-  const start = header[0].length;
-  return { w, h, at: (x, y) => buf[start + Math.round((y * dpi) / 72) * w + Math.round((x * dpi) / 72)] };
+  const header = /^P5\s+(\d+)\s+(\d+)\s+255\s/.exec(buf.toString('latin1', 0, 40));
+  if (header === null) throw new Error(`${out}.pgm is not an 8-bit PGM`);
+  const [all, width = '', height = ''] = header;
+  const w = Number(width);
+  const h = Number(height);
+  const start = all.length;
+  return { w, h, at: (x, y) => buf.readUInt8(start + Math.round((y * dpi) / 72) * w + Math.round((x * dpi) / 72)) };
 }
 
 describe('press output', () => {
   it.skipIf(!POPPLER)('sets TrimBox to the A5 page and BleedBox 3 mm beyond it on every page', () => {
     const boxes = execFileSync('pdfinfo', ['-box', '-f', '1', '-l', '30', file], { encoding: 'utf8' });
-    const trims = [...boxes.matchAll(/TrimBox:\s+([\d.]+)\s+([\d.]+)\s+([\d.]+)\s+([\d.]+)/g)].map((m) => m.slice(1).map(Number));
-    const bleeds = [...boxes.matchAll(/BleedBox:\s+([\d.]+)\s+([\d.]+)\s+([\d.]+)\s+([\d.]+)/g)].map((m) => m.slice(1).map(Number));
+    const box = (name: string) => [...boxes.matchAll(new RegExp(`${name}:\\s+([\\d.]+)\\s+([\\d.]+)\\s+([\\d.]+)\\s+([\\d.]+)`, 'g'))]
+      .map(([, x0 = '', y0 = '', x1 = '', y1 = '']) => ({ x0: Number(x0), y0: Number(y0), x1: Number(x1), y1: Number(y1) }));
+    const trims = box('TrimBox');
     expect(trims.length).toBe(3 + 24 + 1 + 1); // cover, facts, caution; 24 month pages; overview; imprint
-    for (const [i, t] of trims.entries()) {
-      expect(t[2] - t[0]).toBeCloseTo(148 * MM, 1);
-      expect(t[3] - t[1]).toBeCloseTo(210 * MM, 1);
-      const b = bleeds[i];
-      for (const k of [0, 1]) expect(t[k] - b[k]).toBeCloseTo(3 * MM, 1);
-      for (const k of [2, 3]) expect(b[k] - t[k]).toBeCloseTo(3 * MM, 1);
+    for (const [t, b] of zipSame(trims, box('BleedBox'), 'page boxes')) {
+      expect(t.x1 - t.x0).toBeCloseTo(148 * MM, 1);
+      expect(t.y1 - t.y0).toBeCloseTo(210 * MM, 1);
+      for (const bleed of [t.x0 - b.x0, t.y0 - b.y0, b.x1 - t.x1, b.y1 - t.y1]) expect(bleed).toBeCloseTo(3 * MM, 1);
     }
   });
 

@@ -12,6 +12,7 @@ import { put } from '../../templates/pdf/text.js';
 import { missingInBook } from '../../templates/pdf/coverage.js';
 import { REPLACEMENT, visualPieces, withReplacements } from '../../templates/pdf/script.js';
 import { runCli } from '../fixtures/run-cli.js';
+import { pdfWords } from '../fixtures/pdf-words.js';
 
 const work = mkdtempSync(join(tmpdir(), 'tw-pdf-script-'));
 afterAll(() => rmSync(work, { recursive: true, force: true }));
@@ -77,9 +78,7 @@ describe.skipIf(!hasPoppler)('drawn in a PDF', () => {
     lines.forEach((line, i) => put(doc, line, 20, 40 + 30 * i, { font: 'regular', size: 11 }));
     const file = join(work, 'script.pdf');
     writeFileSync(file, await finish(doc));
-    const bbox = spawnSync('pdftotext', ['-bbox', file, '-'], { encoding: 'utf8' }).stdout;
-    const words = [...bbox.matchAll(/<word xMin="([\d.]+)" yMin="([\d.]+)"[^>]*>([^<]*)<\/word>/g)]
-      .map((m) => ({ x: Number(m[1]), y: Number(m[2]), text: m[3]! }));
+    const words = pdfWords(file).map((w) => ({ x: w.x0, y: w.y0, text: w.text }));
     const rows = lines.map((_, i) => words.filter((w) => Math.abs(w.y - (40 + 30 * i - 10)) < 6).sort((a, b) => a.x - b.x).map((w) => w.text));
     expect(rows).toEqual([
       ['Port', 'of', 'םלוע', 'םולש', '(invented)'],

@@ -10,6 +10,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { buildStationYear } from '../../engine/index.js';
 import { loadStationSet } from '../../engine/index.js';
 import { renderCombinedBook, renderStationBook } from '../../templates/pdf/book.js';
+import { nodesOf, structureTree } from '../fixtures/pdf-structure.js';
 
 const POPPLER = ['pdfinfo', 'pdftotext'].every((t) => existsSync(`/usr/bin/${t}`));
 if (!POPPLER) console.warn('poppler-utils not found in /usr/bin: the tagged-PDF checks are SKIPPED');
@@ -32,27 +33,8 @@ beforeAll(async () => {
 });
 afterAll(() => { if (dir) rmSync(dir, { recursive: true, force: true }); });
 
-interface Node { type: string; depth: number; attrs: string[]; children: Node[] }
-
-/** The structure tree as pdfinfo -struct prints it: one element per line, two spaces a level. */
-function structure(path: string): Node {
-  const root: Node = { type: 'root', depth: -1, attrs: [], children: [] };
-  const stack = [root];
-  for (const line of run('pdfinfo', ['-struct', path]).split('\n')) {
-    const m = /^( *)([A-Za-z0-9]+)(?=[\s:"(]|$)/.exec(line);
-    const attr = /^\s+\/(\w+ \/?\w+)/.exec(line);
-    if (attr && !m?.[2]?.match(/^[A-Z]/)) { stack[stack.length - 1].attrs.push(attr[1]); continue; }
-    if (!m) continue;
-    const depth = m[1].length / 2;
-    while (stack[stack.length - 1].depth >= depth) stack.pop();
-    const node: Node = { type: m[2], depth, attrs: [], children: [] };
-    stack[stack.length - 1].children.push(node);
-    stack.push(node);
-  }
-  return root;
-}
-
-const all = (n: Node, type: string): Node[] => [...(n.type === type ? [n] : []), ...n.children.flatMap((c) => all(c, type))];
+const structure = structureTree;
+const all = nodesOf;
 
 describe('tagged station book', () => {
   it.skipIf(!POPPLER)('is tagged, in English, and shows its title rather than its file name', () => {
@@ -70,6 +52,7 @@ describe('tagged station book', () => {
     let days = 0;
     for (const t of tables) {
       const [head, ...rows] = t.children;
+      if (head === undefined) throw new Error('a month table without rows');
       expect(head.type).toBe('TR');
       expect(head.children.length).toBeGreaterThanOrEqual(5);
       for (const cell of head.children) {
@@ -79,8 +62,8 @@ describe('tagged station book', () => {
       for (const row of rows) {
         expect(row.type).toBe('TR');
         if (row.children.length === 1) continue; // the note under a day on which the clocks change
-        expect(row.children[0].type).toBe('TH');
-        expect(row.children[0].attrs).toContain('Scope /Row');
+        expect(row.children[0]?.type).toBe('TH');
+        expect(row.children[0]?.attrs).toContain('Scope /Row');
         expect(row.children.slice(1).every((c) => c.type === 'TD')).toBe(true);
         days++;
       }
@@ -91,7 +74,7 @@ describe('tagged station book', () => {
 
   it('gives every figure alternative text', () => {
     const raw = book.toString('latin1');
-    const figures = [...raw.matchAll(/\d+ 0 obj\s*<<([\s\S]*?)>>\s*endobj/g)].filter((m) => /\/S \/Figure\b/.test(m[1]));
+    const figures = [...raw.matchAll(/\d+ 0 obj\s*<<([\s\S]*?)>>\s*endobj/g)].filter((m) => /\/S \/Figure\b/.test(m[1] ?? ''));
     // the cover's fortnight, the overview, a curve and two sun marks a day, the quarters, springs, neaps
     expect(figures.length).toBeGreaterThan(3 * 365);
     for (const f of figures) expect(f[1]).toMatch(/\/Alt (\(.+\)|<FEFF[0-9A-F]+>)/);
@@ -100,14 +83,14 @@ describe('tagged station book', () => {
   it.skipIf(!POPPLER)('reads day by day in content order, each day with its own tides', () => {
     const pages = run('pdftotext', ['-raw', file, '-']).split('\f');
     for (const month of [3, 10]) {
-      const text = pages[3 + 2 * (month - 1)] + pages[4 + 2 * (month - 1)];
+      const text = (pages[3 + 2 * (month - 1)] ?? '') + (pages[4 + 2 * (month - 1)] ?? '');
       // a moon quarter's minute sits on the weekday's line
       const chunks = text.split(/^(\d{1,2})\n(?:Mon|Tue|Wed|Thu|Fri|Sat|Sun)(?: \d\d:\d\d)?$/m);
       const days = model.days.filter((d) => d.month === month);
       const numbers = chunks.filter((_, i) => i % 2 === 1).map(Number);
       expect(numbers).toEqual(days.map((d) => d.dayOfMonth));
       days.forEach((d, i) => {
-        const body = chunks[2 + 2 * i];
+        const body = chunks[2 + 2 * i] ?? '';
         const seen = [...body.matchAll(/(\d\d:\d\d)(?:\s*(?:UTC)?[+\u2212]\d\d:\d\d)?\s+(\d+\.\d\d)/g)].map((m) => `${m[1]} ${m[2]}`);
         const want = [...d.events.filter((e) => e.type === 'high'), ...d.events.filter((e) => e.type === 'low')]
           .map((e) => `${e.clock} ${fixed(e.height, 2)}`);

@@ -6,7 +6,8 @@ import { existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { buildStationYear } from '../../engine/index.js';
+import { buildStationYear, firstOf } from '../../engine/index.js';
+import { pdfWords, type PdfWord } from '../fixtures/pdf-words.js';
 import { loadStationSet } from '../../engine/index.js';
 import { renderStationBook } from '../../templates/pdf/book.js';
 import { createDocument, finish } from '../../templates/pdf/document.js';
@@ -16,13 +17,8 @@ import { put } from '../../templates/pdf/text.js';
 const POPPLER = existsSync('/usr/bin/pdftotext');
 if (!POPPLER) console.warn('pdftotext not found in /usr/bin: the measured type-size checks are SKIPPED');
 
-interface Word { text: string; x0: number; y0: number; x1: number; y1: number }
 
-function words(file: string, page: number): Word[] {
-  const xml = execFileSync('pdftotext', ['-bbox', '-f', String(page), '-l', String(page), file, '-'], { encoding: 'utf8' });
-  return [...xml.matchAll(/<word xMin="([\d.]+)" yMin="([\d.]+)" xMax="([\d.]+)" yMax="([\d.]+)">([^<]*)<\/word>/g)]
-    .map((m) => ({ x0: Number(m[1]), y0: Number(m[2]), x1: Number(m[3]), y1: Number(m[4]), text: m[5] }));
-}
+const words = (file: string, page: number): PdfWord[] => pdfWords(file, page);
 
 let dir = '';
 /** Box height of a word set at 10 pt in the books' faces: poppler's height per point of type. */
@@ -36,7 +32,7 @@ beforeAll(async () => {
   put(doc, '12:34', 20, 50, { font: 'narrow-bold', size: 10 });
   const file = join(dir, 'ruler.pdf');
   writeFileSync(file, await finish(doc));
-  const [w] = words(file, 1);
+  const w = firstOf(words(file, 1), 'ruler words');
   heightPerPoint = (w.y1 - w.y0) / 10;
 });
 afterAll(() => { if (dir) rmSync(dir, { recursive: true, force: true }); });
@@ -56,7 +52,7 @@ describe.each(['a6', 'a5', 'half-letter'] as PageSizeName[])('month pages on %s'
       const monthPages = text.flatMap((t, i) => (/days \d+\u2013\d+ of|\d\d days/.test(t) ? [i + 1] : []));
       expect(monthPages.length).toBeGreaterThanOrEqual(12);
       // the day curve (its hour ticks head the column) stays where there is room beside legible times
-      const ticks = monthPages.filter((p) => /\b0\s+6\s+12\s+18\s+24\b/.test(text[p - 1])).length;
+      const ticks = monthPages.filter((p) => /\b0\s+6\s+12\s+18\s+24\b/.test(text[p - 1] ?? '')).length;
       expect(ticks).toBe(page === 'a6' ? 0 : monthPages.length);
       let smallest = Infinity;
       let counted = 0;

@@ -9,13 +9,14 @@ export const HOSTILE_NAME = '<script>alert("x")</script> Quay & "Pier" <b>';
 export const DEMO_DIR = join(import.meta.dirname, '..', '..', 'stations-demo');
 
 /** Station-years of the demo set, straight from the engine. */
-export function demoModels(ids: string[], year = 2027): StationYear[] {
+export function demoModels<const Ids extends readonly string[]>(ids: Ids, year = 2027): { -readonly [K in keyof Ids]: StationYear } {
   const set = loadStationSet(DEMO_DIR);
-  return ids.map((id) => {
+  const models = ids.map((id) => {
     const station = set.byId.get(id);
     if (!station) throw new Error(`demo station ${id} is missing from ${DEMO_DIR}`);
     return buildStationYear(station, set, year);
   });
+  return models as { -readonly [K in keyof Ids]: StationYear }; // map keeps the length: one model per id, in order
 }
 
 /**
@@ -62,8 +63,9 @@ export function rowById(html: string, id: string): string {
 }
 
 /** Visible text of a fragment: tags dropped (visually-hidden spans kept), entities decoded, spaces collapsed. */
-export function textOf(fragment: string): string {
-  return fragment
+/** The text of an HTML fragment (none: empty, so that the expectation on it fails). */
+export function textOf(fragment: string | undefined): string {
+  return (fragment ?? '')
     .replace(/<[^>]+>/g, ' ')
     .replace(/&lt;/g, '<').replace(/&gt;/g, '>').replace(/&quot;/g, '"').replace(/&#39;/g, "'").replace(/&amp;/g, '&')
     .replace(/\s+/g, ' ')

@@ -85,4 +85,12 @@ describe('both numbers printed', () => {
     // the numbers are the model's: hours as a reader reads them, here e.g. "2 days 2 h"
     expect(w.hours(model.springLagHours!)).toMatch(/^\d+ days? \d+ h$/);
   });
+
+  it('on the site’s datums page: no fixed lag that the station pages contradict, a pointer to both numbers instead', () => {
+    const page = textOf(readFileSync(join(tmp, 'site', 'datums/index.html'), 'utf8'));
+    expect(page).not.toMatch(/a day or two/);
+    expect(page).toContain('each station’s page gives both numbers, the age from its constants and the mean lag of its marks this year');
+    // and the lag the pages print here is indeed more than "a day or two" after the syzygy
+    expect(model.springLagHours!).toBeGreaterThan(48);
+  });
 });

@@ -35,9 +35,11 @@ describe('renderStreamBook', () => {
     expect((await renderStreamBook(model, { units: 'm', page: 'a5' })).equals(pdf)).toBe(true);
   });
 
-  it.skipIf(!POPPLER)('a first page with both cautions, then the twelve months in order', () => {
+  it.skipIf(!POPPLER)('a first page with both cautions, then the twelve months in order, then the imprint', () => {
     const pages = execFileSync('pdftotext', ['-layout', file, '-'], { encoding: 'utf8' }).split('\f').filter((p) => p.trim() !== '');
-    expect(pages).toHaveLength(13);
+    expect(pages).toHaveLength(14);
+    expect(pages[13]).toContain(wordsFor().t('site.imprint'));
+    expect(pages[13]).toContain(model.station.provenance);
     const first = pages[0]!.replace(/\s+/g, ' ');
     expect(first).toContain('Astronomical predictions only');
     expect(first).toContain('Tidal streams vary across a channel');

@@ -6,7 +6,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { HtmlValidate } from 'html-validate';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { loadStationSet, buildStreamYear, type StreamYear } from '../../engine/index.js';
+import { loadStationSet, buildStreamYear, streamAlmanacEvent, type StreamYear } from '../../engine/index.js';
 import { renderSite } from '../../templates/site/render.js';
 import { demoModels, htmlFiles, read, textOf } from './site-build.js';
 
@@ -17,6 +17,15 @@ let dataDir: string;
 let narrows: StreamYear;
 let gut: StreamYear;
 
+// The year's strongest flood moved to 23:59:40 local on 14 May: it prints 00:00 and belongs to 15 May (the model's rule).
+function lateFlood(m: StreamYear): StreamYear {
+  const copy = structuredClone(m);
+  copy.station = { ...copy.station, id: 'late-flood', name: 'Late Flood (invented)' };
+  const start = Date.parse(copy.days.find((d) => d.date === '2027-05-15')!.start);
+  copy.extremes.strongestFlood = streamAlmanacEvent({ time: start - 20_000, type: 'flood', speed: 9.99, direction: 70 }, copy.timezone);
+  return copy;
+}
+
 beforeAll(async () => {
   tmp = mkdtempSync(join(tmpdir(), 'tidewright-streams-'));
   site = join(tmp, 'site');
@@ -25,7 +34,7 @@ beforeAll(async () => {
   const [narrowsStation, gutStation] = ['wrackrun-narrows', 'spindrift-gut'].map((id) => set.streams!.find((s) => s.id === id)!);
   narrows = buildStreamYear(narrowsStation!, set, 2027);
   gut = buildStreamYear(gutStation!, set, 2027);
-  await renderSite(demoModels(['brinewold-head']), site, { units: 'm', quiet: true, dataDir, streams: [narrows, gut] });
+  await renderSite(demoModels(['brinewold-head']), site, { units: 'm', quiet: true, dataDir, streams: [narrows, gut, lateFlood(narrows)] });
 }, 120_000);
 
 afterAll(() => rmSync(tmp, { recursive: true, force: true }));
@@ -81,6 +90,14 @@ describe('stream pages', () => {
     expect(ics.replace(/\r\n /g, '')).toContain('Tidal streams vary across a channel');
     expect(ics.split('\r\n').every((l) => Buffer.byteLength(l) <= 75)).toBe(true);
     expect(json.events).toEqual(gut.events.map((e) => ({ station_id: gut.station.id, time: e.time, time_local: e.local, type: e.type, speed_kn: e.speed, direction_deg_true: e.direction })));
+  });
+
+  it('the year page dates the strongest flood by its printed minute: 23:59:40 on 14 May is 00:00 on 15 May', () => {
+    const text = textOf(read(site, 'late-flood/2027/index.html'));
+    const line = text.slice(text.indexOf('Strongest flood'), text.indexOf('Strongest flood') + 80);
+    expect(line).toContain('00:00');
+    expect(line).toContain('15 May 2027');
+    expect(line).not.toContain('14 May');
   });
 
   it('every stream page passes html-validate', async () => {

@@ -6,31 +6,20 @@ import { existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { buildStationYear } from '../../engine/index.js';
-import type { ReferenceStation, StationYear } from '../../engine/index.js';
 import { instant, wordsFor } from '../../templates/locale/index.js';
 import { renderStationBook } from '../../templates/pdf/book.js';
 import { renderSite } from '../../templates/site/render.js';
 import { read, rowById, textOf } from './site-build.js';
+import { testBankStation, testBankYear } from '../fixtures/test-bank.js';
+import type { StationYear } from '../../engine/index.js';
 
 const POPPLER = existsSync('/usr/bin/pdftotext');
 if (!POPPLER) console.warn('poppler-utils not found in /usr/bin: the PDF text checks of local time are SKIPPED');
 
 const en = wordsFor();
 
-/**
- * An invented reference port moved into whichever zone a check needs: each position is open water at least
- * 50 km from land, in a zone that fits its longitude (tests/engine/invented-coast.test.ts checks them).
- */
-function station(id: string, timezone: string, latitude: number, longitude: number): ReferenceStation {
-  return {
-    id, name: `Test Bank ${id} (invented)`, kind: 'reference', position: { latitude, longitude }, timezone,
-    datum: 'Chart Datum', provenance: 'Invented for a test', mean_level: 2.2, datum_epoch: 2020,
-    constituents: { M2: { amplitude: 1.1, phase: 80 }, S2: { amplitude: 0.4, phase: 120 },
-      K1: { amplitude: 0.1, phase: 30 }, O1: { amplitude: 0.08, phase: 10 } },
-  };
-}
-const model = (s: ReferenceStation, year: number): StationYear => buildStationYear(s, { byId: new Map([[s.id, s]]) }, year);
+const station = testBankStation;
+const model = testBankYear;
 
 // Zones with an offset that is not a whole hour in the current rules, with a date on which it is in force.
 const PART_HOUR = [

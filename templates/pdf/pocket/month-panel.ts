@@ -125,8 +125,8 @@ export function drawPocketMonth(doc: PDFKit.PDFDocument, model: StationYear, mon
   let top = box.y + L.header;
   group(doc, 'Table', { title: monthName }, () => {
     group(doc, 'TR', {}, () => {
-      tag(doc, 'TH', { scope: 'Column', actual: 'Day' }, () => undefined);
-      tag(doc, 'TH', { scope: 'Column', actual: 'Moon' }, () => undefined);
+      tag(doc, 'TH', { scope: 'Column', actual: words.t('site.colDay') }, () => undefined);
+      tag(doc, 'TH', { scope: 'Column', actual: words.t('site.colMoon') }, () => undefined);
       tag(doc, 'TH', { scope: 'Column' }, () => {
         laneMark(doc, 'high', highX, hy, LABEL_MIN + 1);
         put(doc, words.eventShort('high'), highX + LABEL_MIN * 0.8, hy, head);

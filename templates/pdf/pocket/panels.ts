@@ -7,7 +7,7 @@ import { printable } from '../format.js';
 import type { Box } from '../geometry.js';
 import { clockGlyph, laneMark, moonGlyph } from '../glyphs.js';
 import { DARK, INK, LABEL_MIN, MID, WHITE } from '../style.js';
-import { fitLines, paragraph, put, putFitted, wrapLines } from '../text.js';
+import { fitLines, paragraph, put, putFitted, widthOf, wrapLines } from '../text.js';
 
 export interface PanelText { title: string; publisher?: string; words: Words; southern: boolean }
 
@@ -29,14 +29,17 @@ export function drawCover(doc: PDFKit.PDFDocument, model: StationYear, box: Box,
   for (const line of name.lines) { put(doc, line, box.x, y, name.style); y += name.style.size * 1.15; }
   y += 2;
   const rows: [string, string][] = [
-    ['Heights', text.words.t('site.heightsAbove', { unit: text.words.unitName(), datum: printable(model.station.datum) })],
-    ['Times', `${text.words.zoneSummary(model)} (${printable(model.timezone)})`],
-    ['Position', text.words.position(model.station.position)],
+    [text.words.t('site.heights'), text.words.t('site.heightsAbove', { unit: text.words.unitName(), datum: printable(model.station.datum) })],
+    [text.words.t('pocket.times'), `${text.words.zoneSummary(model)} (${printable(model.timezone)})`],
+    [text.words.t('fact.position'), text.words.position(model.station.position)],
   ];
-  if (model.station.kind === 'secondary') rows.push(['Predicted from', printable(model.reference?.name ?? model.station.reference)]);
+  if (model.station.kind === 'secondary') rows.push([text.words.t('pocket.predictedFrom'), printable(model.reference?.name ?? model.station.reference)]);
+  // the label column as wide as its longest label (languages differ), within reason
+  const labelStyle = { font: 'narrow' as const, size: LABEL_MIN, color: MID };
+  const labelW = Math.min(box.width * 0.4, Math.max(38, ...rows.map(([k]) => widthOf(doc, k, labelStyle) + 3)));
   for (const [k, v] of rows) {
-    put(doc, k, box.x, y, { font: 'narrow', size: LABEL_MIN, color: MID });
-    y = paragraph(doc, v, box.x + 38, y, box.width - 38, { font: 'narrow', size: BODY }, BODY * 1.2, 2) + 1;
+    putFitted(doc, k, box.x, y, labelStyle, labelW - 2, LABEL_MIN);
+    y = paragraph(doc, v, box.x + labelW, y, box.width - labelW, { font: 'narrow', size: BODY }, BODY * 1.2, 3) + 1;
   }
   y += 4;
   if (model.invented) y = inventedStrip(doc, box, y, text.words) + 6;
@@ -54,7 +57,7 @@ export function drawCover(doc: PDFKit.PDFDocument, model: StationYear, box: Box,
 
 export function drawKey(doc: PDFKit.PDFDocument, model: StationYear, box: Box, text: PanelText): void {
   let y = box.y + 9;
-  put(doc, 'How to read this table', box.x, y, { font: 'bold', size: 9 });
+  putFitted(doc, text.words.t('pocket.howToRead'), box.x, y, { font: 'bold', size: 9 }, box.width, LABEL_MIN);
   y += 14;
   const textX = box.x + 34;
   const style = { font: 'narrow' as const, size: BODY };
@@ -67,29 +70,28 @@ export function drawKey(doc: PDFKit.PDFDocument, model: StationYear, box: Box, t
     put(doc, text.words.heightNumber(4.54), x + w + 1.5, b, { font: 'narrow', size: LABEL_MIN });
   };
   item((x, b) => { laneMark(doc, 'high', x, b, 7); put(doc, text.words.eventShort('high'), x + 5.5, b, { font: 'narrow-bold', size: LABEL_MIN, color: MID }); },
-    'High waters: clock time (bold) and height, in time order.');
+    text.words.t('pocket.keyHigh'));
   item((x, b) => { laneMark(doc, 'low', x, b, 7); put(doc, text.words.eventShort('low'), x + 5.5, b, { font: 'narrow-bold', size: LABEL_MIN, color: MID }); },
-    'Low waters, where the panel has room for them.');
+    text.words.t('pocket.keyLow'));
   item((x, b) => sample(x, b, '06:29', 'narrow-bold'), text.words.t('site.heightsAbove', { unit: text.words.unitName(), datum: printable(model.station.datum) }));
   item((x, b) => {
     const w = put(doc, text.words.heightNumber(-0.12, true), x, b, { font: 'narrow-bold', size: BODY });
     doc.save().lineWidth(0.5).moveTo(x, b + 1).lineTo(x + w, b + 1).stroke(INK).restore();
-  }, 'Below chart datum: minus sign, bold, underlined. Less water than the chart shows.');
+  }, text.words.t('pocket.keyBelow'));
   item((x, b) => {
     doc.save().roundedRect(x, b - BODY * 0.92, 11, BODY * 1.18, 1.2).fill(INK).restore();
     put(doc, '12', x + 9.5, b, { font: 'bold', size: BODY, color: WHITE }, 'right');
-  }, 'Spring tide: the day of the fortnight\u2019s largest range.');
+  }, text.words.t('pocket.keySpring'));
   item((x, b) => {
     doc.save().lineWidth(0.7).roundedRect(x + 0.35, b - BODY * 0.92 + 0.35, 10.3, BODY * 1.18 - 0.7, 1.2).stroke(INK).restore();
     put(doc, '19', x + 9.5, b, { font: 'bold', size: BODY }, 'right');
-  }, 'Neap tide: the day of the smallest range.');
+  }, text.words.t('pocket.keyNeap'));
   item((x, b) => (['new', 'first-quarter', 'full', 'last-quarter'] as const).forEach((p, i) =>
-    moonGlyph(doc, p, x + 3 + i * 7.5, b - 2.3, 2.8, text.southern)), 'New moon, first quarter, full moon, last quarter.');
+    moonGlyph(doc, p, x + 3 + i * 7.5, b - 2.3, 2.8, text.southern)), text.words.t('pocket.keyMoon'));
   if (model.offsetChanges.length > 0) {
-    item((x, b) => clockGlyph(doc, x + 3, b - 2.3, 2.8), 'The clocks change that day: the note under the month says how.');
+    item((x, b) => clockGlyph(doc, x + 3, b - 2.3, 2.8), text.words.t('pocket.keyClock'));
   }
-  put(doc, 'Saturdays and Sundays are shaded; a heavy rule ends each week.', box.x, y, { font: 'narrow', size: LABEL_MIN, color: DARK });
-  y += 12;
+  y = paragraph(doc, text.words.t('key.weekend'), box.x, y, box.width, { font: 'narrow', size: LABEL_MIN, color: DARK }, LABEL_MIN * 1.2) + 12 - LABEL_MIN * 1.2;
   if (model.invented) y = inventedStrip(doc, box, y, text.words) + 8;
   paragraph(doc, text.words.cautionShort, box.x, Math.max(y + 2, box.y + box.height - 5 * LABEL_MIN * 1.2), box.width,
     { font: 'narrow-bold', size: LABEL_MIN }, LABEL_MIN * 1.2);
@@ -97,7 +99,7 @@ export function drawKey(doc: PDFKit.PDFDocument, model: StationYear, box: Box, t
 
 export function drawLevels(doc: PDFKit.PDFDocument, model: StationYear, box: Box, text: PanelText): void {
   let y = box.y + 9;
-  put(doc, 'Levels of the tide', box.x, y, { font: 'bold', size: 9 });
+  putFitted(doc, text.words.t('pocket.levels'), box.x, y, { font: 'bold', size: 9 }, box.width * 0.55, LABEL_MIN);
   y += 6;
   put(doc, text.words.t('site.heightsAbove', { unit: text.words.unit(), datum: printable(model.station.datum) }), box.x + box.width, y - 6, { font: 'narrow', size: LABEL_MIN, color: MID }, 'right');
   y += 9;
@@ -109,20 +111,19 @@ export function drawLevels(doc: PDFKit.PDFDocument, model: StationYear, box: Box
   }
   y += 6;
   const facts: [string, string][] = [
-    ['Tide type', text.words.tideType(model.tideType.kind)],
-    ['Mean spring range', text.words.height(model.meanSpringRange)],
-    ['Mean neap range', text.words.height(model.meanNeapRange)],
-    ['Highest this year', `${text.words.height(model.extremes.highest.height)} (${text.words.date(model.extremes.highest.local.slice(0, 10))})`],
-    ['Lowest this year', `${text.words.height(model.extremes.lowest.height)} (${text.words.date(model.extremes.lowest.local.slice(0, 10))})`],
+    [text.words.t('fact.tideType'), text.words.tideType(model.tideType.kind)],
+    [text.words.t('pocket.meanSpringRange'), text.words.height(model.meanSpringRange)],
+    [text.words.t('pocket.meanNeapRange'), text.words.height(model.meanNeapRange)],
+    [text.words.t('pocket.highest'), `${text.words.height(model.extremes.highest.height)} (${text.words.date(model.extremes.highest.date)})`],
+    [text.words.t('pocket.lowest'), `${text.words.height(model.extremes.lowest.height)} (${text.words.date(model.extremes.lowest.date)})`],
   ];
   for (const [k, v] of facts) {
-    put(doc, k, box.x, y, { font: 'narrow', size: BODY, color: MID });
+    putFitted(doc, k, box.x, y, { font: 'narrow', size: BODY, color: MID }, box.width * 0.48, LABEL_MIN);
     putFitted(doc, v, box.x + box.width, y, { font: 'narrow', size: BODY }, box.width * 0.5, LABEL_MIN, 'right');
     y += BODY * 1.45;
   }
   y += 8;
-  paragraph(doc, 'Depth available = charted depth + predicted height. Strong winds, high or low pressure and river '
-    + 'flow change the real tide by more than the predictions\u2019 last figure.', box.x, y, box.width,
+  paragraph(doc, text.words.t('pocket.depthNote'), box.x, y, box.width,
   { font: 'narrow', size: BODY, color: DARK }, BODY * 1.25);
 }
 
@@ -136,9 +137,9 @@ export function drawCaution(doc: PDFKit.PDFDocument, model: StationYear, box: Bo
       box.x, y + 3, box.width, { font: 'bold', size: BODY }, BODY * 1.3);
   }
   y += 8;
-  put(doc, 'Source', box.x, y, { font: 'narrow-bold', size: LABEL_MIN, color: MID });
+  put(doc, text.words.t('pocket.source'), box.x, y, { font: 'narrow-bold', size: LABEL_MIN, color: MID });
   y = paragraph(doc, printable(model.station.provenance), box.x, y + 8, box.width, { font: 'narrow', size: LABEL_MIN, color: DARK }, LABEL_MIN * 1.25, 6);
   const bottom = box.y + box.height;
   if (text.publisher) putFitted(doc, text.publisher, box.x, bottom - 10, { font: 'bold', size: 8 }, box.width, LABEL_MIN);
-  put(doc, `Predictions computed with tidewright for ${model.year}.`, box.x, bottom, { font: 'narrow', size: LABEL_MIN, color: MID });
+  putFitted(doc, text.words.t('pocket.computed', { year: String(model.year) }), box.x, bottom, { font: 'narrow', size: LABEL_MIN, color: MID }, box.width, LABEL_MIN);
 }

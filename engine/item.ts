@@ -1,0 +1,32 @@
+// Indexed reads whose index the code itself guarantees (a neighbour in a sorted table, a slot of a
+// fixed-size tuple). With noUncheckedIndexedAccess such a read is `T | undefined`; this names the
+// broken guarantee instead of letting `undefined` travel on into a sum or a drawing call.
+
+/** An index the program's own invariant says is inside its array turned out not to be: a bug, never a user's mistake. */
+export class IndexOutOfRangeError extends Error {
+  override name = 'IndexOutOfRangeError';
+  constructor(
+    readonly what: string,
+    readonly index: number,
+    readonly length: number,
+  ) {
+    super(`internal error: ${what}[${index}] read from a list of ${length}`);
+  }
+}
+
+/** The item at `index` of a list that holds no `undefined`, or an IndexOutOfRangeError naming `what` when there is none. */
+export function itemAt<T>(items: ArrayLike<T>, index: number, what: string): T {
+  const item = items[index];
+  if (item === undefined) throw new IndexOutOfRangeError(what, index, items.length);
+  return item;
+}
+
+/** The first item, or an IndexOutOfRangeError naming `what` when the list is empty. */
+export function firstOf<T>(items: ArrayLike<T>, what: string): T {
+  return itemAt(items, 0, what);
+}
+
+/** The last item, or an IndexOutOfRangeError naming `what` when the list is empty. */
+export function lastOf<T>(items: ArrayLike<T>, what: string): T {
+  return itemAt(items, items.length - 1, what);
+}

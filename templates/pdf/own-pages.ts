@@ -1,0 +1,143 @@
+// The publisher's own pages in a book: a Markdown page set on as many pages as it needs, a page that is
+// one picture (a sponsor's advertisement), or up to four pictures sharing a page in a grid of halves and
+// quarters. Their places (before or after the tide tables) are the composer's; this makes the pages.
+import type { PageImage, PublisherPage } from '../pages/types.js';
+import { createDocument } from './document.js';
+import { markdownBlocks } from './markdown-blocks.js';
+import { layoutMarkdown, type Placed, type Run } from './markdown-layout.js';
+import type { LogicalPage, PageContext } from './page.js';
+import { unit } from './page.js';
+import type { PageGeometry } from './geometry.js';
+import { contentBox } from './geometry.js';
+import { fitted, loadPicture, type Picture } from './picture.js';
+import { DARK, HAIRLINE, INK, RULE } from './style.js';
+import { group, tag } from './tags.js';
+import { put } from './text.js';
+
+export interface OwnPagesContext {
+  geometry: PageGeometry;
+  invented: boolean;
+  level: 0 | 1; // of the pages' bookmarks
+  accent?: string | undefined; // the publisher's colour, for the pages' titles
+}
+
+const TITLE_SIZE = 16;
+
+function drawRuns(ctx: PageContext, runs: Run[]): void {
+  const { doc, box } = ctx;
+  for (const r of runs) {
+    put(doc, r.text, box.x + r.x, box.y + r.y, r.style);
+    if (r.link === undefined) continue;
+    const x = box.x + r.x;
+    const y = box.y + r.y;
+    doc.save().lineWidth(HAIRLINE).strokeColor(r.style.color ?? INK).moveTo(x, y + 1.2).lineTo(x + r.width, y + 1.2).stroke().restore();
+    if (ctx.interactive) doc.link(x, y - r.style.size, r.width, r.style.size * 1.25, r.link);
+  }
+}
+
+function drawPlaced(ctx: PageContext, items: Placed[]): void {
+  const { doc, box } = ctx;
+  for (let i = 0; i < items.length; i++) {
+    const item = items[i]!;
+    if (item.kind === 'text' && item.tag === 'LI') {
+      const list: Placed[] = [];
+      while (i < items.length && items[i]!.kind === 'text' && (items[i] as { tag: string }).tag === 'LI') list.push(items[i++]!);
+      i--;
+      group(doc, 'L', {}, () => { for (const li of list) if (li.kind === 'text') tag(doc, 'LI', {}, () => drawRuns(ctx, li.runs)); });
+    } else if (item.kind === 'text') {
+      tag(doc, item.tag, {}, () => drawRuns(ctx, item.runs));
+    } else if (item.kind === 'rule') {
+      doc.save().lineWidth(0.6 * unit(ctx)).strokeColor(RULE).moveTo(box.x, box.y + item.y).lineTo(box.x + item.width, box.y + item.y).stroke().restore();
+    } else if (item.kind === 'image') {
+      tag(doc, 'Figure', { alt: item.alt || 'Picture' }, () => {
+        doc.image(item.picture.data, box.x + item.x, box.y + item.y, { width: item.width, height: item.height });
+      });
+      if (item.caption.length > 0) tag(doc, 'Caption', {}, () => drawRuns(ctx, item.caption));
+    } else {
+      for (const rule of item.rules) {
+        doc.save().lineWidth((rule.heavy ? 0.8 : HAIRLINE) * unit(ctx)).strokeColor(rule.heavy ? INK : RULE)
+          .moveTo(box.x + rule.x1, box.y + rule.y).lineTo(box.x + rule.x2, box.y + rule.y).stroke().restore();
+      }
+      group(doc, 'Table', {}, () => {
+        for (const row of item.rows) {
+          group(doc, 'TR', {}, () => {
+            for (const cell of row.cells) {
+              tag(doc, row.header ? 'TH' : 'TD', row.header ? { scope: 'Column' } : {}, () => drawRuns(ctx, cell));
+            }
+          });
+        }
+      });
+    }
+  }
+}
+
+/** A Markdown page: its title, then its text, over as many book pages as it takes. */
+function markdownPages(page: PublisherPage, c: OwnPagesContext): LogicalPage[] {
+  const g = c.geometry;
+  const s = g.scale;
+  const box = contentBox(g, 1);
+  const doc = createDocument({ title: '', subject: '', keywords: '', date: new Date(0), lang: 'en', tagged: false });
+  const top = (TITLE_SIZE + 14) * s;
+  const laid = layoutMarkdown(doc, markdownBlocks(page.markdown), page.images,
+    { scale: s, width: box.width, height: box.height, ...(c.accent !== undefined && { color: c.accent }) }, top);
+  doc.end();
+  return laid.map((items, i) => ({
+    kind: 'own',
+    footer: { invented: c.invented, label: page.title },
+    ...(i === 0 && { outline: { title: page.title, level: c.level } }),
+    draw(ctx) {
+      if (i === 0) {
+        tag(ctx.doc, 'H1', {}, () => put(ctx.doc, page.title, ctx.box.x, ctx.box.y + TITLE_SIZE * s,
+          { font: 'bold', size: TITLE_SIZE * s, color: c.accent ?? INK }));
+      }
+      drawPlaced(ctx, items);
+    },
+  }));
+}
+
+function drawPicture(ctx: PageContext, picture: Picture, image: PageImage, x: number, y: number, w: number, h: number): void {
+  const size = fitted(picture.pixels, w, h);
+  tag(ctx.doc, 'Figure', { alt: image.alt || 'Picture' }, () => {
+    ctx.doc.image(picture.data, x + (w - size.width) / 2, y + (h - size.height) / 2, { width: size.width, height: size.height });
+  });
+}
+
+/** One picture filling the page, or a grid of halves (the full width) and quarters (half of it). */
+function picturePage(page: PublisherPage, c: OwnPagesContext): LogicalPage {
+  const box = contentBox(c.geometry, 1);
+  const gap = 8 * c.geometry.scale;
+  const cellW = (box.width - gap) / 2;
+  const cellH = (box.height - gap) / 2;
+  const list = page.image ? [{ ...page.image, size: 'full' as const }] : page.grid ?? [];
+  const pictures = list.map((p) => loadPicture(p.path, p.size === 'quarter' ? cellW : box.width));
+  // quarters take the first free cell of a 2 × 2 grid, halves the first free row
+  const taken = [false, false, false, false];
+  const cells = list.map((p) => {
+    if (p.size === 'full') return { col: 0, row: 0, w: box.width, h: box.height };
+    if (p.size === 'half') {
+      const row = taken[0] || taken[1] ? 1 : 0;
+      taken[2 * row] = taken[2 * row + 1] = true;
+      return { col: 0, row, w: box.width, h: cellH };
+    }
+    const at = taken.indexOf(false);
+    taken[at] = true;
+    return { col: at % 2, row: Math.floor(at / 2), w: cellW, h: cellH };
+  });
+  return {
+    kind: 'own',
+    footer: { invented: c.invented, label: page.title },
+    outline: { title: page.title, level: c.level },
+    draw(ctx) {
+      list.forEach((p, i) => {
+        const cell = cells[i]!;
+        drawPicture(ctx, pictures[i]!, p, ctx.box.x + cell.col * (cellW + gap), ctx.box.y + cell.row * (cellH + gap), cell.w, cell.h);
+      });
+      if (list.length === 0) put(ctx.doc, page.title, ctx.box.x, ctx.box.y + 12, { font: 'bold', size: 12, color: DARK });
+    },
+  };
+}
+
+/** The book pages of the publisher's pages, in the order given. */
+export function ownPages(pages: readonly PublisherPage[], c: OwnPagesContext): LogicalPage[] {
+  return pages.flatMap((page) => (page.image || page.grid ? [picturePage(page, c)] : markdownPages(page, c)));
+}
