@@ -20,10 +20,12 @@ export default async function (eleventyConfig) {
   for (const folder of ['pdf', 'site', 'exports', 'report']) {
     eleventyConfig.ignores.add(`./${relative(process.cwd(), join(root, 'templates', folder)).split(sep).join('/')}/**`);
   }
-  eleventyConfig.addPassthroughCopy({ [join(root, 'templates', 'assets')]: 'assets' });
+  // renderSite chooses the input (the built-in templates, or those with a publisher's site/ laid over
+  // them), copies that input's assets and chooses the output; on its own, Eleventy takes tidewright's.
+  if (standalone) eleventyConfig.addPassthroughCopy({ [join(root, 'templates', 'assets')]: 'assets' });
   return {
-    // Absolute, so a build started from any folder finds the templates; renderSite chooses the output.
-    dir: { input: join(root, 'templates'), includes: '_includes', data: '_data', ...(standalone ? { output: 'out/site' } : {}) },
+    // Absolute, so a build started from any folder finds the templates.
+    dir: { includes: '_includes', data: '_data', ...(standalone ? { input: join(root, 'templates'), output: 'out/site' } : {}) },
     templateFormats: ['njk'],
     htmlTemplateEngine: 'njk',
   };

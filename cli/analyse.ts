@@ -9,6 +9,7 @@ import {
   type StationMeta, idFromText, parseStation, STATION_ID_PATTERN, readTextFile,
 } from '../engine/index.js';
 import { renderAnalysisReport } from '../templates/report/analysis-report.js';
+import { localeOption } from './build/args.js';
 import { parseCommandLine, positionalArguments } from './args.js';
 import { analyseCurrentFile } from './analyse-current.js';
 import { checkOutputFiles, writeOutputFiles, type OutputFile } from './output-files.js';
@@ -39,6 +40,7 @@ equilibrium tide and the neighbour's phase lag. The file and the report say whic
   --output FILE      write the station file there instead of printing it
   --report FILE      also write an HTML report: the record, the fit, the residual, the constants
                      with 95 % intervals and the constituents the record could not separate
+  --locale TAG       language of the report: en, fr, es, pt, de, nl or nb (default en)
   --force            replace --output or --report if the file exists (never an input of this run)
 
 A current-meter record (a header line time,speed,direction or time,east,north; the direction in
@@ -65,6 +67,7 @@ export async function runAnalyse(argv: string[]): Promise<number> {
     force: { type: 'boolean' },
     'flood-direction': { type: 'string' },
     unit: { type: 'string' },
+    locale: { type: 'string' },
     help: { type: 'boolean', short: 'h' },
   });
   if (values.help) {
@@ -79,13 +82,14 @@ export async function runAnalyse(argv: string[]): Promise<number> {
   }
   const meta = stationMeta('analyse', file, values, { datum: 'Gauge zero' });
   const rayleigh = values.rayleigh === undefined ? 1 : numberOption('--rayleigh', values.rayleigh, 0.5, 10, 'e.g. --rayleigh 1');
+  const locale = values.locale === undefined ? undefined : localeOption('--locale', values.locale);
   const targets = outputTargets(values);
   checkOutputFiles(targets, [file], values.force === true);
   const analysis = analyseRecord(readRecordFile(file), { rayleigh });
   const yaml = referenceStationYaml(analysis, meta);
   parseStation(yaml, values.output ?? 'the analysed station file'); // the loader must accept what we print
   const texts: Record<string, string> = { '--output': yaml };
-  if (values.report !== undefined) texts['--report'] = renderAnalysisReport(analysis, meta);
+  if (values.report !== undefined) texts['--report'] = renderAnalysisReport(analysis, meta, locale);
   writeOutputs(yaml, targets.map((t) => ({ ...t, text: texts[t.option] ?? '' })), [file], values.force === true);
   const r = analysis.residual;
   const unresolved = analysis.excluded.filter((e) => e.reason === 'rayleigh').length;

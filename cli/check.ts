@@ -6,6 +6,7 @@ import {
 } from '../engine/index.js';
 import { checkProjectFile } from './build/project.js';
 import { siteFilesFolder } from './build/site-files.js';
+import { siteThemeFolder } from './build/site-theme.js';
 import { coverageNotes } from '../templates/pdf/coverage.js';
 import { parseCommandLine, positionalArguments } from './args.js';
 
@@ -63,6 +64,7 @@ export function checkStations(dir: string): SetReport {
   problems.push(...checkProjectFile(dir).problems);
   try {
     siteFilesFolder(dir, [...result.stations, ...result.streams].map((s) => s.id));
+    siteThemeFolder(dir);
   } catch (error) {
     if (!(error instanceof StationFileError)) throw error;
     problems.push(error);

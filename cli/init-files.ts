@@ -36,13 +36,20 @@ imposition: none
 # is used instead, but never a date after the edition.
 # edition: 2026-11-15
 
-# Accent colour of the website (masthead, headings, links) as "#rrggbb"; refused if white text on it
-# reads below 4.5:1. Left out: the site's own blue.
+# Accent colour as "#rrggbb": the website's masthead, headings and links, and the books' covers and
+# page titles; refused if white text on it reads below 4.5:1. Left out: the site's own blue.
 # accent: "#0b5d7a"
 
-# Your logo, as SVG, PNG or JPEG, path relative to this file: in the website's header, and (PNG or
-# JPEG) at the top of the book covers.
+# Your logo, as SVG, PNG or JPEG, path relative to this file: in the website's header and at the top
+# of the book covers.
 # logo: brand/logo.png
+
+# A photo or drawing (JPEG, PNG or SVG) for the book covers and the website's front page.
+# cover_image: brand/cover.jpg
+
+# A folder of your own pages in Markdown (a welcome, harbour rules, sponsors): in the books and on
+# the website. See pages/welcome.md for what a page says at its top.
+pages: pages/
 
 # Who to call, one to four lines: printed on the imprint page of every book and in the website's footer.
 contact: |
@@ -91,6 +98,24 @@ provenance: "Invented for the tidewright starter folder: not a real place, not r
 number: "0002"
 `,
 
+  'pages/welcome.md': `---
+# The settings of this page (delete a line to use its default):
+title: Welcome                # the page's heading, its bookmark and its link in the website
+order: 1                      # pages of one place run from the lowest number
+place: front                  # front: before the tide tables; back: after them (default back)
+in: both                      # both, site (the website only) or book (the books only)
+# image: ads/sponsor.png      # instead of text: one picture filling the page (with alt: what it shows)
+---
+This almanac is published by the **Storm Petrel Bank Harbour Office** (invented). Replace this text
+with your own: paragraphs, *emphasis*, lists, [links](https://example.invalid), simple tables and
+pictures (\`![what it shows](pictures/quay.jpg)\`, the path relative to this file).
+
+| Office hours | |
+|---|---|
+| Monday to Friday | 08:00 to 18:00 |
+| Weekends | 09:00 to 12:00 |
+`,
+
   'README.md': `# Your tide almanac
 
 This folder is a tidewright almanac to start from. The two stations in it are **invented** and lie in
@@ -103,6 +128,8 @@ open ocean: replace them with your own before you publish anything.
 - \`storm-petrel-bank.yaml\`: an example *reference port*: harmonic constants of the tide there.
 - \`shearwater-shoal.yaml\`: an example *secondary port*: time and height differences from the reference
   port.
+- \`pages/welcome.md\`: a page of your own in Markdown, printed in the books and shown on the website.
+  Add more pages beside it; the settings at its top say where each goes.
 
 ## Put in your own stations
 

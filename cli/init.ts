@@ -2,7 +2,7 @@
 // folder that is new or empty, so it never mixes with or replaces anyone's files.
 
 import { mkdirSync, readdirSync, statSync, writeFileSync } from 'node:fs';
-import { basename, join, resolve } from 'node:path';
+import { basename, dirname, join, resolve } from 'node:path';
 import { UsageError } from '../engine/index.js';
 import { parseCommandLine, positionalArguments } from './args.js';
 import { STARTER_FILES } from './init-files.js';
@@ -10,8 +10,8 @@ import { STARTER_FILES } from './init-files.js';
 export const INIT_HELP = `Usage: tidewright init DIR
 
 Makes a folder to start a tide almanac from: tidewright.yaml with every setting explained, one invented
-reference port and one invented secondary port (at sea, to replace with yours) and a short README on
-replacing the stations and building. DIR must be new or empty.
+reference port and one invented secondary port (at sea, to replace with yours), one example page of
+your own (pages/welcome.md) and a short README on replacing the stations and building. DIR must be new or empty.
 
 Then: tidewright check --stations DIR, and tidewright build --stations DIR --out DIR-out
 `;
@@ -45,7 +45,10 @@ export async function runInit(argv: string[]): Promise<number> {
       'give the name of a new or empty folder; tidewright init never writes among existing files');
   }
   mkdirSync(dir, { recursive: true });
-  for (const [name, text] of Object.entries(STARTER_FILES)) writeFileSync(join(dir, name), text, { flag: 'wx' });
+  for (const [name, text] of Object.entries(STARTER_FILES)) {
+    mkdirSync(dirname(join(dir, name)), { recursive: true });
+    writeFileSync(join(dir, name), text, { flag: 'wx' });
+  }
   process.stderr.write(`tidewright: made ${dir} with ${Object.keys(STARTER_FILES).length} files; ` +
     `next: tidewright check --stations ${dir}, then tidewright build --stations ${dir} --out ${outBeside(dir)}\n`);
   return 0;

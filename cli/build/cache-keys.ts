@@ -1,9 +1,9 @@
 // What a cached station-year depends on, as one key: the station file, its reference port's file,
-// the year, every render choice (and the logo file's bytes), and the program itself (its version
+// the year, every render choice (and the bytes of every file one names), and the program itself (its version
 // and a hash of its own code, so a changed tidewright never reuses an older one's output).
-import { readdirSync, readFileSync, existsSync } from 'node:fs';
+import { existsSync, readdirSync, readFileSync, statSync } from 'node:fs';
 import { createHash } from 'node:crypto';
-import { dirname, join } from 'node:path';
+import { dirname, isAbsolute, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import type { Station } from '../../engine/index.js';
 import { cacheKey, fileHash } from './cache.js';
@@ -37,6 +37,14 @@ export function codeFingerprint(): string {
   return fingerprint;
 }
 
+/** The choices with every file they name (logo, cover image, pictures of the publisher's pages) as its bytes' hash too. */
+function withFileBytes(value: unknown): unknown {
+  if (typeof value === 'string' && isAbsolute(value) && existsSync(value) && statSync(value).isFile()) return { path: value, bytes: fileHash(value) };
+  if (Array.isArray(value)) return value.map(withFileBytes);
+  if (value !== null && typeof value === 'object') return Object.fromEntries(Object.entries(value).map(([k, v]) => [k, withFileBytes(v)]));
+  return value;
+}
+
 function stationBytes(station: Station): string {
   return fileHash(station.sourceFile) ?? cacheKey({ loaded: station });
 }
@@ -44,7 +52,7 @@ function stationBytes(station: Station): string {
 /** The key of each station-year: every input that reaches its model, its books and its downloads. */
 export function stationYearKeys(stations: readonly Station[], year: number, render: RenderChoices, code: string = codeFingerprint()): Map<string, string> {
   const byId = new Map(stations.map((s) => [s.id, s]));
-  const choices = { ...render, logo: render.logo === undefined ? undefined : { path: render.logo, bytes: fileHash(render.logo) } };
+  const choices = withFileBytes(render);
   const keys = new Map<string, string>();
   for (const s of stations) {
     const reference = s.kind === 'secondary' ? byId.get(s.reference) : undefined;

@@ -32,6 +32,7 @@ export interface RenderChoices {
   logo?: string; // absolute path of a checked SVG, PNG or JPEG file
   coverImage?: string; // absolute path of a checked picture: the book covers and the site's front page
   pages?: PublisherPage[]; // the publisher's own pages, checked (cli/build/pages.ts)
+  siteTheme?: string; // the publisher's site/ folder (cli/build/site-theme.ts), laid over the site's templates
 }
 
 /** Everything one build needs to know, after the command line, the project file and the defaults. */

@@ -15,6 +15,7 @@ import { cacheDirFor } from './cache.js';
 import { stationYearKeys } from './cache-keys.js';
 import { siteFilesFolder } from './site-files.js';
 import { combinedStations, type CombinedPlan } from './volumes-step.js';
+import { siteThemeFolder } from './site-theme.js';
 import { countPdfPages, type StationCache, type StationOutcome } from './station-job.js';
 
 export interface ComputeRequest {
@@ -116,6 +117,7 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
   const year = plan.year;
   const streamStations = checked.streams ?? [];
   const siteFiles = siteFilesFolder(plan.stationsDir, [...stations, ...streamStations].map((s) => s.id));
+  const siteTheme = siteThemeFolder(plan.stationsDir);
 
   createTemp(target);
   events.tempCreated(target);
@@ -163,7 +165,8 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
     const beside = combined.volumes || (workers > 1 && stations.length <= BESIDE_MAX_STATIONS);
     const name = combinedBookName(plan.render.title, stations.map((s) => s.id));
     const site = (): Promise<unknown> => step('rendering the website and downloads', times,
-      () => deps.renderSite(models, join(target.temp, 'site'), join(target.temp, 'data'), plan.render, siteFiles ?? undefined, streamModels));
+      () => deps.renderSite(models, join(target.temp, 'site'), join(target.temp, 'data'),
+        siteTheme === null ? plan.render : { ...plan.render, siteTheme }, siteFiles ?? undefined, streamModels));
     const book = (): Promise<void> => step('rendering the combined book', times, async () => {
       if (combined.plan.mode === 'none') return;
       if (combined.volumes) {

@@ -5,7 +5,7 @@ import type { LogicalPage, PageContext } from './page.js';
 import { unit } from './page.js';
 import type { StationView } from './station-view.js';
 import { MID, RULE } from './style.js';
-import { tag } from './tags.js';
+import { group, linked, tag } from './tags.js';
 import { put, putFitted, widthOf } from './text.js';
 
 export interface ContentsEntry { view: StationView; page: number }
@@ -70,7 +70,7 @@ export function contentsPages(entries: ContentsEntry[], boxHeight: number, s: nu
         let y = box.y + (first ? 14 : 0) * s;
         if (first) tag(doc, 'H1', {}, () => put(doc, words.t('book.contents'), box.x, y, { font: 'bold', size: 16 * s }));
         y = box.y + (first ? FIRST_TOP : NEXT_TOP) * s;
-        for (const [k, e] of chunk.entries()) {
+        group(doc, 'TOC', {}, () => chunk.forEach((e, k) => {
           const num = String(e.page);
           const numW = widthOf(doc, num, { font: 'bold', size: 9.5 * s });
           const st = e.view.model.station;
@@ -80,19 +80,24 @@ export function contentsPages(entries: ContentsEntry[], boxHeight: number, s: nu
           const indent = underReference ? 12 * s : 0;
           const nameStyle = { font: underReference ? 'regular' as const : 'bold' as const, size: 9.5 * s };
           const nameMax = box.width * 0.55 - indent;
-          const used = putFitted(doc, e.view.name, box.x + indent, y, nameStyle, nameMax, 6.5 * s);
-          const nameW = Math.min(widthOf(doc, e.view.name, used), nameMax);
           const desc = describe(e.view, underReference);
-          const descX = box.x + indent + nameW + 6 * s;
-          const descMax = box.x + box.width - numW - 14 * s - descX;
-          const dw = Math.min(descMax, widthOf(doc, desc, { font: 'narrow', size: 7.5 * s }));
-          putFitted(doc, desc, descX, y, { font: 'narrow', size: 7.5 * s, color: MID }, descMax, 5 * s);
-          doc.save().lineWidth(0.6 * s).strokeColor(RULE).dash(0.6 * s, { space: 2.2 * s })
-            .moveTo(descX + dw + 4 * s, y).lineTo(box.x + box.width - numW - 4 * s, y).stroke().undash().restore();
-          put(doc, num, box.x + box.width, y, { font: 'bold', size: 9.5 * s }, 'right');
-          if (ctx.interactive) doc.goTo(box.x, y - 10 * s, box.width, ENTRY * s, `station-${e.view.model.station.id}`);
+          const target = `station-${e.view.model.station.id}`;
+          // each entry a TOCI whose Link holds the entry's words and, as its OBJR, the link annotation
+          group(doc, 'TOCI', {}, () => linked(doc, () => {
+            const used = putFitted(doc, e.view.name, box.x + indent, y, nameStyle, nameMax, 6.5 * s);
+            const nameW = Math.min(widthOf(doc, e.view.name, used), nameMax);
+            const descX = box.x + indent + nameW + 6 * s;
+            const descMax = box.x + box.width - numW - 14 * s - descX;
+            const dw = Math.min(descMax, widthOf(doc, desc, { font: 'narrow', size: 7.5 * s }));
+            putFitted(doc, desc, descX, y, { font: 'narrow', size: 7.5 * s, color: MID }, descMax, 5 * s);
+            doc.save().lineWidth(0.6 * s).strokeColor(RULE).dash(0.6 * s, { space: 2.2 * s })
+              .moveTo(descX + dw + 4 * s, y).lineTo(box.x + box.width - numW - 4 * s, y).stroke().undash().restore();
+            put(doc, num, box.x + box.width, y, { font: 'bold', size: 9.5 * s }, 'right');
+          }, (structParent) => {
+            if (ctx.interactive) doc.goTo(box.x, y - 10 * s, box.width, ENTRY * s, target, structParent ? { structParent } : {});
+          }));
           y += ENTRY * s;
-        }
+        }));
       },
     });
   }

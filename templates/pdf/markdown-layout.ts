@@ -176,7 +176,7 @@ function layoutTable(doc: PDFKit.PDFDocument, block: Extract<Block, { kind: 'tab
   const all = [block.head, ...block.rows];
   const natural = Array.from({ length: columns }, (_, c) => Math.max(12 * s, ...all.map((row, r) => {
     const pieces = row[c] ?? [];
-    return pieces.reduce((w, p) => w + widthOf(doc, p.text, { font: r === 0 ? 'bold' : p.font, size }), 0) + 2 * pad;
+    return pieces.reduce((w, p) => w + widthOf(doc, p.text, { font: r === 0 ? 'bold' : p.font, size }), 0) + 2 * pad + s; // a point of slack for rounding
   })));
   const total = natural.reduce((a, b) => a + b, 0);
   const widths = total <= style.width ? natural : natural.map((w) => (w / total) * style.width);

@@ -5,8 +5,8 @@
 // layouts read the same either way. Structure follows the order of the calls; sections can be made
 // ahead (`sections`) so that pages drawn out of order (imposed sheets) still read in book order.
 
-export type TagType = 'Document' | 'Sect' | 'Part' | 'H1' | 'H2' | 'H3' | 'P' | 'Span' | 'Figure' | 'Table' | 'TR' | 'TH' | 'TD'
-  | 'L' | 'LI' | 'Caption';
+export type TagType = 'Document' | 'Sect' | 'Part' | 'Div' | 'H1' | 'H2' | 'H3' | 'P' | 'Span' | 'Figure' | 'Table' | 'TR' | 'TH' | 'TD'
+  | 'L' | 'LI' | 'Lbl' | 'LBody' | 'Caption' | 'TOC' | 'TOCI' | 'Link';
 
 export interface TagOptions {
   alt?: string; // a figure's alternative text
@@ -72,6 +72,35 @@ export function tag<T>(doc: PDFKit.PDFDocument, type: TagType, options: TagOptio
   } finally {
     state.leaf = false;
   }
+  el.end();
+  openArtifact(doc, state);
+  return result as T;
+}
+
+/**
+ * A link: `draw` sets its visible text as a Link element's content, and `annotate` places the link
+ * annotation, handed the element so that the annotation becomes its object reference (OBJR) child and
+ * a screen reader announces the text as the link. Untagged, both simply run.
+ */
+export function linked<T>(doc: PDFKit.PDFDocument, draw: () => T,
+  annotate: (structParent: PDFKit.PDFStructureElement | undefined) => void): T {
+  const state = states.get(doc);
+  if (!state || state.leaf || state.decor > 0) {
+    const result = draw();
+    annotate(undefined);
+    return result;
+  }
+  let result: T | undefined;
+  const el = element(doc, 'Link', {});
+  innermost(state).add(el);
+  state.leaf = true;
+  state.artifact = false;
+  try {
+    el.add(() => { result = draw(); });
+  } finally {
+    state.leaf = false;
+  }
+  annotate(el);
   el.end();
   openArtifact(doc, state);
   return result as T;

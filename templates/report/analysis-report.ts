@@ -5,8 +5,8 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import nunjucks from 'nunjucks';
-import { CAUTION } from '../../engine/index.js';
 import type { HarmonicAnalysis, StationMeta } from '../../engine/index.js';
+import { wordsFor, type MessageKey, type Words } from '../locale/index.js';
 import { projectRoot } from '../site/paths.js';
 import { timeSeriesChart } from './chart.js';
 import { sitePaletteCss } from './palette.js';
@@ -23,7 +23,6 @@ export function reliability(ratio: number): Reliability {
   return ratio >= 2 ? 'firm' : ratio >= 1 ? 'fair' : 'weak';
 }
 
-const fixed = (v: number, digits: number): string => v.toFixed(digits).replace(/^-(?=0\.?0*$)/, '').replace('-', '\u2212');
 const instant = (t: number): string => `${new Date(t).toISOString().slice(0, 16).replace('T', ' ')} UTC`;
 
 /** The first stretch of `days` with the most readings, so the detail chart shows data, not a gap. */
@@ -42,7 +41,7 @@ function busiestWindow(times: Float64Array, days: number): [number, number] {
 }
 
 /** The three charts, as markup this module generated (its texts escaped inside timeSeriesChart). */
-function charts(a: HarmonicAnalysis): Record<'record' | 'fit' | 'residual', nunjucks.runtime.SafeString> {
+function charts(a: HarmonicAnalysis, w: Words): Record<'record' | 'fit' | 'residual', nunjucks.runtime.SafeString> {
   const { record, fitted } = a;
   const breakAfterMs = Math.max(3 * a.summary.intervalHours * HOUR, 2 * HOUR);
   const residuals = new Float64Array(record.heights.length);
@@ -51,58 +50,57 @@ function charts(a: HarmonicAnalysis): Record<'record' | 'fit' | 'residual', nunj
   const safe = (svg: string) => new nunjucks.runtime.SafeString(svg);
   return {
     record: safe(timeSeriesChart(
-      [{ times: record.times, values: record.heights, className: 'observed', label: 'Observed' }],
-      { id: 'record-chart', title: 'The gauge record', breakAfterMs,
-        description: 'Observed height (m on the record’s zero) against time (UTC); breaks mark gaps.' })),
+      [{ times: record.times, values: record.heights, className: 'observed', label: w.t('report.observed') }],
+      { id: 'record-chart', title: w.t('report.recordTitle'), breakAfterMs, description: w.t('report.recordDescription') })),
     fit: safe(timeSeriesChart([
-      { times: record.times, values: record.heights, className: 'observed', label: 'Observed' },
-      { times: record.times, values: fitted, className: 'fitted', label: 'Fitted tide' },
+      { times: record.times, values: record.heights, className: 'observed', label: w.t('report.observed') },
+      { times: record.times, values: fitted, className: 'fitted', label: w.t('report.fittedTide') },
     ], {
-      id: 'fit-chart', title: 'Observed and fitted heights, four days', start, end, breakAfterMs,
-      description: `Observed height and the fitted harmonic tide over four days from ${instant(start)}.`,
+      id: 'fit-chart', title: w.t('report.fitTitle'), start, end, breakAfterMs,
+      description: w.t('report.fitDescription', { from: instant(start) }),
     })),
     residual: safe(timeSeriesChart(
-      [{ times: record.times, values: residuals, className: 'residual', label: 'Observed − fitted' }],
-      { id: 'residual-chart', title: 'Residual', zeroLine: true, breakAfterMs,
-        description: 'Observed minus fitted height (m) over the whole record: weather, surges, seiches and what the fit could not represent.' })),
+      [{ times: record.times, values: residuals, className: 'residual', label: w.t('report.observedMinusFitted') }],
+      { id: 'residual-chart', title: w.t('report.residualTitle'), zeroLine: true, breakAfterMs,
+        description: w.t('report.residualDescription') })),
   };
 }
 
 /** Everything the template prints, as strings. */
-export function reportView(a: HarmonicAnalysis, station: ReportStation, root = projectRoot()) {
+export function reportView(a: HarmonicAnalysis, station: ReportStation, root = projectRoot(), w: Words = wordsFor()) {
+  const fixed = (v: number, digits: number): string => w.number(v, digits);
   const s = a.summary;
   const r = a.residual;
   const days = s.spanHours / 24;
   const rayleighLeftOut = a.excluded.filter((e) => e.reason === 'rayleigh');
   const tooFast = a.excluded.filter((e) => e.reason === 'nyquist').map((e) => e.name);
-  const title = `Harmonic analysis: ${station.name}`;
+  const title = w.t('report.title', { station: station.name });
   return {
+    lang: w.tag,
+    t: (key: MessageKey, params?: Record<string, string | number>) => w.t(key, params),
     title,
-    where: `${station.id} · ${fixed(station.latitude, 4)}°, ${fixed(station.longitude, 4)}° (east positive) · ${station.timezone}`,
+    where: `${station.id} · ${fixed(station.latitude, 4)}°, ${fixed(station.longitude, 4)}° (${w.t('report.eastPositive')}) · ${station.timezone}`,
     css: new nunjucks.runtime.SafeString(`${sitePaletteCss(root)}\n${readFileSync(join(root, 'templates', 'report', 'report.css'), 'utf8')}`),
-    caution: CAUTION,
-    shortNote: days < 365
-      ? `This record spans only ${days.toFixed(1)} days: constituents it could not separate are inferred from a neighbour ` +
-        'where the equilibrium tide allows, or else left out, and the others absorb some of their energy.'
-      : '',
+    caution: w.caution,
+    shortNote: days < 365 ? w.t('report.shortNote', { days: fixed(days, 1) }) : '',
     recordFacts: [
-      ['File', a.record.file],
-      ['First reading', instant(s.start)],
-      ['Last reading', instant(s.end)],
-      ['Length', `${days.toFixed(2)} days`],
-      ['Readings', `${s.count}`],
-      ['Usual interval', `${(s.intervalHours * 60).toFixed(1)} minutes`],
-      ['Span with readings', `${(s.coverage * 100).toFixed(1)} %`],
-      ['Longest gaps', s.gaps.length > 0 ? s.gaps.slice(0, 3).map((g) => `${(g.hours / 24).toFixed(2)} days from ${instant(g.from)}`).join('; ') : 'none'],
-      ['Exact duplicate rows dropped', `${a.record.duplicatesDropped}`],
+      [w.t('report.file'), a.record.file],
+      [w.t('report.firstReading'), instant(s.start)],
+      [w.t('report.lastReading'), instant(s.end)],
+      [w.t('report.length'), w.t('report.days', { days: fixed(days, 2) })],
+      [w.t('report.readings'), `${s.count}`],
+      [w.t('report.interval'), w.t('report.minutes', { minutes: fixed(s.intervalHours * 60, 1) })],
+      [w.t('report.coverage'), `${fixed(s.coverage * 100, 1)} %`],
+      [w.t('report.gaps'), s.gaps.length > 0 ? s.gaps.slice(0, 3).map((g) => w.t('report.gap', { days: fixed(g.hours / 24, 2), from: instant(g.from) })).join('; ') : w.t('report.none')],
+      [w.t('report.duplicates'), `${a.record.duplicatesDropped}`],
     ],
     residualFacts: [
-      ['RMS of the residual', `${fixed(r.rms, 3)} m`],
-      ['Largest residual', `${fixed(r.maxAbs, 3)} m at ${instant(r.maxAbsTime)}`],
-      ['Variance explained by the fit', `${(r.explained * 100).toFixed(2)} %`],
-      ['Residual standard error', `${fixed(r.standardError, 3)} m (${r.count} readings, ${r.unknowns} unknowns)`],
+      [w.t('report.rms'), `${fixed(r.rms, 3)} m`],
+      [w.t('report.largest'), w.t('report.largestValue', { value: fixed(r.maxAbs, 3), time: instant(r.maxAbsTime) })],
+      [w.t('report.explained'), `${fixed(r.explained * 100, 2)} %`],
+      [w.t('report.standardError'), w.t('report.standardErrorValue', { value: fixed(r.standardError, 3), count: String(r.count), unknowns: String(r.unknowns) })],
     ],
-    charts: charts(a),
+    charts: charts(a, w),
     meanLevel: fixed(a.meanLevel, 4),
     meanLevelError: fixed(a.meanLevelError, 4),
     trend: a.trend === undefined ? '' : `${fixed(a.trend.change, 3)} ± ${fixed(a.trend.error, 3)}`,
@@ -118,6 +116,7 @@ export function reportView(a: HarmonicAnalysis, station: ReportStation, root = p
         phaseError: fixed(c.phaseError, 2),
         ratio: Number.isFinite(ratio) ? fixed(ratio, 1) : '∞',
         reliability: reliability(ratio),
+        reliabilityWord: w.t(`report.${reliability(ratio)}`),
         inferredFrom: c.inferred?.from ?? '',
       };
     }),
@@ -125,21 +124,21 @@ export function reportView(a: HarmonicAnalysis, station: ReportStation, root = p
       .map((c) => ({ name: c.name, from: c.inferred!.from, ratio: fixed(c.inferred!.ratio, 4) })),
     leftOut: rayleighLeftOut.map((e) => ({
       name: e.name,
-      from: e.conflictsWith === 'Z0' ? 'the mean level' : e.conflictsWith ?? '',
-      days: Number.isFinite(e.daysNeeded ?? Infinity) ? fixed(e.daysNeeded!, 1) : 'never (same speed)',
+      from: e.conflictsWith === 'Z0' ? w.t('report.meanLevelName') : e.conflictsWith ?? '',
+      days: Number.isFinite(e.daysNeeded ?? Infinity) ? fixed(e.daysNeeded!, 1) : w.t('report.never'),
     })),
-    rayleigh: String(a.rayleigh),
+    rayleigh: fixed(a.rayleigh, (String(a.rayleigh).split('.')[1] ?? '').length),
     tooFast: tooFast.join(', '),
-    intervalMinutes: (s.intervalHours * 60).toFixed(1),
+    intervalMinutes: fixed(s.intervalHours * 60, 1),
     readings: String(r.count),
     file: a.record.file,
   };
 }
 
 /** The complete report as an HTML document. */
-export function renderAnalysisReport(analysis: HarmonicAnalysis, station: ReportStation): string {
+export function renderAnalysisReport(analysis: HarmonicAnalysis, station: ReportStation, locale?: string): string {
   const root = projectRoot();
   const env = new nunjucks.Environment(new nunjucks.FileSystemLoader(join(root, 'templates', 'report')),
     { autoescape: true, throwOnUndefined: true, trimBlocks: true, lstripBlocks: true });
-  return env.render('analysis-report.njk', reportView(analysis, station, root));
+  return env.render('analysis-report.njk', reportView(analysis, station, root, wordsFor({ locale })));
 }

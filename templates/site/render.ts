@@ -8,7 +8,8 @@
 // year and month pages only) and one for the shared pages (index, datums, assets). Every run sees the
 // same site-wide facts, so the pages are the same as from one run; the memory no longer grows with
 // the number of stations beyond the models themselves.
-import { copyFile, link, mkdir, rm } from 'node:fs/promises';
+import { copyFile, cp, link, mkdir, mkdtemp, readdir, rm } from 'node:fs/promises';
+import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import Eleventy from '@11ty/eleventy';
 import type { StationYear, StreamYear } from '../../engine/index.js';
@@ -27,6 +28,8 @@ export interface RenderSiteOptions extends SiteOptions {
   siteFiles?: string;
   /** The stream-years of the build's tidal stream stations (pages written with the shared pages). */
   streams?: readonly StreamYear[];
+  /** A publisher's `site/` folder: its files take the place of the built-in templates and CSS of the same path. */
+  siteTheme?: string;
 }
 
 /** The global-data name under which renderSite hands the site to templates/_data/site.js. */
@@ -48,11 +51,25 @@ async function linkOrCopy(from: string, to: string): Promise<void> {
   }
 }
 
+/** Tidewright's site templates with the publisher's `site/` files laid over them, in a temporary folder. */
+async function layeredTemplates(root: string, theme: string): Promise<string> {
+  const dir = await mkdtemp(join(tmpdir(), 'tidewright-site-'));
+  const builtIn = join(root, 'templates');
+  // only what Eleventy reads: the page templates, the includes, the data file and the assets
+  for (const entry of await readdir(builtIn, { withFileTypes: true })) {
+    if (entry.isFile() ? entry.name.endsWith('.njk') : ['_includes', '_data', 'assets'].includes(entry.name)) {
+      await cp(join(builtIn, entry.name), join(dir, entry.name), { recursive: true });
+    }
+  }
+  await cp(theme, dir, { recursive: true, force: true });
+  return dir;
+}
+
 /** One Eleventy run over `site`, leaving out the templates named in `skip`. */
-async function runEleventy(root: string, out: string, site: SiteData, skip: string[], options: RenderSiteOptions, copy?: string): Promise<void> {
+async function runEleventy(root: string, input: string, out: string, site: SiteData, skip: string[], options: RenderSiteOptions, copy?: string): Promise<void> {
   // Frozen so Eleventy passes it by reference instead of deep-copying every model into every page.
   const handoff = Object.freeze(site);
-  const eleventy = new Eleventy(join(root, 'templates'), out, {
+  const eleventy = new Eleventy(input, out, {
     quietMode: true, // no line per written file; the caller reports progress
     configPath: join(root, '.eleventy.js'),
     config: (config) => {
@@ -60,7 +77,8 @@ async function runEleventy(root: string, out: string, site: SiteData, skip: stri
       // curves always does, by design, so the warning only adds noise to the build's output.
       config.benchmarks?.config?.setIsVerbose(false);
       registerSiteFilters(config, siteWords(options));
-      for (const name of skip) config.ignores.add(join(root, 'templates', name));
+      for (const name of skip) config.ignores.add(join(input, name));
+      config.addPassthroughCopy({ [join(input, 'assets')]: 'assets' });
       if (copy) config.addPassthroughCopy({ [copy]: '/' });
       config.addGlobalData(HANDOFF_KEY, handoff);
     },
@@ -88,8 +106,14 @@ export async function renderSite(models: StationYear[], outDir: string, options:
   const size = options.stationYearsPerRun ?? STATION_YEARS_PER_RUN;
   if (!Number.isInteger(size) || size < 1) throw new RangeError(`stationYearsPerRun must be a whole number from 1, not ${size}`);
   const site = buildSiteData(models, options, true, options.streams ?? []);
-  for (const batch of batches(site, size)) await runEleventy(root, out, { ...site, ...batch }, SHARED_PAGES, options);
-  await runEleventy(root, out, { ...site, stationYears: [], monthPages: [] }, STATION_PAGES, options, options.siteFiles);
+  const layered = options.siteTheme === undefined ? null : await layeredTemplates(root, options.siteTheme);
+  const input = layered ?? join(root, 'templates');
+  try {
+    for (const batch of batches(site, size)) await runEleventy(root, input, out, { ...site, ...batch }, SHARED_PAGES, options);
+    await runEleventy(root, input, out, { ...site, stationYears: [], monthPages: [] }, STATION_PAGES, options, options.siteFiles);
+  } finally {
+    if (layered !== null) await rm(layered, { recursive: true, force: true });
+  }
 
   if (options.logo !== undefined && site.logo !== null) await copyFile(options.logo, join(out, site.logo.slice(1)));
   if (options.coverImage !== undefined && site.coverImage !== null) await copyFile(options.coverImage, join(out, site.coverImage.slice(1)));

@@ -18,13 +18,14 @@ describe('tidewright init', () => {
     const target = join(dir, 'almanac');
     const made = await runCli(['init', target]);
     expect(made.code).toBe(0);
-    expect(made.stderr).toMatch(/^tidewright: made .*almanac with 4 files; next: tidewright check --stations /);
-    expect(readdirSync(target).sort()).toEqual(['README.md', 'shearwater-shoal.yaml', 'storm-petrel-bank.yaml', 'tidewright.yaml']);
+    expect(made.stderr).toMatch(/^tidewright: made .*almanac with 5 files; next: tidewright check --stations /);
+    expect(readdirSync(target).sort()).toEqual(['README.md', 'pages', 'shearwater-shoal.yaml', 'storm-petrel-bank.yaml', 'tidewright.yaml']);
+    expect(readdirSync(join(target, 'pages'))).toEqual(['welcome.md']);
     const checked = await runCli(['check', '--stations', target]);
     expect(checked.code, checked.stdout + checked.stderr).toBe(0);
     // every setting present (year commented: next year by default) and each explained by a comment above it
     const settings = readFileSync(join(target, 'tidewright.yaml'), 'utf8');
-    for (const key of ['title', 'publisher', 'year', 'page', 'units', 'locale', 'imposition', 'caution', 'edition', 'contact', 'accent', 'logo']) {
+    for (const key of ['title', 'publisher', 'year', 'page', 'units', 'locale', 'imposition', 'caution', 'edition', 'contact', 'accent', 'logo', 'cover_image', 'pages']) {
       expect(settings, key).toMatch(new RegExp(`# [^\\n]+\\n(# )?${key}: `));
     }
     expect(loadProjectFile(target).settings).toMatchObject({ page: 'a5', units: 'm', imposition: 'none' });

@@ -3,7 +3,7 @@
 import { execFileSync } from 'node:child_process';
 import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
-import { join } from 'node:path';
+import { dirname, join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { buildStationYear } from '../../engine/index.js';
 import { StationFileError } from '../../engine/index.js';
@@ -16,7 +16,10 @@ import { LOGO_SVG, solidPng } from '../fixtures/images.js';
 
 const dir = mkdtempSync(join(tmpdir(), 'tidewright-logo-'));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
-for (const [name, text] of Object.entries(STARTER_FILES)) writeFileSync(join(dir, name), text);
+for (const [name, text] of Object.entries(STARTER_FILES)) {
+  mkdirSync(dirname(join(dir, name)), { recursive: true });
+  writeFileSync(join(dir, name), text);
+}
 mkdirSync(join(dir, 'brand'));
 writeFileSync(join(dir, 'brand', 'logo.svg'), LOGO_SVG);
 writeFileSync(join(dir, 'brand', 'logo.png'), solidPng(40, 24, [15, 59, 90]));
@@ -67,7 +70,7 @@ describe('the logo in the outputs', () => {
       const rows = list.trim().split('\n').slice(2).map((l) => l.trim().split(/\s+/));
       expect(rows.filter((r) => r[0] === '1' && r[3] === '40' && r[4] === '24')).toHaveLength(1); // page 1, 40 × 24
     }
-  }, 30_000);
+  }, 120_000); // two books, now with the starter folder's own page, on a loaded machine
 
   it('heads every page of the site', async () => {
     const out = join(dir, 'site');

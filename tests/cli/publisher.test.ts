@@ -13,6 +13,7 @@ import { parseBuildArgs } from '../../cli/build/args.js';
 import { renderCombinedBook, renderStationBook } from '../../templates/pdf/book.js';
 import { renderSite } from '../../templates/site/render.js';
 import { runCli } from '../fixtures/run-cli.js';
+import { siteThemeFolder } from '../../cli/build/site-theme.js';
 
 const FIXTURE = join(import.meta.dirname, '..', 'fixtures', 'publisher');
 const POPPLER = ['pdftotext', 'pdfimages'].every((t) => existsSync(`/usr/bin/${t}`));
@@ -110,6 +111,29 @@ describe('the publisher fixture', () => {
       expect(readFileSync(join(site, file), 'utf8')).not.toMatch(/<script/i);
     }
   });
+});
+
+describe('a site/ folder laid over the built-in templates', () => {
+  it('takes the place of the template and stylesheet of the same path, and refuses code', async () => {
+    const dir = join(tmp, 'themed');
+    cpSync(FIXTURE, dir, { recursive: true });
+    const templates = join(import.meta.dirname, '..', '..', 'templates');
+    mkdirSync(join(dir, 'site', '_includes', 'layouts'), { recursive: true });
+    mkdirSync(join(dir, 'site', 'assets'), { recursive: true });
+    const base = readFileSync(join(templates, '_includes', 'layouts', 'base.njk'), 'utf8');
+    writeFileSync(join(dir, 'site', '_includes', 'layouts', 'base.njk'),
+      base.replace('<main id="content" class="page">', '<p class="office-hours">Harbour office open 08:00 to 18:00 (invented)</p>\n<main id="content" class="page">'));
+    writeFileSync(join(dir, 'site', 'assets', 'site.css'), `${readFileSync(join(templates, 'assets', 'site.css'), 'utf8')}\n.office-hours { text-align: center; }\n`);
+    const themed = join(tmp, 'themed-site');
+    await renderSite(models, themed, { ...plan.render, quiet: true, siteTheme: siteThemeFolder(dir)! });
+    for (const file of ['index.html', 'imprint/index.html', 'pages/welcome/index.html']) {
+      expect(readFileSync(join(themed, file), 'utf8')).toContain('<p class="office-hours">Harbour office open 08:00 to 18:00 (invented)</p>');
+    }
+    expect(readFileSync(join(themed, 'assets', 'site.css'), 'utf8')).toContain('.office-hours { text-align: center; }');
+    expect(readFileSync(join(site, 'index.html'), 'utf8')).not.toContain('office-hours'); // the built-in templates are untouched
+    writeFileSync(join(dir, 'site', 'assets', 'menu.js'), 'alert(1)');
+    expect(() => siteThemeFolder(dir)).toThrow(/site\/assets\/menu\.js: \(file\): is not a kind of file site\/ takes; keep only templates and styles/);
+  }, 120_000);
 });
 
 describe('a bad publisher folder', () => {

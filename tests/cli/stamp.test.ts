@@ -2,9 +2,9 @@
 // than the edition), else 1 January of the year; never the clock. Checked from the setting through the
 // plan to the PDF's creation date, the iCalendar DTSTAMP and the site's edition line.
 import { execFileSync } from 'node:child_process';
-import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
-import { join } from 'node:path';
+import { dirname, join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { buildStationYear } from '../../engine/index.js';
 import { StationFileError, UsageError } from '../../engine/index.js';
@@ -19,7 +19,10 @@ import { buildSiteData } from '../../templates/site/views.js';
 
 const dir = mkdtempSync(join(tmpdir(), 'tidewright-stamp-'));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
-for (const [name, text] of Object.entries(STARTER_FILES)) writeFileSync(join(dir, name), text);
+for (const [name, text] of Object.entries(STARTER_FILES)) {
+  mkdirSync(dirname(join(dir, name)), { recursive: true });
+  writeFileSync(join(dir, name), text);
+}
 const EDITION = Date.UTC(2026, 10, 15);
 
 describe('outputStamp', () => {

@@ -10,7 +10,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { buildStationYear } from '../../engine/index.js';
 import { loadStationSet } from '../../engine/index.js';
 import { renderCombinedBook, renderStationBook } from '../../templates/pdf/book.js';
-import { nodesOf, structureTree } from '../fixtures/pdf-structure.js';
+import { nodesOf, structureTree, textUnder } from '../fixtures/pdf-structure.js';
+import { zipSame } from '../fixtures/lists.js';
 
 const POPPLER = ['pdfinfo', 'pdftotext'].every((t) => existsSync(`/usr/bin/${t}`));
 if (!POPPLER) console.warn('poppler-utils not found in /usr/bin: the tagged-PDF checks are SKIPPED');
@@ -97,6 +98,34 @@ describe('tagged station book', () => {
         expect(seen).toEqual(want);
       });
     }
+  });
+});
+
+describe('tagged combined book', () => {
+  it.skipIf(!POPPLER)('tags each contents entry as a TOCI holding a Link whose OBJR is the entry\u2019s link annotation', { timeout: 600_000 }, async () => {
+    const second = buildStationYear(set.byId.get('saltgrist-cove')!, set, 2027);
+    const combined = join(dir, 'combined.pdf');
+    const buf = await renderCombinedBook([model, second], { units: 'm', page: 'a5' });
+    writeFileSync(combined, buf);
+    const tree = structure(combined);
+    const [toc, ...moreTocs] = all(tree, 'TOC');
+    expect(moreTocs).toEqual([]); // two stations: one contents page
+    const entries = toc?.children ?? [];
+    expect(entries.map((e) => e.type)).toEqual(['TOCI', 'TOCI']);
+    for (const [entry, station] of zipSame(entries, [model, second], 'contents entries')) {
+      const links = all(entry, 'Link');
+      expect(links).toHaveLength(1);
+      expect(textUnder(entry)).toContain(station.station.name);
+    }
+    // every link annotation of the book is a structure element's OBJR, and its StructParent leads back to a Link
+    const raw = buf.toString('latin1');
+    const annots = [...raw.matchAll(/(\d+) 0 obj\s*<<([\s\S]*?)>>\s*endobj/g)].filter(([, , body = '']) => /\/Subtype \/Link/.test(body));
+    expect(annots.length).toBeGreaterThanOrEqual(2);
+    for (const [, id = '', body = ''] of annots) {
+      expect(body).toMatch(/\/StructParent \d+/);
+      expect(raw).toMatch(new RegExp(`/Type /OBJR\\s*/Obj ${id} 0 R`));
+    }
+    expect(raw.match(/\/S \/Link\b/g)?.length).toBe(annots.length);
   });
 });
 

@@ -7,19 +7,16 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { buildStationYear } from '../../engine/index.js';
-import type { ReferenceStation, Station } from '../../engine/index.js';
+import type { Station } from '../../engine/index.js';
 import { renderStationBook } from '../../templates/pdf/book.js';
 import { drawWindowBars, windowLookup, windowsAlt } from '../../templates/pdf/window-bars.js';
 import { wordsFor } from '../../templates/locale/index.js';
-import { standStation } from '../fixtures/engine-stations.js';
+import { windowedStandStation } from '../fixtures/engine-stations.js';
 
 const POPPLER = existsSync('/usr/bin/pdftotext');
 if (!POPPLER) console.warn('poppler-utils (pdftotext) not found in /usr/bin: the month-page window key check is SKIPPED');
 
-const station: ReferenceStation = {
-  ...standStation(), timezone: 'Europe/Lisbon',
-  windows: [{ id: 'sill', name: 'Marina sill', above: 1.8 }, { id: 'bridge', name: 'Road bridge', below: 1.0 }],
-};
+const station = windowedStandStation();
 const model = buildStationYear(station, { byId: new Map<string, Station>([[station.id, station]]) }, 2027);
 const dir = mkdtempSync(join(tmpdir(), 'tidewright-window-bars-'));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));

@@ -141,6 +141,21 @@ describe('renderAnalysisReport', () => {
   });
 });
 
+describe('the report in the reader\u2019s language (analyse --locale)', () => {
+  const month = analysis(32, 10);
+  it.each(['fr', 'de', 'nb'])('%s: lang set, the catalogue\u2019s words, Intl\u2019s decimal separator, no English sentence left', (tag) => {
+    const html = renderAnalysisReport(month, hostile, tag);
+    expect(html).toMatch(new RegExp(`^<!DOCTYPE html>\n<html lang="${tag}">`));
+    const comma = new Intl.NumberFormat(tag, { minimumFractionDigits: 1 }).format(1.5).replace(/\d/g, '');
+    expect(comma).toBe(',');
+    expect(html).toContain(`<th scope="row">M2</th><td>28,9841042</td>`);
+    const text = html.replace(/<style>[\s\S]*?<\/style>/, '').replace(/<[^>]+>/g, ' ');
+    for (const english of ['The record', 'Residual statistics', 'Harmonic constants', 'Constituent', 'Reliability', 'inferred from',
+      'the mean level', 'Method', 'Made by tidewright', 'Observed', 'Caution', 'Astronomical predictions only', 'largest first', 'firm', 'weak'])
+      expect(text, english).not.toMatch(new RegExp(`\\b${english}\\b`));
+  });
+});
+
 describe('niceTicks', () => {
   it('gives round steps of 1, 2 or 5 × 10ⁿ', () => {
     expect(niceTicks(0, 4.2)).toEqual([0, 1, 2, 3, 4]);
