@@ -9,10 +9,11 @@ import { siteFilesFolder } from './build/site-files.js';
 import { siteThemeFolder } from './build/site-theme.js';
 import { coverageNotes } from '../templates/pdf/coverage.js';
 import { parseCommandLine, positionalArguments } from './args.js';
+import { commandWords, LOCALE_HELP, LOCALE_OPTION } from './locale.js';
 
 export const DEFAULT_STATIONS_DIR = 'stations-demo';
 
-export const CHECK_HELP = `Usage: tidewright check [--stations DIR]
+export const CHECK_HELP = `Usage: tidewright check [--stations DIR] [--locale TAG]
 
 Checks every station file in DIR (default: ${DEFAULT_STATIONS_DIR}) and the set as a whole: the keys and
 values of each file, time zones and constituent names, unique ids, each secondary port's reference port,
@@ -24,8 +25,9 @@ usable). Every problem is listed on its own line as FILE: FIELD: what is wrong; 
 Exit code 1 when there is any problem; warnings alone leave it 0.
 Notes (FILE: FIELD: note: …) point at things that may be meant, such as a secondary port whose time
 zone differs from its reference port's, or characters the book's typeface lacks (the PDF prints a
-replacement mark for them); they do not change the exit code.
-`;
+replacement mark for them); they do not change the exit code. The problems are in English (they quote the
+files' own keys); --locale words the closing summary line:
+${LOCALE_HELP}`;
 
 export interface SetReport {
   problems: StationFileError[];
@@ -92,11 +94,10 @@ export function checkStations(dir: string): SetReport {
   };
 }
 
-const plural = (n: number, word: string): string => `${n} ${word}${n === 1 ? '' : 's'}`;
-
 export async function runCheck(argv: string[]): Promise<number> {
   const { values, positionals } = parseCommandLine('check', argv, {
     stations: { type: 'string' },
+    ...LOCALE_OPTION,
     help: { type: 'boolean', short: 'h' },
   });
   if (values.help) {
@@ -105,17 +106,27 @@ export async function runCheck(argv: string[]): Promise<number> {
   }
   positionalArguments('check', positionals, []);
   const dir = values.stations ?? DEFAULT_STATIONS_DIR;
+  const words = commandWords(values.locale, dir);
   const report = checkStations(dir);
   if (report.notes.length > 0) process.stdout.write(`${report.notes.join('\n')}\n`);
-  const warned = report.warnings.map((w) => `warning: ${w.message}\n`).join('');
+  const warned = report.warnings.map((w) => `${words.t('check.warning', { message: w.message })}\n`).join('');
   if (report.problems.length === 0) {
-    const streams = report.streamStations > 0 ? `, ${plural(report.streamStations, 'stream station')}` : '';
-    process.stdout.write(`${warned}${dir}: ${plural(report.referencePorts, 'reference port')}, ${plural(report.secondaryPorts, 'secondary port')}${streams}, OK${report.warnings.length ? ` (${plural(report.warnings.length, 'warning')})` : ''}\n`);
+    const counts = [
+      words.t('check.referencePorts', { count: report.referencePorts }),
+      words.t('check.secondaryPorts', { count: report.secondaryPorts }),
+      ...(report.streamStations > 0 ? [words.t('check.streamStations', { count: report.streamStations })] : []),
+    ].join(', ');
+    const line = report.warnings.length > 0
+      ? words.t('check.okWarnings', { dir, counts, warnings: words.t('check.warnings', { count: report.warnings.length }) })
+      : words.t('check.ok', { dir, counts });
+    process.stdout.write(`${warned}${line}\n`);
     return 0;
   }
   const badFiles = new Set(report.problems.map((p) => p.file)).size;
   const lines = report.problems.map((p) => p.message);
-  lines.push(`${dir}: ${plural(report.problems.length, 'problem')} in ${plural(badFiles, 'file')} (of ${report.files})`);
+  lines.push(words.t('check.failed', {
+    dir, problems: words.t('check.problems', { count: report.problems.length }), files: words.t('check.files', { count: badFiles }), total: report.files,
+  }));
   process.stdout.write(`${lines.join('\n')}\n`);
   return 1;
 }

@@ -9,10 +9,11 @@ import { createEngineContext } from '../../engine/index.js';
 import type { EngineContext, SkyEphemeris, StationSet, Station, StationYear } from '../../engine/index.js';
 import type { RenderChoices } from './options.js';
 import { assertSafeId, stationYearFile } from './paths.js';
+import { worstPerFile, type ImageWarning, type ImageWarningSink } from '../../templates/pdf/image-resolution.js';
 
 export interface StationJobDeps {
   buildStationYear(station: Station, set: StationSet, year: number, engine: EngineContext): StationYear | Promise<StationYear>;
-  renderStationBook(model: StationYear, options: RenderChoices): Promise<Buffer>;
+  renderStationBook(model: StationYear, options: RenderChoices, warn?: ImageWarningSink): Promise<Buffer>;
   renderPocketTable?(model: StationYear, options: RenderChoices): Promise<Buffer>;
   /** Pages of the station's section in a combined volume (for filling volumes before drawing them). */
   sectionPages?(model: StationYear, options: RenderChoices): SectionPages;
@@ -39,6 +40,7 @@ export interface StationOutcome {
   pdfPages: number;
   sections?: SectionPages;
   cached?: boolean; // reused from the build cache
+  imageWarnings?: ImageWarning[]; // pictures of the book that would print below 300 dpi, one per file
 }
 
 /**
@@ -62,7 +64,7 @@ function throughJson(model: StationYear): { model: StationYear; json: Buffer } {
   return { model: JSON.parse(json.toString('utf8')) as StationYear, json };
 }
 
-interface CachedMeta { pdfPages: number; sections?: SectionPages }
+interface CachedMeta { pdfPages: number; sections?: SectionPages; imageWarnings?: ImageWarning[] }
 
 export async function runStationJob(id: string, ctx: StationJobContext, deps: StationJobDeps): Promise<StationOutcome> {
   const station = ctx.set.byId.get(assertSafeId(id));
@@ -81,13 +83,15 @@ export async function runStationJob(id: string, ctx: StationJobContext, deps: St
     if (model.station?.id === id && typeof meta?.pdfPages === 'number') {
       await writeFile(bookFile, hit.files['book.pdf']!);
       if (pocket) await writeFile(pocketFile, hit.files['pocket.pdf']!);
-      return { id, model, pdfPages: meta.pdfPages, ...(meta.sections && { sections: meta.sections }), cached: true };
+      return { id, model, pdfPages: meta.pdfPages, ...(meta.sections && { sections: meta.sections }),
+        ...(meta.imageWarnings && { imageWarnings: meta.imageWarnings }), cached: true };
     }
   }
   const built = await deps.buildStationYear(station, ctx.set, ctx.year, ctx.engine);
   if (built.station.id !== id) throw new Error(`the model built for "${id}" names station "${built.station.id}"`);
   const { model, json } = throughJson(built);
-  const pdf = await deps.renderStationBook(model, ctx.render);
+  const warnings: ImageWarning[] = [];
+  const pdf = await deps.renderStationBook(model, ctx.render, (w) => warnings.push(w));
   await writeFile(bookFile, pdf);
   let pdfPages = countPdfPages(pdf);
   const files: Record<string, Buffer> = { 'model.json': json, 'book.pdf': pdf };
@@ -98,8 +102,9 @@ export async function runStationJob(id: string, ctx: StationJobContext, deps: St
     files['pocket.pdf'] = sheet;
   }
   const sections = deps.sectionPages?.(model, ctx.render);
-  if (ctx.cache && key !== undefined && !writeEntry(ctx.cache.dir, key, files, { pdfPages, ...(sections && { sections }) })) {
+  const imageWarnings = worstPerFile(warnings);
+  if (ctx.cache && key !== undefined && !writeEntry(ctx.cache.dir, key, files, { pdfPages, imageWarnings, ...(sections && { sections }) })) {
     throw new Error(`could not write the build cache in ${ctx.cache.dir} (the combined volumes read the models from it): check the disk has space and the folder is writable`);
   }
-  return { id, model, pdfPages, ...(sections && { sections }) };
+  return { id, model, pdfPages, imageWarnings, ...(sections && { sections }) };
 }

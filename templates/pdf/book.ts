@@ -32,7 +32,7 @@ export async function renderStationBook(model: StationYear, options: BookOptions
   const words = bookWords(options);
   const view = stationView(model, g, words);
   const title = printable(options.title ?? words.t('book.defaultTitle'));
-  const settings: BookSettings = { units: options.units, geometry: g, title, publisher: options.publisher, words, press: options.press };
+  const settings: BookSettings = { units: options.units, geometry: g, title, publisher: options.publisher, words, press: options.press, warn: options.warn };
   const own = publisherParts(options, g, model.invented, 1);
   const pages = stationPages(view, 1, rowHeight(view.parts, g), { kicker: title, publisher: options.publisher, ...coverParts(own) },
     false, { hourly: options.hourly }, imprintText(options), own.own);
@@ -60,7 +60,7 @@ export async function renderCombinedBook(models: StationYear[], options: BookOpt
   const words = bookWords(options);
   const views = bookOrder(models).map((m) => stationView(m, g, words));
   const title = printable(options.title ?? words.t('book.defaultTitle'));
-  const settings: BookSettings = { units: options.units, geometry: g, title, publisher: options.publisher, words, press: options.press };
+  const settings: BookSettings = { units: options.units, geometry: g, title, publisher: options.publisher, words, press: options.press, warn: options.warn };
   const row = rowHeight(views.flatMap((v) => v.parts), g);
   const invented = models.some((m) => m.invented) || streams.some((m) => m.invented);
   const own = publisherParts(options, g, invented, 0);

@@ -1,6 +1,7 @@
 // Pieces shared by the station cover and the combined book's cover.
 import type { PageContext } from './page.js';
 import { unit } from './page.js';
+import { checkImageResolution } from './image-resolution.js';
 import { DARK, INK, WHITE } from './style.js';
 import { put, putFitted, wrapLines } from './text.js';
 import type { Picture } from './picture.js';
@@ -43,6 +44,7 @@ export function coverImage(ctx: PageContext, picture: Picture, top: number, bott
   const k = Math.max(box.width / picture.pixels.width, h / picture.pixels.height);
   const w = picture.pixels.width * k;
   const ih = picture.pixels.height * k;
+  checkImageResolution(ctx.settings.warn, picture, w, ih); // printed at w × ih, of which the band shows a part
   tag(doc, 'Figure', { alt: 'Cover picture' }, () => {
     doc.save().rect(box.x, top, box.width, h).clip();
     doc.image(picture.data, box.x - (w - box.width) / 2, top - (ih - h) / 2, { width: w, height: ih });

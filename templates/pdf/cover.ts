@@ -5,6 +5,7 @@ import { cautionBlock, coverImage, inventedBanner } from './cover-parts.js';
 import { printable } from './format.js';
 import type { LogicalPage, PageContext } from './page.js';
 import { unit } from './page.js';
+import { checkImageResolution } from './image-resolution.js';
 import type { StationView } from './station-view.js';
 import { DARK, INK, LIGHT, MID } from './style.js';
 import { tag } from './tags.js';
@@ -31,6 +32,7 @@ export function drawLogo(ctx: PageContext, logo: Picture | undefined, publisher?
   const s = unit(ctx);
   if (logo === undefined) return box.width;
   const size = fitted(logo.pixels, LOGO_BOX.width * s, LOGO_BOX.height * s);
+  checkImageResolution(ctx.settings.warn, logo, size.width, size.height);
   tag(doc, 'Figure', { alt: publisher ? `Logo of ${publisher}` : 'Logo of the publisher' }, () => {
     doc.image(logo.data, box.x + box.width - size.width, box.y, { width: size.width, height: size.height });
   });

@@ -19,6 +19,34 @@ export function resolutionWarning(file: string, pixels: PixelSize, widthPt: numb
     + `supply it at ${need.w} \u00d7 ${need.h} pixels or more (300 dpi)`;
 }
 
+/** A picture that would print below 300 dpi where it is placed: the file, its dpi there, the line to print. */
+export interface ImageWarning { file: string; dpi: number; text: string }
+
+/** Where a book's image warnings go (BookSettings.warn); the build prints one line per file. */
+export type ImageWarningSink = (warning: ImageWarning) => void;
+
+/**
+ * The one check every placement of a publisher's picture calls, with the size it is printed at: a
+ * raster image below 300 dpi there is reported to `warn`. Pictures drawn from SVG are sharp at any
+ * size they were drawn for, so they never warn.
+ */
+export function checkImageResolution(warn: ImageWarningSink | undefined,
+  picture: { file: string; pixels: PixelSize; vector: boolean }, widthPt: number, heightPt: number): void {
+  if (warn === undefined || picture.vector) return;
+  const text = resolutionWarning(picture.file, picture.pixels, widthPt, heightPt);
+  if (text !== null) warn({ file: picture.file, dpi: Math.floor(printedDpi(picture.pixels, widthPt, heightPt)), text });
+}
+
+/** Of several warnings, one per file: the one where it prints least sharp. */
+export function worstPerFile(warnings: Iterable<ImageWarning>): ImageWarning[] {
+  const worst = new Map<string, ImageWarning>();
+  for (const w of warnings) {
+    const seen = worst.get(w.file);
+    if (seen === undefined || w.dpi < seen.dpi) worst.set(w.file, w);
+  }
+  return [...worst.values()];
+}
+
 /** The pixel size of a JPEG or PNG as pdfkit reads it. */
 export function imagePixels(doc: PDFKit.PDFDocument, bytes: Uint8Array): PixelSize {
   const image = (doc as unknown as { openImage(src: Uint8Array): PixelSize }).openImage(bytes);

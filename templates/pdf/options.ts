@@ -1,6 +1,7 @@
 // Options of a printed tide book, and their defaults.
 
 import type { PublisherPage } from '../pages/types.js';
+import type { ImageWarningSink } from './image-resolution.js';
 
 export type PageSizeName = 'a5' | 'a6' | 'a4' | 'letter' | 'half-letter';
 export type HeightUnits = 'm' | 'ft';
@@ -22,6 +23,7 @@ export interface BookOptions {
   coverImage?: string; // path of the publisher's cover picture: in the covers' free space
   accent?: string; // #rrggbb: the covers' year and bar, the titles of the publisher's pages (not in press output)
   pages?: readonly PublisherPage[]; // the publisher's own pages (templates/pages/types.ts)
+  warn?: ImageWarningSink; // told of each placed picture that would print below 300 dpi (image-resolution.ts)
 }
 
 export const PAGE_SIZE_NAMES: readonly PageSizeName[] = ['a5', 'a6', 'a4', 'letter', 'half-letter'];

@@ -3,6 +3,7 @@
 import type { Box, PageGeometry } from './geometry.js';
 import type { Words } from '../locale/index.js';
 import type { HeightUnits } from './options.js';
+import type { ImageWarningSink } from './image-resolution.js';
 
 export interface BookSettings {
   units: HeightUnits;
@@ -11,6 +12,7 @@ export interface BookSettings {
   publisher?: string;
   words: Words; // the reader's language and the one formatter
   press?: boolean; // bleed, crop marks, page boxes, black ink (templates/pdf/press.ts)
+  warn?: ImageWarningSink; // told of every picture that would print below 300 dpi (image-resolution.ts)
 }
 
 export interface PageContext {

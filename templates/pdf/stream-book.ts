@@ -142,7 +142,7 @@ export async function renderStreamBook(model: StreamYear, options: BookOptions):
   contentBox(g, 1);
   const title = printable(options.title ?? wordsFor({ locale: options.locale }).t('book.defaultTitle'));
   const words = wordsFor({ locale: options.locale, units: options.units, caution: options.caution });
-  const settings: BookSettings = { units: options.units, geometry: g, title, publisher: options.publisher, words, press: options.press };
+  const settings: BookSettings = { units: options.units, geometry: g, title, publisher: options.publisher, words, press: options.press, warn: options.warn };
   const own = publisherParts(options, g, model.invented, 0).own;
   const [first, ...months] = streamBookPages(model, title, words);
   const pages = [first!, ...own.front, ...months, ...own.back, imprintPage([model], words, imprintText(options), model.station.name)];

@@ -21,9 +21,9 @@ const cache = join(root, '.tidewright-cache');
 // One reference port and its two secondary ports, bound compact in volumes of at most 50 pages.
 cpSync(DEMO_DIR, stations, { recursive: true, filter: (src) => !/\.ya?ml$/.test(src) || /brinewold-head|kelpmoor-harbour|saltgrist-cove/.test(src) });
 writeFileSync(join(stations, 'tidewright.yaml'), 'title: Cache Test Almanac\nvolume_pages: 50\ncombined: compact\npocket: false\n');
-const deps: BuildDeps = { ...realBuildDeps, renderSite: async (_m, site, data) => { await mkdir(site, { recursive: true }); await mkdir(data, { recursive: true }); } };
+const deps: BuildDeps = { ...realBuildDeps, renderSite: async (_m, site) => { await mkdir(site, { recursive: true }); } };
 const quiet = { progress: { stage() {}, tick() {}, clear() {} }, note() {}, tempCreated() {}, committed() {} };
-const build = () => buildAlmanac(makePlan({ stations, out, year: 2027, quiet: true, press: false, help: false }, root), deps, quiet);
+const build = () => buildAlmanac(makePlan({ stations, out, years: [2027], quiet: true, press: false, help: false }, root), deps, quiet);
 const pdfs = (): Record<string, Buffer> => Object.fromEntries(readdirSync(join(out, 'pdf')).sort().map((n) => [n, readFileSync(join(out, 'pdf', n))]));
 const entries = (): string[] => readdirSync(cache).filter((d) => d.length === 2).flatMap((d) => readdirSync(join(cache, d)));
 

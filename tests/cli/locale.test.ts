@@ -62,6 +62,16 @@ describe('predict in the reader\u2019s language', () => {
   });
 });
 
+describe('check in the reader\u2019s language', () => {
+  it('words the summary line; the problems stay English (they quote the files\u2019 own keys)', async () => {
+    const { code, stdout } = await runCli(['check', '--stations', GOOD, '--locale', 'de']);
+    expect(code).toBe(0);
+    expect(stdout).toBe(`${GOOD}: 1 Bezugsort, 1 Anschlussort, OK\n`);
+    const fr = await runCli(['check', '--stations', GOOD, '--locale', 'fr']);
+    expect(fr.stdout).toBe(`${GOOD} : 1 port de référence, 1 port secondaire, OK\n`);
+  });
+});
+
 describe('locale: in tidewright.yaml', () => {
   const dir = mkdtempSync(join(tmpdir(), 'tidewright-locale-'));
   afterAll(() => rmSync(dir, { recursive: true, force: true }));
