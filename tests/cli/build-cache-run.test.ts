@@ -18,9 +18,9 @@ afterAll(() => rmSync(root, { recursive: true, force: true }));
 const stations = join(root, 'stations');
 const out = join(root, 'out');
 const cache = join(root, '.tidewright-cache');
-// One reference port and its two secondary ports, bound compact in volumes of at most 50 pages.
+// One reference port and its two secondary ports, in full, in volumes of at most 50 pages (one station each).
 cpSync(DEMO_DIR, stations, { recursive: true, filter: (src) => !/\.ya?ml$/.test(src) || /brinewold-head|kelpmoor-harbour|saltgrist-cove/.test(src) });
-writeFileSync(join(stations, 'tidewright.yaml'), 'title: Cache Test Almanac\nvolume_pages: 50\ncombined: compact\npocket: false\n');
+writeFileSync(join(stations, 'tidewright.yaml'), 'title: Cache Test Almanac\nvolume_pages: 50\ncombined: full\npocket: false\n');
 const deps: BuildDeps = { ...realBuildDeps, renderSite: async (_m, site) => { await mkdir(site, { recursive: true }); } };
 const quiet = { progress: { stage() {}, tick() {}, clear() {} }, note() {}, tempCreated() {}, committed() {} };
 const build = () => buildAlmanac(makePlan({ stations, out, years: [2027], quiet: true, press: false, help: false }, root), deps, quiet);
