@@ -24,7 +24,8 @@ function shown(path: string): string {
 
 export function summaryLine(s: BuildSummary): string {
   const mib = (s.bytes / 1_048_576).toFixed(1);
-  return `built ${s.stations} station${s.stations === 1 ? '' : 's'} for ${s.year}: ${s.webPages} web pages, `
+  const years = s.years.length > 1 ? `${s.years[0]}\u2013${s.years[s.years.length - 1]}` : String(s.year);
+  return `built ${s.stations} station${s.stations === 1 ? '' : 's'} for ${years}: ${s.webPages} web pages, `
     + `${s.pdfPages} PDF pages, ${s.files} files (${mib} MiB) in ${clock(s.ms)} with ${s.workers} worker`
     + `${s.workers === 1 ? '' : 's'} → ${shown(s.out)}/`;
 }

@@ -12,7 +12,8 @@ title: "Storm Petrel Bank Tide Tables (invented example)"
 # Who publishes it: printed on the covers and at the top of every web page.
 publisher: "Storm Petrel Bank Harbour Office (invented)"
 
-# Year of the almanac; leave it out to build next calendar year.
+# Year of the almanac; leave it out to build next calendar year. A range such as
+# 2027-2029 builds every year of it (at most 10) into one site with a year switch.
 # year: 2027
 
 # Page size of the PDF books: a5, a6, a4, letter or half-letter (default a5).

@@ -2,7 +2,7 @@
 import { UsageError } from '../../engine/index.js';
 import { LANGUAGES, languageOf } from '../../templates/locale/catalogue.js';
 import { oneOf, parseCommandLine, positionalArguments } from '../args.js';
-import { FIRST_YEAR, LAST_YEAR, yearOption } from '../years.js';
+import { FIRST_YEAR, LAST_YEAR, MAX_BUILD_YEARS, yearsOption } from '../years.js';
 import {
   IMPOSITIONS, MAX_WORKERS, PAGE_SIZES, UNITS,
   type Imposition, type PageSize, type Units,
@@ -10,7 +10,7 @@ import {
 
 export interface BuildArgs {
   stations?: string;
-  year?: number;
+  years?: number[]; // one year, or each year of a range
   out?: string;
   units?: Units;
   page?: PageSize;
@@ -27,7 +27,8 @@ export const BUILD_USAGE = `Usage: tidewright build [options]
 Builds the website, the PDF tide books and the data downloads for every station in a folder.
 
   --stations DIR      folder of station files (default: stations-demo)
-  --year YYYY         year of the almanac, ${FIRST_YEAR} to ${LAST_YEAR} (default: next calendar year)
+  --year YYYY         year of the almanac, ${FIRST_YEAR} to ${LAST_YEAR} (default: next calendar year);
+                      YYYY-YYYY builds every year of a range (at most ${MAX_BUILD_YEARS}) into one site
   --out DIR           output folder, replaced whole when the build succeeds (default: out)
   --units m|ft        heights in metres or feet (default: m)
   --page SIZE         PDF page: ${PAGE_SIZES.join(', ')} (default: a5)
@@ -89,7 +90,7 @@ export function parseBuildArgs(argv: readonly string[]): BuildArgs {
   return {
     stations: folder('--stations', values.stations),
     out: folder('--out', values.out),
-    year: values.year === undefined ? undefined : yearOption('--year', values.year),
+    years: values.year === undefined ? undefined : yearsOption('--year', values.year),
     units: values.units === undefined ? undefined : oneOf('--units', values.units, UNITS),
     page: values.page === undefined ? undefined : oneOf('--page', values.page, PAGE_SIZES),
     imposition: values.imposition === undefined ? undefined : oneOf('--imposition', values.imposition, IMPOSITIONS),

@@ -38,7 +38,8 @@ export interface RenderChoices {
 export interface BuildPlan {
   stationsDir: string; // absolute
   outDir: string; // absolute, as given (resolved against the working folder)
-  year: number;
+  year: number; // the first year (the outputs' default stamp)
+  years?: number[]; // every year built, in order (--year 2027-2029); absent: [year]
   render: RenderChoices;
   quiet: boolean;
   workers: number | null; // null: one per core, capped by the work there is

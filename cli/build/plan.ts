@@ -27,11 +27,13 @@ export function makePlan(
   }
   const project = loadProjectFile(stationsDir);
   const s = project.settings;
-  const year = args.year ?? s.year ?? defaultYear(now);
+  const years = args.years ?? s.year ?? [defaultYear(now)];
+  const year = years[0]!;
   return {
     stationsDir,
     outDir: resolve(cwd, args.out ?? DEFAULT_OUT_DIR),
     year,
+    years,
     render: {
       units: args.units ?? s.units ?? 'm',
       page: args.page ?? s.page ?? 'a5',

@@ -12,6 +12,7 @@ import type { PublisherPage } from '../../templates/pages/types.js';
 import {
   FIRST_YEAR, IMPOSITIONS, LAST_YEAR, PAGE_SIZES, UNITS, type Imposition, type PageSize, type Units,
 } from './options.js';
+import { MAX_BUILD_YEARS, yearSpan } from '../years.js';
 
 export const PROJECT_FILE_NAME = 'tidewright.yaml';
 
@@ -21,7 +22,7 @@ export type ProjectSettings = z.output<typeof projectSchema>;
 const FIELD_FIX: Readonly<Record<keyof ProjectSettings, string>> = {
   title: 'write the almanac title as text, e.g. title: Brinewold Bay Tide Almanac',
   publisher: 'write who publishes it as text, e.g. publisher: Brinewold Bay Harbour Office',
-  year: `write a whole year from ${FIRST_YEAR} to ${LAST_YEAR}, e.g. year: 2027, or leave the key out for next year`,
+  year: `write a whole year from ${FIRST_YEAR} to ${LAST_YEAR}, e.g. year: 2027, a range of at most ${MAX_BUILD_YEARS} years, e.g. year: 2027-2029, or leave the key out for next year`,
   page: `write one of ${PAGE_SIZES.join(', ')}, e.g. page: a5`,
   units: 'write units: m (metres) or units: ft (feet)',
   locale: `write one of ${LANGUAGES.join(', ')} (a regional tag such as fr-CA or pt-BR also works)`,
@@ -37,7 +38,9 @@ const FIELD_FIX: Readonly<Record<keyof ProjectSettings, string>> = {
   press: 'write press: true for print-shop books (bleed, crop marks, page boxes), or press: false',
   pocket: 'write pocket: true for a folded one-sheet pocket table beside each book, or pocket: false',
 };
-const KEYS = Object.keys(FIELD_FIX) as (keyof ProjectSettings)[];
+/** Every setting tidewright.yaml may hold, in the order messages list them. */
+export const PROJECT_KEYS = Object.keys(FIELD_FIX) as (keyof ProjectSettings)[];
+const KEYS = PROJECT_KEYS;
 
 function checkLocale(ctx: z.core.ParsePayload<string>): void {
   let canonical: string[] = [];
@@ -51,6 +54,11 @@ function checkLocale(ctx: z.core.ParsePayload<string>): void {
   } else if (languageOf(ctx.value) === null) {
     ctx.issues.push({ code: 'custom', input: ctx.value, message: `"${ctx.value}" is not a language tidewright publishes in` });
   }
+}
+
+function checkYears(ctx: z.core.ParsePayload<number | string>): void {
+  const span = yearSpan(String(ctx.value));
+  if ('problem' in span) ctx.issues.push({ code: 'custom', input: ctx.value, message: span.problem });
 }
 
 function checkDay(ctx: z.core.ParsePayload<string>): void {
@@ -77,7 +85,8 @@ const text = z.string().trim().min(1, 'is empty').max(200, 'is longer than 200 c
 const projectSchema = z.strictObject({
   title: text.optional(),
   publisher: text.optional(),
-  year: z.int().min(FIRST_YEAR).max(LAST_YEAR).optional(),
+  // One year, or a range (YAML reads 2027-2029 as text): the years built, in order.
+  year: z.union([z.int(), z.string()]).check(checkYears).transform((v) => (yearSpan(String(v)) as { years: number[] }).years).optional(),
   page: z.enum(PAGE_SIZES).optional(),
   units: z.enum(UNITS).optional(),
   locale: z.string().check(checkLocale).optional(),

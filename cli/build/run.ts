@@ -13,6 +13,7 @@ import { combinedBookName, stationYearFile } from './paths.js';
 import type { Progress } from './progress.js';
 import { siteFilesFolder } from './site-files.js';
 import { siteThemeFolder } from './site-theme.js';
+import { pictureWarnings } from './picture-warnings.js';
 import { countPdfPages, type StationOutcome } from './station-job.js';
 import { worstPerFile, type ImageWarning } from '../../templates/pdf/image-resolution.js';
 
@@ -31,8 +32,8 @@ export interface BuildDeps {
   /** The stream-years of the set's tidal stream stations (few and quick: computed in this thread). */
   computeStreams?(stations: Station[], streams: AnyStreamStation[], year: number): StreamYear[];
   computeStations(request: ComputeRequest, onStation: (outcome: StationOutcome) => void, signal?: AbortSignal): Promise<void>;
-  /** The site into siteDir, and every station-year's downloads (CSV, JSON, iCalendar) into dataDir too. */
-  renderSite(models: StationYear[], siteDir: string, dataDir: string, options: RenderChoices, siteFiles?: string, streams?: StreamYear[]): Promise<unknown>;
+  /** The site into siteDir, with every station-year's downloads (CSV, JSON, iCalendar) inside it, in siteDir/data. */
+  renderSite(models: StationYear[], siteDir: string, options: RenderChoices, siteFiles?: string, streams?: StreamYear[]): Promise<unknown>;
   /** `beside`: the caller is rendering the website at the same time (use another thread if there is one). */
   renderCombinedBook(models: StationYear[], options: RenderChoices, beside: boolean, signal?: AbortSignal, streams?: StreamYear[]): Promise<Buffer>;
   /** The PDF book of one stream-year. */
@@ -50,7 +51,8 @@ export interface BuildEvents {
 
 export interface BuildSummary {
   out: string;
-  year: number;
+  year: number; // the first year
+  years: number[];
   stations: number;
   workers: number;
   pdfPages: number;
@@ -100,6 +102,33 @@ async function allSettledOrFirstError(work: Promise<unknown>[]): Promise<void> {
   if (failed) throw failed.reason;
 }
 
+/** One year's station-years, in the set's order (file-name order), whichever worker finished first. */
+async function computeYear(
+  plan: BuildPlan, deps: BuildDeps, events: BuildEvents, times: Record<string, number>,
+  job: { year: number; tempDir: string; units: string[][]; workers: number }, stations: readonly Station[],
+): Promise<{ models: StationYear[]; pdfPages: number; imageWarnings: ImageWarning[] }> {
+  const outcomes = new Map<string, StationOutcome>();
+  const imageWarnings: ImageWarning[] = [];
+  const several = (plan.years ?? [plan.year]).length > 1;
+  events.progress.stage(several ? `computing ${job.year}` : 'computing', stations.length);
+  await step('computing the stations', times, () => deps.computeStations(
+    { stationsDir: plan.stationsDir, render: plan.render, ...job },
+    (outcome) => {
+      outcomes.set(outcome.id, outcome);
+      imageWarnings.push(...outcome.imageWarnings ?? []);
+      events.progress.tick(outcomes.size);
+    },
+    events.signal,
+  ));
+  const missing = stations.filter((s) => !outcomes.has(s.id)).map((s) => s.id);
+  if (missing.length > 0) throw new BuildStepError('computing the stations', new Error(`no result for ${missing.join(', ')}`));
+  return {
+    models: stations.map((s) => outcomes.get(s.id)!.model),
+    pdfPages: stations.reduce((n, s) => n + outcomes.get(s.id)!.pdfPages, 0),
+    imageWarnings,
+  };
+}
+
 export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: BuildEvents): Promise<BuildSummary> {
   const started = performance.now();
   const times: Record<string, number> = {};
@@ -109,9 +138,10 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
   events.progress.stage('checking the station files');
   const checked = deps.checkSet(plan.stationsDir);
   for (const note of checked.notes ?? []) events.note(note);
+  for (const warning of pictureWarnings(plan.render)) events.note(warning);
   if (checked.problems.length > 0) throw new StationSetInvalid(checked.problems);
   const stations = checked.stations;
-  const year = plan.year;
+  const years = plan.years ?? [plan.year];
   const streamStations = checked.streams ?? [];
   const siteFiles = siteFilesFolder(plan.stationsDir, [...stations, ...streamStations].map((s) => s.id));
   const siteTheme = siteThemeFolder(plan.stationsDir);
@@ -121,54 +151,52 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
   try {
     const units = workUnits(stations, plan.workers ?? deps.cores());
     const workers = poolSize(plan.workers, deps.cores(), units.length);
-    const outcomes = new Map<string, StationOutcome>();
+    // Year after year: each year's station-years, then its stream-years and their books.
+    const models: StationYear[] = [];
+    const streamModels: StreamYear[] = [];
     const imageWarnings: ImageWarning[] = []; // every book places the same pictures: one line per file below
-    events.progress.stage('computing', stations.length);
-    await step('computing the stations', times, () => deps.computeStations(
-      { stationsDir: plan.stationsDir, year, tempDir: target.temp, render: plan.render, units, workers },
-      (outcome) => {
-        outcomes.set(outcome.id, outcome);
-        imageWarnings.push(...outcome.imageWarnings ?? []);
-        events.progress.tick(outcomes.size);
-      },
-      events.signal,
-    ));
-    // The set's order (file-name order), whichever worker finished first.
-    const missing = stations.filter((s) => !outcomes.has(s.id)).map((s) => s.id);
-    if (missing.length > 0) throw new BuildStepError('computing the stations', new Error(`no result for ${missing.join(', ')}`));
-    const models = stations.map((s) => outcomes.get(s.id)!.model);
-    const streamModels = streamStations.length > 0 && deps.computeStreams
-      ? await step('computing the stream stations', times, async () => deps.computeStreams!(stations, streamStations, year))
-      : [];
-    let pdfPages = stations.reduce((n, s) => n + outcomes.get(s.id)!.pdfPages, 0);
-    outcomes.clear();
-    for (const w of worstPerFile(imageWarnings)) events.note(w.text);
-    if (streamModels.length > 0 && deps.renderStreamBook) {
-      await step('rendering the stream books', times, async () => {
-        const pdfDir = join(target.temp, 'pdf');
-        await mkdir(pdfDir, { recursive: true });
-        for (const model of streamModels) {
-          const pdf = await deps.renderStreamBook!(model, plan.render);
-          await writeFile(stationYearFile(pdfDir, model.station.id, year, 'pdf'), pdf);
-          pdfPages += countPdfPages(pdf);
-        }
-      });
+    let pdfPages = 0;
+    for (const year of years) {
+      const computed = await computeYear(plan, deps, events, times, { year, tempDir: target.temp, units, workers }, stations);
+      models.push(...computed.models);
+      imageWarnings.push(...computed.imageWarnings);
+      pdfPages += computed.pdfPages;
+      const yearStreams = streamStations.length > 0 && deps.computeStreams
+        ? await step('computing the stream stations', times, async () => deps.computeStreams!(stations, streamStations, year))
+        : [];
+      streamModels.push(...yearStreams);
+      if (yearStreams.length > 0 && deps.renderStreamBook) {
+        await step('rendering the stream books', times, async () => {
+          const pdfDir = join(target.temp, 'pdf');
+          await mkdir(pdfDir, { recursive: true });
+          for (const model of yearStreams) {
+            const pdf = await deps.renderStreamBook!(model, plan.render);
+            await writeFile(stationYearFile(pdfDir, model.station.id, year, 'pdf'), pdf);
+            pdfPages += countPdfPages(pdf);
+          }
+        });
+      }
     }
+    for (const w of worstPerFile(imageWarnings)) events.note(w.text);
 
     // With more than one worker the combined book is drawn beside the website, else after it. The
     // combined book's worker holds its own copy of every model (about 0.85 MiB each) and the whole PDF,
     // so large sets draw them one after the other (measured when the site still rendered in one
     // Eleventy run, 200 stations: 2.4 GiB peak beside, 1.9 GiB after; the threshold wants re-measuring).
+    // One combined book per year, each from that year's models.
     const beside = workers > 1 && stations.length <= BESIDE_MAX_STATIONS;
     const name = combinedBookName(plan.render.title, stations.map((s) => s.id));
     const site = (): Promise<unknown> => step('rendering the website and downloads', times,
-      () => deps.renderSite(models, join(target.temp, 'site'), join(target.temp, 'data'),
+      () => deps.renderSite(models, join(target.temp, 'site'),
         siteTheme === null ? plan.render : { ...plan.render, siteTheme }, siteFiles ?? undefined, streamModels));
     const book = (): Promise<void> => step('rendering the combined book', times, async () => {
-      const pdf = await deps.renderCombinedBook(models, plan.render, beside, events.signal, streamModels);
-      await mkdir(join(target.temp, 'pdf'), { recursive: true });
-      await writeFile(stationYearFile(join(target.temp, 'pdf'), name, year, 'pdf'), pdf);
-      pdfPages += countPdfPages(pdf);
+      for (const year of years) {
+        const pdf = await deps.renderCombinedBook(models.filter((m) => m.year === year), plan.render, beside, events.signal,
+          streamModels.filter((m) => m.year === year));
+        await mkdir(join(target.temp, 'pdf'), { recursive: true });
+        await writeFile(stationYearFile(join(target.temp, 'pdf'), name, year, 'pdf'), pdf);
+        pdfPages += countPdfPages(pdf);
+      }
     });
     if (beside) {
       events.progress.stage('website, downloads and combined book');
@@ -187,7 +215,7 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
     commitOutput(target);
     events.committed(target);
     return {
-      out: target.out, year, stations: stations.length, workers, pdfPages, webPages: tree.html,
+      out: target.out, year: years[0]!, years, stations: stations.length, workers, pdfPages, webPages: tree.html,
       files: tree.files, bytes: tree.bytes, ms: performance.now() - started, stepMs: times,
     };
   } catch (error) {

@@ -25,6 +25,7 @@ interface StreamCommon {
   ebb_direction?: number; // degrees true toward which the ebb sets (default: opposite the flood)
   tide_reference?: string; // id of a tide station whose range gives springs and neaps
   provenance: string;
+  region?: string; // the coast or area it is listed under
   sourceFile?: string;
 }
 

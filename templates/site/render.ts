@@ -1,14 +1,14 @@
 // renderSite: the website of a set of station-years, written by Eleventy 3 into outDir. The models and
 // filters are handed to Eleventy here (templates/_data/site.js returns the handoff), and every
-// station-year's downloads are written inside the site (outDir/data/) so the site is whole wherever it
-// is uploaded; with `dataDir` the same files are also placed there (hard links where the disk allows).
+// station-year's downloads are written inside the site (outDir/data/), once, so the site is whole
+// wherever it is uploaded as one folder and its links reach them.
 //
 // Eleventy keeps every page it renders in memory until its run ends (about 5 MiB per station-year),
 // so the pages are written in several runs into the same folder: one per batch of station-years (their
 // year and month pages only) and one for the shared pages (index, datums, assets). Every run sees the
 // same site-wide facts, so the pages are the same as from one run; the memory no longer grows with
 // the number of stations beyond the models themselves.
-import { copyFile, cp, link, mkdir, mkdtemp, readdir, rm } from 'node:fs/promises';
+import { copyFile, cp, mkdir, mkdtemp, readdir, rm } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import Eleventy from '@11ty/eleventy';
@@ -21,7 +21,6 @@ import { buildSiteData, siteWords, type MonthPage, type SiteData, type SiteOptio
 
 export interface RenderSiteOptions extends SiteOptions {
   quiet?: boolean;
-  dataDir?: string; // also place the downloads here (e.g. out/data beside out/site)
   /** Station-years per Eleventy run (default STATION_YEARS_PER_RUN); bounds the renderer's memory. */
   stationYearsPerRun?: number;
   /** A publisher's own files (e.g. CNAME), copied into the site as they are; none may replace a page of the site. */
@@ -41,15 +40,6 @@ export const STATION_YEARS_PER_RUN = 25;
 // Which templates each kind of run leaves out.
 const SHARED_PAGES = ['index.njk', 'datums.njk', 'imprint.njk', 'stream-year.njk', 'stream-month.njk', 'own-page.njk'];
 const STATION_PAGES = ['station-year.njk', 'month.njk', 'hours.njk'];
-
-async function linkOrCopy(from: string, to: string): Promise<void> {
-  await rm(to, { force: true });
-  try {
-    await link(from, to);
-  } catch {
-    await copyFile(from, to); // another file system, or links not allowed
-  }
-}
 
 /** Tidewright's site templates with the publisher's `site/` files laid over them, in a temporary folder. */
 async function layeredTemplates(root: string, theme: string): Promise<string> {
@@ -123,21 +113,6 @@ export async function renderSite(models: StationYear[], outDir: string, options:
 
   const siteData = join(out, 'data');
   await mkdir(siteData, { recursive: true });
-  for (const model of models) {
-    const names = await writeExports(model, siteData, siteWords(options), options.stamp);
-    if (options.dataDir) {
-      await mkdir(options.dataDir, { recursive: true });
-      const extra = [names.hourly, ...(names.windows ? [names.windows.csv, names.windows.json] : [])];
-      for (const name of [names.csv, names.json, names.ics, ...extra]) {
-        await linkOrCopy(join(siteData, name), join(options.dataDir, name));
-      }
-    }
-  }
-  for (const model of options.streams ?? []) {
-    const names = await writeStreamExports(model, siteData, siteWords(options), options.stamp);
-    if (options.dataDir) {
-      await mkdir(options.dataDir, { recursive: true });
-      for (const name of [names.csv, names.json, names.ics]) await linkOrCopy(join(siteData, name), join(options.dataDir, name));
-    }
-  }
+  for (const model of models) await writeExports(model, siteData, siteWords(options), options.stamp);
+  for (const model of options.streams ?? []) await writeStreamExports(model, siteData, siteWords(options), options.stamp);
 }

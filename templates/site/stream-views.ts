@@ -36,6 +36,7 @@ export interface IndexStream {
   floodDirection: number;
   referenceName: string | null; // a stream-secondary station's reference stream station
   invented: boolean;
+  region?: string; // the region it is listed under
   years: IndexYear[];
 }
 
@@ -93,7 +94,8 @@ export function indexStreams(models: readonly StreamYear[], tideGroupOf: (tideId
       found = {
         entry: {
           id: st.id, name: st.name, kind: st.kind, position: st.position, timezone: m.timezone, floodDirection: m.floodDirection,
-          referenceName: m.reference?.name ?? null, invented: m.invented, years: [],
+          referenceName: m.reference?.name ?? null, invented: m.invented,
+          ...(st.region === undefined ? {} : { region: st.region }), years: [],
         },
         tide: ownTide,
       };

@@ -9,6 +9,7 @@ import { exportFileNames } from '../exports/write.js';
 import type { PublisherPage } from '../pages/types.js';
 import { siteOwnPages, type SiteOwnPage } from './own-pages.js';
 import { wordsFor, type Units, type Words } from '../locale/index.js';
+import { siteIndex, type SiteIndex } from './index-views.js';
 import { indexStreams, streamPages, type IndexStream, type StreamMonthPage, type StreamYearPage } from './stream-views.js';
 
 export interface SiteOptions {
@@ -45,15 +46,27 @@ export interface IndexStation {
   tideType: TideTypeCode;
   invented: boolean;
   number?: string; // the publisher's station number
+  region?: string; // the region it is listed under
   years: IndexYear[];
 }
 
 export interface IndexGroup {
+  id: string; // the group's anchor on the index
+  referenceId: string | null; // null for the group of stream stations that name no tide station
   referenceName: string;
   reference: IndexStation | null; // null when the reference port itself is not in this build
   secondaries: IndexStation[];
   streams: IndexStream[]; // tidal stream stations of the same area
   streamsOnly: boolean; // a group of stream stations that name no tide station
+  /** The reference port when it is in this build but listed under another region: its page and region. */
+  elsewhere: { url: string; region: string | null } | null;
+}
+
+/** One year of the same station (and, on a month page, the same month) in the year switch. */
+export interface YearLink {
+  year: number;
+  url: string;
+  current: boolean;
 }
 
 export interface PageLink {
@@ -68,6 +81,7 @@ export interface StationYearPage {
   referenceUrl: string | null;
   months: { month: MonthEntry; url: string }[];
   clockChanges: DatedChange[];
+  years: YearLink[]; // every year of this station in the build (a switch is shown when there are several)
   downloads: { csv: string; json: string; ics: string; hourly: string; windows: null | { csv: string; json: string } };
 }
 
@@ -81,6 +95,7 @@ export interface MonthPage {
   next: PageLink | null;
   siblings: PageLink[]; // every month of the same station-year, for the month strip
   clockChanges: DatedChange[];
+  years: YearLink[]; // the same month in every year of this station in the build
 }
 
 export interface SiteData {
@@ -101,6 +116,7 @@ export interface SiteData {
   ownPages: SiteOwnPage[]; // the publisher's pages, front ones first
   imprint: { epochs: string[]; sources: { name: string; provenance: string }[] };
   groups: IndexGroup[];
+  index: SiteIndex; // the groups by region, the A–Z jump list, the map, the search's words
   stationYears: StationYearPage[];
   monthPages: MonthPage[];
   streamYears: StreamYearPage[];
@@ -112,7 +128,8 @@ const byName = (a: { name: string }, b: { name: string }): number => a.name.loca
 
 export const stationYearUrl = (id: string, year: number): string => `/${id}/${year}/`;
 
-function indexGroups(models: StationYear[], streams: readonly StreamYear[], words: Words): IndexGroup[] {
+/** The index's groups of a set of station-years: each reference port with its secondary ports and streams. */
+export function indexGroups(models: readonly StationYear[], streams: readonly StreamYear[], words: Words): IndexGroup[] {
   const stations = new Map<string, IndexStation>();
   const referenceOf = new Map<string, { id: string; name: string } | null>();
   for (const m of models) {
@@ -120,7 +137,8 @@ function indexGroups(models: StationYear[], streams: readonly StreamYear[], word
     let entry = stations.get(st.id);
     if (!entry) {
       entry = { id: st.id, name: st.name, kind: st.kind, position: st.position, timezone: m.timezone,
-        tideType: m.tideType.kind, invented: m.invented, ...(st.number === undefined ? {} : { number: st.number }), years: [] };
+        tideType: m.tideType.kind, invented: m.invented, ...(st.number === undefined ? {} : { number: st.number }),
+        ...(st.region === undefined ? {} : { region: st.region }), years: [] };
       stations.set(st.id, entry);
       referenceOf.set(st.id, st.kind === 'secondary' ? (m.reference ?? { id: st.reference, name: st.reference }) : null);
     }
@@ -132,7 +150,7 @@ function indexGroups(models: StationYear[], streams: readonly StreamYear[], word
     if (entry.kind === 'reference') {
       const g = groups.get(entry.id);
       if (g) g.reference = entry;
-      else groups.set(entry.id, { referenceName: entry.name, reference: entry, secondaries: [], streams: [], streamsOnly: false });
+      else groups.set(entry.id, groupOf(entry.id, entry.name, entry));
     }
   }
   for (const entry of stations.values()) {
@@ -140,25 +158,30 @@ function indexGroups(models: StationYear[], streams: readonly StreamYear[], word
     if (!ref) continue;
     let g = groups.get(ref.id);
     if (!g) {
-      g = { referenceName: ref.name, reference: null, secondaries: [], streams: [], streamsOnly: false };
+      g = groupOf(ref.id, ref.name, null);
       groups.set(ref.id, g);
     }
     g.secondaries.push(entry);
   }
-  const groupOf = (tideId: string): string | null => {
+  const tideGroupOf = (tideId: string): string | null => {
     const key = referenceOf.get(tideId)?.id ?? tideId;
     return groups.has(key) ? key : null;
   };
   let loose: IndexStream[] = [];
-  for (const [key, list] of indexStreams(streams, groupOf)) {
+  for (const [key, list] of indexStreams(streams, tideGroupOf)) {
     if (key === null) loose = list;
     else groups.get(key)!.streams.push(...list);
   }
   const list = [...groups.values()];
   for (const g of list) g.secondaries.sort(byName);
   list.sort((a, b) => a.referenceName.localeCompare(b.referenceName, 'en'));
-  if (loose.length > 0) list.push({ referenceName: words.t('stream.groupName'), reference: null, secondaries: [], streams: loose, streamsOnly: true });
+  if (loose.length > 0) list.push({ ...groupOf(null, words.t('stream.groupName'), null), streams: loose, streamsOnly: true });
   return list;
+}
+
+function groupOf(referenceId: string | null, referenceName: string, reference: IndexStation | null): IndexGroup {
+  return { id: referenceId === null ? 'streams' : `port-${referenceId}`, referenceId, referenceName, reference,
+    secondaries: [], streams: [], streamsOnly: false, elsewhere: null };
 }
 
 function clockChangesOf(days: StationYear['days']): DatedChange[] {
@@ -169,7 +192,7 @@ function monthPagesOf(model: StationYear, yearUrl: string, words: Words): MonthP
   const pages: MonthPage[] = model.months.map((month) => {
     const days = model.days.slice(month.firstDayIndex, month.firstDayIndex + month.dayCount);
     const clockChanges = clockChangesOf(days);
-    return { url: `${yearUrl}${month.slug}/`, yearUrl, model, month, days, prev: null, next: null, siblings: [], clockChanges };
+    return { url: `${yearUrl}${month.slug}/`, yearUrl, model, month, days, prev: null, next: null, siblings: [], clockChanges, years: [] };
   });
   const label = (p: MonthPage): string => words.monthName(p.month.month);
   const siblings = pages.map((p) => ({ url: p.url, label: label(p), short: words.monthShort(p.month.month) }));
@@ -195,18 +218,25 @@ export function buildSiteData(models: StationYear[], options: SiteOptions, downl
   const stationYears: StationYearPage[] = [];
   const monthPages: MonthPage[] = [];
   const seen = new Set<string>();
+  const yearsOf = new Map<string, number[]>();
+  for (const m of sorted) yearsOf.set(m.station.id, [...(yearsOf.get(m.station.id) ?? []), m.year]);
   for (const model of sorted) {
     const names = exportFileNames(model); // also checks the id is safe for a file name and a URL
     const url = stationYearUrl(model.station.id, model.year);
     if (seen.has(url)) throw new Error(`two models for ${model.station.id} ${model.year}: each station-year may appear once`);
     seen.add(url);
     const months = monthPagesOf(model, url, words);
+    const years = [...new Set(yearsOf.get(model.station.id))];
+    const yearLinks = (suffix: string): YearLink[] => years.map((year) =>
+      ({ year, url: `${stationYearUrl(model.station.id, year)}${suffix}`, current: year === model.year }));
+    for (const p of months) p.years = yearLinks(`${p.month.slug}/`);
     const ref = model.reference;
     stationYears.push({
       url, model,
       referenceUrl: ref && built.has(stationYearUrl(ref.id, model.year)) ? stationYearUrl(ref.id, model.year) : null,
       months: months.map((p) => ({ month: p.month, url: p.url })),
       clockChanges: clockChangesOf(model.days),
+      years: yearLinks(''),
       downloads: {
         csv: `/data/${names.csv}`, json: `/data/${names.json}`, ics: `/data/${names.ics}`, hourly: `/data/${names.hourly}`,
         windows: names.windows ? { csv: `/data/${names.windows.csv}`, json: `/data/${names.windows.json}` } : null,
@@ -216,6 +246,7 @@ export function buildSiteData(models: StationYear[], options: SiteOptions, downl
   }
   const first = sorted[0];
   const stream = streamPages(streams, words);
+  const groups = indexGroups(sorted, streams, words);
   return {
     title: options.title ?? words.t('site.defaultTitle'),
     publisher: options.publisher ?? null,
@@ -236,7 +267,8 @@ export function buildSiteData(models: StationYear[], options: SiteOptions, downl
       epochs: [...new Set(sorted.map((m) => `${m.datums.epoch.from}\u2013${m.datums.epoch.to}`))],
       sources: [...new Map([...sorted, ...streams].map((m) => [m.station.id, { name: m.station.name, provenance: m.station.provenance }])).values()],
     },
-    groups: indexGroups(sorted, streams, words),
+    groups,
+    index: siteIndex(sorted, streams, words, groups),
     stationYears,
     monthPages,
     ...stream,

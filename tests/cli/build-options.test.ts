@@ -32,7 +32,7 @@ describe('parseBuildArgs', () => {
   it('reads every option', () => {
     expect(parseBuildArgs(['--stations', 's', '--year', '2030', '--out', 'o', '--units', 'ft', '--page', 'a6',
       '--imposition', 'saddle-stitch', '--workers', '3', '--press', '--quiet'])).toEqual({
-      stations: 's', year: 2030, out: 'o', units: 'ft', page: 'a6', imposition: 'saddle-stitch', workers: 3,
+      stations: 's', years: [2030], out: 'o', units: 'ft', page: 'a6', imposition: 'saddle-stitch', workers: 3,
       press: true, quiet: true, help: false,
     });
     expect(parseBuildArgs([])).toEqual({
@@ -72,7 +72,7 @@ describe('project file', () => {
     ].join('\n'));
     expect(loadProjectFile(dir)).toEqual({
       file: join(dir, 'tidewright.yaml'),
-      settings: { title: 'Brinewold Bay Tide Almanac', publisher: 'Brinewold Bay Harbour Office', year: 2028, page: 'a6',
+      settings: { title: 'Brinewold Bay Tide Almanac', publisher: 'Brinewold Bay Harbour Office', year: [2028], page: 'a6',
         units: 'ft', locale: 'en-GB', imposition: 'saddle-stitch', hourly: true },
       pages: [],
     });
@@ -82,7 +82,9 @@ describe('project file', () => {
     ['page: b5\n', 'page', /a5/],
     ['units: feet\n', 'units', /units: ft/],
     ['year: 27.5\n', 'year', /whole year/],
-    ['year: "2027"\n', 'year', /whole year/],
+    ['year: 2029-2027\n', 'year', /whole year/],
+    ['year: 2027-2040\n', 'year', /range of at most 10 years/],
+    ['year: 2027-\n', 'year', /whole year/],
     ['locale: "en_GB!"\n', 'locale', /en, fr, es, pt, de, nl, nb/],
     ['locale: it\n', 'locale', /en, fr, es, pt, de, nl, nb/],
     ['caution: ""\n', 'caution', /cannot be empty/],
@@ -133,6 +135,10 @@ describe('makePlan', () => {
     expect(overridden).toMatchObject({ year: 2029, outDir: join(root, 'x'), render: { page: 'a5', title: 'Club Almanac' } });
     const bare = makePlan(parseBuildArgs(['--stations', stationsWithProject(null)]), root, now, {});
     expect(bare.year).toBe(2027);
+    expect(bare.years).toEqual([2027]);
+    const range = makePlan(parseBuildArgs(['--stations', stationsWithProject('year: 2027-2029\n')]), root, now);
+    expect(range).toMatchObject({ year: 2027, years: [2027, 2028, 2029], render: { stamp: Date.UTC(2027, 0, 1) } });
+    expect(makePlan(parseBuildArgs(['--stations', dir, '--year', '2030-2031']), root, now)).toMatchObject({ year: 2030, years: [2030, 2031] });
     // without edition: or SOURCE_DATE_EPOCH every output is stamped 1 January of the year
     expect(bare.render).toEqual({ units: 'm', page: 'a5', imposition: 'none', stamp: Date.UTC(2027, 0, 1), pocket: true });
   });

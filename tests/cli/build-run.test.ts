@@ -52,9 +52,9 @@ function stubs(stations: Station[], overrides: Partial<BuildDeps> = {}): Stubs {
         onStation({ id, model: modelOf(s, request.year), pdfPages: 3 });
       }
     },
-    async renderSite(models, siteDir, dataDir) {
+    async renderSite(models, siteDir) {
       deps.siteOrder = models.map((m) => m.station.id);
-      await mkdir(siteDir, { recursive: true });
+      const dataDir = join(siteDir, 'data');
       await mkdir(dataDir, { recursive: true });
       await writeFile(join(siteDir, 'index.html'), `<ul>${deps.siteOrder.map((id) => `<li>${id}</li>`).join('')}</ul>`);
       for (const m of models) await writeFile(join(dataDir, `${m.station.id}-${m.year}.ics`), 'BEGIN:VCALENDAR');
@@ -97,6 +97,32 @@ function treeHash(dir: string): Record<string, string> {
 const SET = [station('a'), station('b', 'secondary', 'a'), station('c'), station('d', 'secondary', 'c')];
 
 describe('buildAlmanac', () => {
+  it('builds each station for each year of a range: one site of every station-year, books per year', async () => {
+    const p = plan({ years: [2027, 2028, 2029] });
+    const books: number[][] = [];
+    const deps = stubs(SET, {
+      async renderCombinedBook(models) {
+        books.push([...new Set(models.map((m) => m.year))]);
+        return fakePdf(models.length * 3 + 1, models.map((m) => m.station.id).join(','));
+      },
+    });
+    const site: string[] = [];
+    const inner = deps.renderSite.bind(deps);
+    deps.renderSite = async (models, ...rest) => {
+      site.push(...models.map((m) => `${m.station.id}-${m.year}`));
+      return inner(models, ...rest);
+    };
+    const summary = await buildAlmanac(p, deps, quietEvents());
+    expect(site).toEqual(['2027', '2028', '2029'].flatMap((y) => ['a', 'b', 'c', 'd'].map((id) => `${id}-${y}`)));
+    expect(books).toEqual([[2027], [2028], [2029]]);
+    const files = Object.keys(treeHash(p.outDir));
+    for (const y of [2027, 2028, 2029]) {
+      for (const id of ['a', 'b', 'c', 'd', 'almanac']) expect(files).toContain(`pdf/${id}-${y}.pdf`);
+      expect(files).toContain(`site/data/a-${y}.ics`);
+    }
+    expect(summary).toMatchObject({ year: 2027, years: [2027, 2028, 2029], stations: 4, pdfPages: 3 * (4 * 3 + 13) });
+  });
+
   it('writes every piece into place, in the set order whatever order the results came in', async () => {
     const p = plan();
     const deps = stubs(SET);
@@ -106,8 +132,8 @@ describe('buildAlmanac', () => {
     expect(deps.units).toEqual([['a', 'b'], ['c', 'd']]);
     expect(Object.keys(treeHash(p.outDir))).toEqual([
       '.tidewright-output',
-      'data/a-2027.ics', 'data/b-2027.ics', 'data/c-2027.ics', 'data/d-2027.ics',
       'pdf/a-2027.pdf', 'pdf/almanac-2027.pdf', 'pdf/b-2027.pdf', 'pdf/c-2027.pdf', 'pdf/d-2027.pdf',
+      'site/data/a-2027.ics', 'site/data/b-2027.ics', 'site/data/c-2027.ics', 'site/data/d-2027.ics',
       'site/index.html',
     ]);
     expect(summary).toMatchObject({ out: p.outDir, year: 2027, stations: 4, workers: 2, pdfPages: 4 * 3 + 13,

@@ -98,9 +98,11 @@ describe('a good build', () => {
     expect(goodRun.stdout).toMatch(/^built 2 stations for 2027: \d+ web pages, \d+ PDF pages, \d+ files \([\d.]+ MiB\) in \d+:\d\d with \d workers? → .*out\/\n$/);
     const files = Object.keys(goodHash);
     for (const f of ['pdf/brinewold-head-2027.pdf', 'pdf/brinewold-head-2027-pocket.pdf', 'pdf/saltgrist-cove-2027.pdf', 'pdf/almanac-2027.pdf', 'site/index.html',
-      'data/brinewold-head-2027.ics', 'data/saltgrist-cove-2027-events.csv', 'data/saltgrist-cove-2027-events.json']) {
+      'site/data/brinewold-head-2027.ics', 'site/data/saltgrist-cove-2027-events.csv', 'site/data/saltgrist-cove-2027-events.json']) {
       expect(files).toContain(f);
     }
+    // The downloads exist once, inside the site its pages link from.
+    expect(files.filter((f) => f.endsWith('saltgrist-cove-2027-events.csv'))).toEqual(['site/data/saltgrist-cove-2027-events.csv']);
     expect(tempFoldersBeside(goodOut)).toEqual([]);
   });
 

@@ -7,6 +7,7 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { afterAll, describe, expect, it } from 'vitest';
 import { MAX_STATION_FILE_BYTES, TEXT_LIMITS } from '../../engine/index.js';
+import { PROJECT_KEYS } from '../../cli/build/project.js';
 import { runCli } from '../fixtures/run-cli.js';
 
 const root = mkdtempSync(join(tmpdir(), 'tw-limits-'));
@@ -116,7 +117,7 @@ describe('tidewright.yaml in check', () => {
     expect(stdout.trimEnd().split('\n')).toEqual([
       `${file}: year: "abc" is not allowed here; write a whole year from 1970 to 2100, e.g. year: 2027, or leave the key out for next year`,
       `${file}: page: "b5" is not allowed here; write one of a5, a6, a4, letter, half-letter, e.g. page: a5`,
-      `${file}: colour: is not a setting tidewright knows; the settings are title, publisher, year, page, units, locale, imposition, caution, hourly, edition, contact, accent, logo, press, pocket`,
+      `${file}: colour: is not a setting tidewright knows; the settings are ${PROJECT_KEYS.join(', ')}`,
       `${dir}: 3 problems in 1 file (of 1)`,
     ]);
   });

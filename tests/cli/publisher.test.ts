@@ -14,6 +14,7 @@ import { renderCombinedBook, renderStationBook } from '../../templates/pdf/book.
 import { renderSite } from '../../templates/site/render.js';
 import { runCli } from '../fixtures/run-cli.js';
 import { siteThemeFolder } from '../../cli/build/site-theme.js';
+import { pictureWarnings } from '../../cli/build/picture-warnings.js';
 
 const FIXTURE = join(import.meta.dirname, '..', 'fixtures', 'publisher');
 const POPPLER = ['pdftotext', 'pdfimages'].every((t) => existsSync(`/usr/bin/${t}`));
@@ -49,6 +50,16 @@ describe('the publisher fixture', () => {
     expect(pages.find((p) => p.slug === 'supporters')!.grid!.map((g) => g.size)).toEqual(['half', 'quarter', 'quarter']);
     expect(plan.render.accent).toBe('#0b5d7a');
     expect(plan.render.stamp).toBe(Date.UTC(2026, 10, 15));
+  });
+
+  it('names each supplied PNG that would print below 300 dpi in the books, and no SVG', () => {
+    const warnings = pictureWarnings(plan.render);
+    // quay.png (1200 px wide) across the 124 mm type area of an A5 page: 1200 / (124 / 25.4) = 246 dpi
+    expect(warnings.find((w) => w.includes('quay.png'))).toMatch(/pages\/images\/quay\.png: 24[56] dpi at its printed size of 124 × \d+ mm would print blurry; supply it at 146\d × \d+ pixels or more \(300 dpi\)/);
+    // logo.png (600 px) in a quarter of the grid, (124 mm − 8 pt) / 2 wide: 252 dpi
+    expect(warnings.find((w) => w.includes('logo.png'))).toMatch(/brand\/logo\.png: 25\d dpi/);
+    expect(warnings).toHaveLength(2);
+    expect(warnings.join('\n')).not.toMatch(/\.svg/);
   });
 
   it.skipIf(!POPPLER)('prints the pages in the station book: welcome and notes before the tables, sponsors after, imprint last', () => {

@@ -84,7 +84,7 @@ describe('the publisher\'s site files', () => {
     const deps: BuildDeps = {
       checkSet: () => ({ stations: [{ ...sampleYear(2027).station, id: 'stint-rock' } as Station], problems: [] }),
       computeStations: async (request, onStation) => onStation({ id: 'stint-rock', model: sampleYear(request.year), pdfPages: 1 }),
-      renderSite: async (_m, siteDir, _d, _o, siteFiles) => { seen.push(siteFiles); mkdirSync(siteDir, { recursive: true }); },
+      renderSite: async (_m, siteDir, _o, siteFiles) => { seen.push(siteFiles); mkdirSync(siteDir, { recursive: true }); },
       renderCombinedBook: async () => Buffer.from('%PDF-1.3\n%%EOF\n'),
       cores: () => 1,
     };

@@ -21,6 +21,6 @@ describe('station and project types follow their schemas', () => {
 
   it('project settings are the project schema’s output', () => {
     expectTypeOf<ProjectSettings['page']>().toEqualTypeOf<'a5' | 'a6' | 'a4' | 'letter' | 'half-letter' | undefined>();
-    expectTypeOf<ProjectSettings['year']>().toEqualTypeOf<number | undefined>();
+    expectTypeOf<ProjectSettings['year']>().toEqualTypeOf<number[] | undefined>(); // one year or a range, as its years
   });
 });

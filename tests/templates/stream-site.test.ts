@@ -13,7 +13,6 @@ import { demoModels, htmlFiles, read, textOf } from './site-build.js';
 const DEMO = join(import.meta.dirname, '..', '..', 'stations-demo');
 let tmp: string;
 let site: string;
-let dataDir: string;
 let narrows: StreamYear;
 let gut: StreamYear;
 
@@ -29,12 +28,11 @@ function lateFlood(m: StreamYear): StreamYear {
 beforeAll(async () => {
   tmp = mkdtempSync(join(tmpdir(), 'tidewright-streams-'));
   site = join(tmp, 'site');
-  dataDir = join(tmp, 'data');
   const set = loadStationSet(DEMO);
   const [narrowsStation, gutStation] = ['wrackrun-narrows', 'spindrift-gut'].map((id) => set.streams!.find((s) => s.id === id)!);
   narrows = buildStreamYear(narrowsStation!, set, 2027);
   gut = buildStreamYear(gutStation!, set, 2027);
-  await renderSite(demoModels(['brinewold-head']), site, { units: 'm', quiet: true, dataDir, streams: [narrows, gut, lateFlood(narrows)] });
+  await renderSite(demoModels(['brinewold-head']), site, { units: 'm', quiet: true, streams: [narrows, gut, lateFlood(narrows)] });
 }, 120_000);
 
 afterAll(() => rmSync(tmp, { recursive: true, force: true }));
@@ -42,7 +40,9 @@ afterAll(() => rmSync(tmp, { recursive: true, force: true }));
 describe('stream pages', () => {
   it('the index lists the stream stations in the group of their tide reference, after its ports', () => {
     const html = read(site, 'index.html');
-    const group = html.slice(html.indexOf('Brinewold Head (invented)'), html.indexOf('</section>', html.indexOf('Brinewold Head (invented)')));
+    const start = html.indexOf('<section class="port-group"'); // the list, after the map
+    const group = html.slice(start, html.indexOf('</section>', start));
+    expect(group).toContain('Brinewold Head (invented)');
     expect(group).toContain('Wrackrun Narrows (invented)');
     expect(group).toContain('Spindrift Gut (invented)');
     expect(textOf(group)).toContain('tidal stream, from Wrackrun Narrows (invented)');
@@ -77,7 +77,7 @@ describe('stream pages', () => {
     expect(text).toMatch(/Secondary stream station of Wrackrun Narrows \(invented\), by time differences and rate ratios/);
     expect(text).toMatch(/Flood sets toward\s+095° true/);
     expect(text).toMatch(/Ebb sets toward\s+280° true/);
-    const csv = readFileSync(join(dataDir, 'spindrift-gut-2027-streams.csv'), 'utf8');
+    const csv = readFileSync(join(site, 'data', 'spindrift-gut-2027-streams.csv'), 'utf8');
     expect(csv).toContain('# Caution: Astronomical predictions only.');
     expect(csv).toContain('# Streams vary. Tidal streams vary across a channel');
     expect(csv).toContain('# These data are INVENTED');
@@ -85,7 +85,7 @@ describe('stream pages', () => {
     expect(rows[0]).toBe('station_id,time,time_local,type,speed_kn,direction_deg_true');
     expect(rows).toHaveLength(gut.events.length + 1);
     const json = JSON.parse(readFileSync(join(site, 'data', 'spindrift-gut-2027-streams.json'), 'utf8')) as { events: unknown[]; streamCaution: string };
-    const ics = readFileSync(join(dataDir, 'spindrift-gut-2027-streams.ics'), 'utf8');
+    const ics = readFileSync(join(site, 'data', 'spindrift-gut-2027-streams.ics'), 'utf8');
     expect(ics.match(/BEGIN:VEVENT/g)).toHaveLength(gut.events.length);
     expect(ics.replace(/\r\n /g, '')).toContain('Tidal streams vary across a channel');
     expect(ics.split('\r\n').every((l) => Buffer.byteLength(l) <= 75)).toBe(true);
