@@ -13,7 +13,6 @@ import { combinedBookName, stationYearFile } from './paths.js';
 import type { Progress } from './progress.js';
 import { siteFilesFolder } from './site-files.js';
 import { siteThemeFolder } from './site-theme.js';
-import { pictureWarnings } from './picture-warnings.js';
 import { countPdfPages, type StationOutcome } from './station-job.js';
 import { worstPerFile, type ImageWarning } from '../../templates/pdf/image-resolution.js';
 
@@ -138,7 +137,6 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
   events.progress.stage('checking the station files');
   const checked = deps.checkSet(plan.stationsDir);
   for (const note of checked.notes ?? []) events.note(note);
-  for (const warning of pictureWarnings(plan.render)) events.note(warning);
   if (checked.problems.length > 0) throw new StationSetInvalid(checked.problems);
   const stations = checked.stations;
   const years = plan.years ?? [plan.year];
