@@ -51,7 +51,8 @@ export function imprintPage(models: readonly (StationYear | StreamYear)[], words
         ? first.station.provenance
         : [...new Map(models.map((m) => [m.station.id, `${m.station.name}: ${m.station.provenance}`])).values()].join('\n');
       block(w.t(models.length === 1 ? 'imprint.source' : 'imprint.sources'), sources, 3);
-      block(w.t('imprint.caution'), w.caution, 8);
+      const streams = models.some((m) => !('datums' in m));
+      block(w.t('imprint.caution'), streams ? `${w.caution} ${w.t('caution.streams')}` : w.caution, 10);
     },
   };
 }

@@ -5,13 +5,14 @@
 import type { MonthEntry, StreamYear } from '../../engine/index.js';
 import type { Words } from '../locale/index.js';
 import { streamExportFileNames } from '../exports/streams.js';
-import type { DatedChange, IndexYear, PageLink } from './views.js';
+import type { DatedChange, IndexYear, PageLink, YearLink } from './views.js';
 
 export interface StreamYearPage {
   url: string;
   model: StreamYear;
   referenceUrl: string | null; // a stream-secondary station's reference stream station, when in this build
   months: { month: MonthEntry; url: string }[];
+  years: YearLink[]; // every year of this station in the build (a switch is shown when there are several)
   downloads: { csv: string; json: string; ics: string };
 }
 
@@ -25,6 +26,7 @@ export interface StreamMonthPage {
   next: PageLink | null;
   siblings: PageLink[];
   clockChanges: DatedChange[];
+  years: YearLink[]; // the same month in every year of this station in the build
 }
 
 export interface IndexStream {
@@ -46,7 +48,7 @@ function monthPagesOf(model: StreamYear, yearUrl: string, words: Words): StreamM
   const pages: StreamMonthPage[] = model.months.map((month) => {
     const days = model.days.slice(month.firstDayIndex, month.firstDayIndex + month.dayCount);
     const clockChanges = days.flatMap((d) => (d.offsetChange ? [{ date: d.date, change: d.offsetChange }] : []));
-    return { url: `${yearUrl}${month.slug}/`, yearUrl, model, month, days, prev: null, next: null, siblings: [], clockChanges };
+    return { url: `${yearUrl}${month.slug}/`, yearUrl, model, month, days, prev: null, next: null, siblings: [], clockChanges, years: [] };
   });
   const link = (p: StreamMonthPage): PageLink => ({ url: p.url, label: words.monthName(p.month.month), short: words.monthShort(p.month.month) });
   const siblings = pages.map(link);
@@ -63,15 +65,21 @@ export function streamPages(models: readonly StreamYear[], words: Words): { stre
   const built = new Set(sorted.map((m) => streamYearUrl(m.station.id, m.year)));
   const streamYears: StreamYearPage[] = [];
   const streamMonthPages: StreamMonthPage[] = [];
+  const yearsOf = new Map<string, number[]>();
+  for (const m of sorted) yearsOf.set(m.station.id, [...new Set([...(yearsOf.get(m.station.id) ?? []), m.year])]);
   for (const model of sorted) {
     const url = streamYearUrl(model.station.id, model.year);
     const names = streamExportFileNames(model);
     const months = monthPagesOf(model, url, words);
+    const yearLinks = (suffix: string): YearLink[] => (yearsOf.get(model.station.id) ?? []).map((year) =>
+      ({ year, url: `${streamYearUrl(model.station.id, year)}${suffix}`, current: year === model.year }));
+    for (const p of months) p.years = yearLinks(`${p.month.slug}/`);
     const ref = model.reference;
     streamYears.push({
       url, model,
       referenceUrl: ref && built.has(streamYearUrl(ref.id, model.year)) ? streamYearUrl(ref.id, model.year) : null,
       months: months.map((p) => ({ month: p.month, url: p.url })),
+      years: yearLinks(''),
       downloads: { csv: `/data/${names.csv}`, json: `/data/${names.json}`, ics: `/data/${names.ics}` },
     });
     streamMonthPages.push(...months);

@@ -1,9 +1,9 @@
 // The imprint, last page of every book and a page of the site: publisher, edition, contact, the
 // tidewright version, the datum epoch, the sources of the constants and the caution.
 import { execFileSync } from 'node:child_process';
-import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
-import { join } from 'node:path';
+import { dirname, join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { buildStationYear } from '../../engine/index.js';
 import { loadStationSet } from '../../engine/index.js';
@@ -14,7 +14,10 @@ import { renderSite } from '../../templates/site/render.js';
 import { wordsFor } from '../../templates/locale/index.js';
 
 const dir = mkdtempSync(join(tmpdir(), 'tidewright-imprint-'));
-for (const [name, text] of Object.entries(STARTER_FILES)) writeFileSync(join(dir, name), text);
+for (const [name, text] of Object.entries(STARTER_FILES)) {
+  mkdirSync(dirname(join(dir, name)), { recursive: true });
+  writeFileSync(join(dir, name), text);
+}
 const set = loadStationSet(dir);
 const models: StationYear[] = set.stations.map((s) => buildStationYear(s, set, 2027));
 const options = {

@@ -1,9 +1,9 @@
 // The website's pages for tidal stream stations: listed in the index with the tide stations of their
 // area, a year page and month pages that print the model's slack times and strongest flood and ebb
 // (rate and an arrow turned to the direction), both cautions, downloads, and valid HTML.
-import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
-import { join } from 'node:path';
+import { dirname, join, resolve } from 'node:path';
 import { HtmlValidate } from 'html-validate';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { loadStationSet, buildStreamYear, streamAlmanacEvent, type StreamYear } from '../../engine/index.js';
@@ -114,4 +114,21 @@ describe('stream pages', () => {
     }
     expect(problems.slice(0, 30)).toEqual([]);
   });
+});
+
+describe('stream pages over several years', () => {
+  it('carry the year switch to the same stream station (and month) in each year', async () => {
+    const set = loadStationSet(DEMO);
+    const station = set.streams!.find((s) => s.id === 'wrackrun-narrows')!;
+    const years = join(tmp, 'years');
+    await renderSite([], years, { units: 'm', quiet: true, streams: [narrows, buildStreamYear(station, set, 2028)] });
+    for (const [page, current] of [['wrackrun-narrows/2028/index.html', '2028'], ['wrackrun-narrows/2027/06/index.html', '2027']] as const) {
+      const nav = /<nav class="year-switch"[\s\S]*?<\/nav>/.exec(read(years, page))?.[0] ?? '';
+      const suffix = page.includes('/06/') ? '06/' : '';
+      const targets = [...nav.matchAll(/href="([^"]+)"/g)].map((m) => resolve(dirname(join(years, page)), m[1]!));
+      expect(targets, page).toEqual(['2027', '2028'].map((y) => join(years, `wrackrun-narrows/${y}/${suffix}index.html`)));
+      for (const t of targets) expect(existsSync(t), t).toBe(true);
+      expect(nav, page).toContain(`aria-current="page">${current}</a>`);
+    }
+  }, 120_000);
 });
