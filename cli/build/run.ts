@@ -16,7 +16,6 @@ import { stationYearKeys } from './cache-keys.js';
 import { siteFilesFolder } from './site-files.js';
 import { combinedStations, type CombinedPlan } from './volumes-step.js';
 import { siteThemeFolder } from './site-theme.js';
-import { pictureWarnings } from './picture-warnings.js';
 import { countPdfPages, type StationCache, type StationOutcome } from './station-job.js';
 import { worstPerFile, type ImageWarning } from '../../templates/pdf/image-resolution.js';
 
@@ -147,7 +146,6 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
   events.progress.stage('checking the station files');
   const checked = deps.checkSet(plan.stationsDir);
   for (const note of checked.notes ?? []) events.note(note);
-  for (const warning of pictureWarnings(plan.render)) events.note(warning);
   if (checked.problems.length > 0) throw new StationSetInvalid(checked.problems);
   const stations = checked.stations;
   const years = plan.years ?? [plan.year];

@@ -14,7 +14,7 @@ import { renderCombinedBook, renderStationBook } from '../../templates/pdf/book.
 import { renderSite } from '../../templates/site/render.js';
 import { runCli } from '../fixtures/run-cli.js';
 import { siteThemeFolder } from '../../cli/build/site-theme.js';
-import { pictureWarnings } from '../../cli/build/picture-warnings.js';
+import { worstPerFile, type ImageWarning } from '../../templates/pdf/image-resolution.js';
 
 const FIXTURE = join(import.meta.dirname, '..', 'fixtures', 'publisher');
 const POPPLER = ['pdftotext', 'pdfimages'].every((t) => existsSync(`/usr/bin/${t}`));
@@ -26,6 +26,7 @@ afterAll(() => rmSync(tmp, { recursive: true, force: true }));
 const plan = makePlan(parseBuildArgs(['--stations', FIXTURE, '--year', '2027']), tmp);
 const set = loadStationSet(FIXTURE);
 let models: StationYear[] = [];
+const placed: ImageWarning[] = []; // what the station book's placements reported (checkImageResolution)
 const book = join(tmp, 'station.pdf');
 const combined = join(tmp, 'combined.pdf');
 const site = join(tmp, 'site');
@@ -35,7 +36,7 @@ const flat = (s: string): string => s.replace(/\s+/g, ' ');
 
 beforeAll(async () => {
   models = set.stations.map((s) => buildStationYear(s, set, 2027));
-  writeFileSync(book, await renderStationBook(models[0]!, plan.render));
+  writeFileSync(book, await renderStationBook(models[0]!, { ...plan.render, warn: (w) => placed.push(w) }));
   writeFileSync(combined, await renderCombinedBook(models, plan.render));
   await renderSite(models, site, { ...plan.render, quiet: true });
 }, 240_000);
@@ -53,7 +54,7 @@ describe('the publisher fixture', () => {
   });
 
   it('names each supplied PNG that would print below 300 dpi in the books, and no SVG', () => {
-    const warnings = pictureWarnings(plan.render);
+    const warnings = worstPerFile(placed).map((w) => w.text);
     // quay.png (1200 px wide) across the 124 mm type area of an A5 page: 1200 / (124 / 25.4) = 246 dpi
     expect(warnings.find((w) => w.includes('quay.png'))).toMatch(/pages\/images\/quay\.png: 24[56] dpi at its printed size of 124 × \d+ mm would print blurry; supply it at 146\d × \d+ pixels or more \(300 dpi\)/);
     // logo.png (600 px) in a quarter of the grid, (124 mm − 8 pt) / 2 wide: 252 dpi
