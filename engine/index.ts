@@ -9,6 +9,7 @@ export * from './predict.js';
 export * from './extrema.js';
 export * from './analysis.js';
 export * from './secondary.js';
+export * from './difference-example.js';
 export * from './tides.js';
 export * from './datums.js';
 export * from './springneap.js';

@@ -19,7 +19,7 @@ export function compiledWorkerUrl(): URL | null {
 export async function computeInProcess(
   request: ComputeRequest, onStation: (outcome: StationOutcome) => void, deps: StationJobDeps, signal?: AbortSignal,
 ): Promise<void> {
-  const ctx = { set: loadStationSet(request.stationsDir), year: request.year, tempDir: request.tempDir, render: request.render };
+  const ctx = { set: loadStationSet(request.stationsDir), year: request.year, tempDir: request.tempDir, render: request.render, ...(request.cache && { cache: request.cache }) };
   const sky = createSkyEphemeris();
   for (const ids of request.units) {
     const unit = { ...ctx, engine: unitEngine(sky) };
@@ -39,6 +39,6 @@ export async function computeStations(
 ): Promise<void> {
   const workerUrl = compiledWorkerUrl();
   if (!workerUrl) return computeInProcess(request, onStation, deps, signal);
-  const setup = { stationsDir: request.stationsDir, year: request.year, tempDir: request.tempDir, render: request.render };
+  const setup = { stationsDir: request.stationsDir, year: request.year, tempDir: request.tempDir, render: request.render, ...(request.cache && { cache: request.cache }) };
   return runPool({ workerUrl, setup, size: request.workers, units: request.units, onStation, ...(signal && { signal }) });
 }

@@ -2,6 +2,7 @@
 import { buildStationYear } from '../../engine/index.js';
 import { renderStationBook } from '../../templates/pdf/book.js';
 import { renderPocketTable } from '../../templates/pdf/pocket.js';
+import { sectionPageCounts } from '../../templates/pdf/volume.js';
 import type { StationJobDeps } from './station-job.js';
 
 export const stationJobDeps: StationJobDeps = {
@@ -10,4 +11,5 @@ export const stationJobDeps: StationJobDeps = {
   renderPocketTable: (model, options) => renderPocketTable(model, {
     ...options, sheet: options.page === 'letter' || options.page === 'half-letter' ? 'letter' : 'a4',
   }),
+  sectionPages: (model, options) => sectionPageCounts(model, options),
 };

@@ -1,4 +1,5 @@
 // The choices a build can be given (command line, project file, defaults) and their allowed values.
+import type { VolumeChoices } from './volume-options.js';
 import type { PublisherPage } from '../../templates/pages/types.js';
 
 export const UNITS = ['m', 'ft'] as const;
@@ -44,6 +45,7 @@ export interface BuildPlan {
   quiet: boolean;
   workers: number | null; // null: one per core, capped by the work there is
   projectFile: string | null; // the tidewright.yaml that was read, if any
+  volumes?: VolumeChoices; // how the combined output is bound (default: cli/build/volume-options.ts)
 }
 
 export function isOneOf<T extends string>(values: readonly T[], value: string): value is T {

@@ -6,6 +6,7 @@ import type { BuildArgs } from './args.js';
 import type { BuildPlan } from './options.js';
 import { loadProjectFile } from './project.js';
 import { outputStamp } from './stamp.js';
+import { DEFAULT_VOLUME_PAGES } from './volume-options.js';
 
 export const DEFAULT_STATIONS_DIR = 'stations-demo';
 export const DEFAULT_OUT_DIR = 'out';
@@ -56,5 +57,6 @@ export function makePlan(
     quiet: args.quiet,
     workers: args.workers ?? null,
     projectFile: project.file,
+    volumes: { ...(s.combined !== undefined && { mode: s.combined }), pages: s.volume_pages ?? DEFAULT_VOLUME_PAGES },
   };
 }

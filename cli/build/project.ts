@@ -6,6 +6,7 @@ import * as z from 'zod';
 import { StationFileError, nearestName, readTextFile } from '../../engine/index.js';
 import { LANGUAGES, languageOf } from '../../templates/locale/catalogue.js';
 import { ACCENT_PATTERN, contrastRatio, MIN_CONTRAST } from './accent.js';
+import { COMBINED_MODES, MAX_VOLUME_PAGES, MIN_VOLUME_PAGES } from './volume-options.js';
 import { checkLogo, checkPicture } from './logo.js';
 import { readPages } from './pages.js';
 import type { PublisherPage } from '../../templates/pages/types.js';
@@ -37,6 +38,8 @@ const FIELD_FIX: Readonly<Record<keyof ProjectSettings, string>> = {
   pages: 'write the folder of your Markdown pages, relative to tidewright.yaml, e.g. pages: pages/',
   press: 'write press: true for print-shop books (bleed, crop marks, page boxes), or press: false',
   pocket: 'write pocket: true for a folded one-sheet pocket table beside each book, or pocket: false',
+  combined: `write combined: full (every station's months), compact (reference ports in full, secondary ports as differences and datums) or none, or leave it out`,
+  volume_pages: `write the most pages a combined volume may have, a whole number from ${MIN_VOLUME_PAGES} to ${MAX_VOLUME_PAGES}, e.g. volume_pages: 600`,
 };
 /** Every setting tidewright.yaml may hold, in the order messages list them. */
 export const PROJECT_KEYS = Object.keys(FIELD_FIX) as (keyof ProjectSettings)[];
@@ -101,6 +104,8 @@ const projectSchema = z.strictObject({
   pages: z.string().trim().min(1, 'is empty').optional(),
   pocket: z.boolean().optional(),
   press: z.boolean().optional(),
+  combined: z.enum(COMBINED_MODES).optional(),
+  volume_pages: z.int().min(MIN_VOLUME_PAGES).max(MAX_VOLUME_PAGES).optional(),
 });
 
 function describe(value: unknown): string {

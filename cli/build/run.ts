@@ -11,10 +11,12 @@ import type { BuildPlan, RenderChoices } from './options.js';
 import { commitOutput, createTemp, discardTemp, planOutput, recoverStale, type OutputTarget } from './output.js';
 import { combinedBookName, stationYearFile } from './paths.js';
 import type { Progress } from './progress.js';
+import { cacheDirFor } from './cache.js';
+import { stationYearKeys } from './cache-keys.js';
 import { siteFilesFolder } from './site-files.js';
+import { combinedStations, type CombinedPlan } from './volumes-step.js';
 import { siteThemeFolder } from './site-theme.js';
-import { pictureWarnings } from './picture-warnings.js';
-import { countPdfPages, type StationOutcome } from './station-job.js';
+import { countPdfPages, type StationCache, type StationOutcome } from './station-job.js';
 import { worstPerFile, type ImageWarning } from '../../templates/pdf/image-resolution.js';
 
 export interface ComputeRequest {
@@ -24,6 +26,7 @@ export interface ComputeRequest {
   render: RenderChoices;
   units: string[][];
   workers: number;
+  cache?: StationCache; // the build cache and each station-year's key
 }
 
 /** The pieces a build is made of; the CLI passes the real ones, tests may pass their own. */
@@ -105,14 +108,16 @@ async function allSettledOrFirstError(work: Promise<unknown>[]): Promise<void> {
 /** One year's station-years, in the set's order (file-name order), whichever worker finished first. */
 async function computeYear(
   plan: BuildPlan, deps: BuildDeps, events: BuildEvents, times: Record<string, number>,
-  job: { year: number; tempDir: string; units: string[][]; workers: number }, stations: readonly Station[],
-): Promise<{ models: StationYear[]; pdfPages: number; imageWarnings: ImageWarning[] }> {
+  job: { year: number; tempDir: string; units: string[][]; workers: number; cacheDir: string }, stations: readonly Station[],
+): Promise<{ models: StationYear[]; pdfPages: number; imageWarnings: ImageWarning[]; combined: CombinedPlan }> {
   const outcomes = new Map<string, StationOutcome>();
   const imageWarnings: ImageWarning[] = [];
   const several = (plan.years ?? [plan.year]).length > 1;
   events.progress.stage(several ? `computing ${job.year}` : 'computing', stations.length);
+  const { cacheDir, ...work } = job;
+  const cache = { dir: cacheDir, keys: Object.fromEntries(stationYearKeys(stations, job.year, plan.render)) };
   await step('computing the stations', times, () => deps.computeStations(
-    { stationsDir: plan.stationsDir, render: plan.render, ...job },
+    { stationsDir: plan.stationsDir, render: plan.render, ...work, cache },
     (outcome) => {
       outcomes.set(outcome.id, outcome);
       imageWarnings.push(...outcome.imageWarnings ?? []);
@@ -122,7 +127,10 @@ async function computeYear(
   ));
   const missing = stations.filter((s) => !outcomes.has(s.id)).map((s) => s.id);
   if (missing.length > 0) throw new BuildStepError('computing the stations', new Error(`no result for ${missing.join(', ')}`));
+  const combined = await step('planning the combined volumes', times,
+    () => combinedStations(stations, outcomes, { ...plan, year: job.year }, cache, job.tempDir, job.workers, events.signal));
   return {
+    combined,
     models: stations.map((s) => outcomes.get(s.id)!.model),
     pdfPages: stations.reduce((n, s) => n + outcomes.get(s.id)!.pdfPages, 0),
     imageWarnings,
@@ -138,7 +146,6 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
   events.progress.stage('checking the station files');
   const checked = deps.checkSet(plan.stationsDir);
   for (const note of checked.notes ?? []) events.note(note);
-  for (const warning of pictureWarnings(plan.render)) events.note(warning);
   if (checked.problems.length > 0) throw new StationSetInvalid(checked.problems);
   const stations = checked.stations;
   const years = plan.years ?? [plan.year];
@@ -156,8 +163,11 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
     const streamModels: StreamYear[] = [];
     const imageWarnings: ImageWarning[] = []; // every book places the same pictures: one line per file below
     let pdfPages = 0;
+    const combinedByYear = new Map<number, CombinedPlan>(); // each year's combined book, or volumes drawn from the cache
     for (const year of years) {
-      const computed = await computeYear(plan, deps, events, times, { year, tempDir: target.temp, units, workers }, stations);
+      const computed = await computeYear(plan, deps, events, times,
+        { year, tempDir: target.temp, units, workers, cacheDir: cacheDirFor(target.out) }, stations);
+      combinedByYear.set(year, computed.combined);
       models.push(...computed.models);
       imageWarnings.push(...computed.imageWarnings);
       pdfPages += computed.pdfPages;
@@ -184,13 +194,20 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
     // so large sets draw them one after the other (measured when the site still rendered in one
     // Eleventy run, 200 stations: 2.4 GiB peak beside, 1.9 GiB after; the threshold wants re-measuring).
     // One combined book per year, each from that year's models.
-    const beside = workers > 1 && stations.length <= BESIDE_MAX_STATIONS;
+    const volumes = [...combinedByYear.values()].some((c) => c.volumes);
+    const beside = volumes || (workers > 1 && stations.length <= BESIDE_MAX_STATIONS);
     const name = combinedBookName(plan.render.title, stations.map((s) => s.id));
     const site = (): Promise<unknown> => step('rendering the website and downloads', times,
       () => deps.renderSite(models, join(target.temp, 'site'),
         siteTheme === null ? plan.render : { ...plan.render, siteTheme }, siteFiles ?? undefined, streamModels));
     const book = (): Promise<void> => step('rendering the combined book', times, async () => {
       for (const year of years) {
+        const combined = combinedByYear.get(year);
+        if (combined?.plan.mode === 'none') continue;
+        if (combined?.volumes) {
+          pdfPages += await combined.draw();
+          continue;
+        }
         const pdf = await deps.renderCombinedBook(models.filter((m) => m.year === year), plan.render, beside, events.signal,
           streamModels.filter((m) => m.year === year));
         await mkdir(join(target.temp, 'pdf'), { recursive: true });

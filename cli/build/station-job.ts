@@ -2,6 +2,8 @@
 // its year model and its PDF book, written straight into the temporary output folder. (The downloads
 // are written by the site renderer, which links them from the station pages.)
 import { mkdir, writeFile } from 'node:fs/promises';
+import type { SectionPages } from '../../templates/pdf/volume.js';
+import { readEntry, writeEntry } from './cache.js';
 import { join } from 'node:path';
 import { createEngineContext } from '../../engine/index.js';
 import type { EngineContext, SkyEphemeris, StationSet, Station, StationYear } from '../../engine/index.js';
@@ -13,6 +15,14 @@ export interface StationJobDeps {
   buildStationYear(station: Station, set: StationSet, year: number, engine: EngineContext): StationYear | Promise<StationYear>;
   renderStationBook(model: StationYear, options: RenderChoices, warn?: ImageWarningSink): Promise<Buffer>;
   renderPocketTable?(model: StationYear, options: RenderChoices): Promise<Buffer>;
+  /** Pages of the station's section in a combined volume (for filling volumes before drawing them). */
+  sectionPages?(model: StationYear, options: RenderChoices): SectionPages;
+}
+
+/** Where the build cache is and each station-year's key in it (cli/build/cache-keys.ts). */
+export interface StationCache {
+  dir: string;
+  keys: Readonly<Record<string, string>>;
 }
 
 export interface StationJobContext {
@@ -21,12 +31,15 @@ export interface StationJobContext {
   tempDir: string; // the build's temporary output folder
   render: RenderChoices;
   engine: EngineContext; // the engine's caches for this unit of work, dropped with it
+  cache?: StationCache; // reuse unchanged station-years, and keep every model on disk for the volumes
 }
 
 export interface StationOutcome {
   id: string;
   model: StationYear;
   pdfPages: number;
+  sections?: SectionPages;
+  cached?: boolean; // reused from the build cache
   imageWarnings?: ImageWarning[]; // pictures of the book that would print below 300 dpi, one per file
 }
 
@@ -45,21 +58,53 @@ export function countPdfPages(pdf: Buffer): number {
   return text.match(/\/Type\s*\/Page(?![a-zA-Z])/g)?.length ?? 0;
 }
 
+/** The model as every renderer sees it: through JSON, as the cache hands it back, so cached and fresh builds match. */
+function throughJson(model: StationYear): { model: StationYear; json: Buffer } {
+  const json = Buffer.from(JSON.stringify(model));
+  return { model: JSON.parse(json.toString('utf8')) as StationYear, json };
+}
+
+interface CachedMeta { pdfPages: number; sections?: SectionPages; imageWarnings?: ImageWarning[] }
+
 export async function runStationJob(id: string, ctx: StationJobContext, deps: StationJobDeps): Promise<StationOutcome> {
   const station = ctx.set.byId.get(assertSafeId(id));
   if (!station) throw new Error(`station "${id}" is not in the station set`);
-  const model = await deps.buildStationYear(station, ctx.set, ctx.year, ctx.engine);
-  if (model.station.id !== id) throw new Error(`the model built for "${id}" names station "${model.station.id}"`);
   const pdfDir = join(ctx.tempDir, 'pdf');
   await mkdir(pdfDir, { recursive: true });
+  const bookFile = stationYearFile(pdfDir, id, ctx.year, 'pdf');
+  const pocketFile = bookFile.replace(/\.pdf$/, '-pocket.pdf');
+  const pocket = ctx.render.pocket !== false && deps.renderPocketTable !== undefined;
+  const key = ctx.cache?.keys[id];
+  const names = ['model.json', 'book.pdf', ...(pocket ? ['pocket.pdf'] : [])];
+  const hit = ctx.cache && key !== undefined ? readEntry(ctx.cache.dir, key, names) : null;
+  if (hit) {
+    const meta = hit.meta as CachedMeta;
+    const model = JSON.parse(hit.files['model.json']!.toString('utf8')) as StationYear;
+    if (model.station?.id === id && typeof meta?.pdfPages === 'number') {
+      await writeFile(bookFile, hit.files['book.pdf']!);
+      if (pocket) await writeFile(pocketFile, hit.files['pocket.pdf']!);
+      return { id, model, pdfPages: meta.pdfPages, ...(meta.sections && { sections: meta.sections }),
+        ...(meta.imageWarnings && { imageWarnings: meta.imageWarnings }), cached: true };
+    }
+  }
+  const built = await deps.buildStationYear(station, ctx.set, ctx.year, ctx.engine);
+  if (built.station.id !== id) throw new Error(`the model built for "${id}" names station "${built.station.id}"`);
+  const { model, json } = throughJson(built);
   const warnings: ImageWarning[] = [];
   const pdf = await deps.renderStationBook(model, ctx.render, (w) => warnings.push(w));
-  await writeFile(stationYearFile(pdfDir, id, ctx.year, 'pdf'), pdf);
+  await writeFile(bookFile, pdf);
   let pdfPages = countPdfPages(pdf);
-  if (ctx.render.pocket !== false && deps.renderPocketTable) {
-    const pocket = await deps.renderPocketTable(model, ctx.render);
-    await writeFile(stationYearFile(pdfDir, id, ctx.year, 'pdf').replace(/\.pdf$/, '-pocket.pdf'), pocket);
-    pdfPages += countPdfPages(pocket);
+  const files: Record<string, Buffer> = { 'model.json': json, 'book.pdf': pdf };
+  if (pocket) {
+    const sheet = await deps.renderPocketTable!(model, ctx.render);
+    await writeFile(pocketFile, sheet);
+    pdfPages += countPdfPages(sheet);
+    files['pocket.pdf'] = sheet;
   }
-  return { id, model, pdfPages, imageWarnings: worstPerFile(warnings) };
+  const sections = deps.sectionPages?.(model, ctx.render);
+  const imageWarnings = worstPerFile(warnings);
+  if (ctx.cache && key !== undefined && !writeEntry(ctx.cache.dir, key, files, { pdfPages, imageWarnings, ...(sections && { sections }) })) {
+    throw new Error(`could not write the build cache in ${ctx.cache.dir} (the combined volumes read the models from it): check the disk has space and the folder is writable`);
+  }
+  return { id, model, pdfPages, imageWarnings, ...(sections && { sections }) };
 }

@@ -5,20 +5,21 @@ import { parentPort, workerData } from 'node:worker_threads';
 import { createSkyEphemeris, loadStationSet } from '../../engine/index.js';
 import { renderCombinedBook } from '../../templates/pdf/book.js';
 import { serializeError } from './failure.js';
-import type { CombinedSetup, FromWorker, ToWorker, WorkerSetup } from './protocol.js';
+import type { CombinedSetup, FromWorker, ToWorker, VolumeSetup, WorkerSetup } from './protocol.js';
+import { volumeWorker } from './volume-worker.js';
 import { stationJobDeps } from './engine-deps.js';
 import { runStationJob, unitEngine, type StationJobContext } from './station-job.js';
 
 const port = parentPort;
 if (!port) throw new Error('cli/build/worker.js runs only as a worker thread');
-const setup = workerData as WorkerSetup | CombinedSetup;
+const setup = workerData as WorkerSetup | CombinedSetup | VolumeSetup;
 const post = (message: FromWorker, transfer: ArrayBuffer[] = []): void => port.postMessage(message, transfer);
 
 function stationWorker(init: WorkerSetup): void {
   let ctx: Omit<StationJobContext, 'engine'> | undefined;
   const sky = createSkyEphemeris(); // the Sun's and Moon's positions, shared by every unit of this worker
   try {
-    ctx = { set: loadStationSet(init.stationsDir), year: init.year, tempDir: init.tempDir, render: init.render };
+    ctx = { set: loadStationSet(init.stationsDir), year: init.year, tempDir: init.tempDir, render: init.render, ...(init.cache && { cache: init.cache }) };
     post({ type: 'ready' });
   } catch (error) {
     post({ type: 'failed', id: null, error: serializeError(error) });
@@ -75,4 +76,5 @@ function combinedWorker(init: CombinedSetup): void {
 }
 
 if (setup.job === 'combined') combinedWorker(setup);
+else if (setup.job === 'volumes') volumeWorker(port, setup);
 else stationWorker(setup);

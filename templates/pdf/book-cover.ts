@@ -7,9 +7,9 @@ import { unit } from './page.js';
 import type { StationView } from './station-view.js';
 import { DARK, INK, MID } from './style.js';
 import { tag } from './tags.js';
-import { fitLines, put } from './text.js';
+import { fitLines, put, putFitted } from './text.js';
 
-export interface BookCoverText { title: string; publisher?: string; years: string; logo?: Picture; coverImage?: Picture; accent?: string }
+export interface BookCoverText { title: string; publisher?: string; years: string; logo?: Picture; coverImage?: Picture; accent?: string; volume?: string }
 
 export function bookCoverPage(views: StationView[], text: BookCoverText, caution: string, invented: boolean): LogicalPage {
   return {
@@ -33,6 +33,10 @@ export function bookCoverPage(views: StationView[], text: BookCoverText, caution
           y += title.style.size * 1.18;
         }
       });
+      if (text.volume !== undefined) {
+        putFitted(doc, text.volume, box.x, y + 2 * s, { font: 'bold', size: 12 * s, color: DARK }, box.width, 7 * s);
+        y += 18 * s;
+      }
       const refs = views.filter((v) => v.model.station.kind === 'reference').length;
       put(doc, w.t('book.stationCount', { count: views.length, references: w.t('book.referenceCount', { count: refs }),
         secondaries: w.t('book.secondaryCount', { count: views.length - refs }) }), box.x, y + 2 * s,

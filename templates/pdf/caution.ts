@@ -11,7 +11,7 @@ import type { LogicalPage, PageContext } from './page.js';
 import { unit } from './page.js';
 import type { StationView } from './station-view.js';
 import { DARK, FAINT, INK } from './style.js';
-import { artifact, tag } from './tags.js';
+import { artifact, group, tag } from './tags.js';
 import { paragraph, put, wrapLines } from './text.js';
 
 type KeyItem = { draw: (x: number, baseline: number) => void; text: string };
@@ -123,12 +123,17 @@ export function cautionPage(view: StationView, scope: CautionScope = { combined:
       if (plan.total > room) plan = layout(8.2 * s, 4 * s);
       if (plan.total > room) plan = layout(7.2 * s, 3 * s);
       const lead = plan.style.size * 1.22;
-      for (const { item, lines, height } of plan.rows) {
-        const base = y + Math.min(15 * s, height * 0.62);
-        artifact(doc, () => item.draw(box.x, base));
-        lines.forEach((line, i) => put(doc, line, textX, base + (i - (lines.length - 1) / 2) * lead, plan.style));
-        y += height;
-      }
+      // a list: each item's sample mark is decoration, its words the item's body (one paragraph however it wraps)
+      group(doc, 'L', {}, () => {
+        for (const { item, lines, height } of plan.rows) {
+          const base = y + Math.min(15 * s, height * 0.62);
+          group(doc, 'LI', {}, () => {
+            artifact(doc, () => item.draw(box.x, base));
+            tag(doc, 'LBody', {}, () => lines.forEach((line, i) => put(doc, line, textX, base + (i - (lines.length - 1) / 2) * lead, plan.style)));
+          });
+          y += height;
+        }
+      });
     },
   };
 }

@@ -31,7 +31,7 @@ export function cautionBlock(ctx: PageContext, caution: string, publisher?: stri
   const ruleY = y - 12 * s;
   if (publisher) putFitted(doc, publisher, box.x, ruleY - 8 * s, { font: 'bold', size: 9.5 * s }, box.width, 6 * s);
   doc.save().lineWidth(0.6 * s).strokeColor(INK).moveTo(box.x, ruleY).lineTo(box.x + box.width, ruleY).stroke().restore();
-  for (const line of lines) { put(doc, line, box.x, y, style); y += lead; }
+  tag(doc, 'P', {}, () => { for (const line of lines) { put(doc, line, box.x, y, style); y += lead; } }); // one paragraph, however it wraps
   return publisher ? ruleY - 20 * s : ruleY;
 }
 

@@ -10,7 +10,7 @@ import type { LogicalPage, PageContext } from './page.js';
 import { unit } from './page.js';
 import type { StationView } from './station-view.js';
 import { DARK, HAIRLINE, INK, MID, RULE } from './style.js';
-import { tag } from './tags.js';
+import { group, tag } from './tags.js';
 import { paragraph, put, putFitted } from './text.js';
 
 function sectionTitle(ctx: PageContext, title: string, y: number): number {
@@ -25,12 +25,18 @@ function sectionTitle(ctx: PageContext, title: string, y: number): number {
 function keyValues(ctx: PageContext, rows: [string, string][], y: number, labelW: number): number {
   const s = unit(ctx);
   const { doc, box } = ctx;
-  for (const [k, v] of rows) {
-    // a long label (some languages' words are long) wraps in its own column instead of running into the value
-    const labelEnd = paragraph(doc, k, box.x, y, labelW - 4 * s, { font: 'narrow', size: 7.8 * s, color: MID }, 9 * s, 2);
-    y = paragraph(doc, v, box.x + labelW, y, box.width - labelW, { font: 'regular', size: 8.4 * s }, 10.6 * s, 3);
-    y = Math.max(y, labelEnd) + 1.5 * s;
-  }
+  // read as a two-column table: each label a row header, its value the cell beside it
+  group(doc, 'Table', {}, () => {
+    for (const [k, v] of rows) {
+      group(doc, 'TR', {}, () => {
+        // a long label (some languages' words are long) wraps in its own column instead of running into the value
+        const labelEnd = tag(doc, 'TH', { scope: 'Row' },
+          () => paragraph(doc, k, box.x, y, labelW - 4 * s, { font: 'narrow', size: 7.8 * s, color: MID }, 9 * s, 2));
+        y = tag(doc, 'TD', {}, () => paragraph(doc, v, box.x + labelW, y, box.width - labelW, { font: 'regular', size: 8.4 * s }, 10.6 * s, 3));
+        y = Math.max(y, labelEnd) + 1.5 * s;
+      });
+    }
+  });
   return y;
 }
 
@@ -84,16 +90,21 @@ export function factsPage(view: StationView): LogicalPage {
         putFitted(doc, w.t('station.aboveDatum', { datum: printable(land.datum) }), box.x + tableW, y + 7 * s, head, tableW * 0.6, 5 * s, 'right');
         y += 18 * s;
       }
-      for (const r of datumRows) {
-        const bold = r.key === 'CD';
-        put(doc, r.key, box.x, y, { font: bold ? 'bold' : 'narrow-bold', size: 8.2 * s });
-        putFitted(doc, r.name, box.x + 32 * s, y, { font: 'narrow', size: 8.2 * s, color: DARK }, tableW - 70 * s - landW, 4 * s);
-        put(doc, w.heightNumber(r.v), box.x + tableW - landW, y, { font: bold ? 'bold' : 'regular', size: 8.6 * s }, 'right');
-        if (land !== undefined) put(doc, w.heightNumber(r.v - land.chart_datum_below), box.x + tableW, y, { font: 'regular', size: 8.6 * s, color: DARK }, 'right');
-        doc.save().lineWidth(HAIRLINE).strokeColor(RULE)
-          .moveTo(box.x, y + 3.8 * s).lineTo(box.x + tableW, y + 3.8 * s).stroke().restore();
-        y += rowH;
-      }
+      // a table: each level's abbreviation heads its row, then its name and height(s)
+      group(doc, 'Table', {}, () => {
+        for (const r of datumRows) {
+          const bold = r.key === 'CD';
+          group(doc, 'TR', {}, () => {
+            tag(doc, 'TH', { scope: 'Row' }, () => put(doc, r.key, box.x, y, { font: bold ? 'bold' : 'narrow-bold', size: 8.2 * s }));
+            tag(doc, 'TD', {}, () => putFitted(doc, r.name, box.x + 32 * s, y, { font: 'narrow', size: 8.2 * s, color: DARK }, tableW - 70 * s - landW, 4 * s));
+            tag(doc, 'TD', {}, () => put(doc, w.heightNumber(r.v), box.x + tableW - landW, y, { font: bold ? 'bold' : 'regular', size: 8.6 * s }, 'right'));
+            if (land !== undefined) tag(doc, 'TD', {}, () => put(doc, w.heightNumber(r.v - land.chart_datum_below), box.x + tableW, y, { font: 'regular', size: 8.6 * s, color: DARK }, 'right'));
+          });
+          doc.save().lineWidth(HAIRLINE).strokeColor(RULE)
+            .moveTo(box.x, y + 3.8 * s).lineTo(box.x + tableW, y + 3.8 * s).stroke().restore();
+          y += rowH;
+        }
+      });
       y = paragraph(doc, w.t('book.latHatNote', { epoch: `${model.datums.epoch.from}\u2013${model.datums.epoch.to}` }), box.x, y + 2 * s, tableW, { font: 'narrow', size: 7 * s, color: MID }, 8.6 * s);
       const latBelow = latBelowChartDatum(model.datums);
       if (latBelow !== null) {

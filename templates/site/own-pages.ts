@@ -33,6 +33,9 @@ function toSite(page: PublisherPage): SiteOwnPage {
   const md = markdownReader();
   const tokens = md.parse(page.markdown, {});
   for (const token of tokens) {
+    // a table column's alignment as a class of the stylesheet, not an inline style
+    const align = /text-align:(left|right|center)/.exec(token.attrGet('style') ?? '')?.[1];
+    if (align !== undefined) token.attrs = [['class', `align-${align}`]];
     for (const child of token.children ?? []) {
       if (child.type !== 'image') continue;
       const path = page.images[child.attrGet('src') ?? ''];

@@ -1,5 +1,6 @@
 // Runs every benchmark module in turn and prints its figures: `npm run bench` (after tsc) runs
 // dist/tests/bench/run.js. Each module exports `bench(): Promise<void>`; add yours to the list.
+// `npm run bench -- --national` runs only the national-scale benchmark (1,000 stations: long).
 import { bench as datums } from './datums.js';
 import { bench as engine } from './engine.js';
 import { bench as analysis } from './analysis.js';
@@ -8,6 +9,7 @@ import { bench as build } from './build.js';
 import { bench as sky } from './sky.js';
 import { bench as streams } from './streams.js';
 import { bench as windows } from './windows.js';
+import { bench as national } from './national.js';
 
 const BENCHMARKS: readonly (readonly [string, () => Promise<void>])[] = [
   ['engine', engine],
@@ -20,7 +22,8 @@ const BENCHMARKS: readonly (readonly [string, () => Promise<void>])[] = [
   ['build', build],
 ];
 
-for (const [name, bench] of BENCHMARKS) {
+const chosen = process.argv.includes('--national') ? [['national', national] as const] : BENCHMARKS;
+for (const [name, bench] of chosen) {
   console.log(`\n=== ${name} ===`);
   const t0 = performance.now();
   await bench();

@@ -48,7 +48,8 @@ describe('tagged station book', () => {
 
   it.skipIf(!POPPLER)('has a table per month page, column header cells first, and a row header on every day', () => {
     const tree = structure(file);
-    const tables = all(tree, 'Table');
+    // month tables open with a row of column headers; the facts page's two tables have row headers only
+    const tables = all(tree, 'Table').filter((t) => (t.children[0]?.children ?? []).every((c) => c.type === 'TH'));
     expect(tables.length).toBe(24);
     let days = 0;
     for (const t of tables) {
@@ -71,6 +72,26 @@ describe('tagged station book', () => {
     }
     expect(days).toBe(365);
     expect(all(tree, 'H1').length).toBeGreaterThanOrEqual(24 + 4);
+  });
+
+  it.skipIf(!POPPLER)('outside the month tables: facts as row-headed tables, the key as a list, each page a section', () => {
+    const tree = structure(file);
+    const document = tree.children[0];
+    expect(document?.type).toBe('Document');
+    expect((document?.children ?? []).every((c) => c.type === 'Sect')).toBe(true); // one section per page
+    const facts = (document?.children ?? []).find((c) => c.attrs.length === 0 && textUnder(c).includes('Station facts'));
+    const factTables = all(facts ?? tree, 'Table').filter((t) => t.children.every((r) => r.children[0]?.type === 'TH' && r.children[0].attrs.includes('Scope /Row')));
+    expect(factTables.length).toBeGreaterThanOrEqual(2); // the facts and the datums
+    expect(textUnder(factTables[0] ?? tree)).toContain('Age of the tide');
+    expect(all(factTables[1] ?? tree, 'TH').map((th) => textUnder(th).trim())).toEqual(expect.arrayContaining(['HAT', 'MSL', 'LAT']));
+    const [key] = all(tree, 'L');
+    const items = key?.children ?? [];
+    expect(items.length).toBeGreaterThanOrEqual(6);
+    for (const li of items) {
+      expect(li.type).toBe('LI');
+      expect(li.children.map((c) => c.type)).toEqual(['LBody']);
+    }
+    expect(textUnder(key ?? tree)).toContain('High water: clock time and height, on the upper line of each day, in time');
   });
 
   it('gives every figure alternative text', () => {

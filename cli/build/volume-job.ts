@@ -1,0 +1,66 @@
+// Drawing one combined volume from the models kept in the build cache: only this volume's models are
+// read (and a compact secondary port's reference, for its worked example), then dropped. A volume
+// whose stations, place and choices are unchanged is copied from the cache instead.
+import { writeFile } from 'node:fs/promises';
+import { differenceExample } from '../../engine/index.js';
+import type { ReferenceStation, SecondaryStation, StationYear } from '../../engine/index.js';
+import type { VolumeEntry, VolumeStation, VolumeText } from '../../templates/pdf/volume.js';
+import { resultEvent, type WorkedExample } from '../../templates/pdf/worked-example.js';
+import { readEntry, writeEntry } from './cache.js';
+import type { RenderChoices } from './options.js';
+
+export interface VolumeJob {
+  index: number; // 0-based
+  text: VolumeText;
+  stations: { id: string; key: string; compact: boolean; reference?: { id: string; key: string } }[];
+  file: string; // where the PDF goes (in the build's temporary folder)
+  key: string; // the volume's own cache key
+}
+
+export interface VolumeResult { index: number; entries: VolumeEntry[]; pages: number; cached: boolean }
+
+export interface VolumeJobDeps {
+  renderVolume(stations: VolumeStation[], options: RenderChoices, text: VolumeText): Promise<{ pdf: Buffer; entries: VolumeEntry[] }>;
+  countPages(pdf: Buffer): number;
+}
+
+function loadModel(cacheDir: string, id: string, key: string): StationYear {
+  const entry = readEntry(cacheDir, key, ['model.json']);
+  const model = entry ? JSON.parse(entry.files['model.json']!.toString('utf8')) as StationYear : null;
+  if (!model || model.station.id !== id) throw new Error(`the model of station "${id}" is missing from the build cache ${cacheDir} (was the folder removed during the build?)`);
+  return model;
+}
+
+/** The first high water at the reference port from its first spring tide of the year, worked through. */
+function workedExample(model: StationYear, reference: StationYear): WorkedExample | null {
+  if (model.station.kind !== 'secondary' || reference.station.kind !== 'reference') return null;
+  const spring = reference.springNeap.find((m) => m.kind === 'spring');
+  const from = spring ? `${spring.date}T00:00:00Z` : reference.events[0]?.time;
+  if (from === undefined) return null;
+  const example = differenceExample(reference.events, reference.station as ReferenceStation, model.station as SecondaryStation, from);
+  if (example === null) return null;
+  return { example, highWater: reference.events[example.referenceIndex]!, lowWater: reference.events[example.lowIndex]!,
+    result: resultEvent(model, example.time) };
+}
+
+export async function runVolumeJob(job: VolumeJob, cacheDir: string, render: RenderChoices, deps: VolumeJobDeps): Promise<VolumeResult> {
+  const hit = readEntry(cacheDir, job.key, ['volume.pdf']);
+  const meta = hit?.meta as { entries?: VolumeEntry[]; pages?: number } | undefined;
+  if (hit && Array.isArray(meta?.entries) && typeof meta.pages === 'number') {
+    await writeFile(job.file, hit.files['volume.pdf']!);
+    return { index: job.index, entries: meta.entries, pages: meta.pages, cached: true };
+  }
+  const models = new Map(job.stations.map((s) => [s.id, loadModel(cacheDir, s.id, s.key)]));
+  const stations: VolumeStation[] = job.stations.map((s) => {
+    const model = models.get(s.id)!;
+    if (!s.compact || s.reference === undefined) return { model, compact: s.compact, worked: null };
+    const reference = models.get(s.reference.id) ?? loadModel(cacheDir, s.reference.id, s.reference.key);
+    return { model, compact: true, worked: workedExample(model, reference) };
+  });
+  const { pdf, entries } = await deps.renderVolume(stations, render, job.text);
+  models.clear();
+  await writeFile(job.file, pdf);
+  const pages = deps.countPages(pdf);
+  writeEntry(cacheDir, job.key, { 'volume.pdf': pdf }, { entries, pages });
+  return { index: job.index, entries, pages, cached: false };
+}
