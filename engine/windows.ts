@@ -8,7 +8,7 @@
 //   bisection when a step leaves the bracket), to under a millisecond;
 // - secondary ports: on the secondary curve, the half-cosine between the port's own high and low
 //   waters, h = h1 + (h2 − h1)(1 − cos πx)/2, solved in closed form x = acos(1 − 2(L − h1)/(h2 − h1))/π.
-//   That curve is an approximation between the port's events; SECONDARY_WINDOW_NOTE says how good.
+//   That curve is an approximation between the port's events; the note at the end of this file says how good.
 import { findExtrema } from './extrema.js';
 import { newPhasorWindow, type Predictor } from './predict.js';
 import type { EngineContext } from './context.js';
@@ -354,16 +354,9 @@ export function heightAndTrend(
   return { height, trend: next?.type === 'high' ? 'rising' : 'falling' };
 }
 
-/**
- * The caution for windows at a secondary port: how its crossings are found and how far to trust them.
- * Renderers print it beside secondary-port windows and hourly heights.
- */
+// How far to trust windows at a secondary port (the catalogue's window.secondaryNote words it for readers):
 // Measured on the demo reference ports over 2027 by drawing the same curve through their own high and low
 // waters and comparing it with their harmonic prediction (minute steps): height differences up to 0.1 m
 // (a symmetric tide) to 0.7 m (strong overtides), crossing times of levels at a quarter, half and three
 // quarters of the range moved by up to 11 to 30 minutes, and by hours where a mixed tide stands near the level.
-export const SECONDARY_WINDOW_NOTE =
-  'At a secondary port, window times and hourly heights come from a half-cosine curve drawn between the '
-  + "port's own predicted high and low waters, not from a harmonic prediction. The curve is exact at high "
-  + 'and low water only; between them it can be out by 0.1 to 0.7 m and move a window by 10 to 30 minutes, '
-  + 'and by hours where the tide stands near the level. Leave a wide margin.';
+

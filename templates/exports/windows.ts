@@ -1,6 +1,6 @@
 // Access windows and hourly heights of a station-year as downloads: windows as CSV and JSON (whole
 // intervals, UTC and local), as iCalendar events for the station's calendar, and the hourly heights as CSV.
-import type { StationYear, WindowYear } from '../../engine/index.js';
+import { clock, type StationYear, type WindowYear } from '../../engine/index.js';
 import { wordsFor, type Words } from '../locale/index.js';
 import { csvTable, csvText, exportHeight, HEIGHT_DIGITS, heightField, heightRecord, type ExportRecord } from './fields.js';
 import type { CalendarEvent } from './calendar.js';
@@ -67,7 +67,7 @@ export function windowCalendarEvents(model: StationYear, words: Words): Calendar
     return w.intervals.map((i) => ({
       what: w.id, start: i.start, end: i.end,
       summary: words.t('window.open', { window: w.name }),
-      description: `${words.t('window.calendar', { window: w.name, rule: rule(w, words), datum: st.datum, from: i.startLocal.slice(11, 16), to: i.endLocal.slice(11, 16) })}${secondary}`,
+      description: `${words.t('window.calendar', { window: w.name, rule: rule(w, words), datum: st.datum, from: clock(Date.parse(i.start), model.timezone), to: clock(Date.parse(i.end), model.timezone) })}${secondary}`,
     }));
   });
 }

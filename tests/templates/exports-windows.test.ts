@@ -57,6 +57,18 @@ describe('window downloads', () => {
     expect(first.description).not.toContain(wordsFor().caution); // said once, for the whole calendar
     expect(first.uid).toBe(`${station.id}-sill-${interval.start.replace(/[-:]/g, '')}@tidewright`);
   });
+
+  it('iCalendar: the times in an opening\'s words are the minutes the pages print (nearest, not cut)', () => {
+    const calendar = new ICAL.Component(ICAL.parse(eventsICalendar(model)));
+    const opens = calendar.getAllSubcomponents('vevent').map((v) => new ICAL.Event(v)).filter((e) => e.uid.includes('-sill-'));
+    // an opening starting in the second half of a minute: the page prints the next minute, so must the calendar
+    const late = model.windows[0]!.intervals.find((i) => new Date(i.start).getUTCSeconds() >= 30)!;
+    expect(late).toBeDefined();
+    const printed = model.windows[0]!.days.flatMap((d) => d.pieces)
+      .find((p) => Date.parse(p.start) === Math.round(Date.parse(late.start) / 60_000) * 60_000)!;
+    const event = opens.find((e) => e.startDate.toJSDate().getTime() === Date.parse(late.start))!;
+    expect(event.description).toContain(`From ${printed.startClock} `);
+  });
 });
 
 describe('hourly heights CSV', () => {
