@@ -12,7 +12,7 @@ import type { PageGeometry } from './geometry.js';
 import { contentBox } from './geometry.js';
 import { fitted, loadPicture, type Picture } from './picture.js';
 import { DARK, HAIRLINE, INK, RULE } from './style.js';
-import { group, tag } from './tags.js';
+import { group, linked, tag, type TagOptions, type TagType } from './tags.js';
 import { put } from './text.js';
 
 export interface OwnPagesContext {
@@ -24,16 +24,45 @@ export interface OwnPagesContext {
 
 const TITLE_SIZE = 16;
 
-function drawRuns(ctx: PageContext, runs: Run[]): void {
+function drawRun(ctx: PageContext, r: Run): void {
+  put(ctx.doc, r.text, ctx.box.x + r.x, ctx.box.y + r.y, r.style);
+}
+
+/** A link's words with their underline; the annotation is placed by the caller. */
+function drawLinkRun(ctx: PageContext, r: Run & { link: string }): void {
   const { doc, box } = ctx;
-  for (const r of runs) {
-    put(doc, r.text, box.x + r.x, box.y + r.y, r.style);
-    if (r.link === undefined) continue;
-    const x = box.x + r.x;
-    const y = box.y + r.y;
-    doc.save().lineWidth(HAIRLINE).strokeColor(r.style.color ?? INK).moveTo(x, y + 1.2).lineTo(x + r.width, y + 1.2).stroke().restore();
-    if (ctx.interactive) doc.link(x, y - r.style.size, r.width, r.style.size * 1.25, r.link);
+  const x = box.x + r.x;
+  const y = box.y + r.y;
+  drawRun(ctx, r);
+  doc.save().lineWidth(HAIRLINE).strokeColor(r.style.color ?? INK).moveTo(x, y + 1.2).lineTo(x + r.width, y + 1.2).stroke().restore();
+}
+
+function annotateLink(ctx: PageContext, r: Run & { link: string }, structParent: PDFKit.PDFStructureElement | undefined): void {
+  if (!ctx.interactive) return;
+  const x = ctx.box.x + r.x;
+  const y = ctx.box.y + r.y;
+  ctx.doc.link(x, y - r.style.size, r.width, r.style.size * 1.25, r.link, structParent ? { structParent } : {});
+}
+
+const isLink = (r: Run): r is Run & { link: string } => r.link !== undefined;
+
+/**
+ * A block of runs as one structure element: a leaf when it holds no link; else a container whose plain
+ * runs are spans and whose links are Link elements with their annotations as object references, so a
+ * screen reader announces each link in its place.
+ */
+function drawBlock(ctx: PageContext, type: TagType, runs: Run[], options: TagOptions = {}): void {
+  const { doc } = ctx;
+  if (!runs.some(isLink)) {
+    tag(doc, type, options, () => { for (const r of runs) drawRun(ctx, r); });
+    return;
   }
+  group(doc, type, options, () => {
+    for (const r of runs) {
+      if (isLink(r)) linked(doc, () => drawLinkRun(ctx, r), (parent) => annotateLink(ctx, r, parent));
+      else tag(doc, 'Span', {}, () => drawRun(ctx, r));
+    }
+  });
 }
 
 function drawPlaced(ctx: PageContext, items: Placed[]): void {
@@ -44,9 +73,9 @@ function drawPlaced(ctx: PageContext, items: Placed[]): void {
       const list: Placed[] = [];
       while (i < items.length && items[i]!.kind === 'text' && (items[i] as { tag: string }).tag === 'LI') list.push(items[i++]!);
       i--;
-      group(doc, 'L', {}, () => { for (const li of list) if (li.kind === 'text') tag(doc, 'LI', {}, () => drawRuns(ctx, li.runs)); });
+      group(doc, 'L', {}, () => { for (const li of list) if (li.kind === 'text') drawBlock(ctx, 'LI', li.runs); });
     } else if (item.kind === 'text') {
-      tag(doc, item.tag, {}, () => drawRuns(ctx, item.runs));
+      drawBlock(ctx, item.tag, item.runs);
     } else if (item.kind === 'rule') {
       doc.save().lineWidth(0.6 * unit(ctx)).strokeColor(RULE).moveTo(box.x, box.y + item.y).lineTo(box.x + item.width, box.y + item.y).stroke().restore();
     } else if (item.kind === 'image') {
@@ -54,7 +83,7 @@ function drawPlaced(ctx: PageContext, items: Placed[]): void {
       tag(doc, 'Figure', { alt: item.alt || 'Picture' }, () => {
         doc.image(item.picture.data, box.x + item.x, box.y + item.y, { width: item.width, height: item.height });
       });
-      if (item.caption.length > 0) tag(doc, 'Caption', {}, () => drawRuns(ctx, item.caption));
+      if (item.caption.length > 0) drawBlock(ctx, 'Caption', item.caption);
     } else {
       for (const rule of item.rules) {
         doc.save().lineWidth((rule.heavy ? 0.8 : HAIRLINE) * unit(ctx)).strokeColor(rule.heavy ? INK : RULE)
@@ -64,7 +93,7 @@ function drawPlaced(ctx: PageContext, items: Placed[]): void {
         for (const row of item.rows) {
           group(doc, 'TR', {}, () => {
             for (const cell of row.cells) {
-              tag(doc, row.header ? 'TH' : 'TD', row.header ? { scope: 'Column' } : {}, () => drawRuns(ctx, cell));
+              drawBlock(ctx, row.header ? 'TH' : 'TD', cell, row.header ? { scope: 'Column' } : {});
             }
           });
         }

@@ -13,6 +13,7 @@ import { parseBuildArgs } from '../../cli/build/args.js';
 import { renderCombinedBook, renderStationBook } from '../../templates/pdf/book.js';
 import { renderSite } from '../../templates/site/render.js';
 import { runCli } from '../fixtures/run-cli.js';
+import { nodesOf, structureTree, textUnder } from '../fixtures/pdf-structure.js';
 import { siteThemeFolder } from '../../cli/build/site-theme.js';
 import { worstPerFile, type ImageWarning } from '../../templates/pdf/image-resolution.js';
 
@@ -95,6 +96,20 @@ describe('the publisher fixture', () => {
     expect(onPage(sponsor)).toHaveLength(1);
     const grid = pages.findIndex((p) => flat(p).includes('Our supporters (invented)')) + 1;
     expect(onPage(grid)).toHaveLength(3);
+  });
+
+  it.skipIf(!POPPLER)('tags a link on a page as a Link element whose object reference is its annotation', () => {
+    // welcome.md: "Write to [the harbour office](mailto:office@example.invalid) with corrections."
+    const links = nodesOf(structureTree(book), 'Link').filter((l) => textUnder(l).includes('the harbour office'));
+    expect(links).toHaveLength(1);
+    const raw = readFileSync(book).toString('latin1');
+    // every link annotation of the book (contents entries and the page's link) hangs from a Link element
+    const annots = [...raw.matchAll(/(\d+) 0 obj\s*<<([\s\S]*?)>>\s*endobj/g)].filter(([, , body = '']) => /\/Subtype \/Link/.test(body));
+    expect(annots.length).toBeGreaterThan(0);
+    for (const [, id, body = ''] of annots) {
+      expect(body).toMatch(/\/StructParent \d+/);
+      expect(raw).toMatch(new RegExp(`/Type /OBJR\\s*/Obj ${id} 0 R`));
+    }
   });
 
   it.skipIf(!POPPLER)('prints the pages once in the combined book, with its own imprint', () => {
