@@ -88,7 +88,7 @@ export function readEntry(cacheDir: string, key: string, names: readonly string[
 
 /**
  * Writes an entry whole (temporary folder, then one rename). True when the key's entry is in place
- * afterwards (this one, or an equal one another build renamed in first).
+ * afterwards (this one, or an equal one another build renamed in first); throws the write's error when not.
  */
 export function writeEntry(cacheDir: string, key: string, files: CacheEntryFiles, meta: unknown): boolean {
   const dir = entryDir(cacheDir, key);
@@ -106,9 +106,10 @@ export function writeEntry(cacheDir: string, key: string, files: CacheEntryFiles
     rmSync(dir, { recursive: true, force: true }); // a corrupt or foreign entry of this key
     renameSync(temp, dir);
     return true;
-  } catch {
-    // another build renamed its entry of this key first, or the disk is full
-    return readEntry(cacheDir, key, Object.keys(files)) !== null;
+  } catch (error) {
+    // another build renamed its entry of this key first; else (a full disk, a folder we may not write) the error stands
+    if (readEntry(cacheDir, key, Object.keys(files)) !== null) return true;
+    throw error;
   } finally {
     rmSync(temp, { recursive: true, force: true });
   }

@@ -4,6 +4,7 @@
 import { mkdir, writeFile } from 'node:fs/promises';
 import type { SectionPages } from '../../templates/pdf/volume.js';
 import { readEntry, writeEntry } from './cache.js';
+import { messageOf } from './failure.js';
 import { join } from 'node:path';
 import { createEngineContext } from '../../engine/index.js';
 import type { EngineContext, SkyEphemeris, StationSet, Station, StationYear } from '../../engine/index.js';
@@ -103,8 +104,14 @@ export async function runStationJob(id: string, ctx: StationJobContext, deps: St
   }
   const sections = deps.sectionPages?.(model, ctx.render);
   const imageWarnings = worstPerFile(warnings);
-  if (ctx.cache && key !== undefined && !writeEntry(ctx.cache.dir, key, files, { pdfPages, imageWarnings, ...(sections && { sections }) })) {
-    throw new Error(`could not write the build cache in ${ctx.cache.dir} (the combined volumes read the models from it): check the disk has space and the folder is writable`);
+  if (ctx.cache && key !== undefined) {
+    const cacheDir = ctx.cache.dir;
+    try {
+      writeEntry(cacheDir, key, files, { pdfPages, imageWarnings, ...(sections && { sections }) });
+    } catch (error) {
+      // the cause (a full disk…) is named in the message itself: errors cross from the worker as text
+      throw new Error(`could not write the build cache in ${cacheDir}: ${messageOf(error)}; the combined volumes read the models from it: check the disk has space and the folder is writable`);
+    }
   }
   return { id, model, pdfPages, imageWarnings, ...(sections && { sections }) };
 }
