@@ -115,7 +115,7 @@ describe('tidewright.yaml in check', () => {
     expect(code).toBe(1);
     const file = join(dir, 'tidewright.yaml');
     expect(stdout.trimEnd().split('\n')).toEqual([
-      `${file}: year: "abc" is not allowed here; write a whole year from 1970 to 2100, e.g. year: 2027, or leave the key out for next year`,
+      `${file}: year: "abc" is not a year or a range of years; write a whole year from 1970 to 2100, e.g. year: 2027, a range of at most 10 years, e.g. year: 2027-2029, or leave the key out for next year`,
       `${file}: page: "b5" is not allowed here; write one of a5, a6, a4, letter, half-letter, e.g. page: a5`,
       `${file}: colour: is not a setting tidewright knows; the settings are ${PROJECT_KEYS.join(', ')}`,
       `${dir}: 3 problems in 1 file (of 1)`,
