@@ -14,9 +14,9 @@ const SITE_NAMES = ['index.html', 'assets', 'data', 'datums', 'imprint', 'pages'
 /** At most this many files, so a folder linked by mistake to something huge cannot swamp the site. */
 export const MAX_SITE_FILES = 1000;
 
-/** The folder of publisher files in `stationsDir`, or null if there is none; a bad entry is a StationFileError. */
-export function siteFilesFolder(stationsDir: string, stationIds: readonly string[]): string | null {
-  const dir = join(stationsDir, SITE_FILES_DIR);
+/** A publisher's folder `name` in `stationsDir`, or null if there is none; anything else by that name is refused. */
+export function optionalFolder(stationsDir: string, name: string, holds: string): string | null {
+  const dir = join(stationsDir, name);
   let stat;
   try {
     stat = lstatSync(dir);
@@ -24,8 +24,15 @@ export function siteFilesFolder(stationsDir: string, stationIds: readonly string
     return null;
   }
   if (!stat.isDirectory()) {
-    throw new StationFileError(dir, '(folder)', 'is not a folder', `make ${SITE_FILES_DIR} a folder of the files to copy into the website, or remove it`);
+    throw new StationFileError(dir, '(folder)', 'is not a folder', `make ${name} a folder of ${holds}, or remove it`);
   }
+  return dir;
+}
+
+/** The folder of publisher files in `stationsDir`, or null if there is none; a bad entry is a StationFileError. */
+export function siteFilesFolder(stationsDir: string, stationIds: readonly string[]): string | null {
+  const dir = optionalFolder(stationsDir, SITE_FILES_DIR, 'the files to copy into the website');
+  if (dir === null) return null;
   const taken = new Set([...SITE_NAMES, ...stationIds]);
   let count = 0;
   const walk = (folder: string, top: boolean): void => {

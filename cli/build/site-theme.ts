@@ -3,6 +3,7 @@
 // add new ones (a partial, a picture). Layered over the built-in templates for each build (Eleventy's
 // input is the merged folder). Checked before anything is written: templates, CSS and pictures only,
 // never code (no _data/ files, no JavaScript), plain files, at most MAX_THEME_FILES.
+import { optionalFolder } from './site-files.js';
 import { lstatSync, readdirSync } from 'node:fs';
 import { extname, join, relative, sep } from 'node:path';
 import { StationFileError } from '../../engine/index.js';
@@ -13,16 +14,8 @@ const KINDS = ['.njk', '.css', '.svg', '.png', '.jpg', '.jpeg', '.webp', '.ico',
 
 /** The `site/` folder in `stationsDir`, or null if there is none; a bad entry is a StationFileError. */
 export function siteThemeFolder(stationsDir: string): string | null {
-  const dir = join(stationsDir, SITE_THEME_DIR);
-  let stat;
-  try {
-    stat = lstatSync(dir);
-  } catch {
-    return null;
-  }
-  if (!stat.isDirectory()) {
-    throw new StationFileError(dir, '(folder)', 'is not a folder', `make ${SITE_THEME_DIR} a folder of site templates and CSS that replace the built-in ones, or remove it`);
-  }
+  const dir = optionalFolder(stationsDir, SITE_THEME_DIR, 'site templates and CSS that replace the built-in ones');
+  if (dir === null) return null;
   let count = 0;
   const walk = (folder: string): void => {
     for (const name of readdirSync(folder).sort()) {
