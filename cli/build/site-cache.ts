@@ -67,7 +67,8 @@ export function sitePageStore(cacheDir: string, keyOf: (id: string, year: number
       const k = pageKey(sy, key);
       if (k === undefined) return false;
       const hit = readEntry(cacheDir, k, [PACK]);
-      const files = hit ? unpackFiles(hit.files[PACK]!) : null;
+      const pack = hit?.files[PACK];
+      const files = pack ? unpackFiles(pack) : null;
       if (!files) return false; // missing, corrupt or not ours: drawn again, and kept again
       for (const f of files) {
         await mkdir(dirname(join(siteDir, f.path)), { recursive: true });

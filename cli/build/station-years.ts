@@ -8,8 +8,8 @@ import type { StationOutcome } from './station-job.js';
 
 /** A station-year's model from its cache entry (checked whole), or an error naming what is missing. */
 export function cachedModel(cacheDir: string, id: string, key: string, year?: number): StationYear {
-  const entry = readEntry(cacheDir, key, ['model.json']);
-  const model = entry ? JSON.parse(entry.files['model.json']!.toString('utf8')) as StationYear : null;
+  const json = readEntry(cacheDir, key, ['model.json'])?.files['model.json'];
+  const model = json ? JSON.parse(json.toString('utf8')) as StationYear : null;
   if (!model || model.station.id !== id || (year !== undefined && model.year !== year)) {
     throw new Error(`the model of station "${id}" is missing from the build cache ${cacheDir} (was the folder removed during the build?)`);
   }

@@ -8,6 +8,7 @@ import { mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'n
 import { availableParallelism, loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
+import { firstOf, lastOf } from '../../engine/index.js';
 import { buildOnce, generateStations, repoRoot, type BuildRun } from './build.js';
 
 const TARGET_MS = 10 * 60_000;
@@ -49,25 +50,27 @@ function sizes(argv: readonly string[]): number[] {
 export async function bench(argv: readonly string[] = process.argv): Promise<void> {
   const root = repoRoot();
   const counts = sizes(argv);
-  const largest = counts[counts.length - 1]!;
+  const largest = lastOf(counts, 'station counts');
   const work = mkdtempSync(join(tmpdir(), 'tw-bench-national-'));
   try {
     console.log(`national: ${availableParallelism()} cores, ${WORKERS} workers, load average ${loadavg()[0]!.toFixed(1)}`);
-    const runs: Record<number, BuildRun> = {};
+    const runs = new Map<number, BuildRun>();
     for (const count of counts) {
       const stations = join(work, `stations-${count}`);
       generateStations(join(root, 'stations-demo'), stations, count);
       clean(work);
-      runs[count] = buildOnce(root, work, stations, join(work, `out-${count}`), WORKERS);
-      report(`${count} stations, clean`, count, runs[count]!);
+      const run = buildOnce(root, work, stations, join(work, `out-${count}`), WORKERS);
+      runs.set(count, run);
+      report(`${count} stations, clean`, count, run);
       if (count !== largest) rmSync(join(work, `out-${count}`), { recursive: true, force: true });
     }
     const edited = editOneSecondary(join(work, `stations-${largest}`));
     const rebuild = buildOnce(root, work, join(work, `stations-${largest}`), join(work, `out-${largest}`), WORKERS);
     report(`${largest} stations, rebuilt after editing ${edited.split('/').pop()}`, largest, rebuild);
-    const smallest = counts[0]!;
-    const small = runs[smallest]!;
-    const big = runs[largest]!;
+    const smallest = firstOf(counts, 'station counts');
+    const small = runs.get(smallest);
+    const big = runs.get(largest);
+    if (!small || !big) throw new Error('a benchmark build did not run');
     if (largest > smallest) {
       const growth = (big.maxRssBytes - small.maxRssBytes) / (largest - smallest);
       const perStation = (big.ms / largest) / (small.ms / smallest);
