@@ -29,7 +29,8 @@ export interface VolumePlan {
 /** Page arithmetic of a volume: pages before the first section (by station count) and after the last. */
 export interface VolumeFrame { front(stations: number): number; back: number }
 
-function regionOf(s: PlanStation, byId: ReadonlyMap<string, PlanStation>): string {
+/** The region a station is listed under: its own, else (a secondary port) its reference port's; '' for none. */
+export function regionOf(s: PlanStation, byId: ReadonlyMap<string, PlanStation>): string {
   if (s.region !== undefined) return s.region;
   const ref = s.kind === 'secondary' && s.reference !== undefined ? byId.get(s.reference) : undefined;
   return ref?.region ?? '';

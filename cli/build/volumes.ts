@@ -18,7 +18,7 @@ import { countPdfPages, type StationCache } from './station-job.js';
 import { stopWorker, trackWorker } from './threads.js';
 import type { VolumeJob, VolumeResult } from './volume-job.js';
 import type { VolumeChoices } from './volume-options.js';
-import { planVolumes, type PlanStation, type VolumePlan } from './volume-plan.js';
+import { planVolumes, regionOf, type PlanStation, type VolumePlan } from './volume-plan.js';
 
 export interface BindRequest {
   stations: PlanStation[]; // in the set's order
@@ -126,6 +126,17 @@ async function runHere(jobs: VolumeJob[], req: BindRequest): Promise<VolumeResul
   return results;
 }
 
+/** The index volume's lines: every station drawn, with the region it is listed under, its volume and page. */
+export function indexEntries(results: readonly VolumeResult[], stations: readonly PlanStation[]): IndexEntry[] {
+  const byId = new Map(stations.map((s) => [s.id, s]));
+  return results.flatMap((r) => r.entries.flatMap((e) => {
+    const s = byId.get(e.id);
+    if (!s) return [];
+    const region = regionOf(s, byId);
+    return [{ name: s.name, kind: s.kind, ...(region !== '' && { region }), volume: r.index + 1, page: e.page }];
+  }));
+}
+
 /** Draws the planned volumes (and the index volume when there are several); returns the pages drawn. */
 export async function bindVolumes(plan: VolumePlan, req: BindRequest): Promise<{ pages: number; volumes: VolumeResult[] }> {
   await mkdir(req.pdfDir, { recursive: true });
@@ -135,11 +146,7 @@ export async function bindVolumes(plan: VolumePlan, req: BindRequest): Promise<{
     .sort((a, b) => a.index - b.index);
   let pages = results.reduce((n, r) => n + r.pages, 0);
   if (jobs.length > 1) {
-    const byId = new Map(req.stations.map((s) => [s.id, s]));
-    const entries: IndexEntry[] = results.flatMap((r) => r.entries.map((e) => {
-      const s = byId.get(e.id)!;
-      return { name: s.name, kind: s.kind, ...(s.region !== undefined && { region: s.region }), volume: r.index + 1, page: e.page };
-    }));
+    const entries = indexEntries(results, req.stations);
     const { renderIndexVolume } = await import('../../templates/pdf/index-volume.js');
     const pdf = await renderIndexVolume(entries, req.render, { years: String(req.year), volumes: jobs.length, invented: req.stations.some((s) => s.invented) });
     await writeFile(join(req.pdfDir, volumeFileName(req.name, req.year, 'index')), pdf);

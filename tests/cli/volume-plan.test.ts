@@ -1,7 +1,9 @@
 // Filling combined volumes: the set's order kept, a reference port with its secondary ports, a region
-// to itself, no volume over the page limit, and the default mode (full while one volume holds it all).
+// to itself, no volume over the page limit, and the default mode (full while one volume holds it all);
+// the index volume lists each station under the region it is bound with.
 import { describe, expect, it } from 'vitest';
 import { planVolumes, volumeLength, type PlanStation } from '../../cli/build/volume-plan.js';
+import { indexEntries } from '../../cli/build/volumes.js';
 
 const frame = { front: (n: number) => 2 + Math.ceil(n / 40), back: 1 };
 const ref = (id: string, region?: string): PlanStation => ({ id, name: id, kind: 'reference', ...(region && { region }), sections: { full: [30, 31], compact: [30, 31] } });
@@ -57,5 +59,15 @@ describe('planning the combined volumes', () => {
     expect(plan.volumes.length).toBeGreaterThan(3);
     for (const v of plan.volumes) expect(v.pages).toBeLessThanOrEqual(150);
     expect(planVolumes(stations, { pages: 150, mode: 'none' }, frame).volumes).toEqual([]);
+  });
+});
+
+describe('the index volume', () => {
+  it('lists a secondary port without a region of its own under its reference port\'s region', () => {
+    const stations = [ref('r0', 'Brine Coast'), sec('s0-0', 'r0'), sec('s0-1', 'r0', 'Outer Skerries'), ref('r1'), sec('s1-0', 'r1')];
+    const results = [{ index: 0, pages: 10, cached: false, entries: stations.map((s, i) => ({ id: s.id, page: 1 + i })) }];
+    expect(indexEntries(results, stations).map((e) => [e.name, e.region ?? null])).toEqual([
+      ['r0', 'Brine Coast'], ['s0-0', 'Brine Coast'], ['s0-1', 'Outer Skerries'], ['r1', null], ['s1-0', null],
+    ]);
   });
 });
