@@ -36,7 +36,8 @@ export async function combinedStations(stations: readonly Station[], outcomes: R
     plan, volumes,
     draw: async () => (await bindVolumes(plan, {
       stations: planStations, choices, render: build.render, year: build.year, name, pdfDir: join(tempDir, 'pdf'),
-      cache, workers, workerUrl: compiledWorkerUrl(), ...(signal && { signal }),
+      // drawn beside the website, which keeps the main thread busy: one worker fewer (each holds a volume's models)
+      cache, workers: Math.max(1, workers - 1), workerUrl: compiledWorkerUrl(), ...(signal && { signal }),
     })).pages,
   };
 }

@@ -62,16 +62,26 @@ export function useFont(doc: PDFKit.PDFDocument, name: FontName): PDFKit.PDFDocu
 }
 
 // pdfkit shapes each word once per document and keeps the result on the font object. Shaping is
-// most of the cost of a book, and the result depends only on the face and the word, so all
-// documents of this process share one store per face (pdfkit 0.20 keeps it in `layoutCache`).
-const layouts = new Map<FontName, Record<string, unknown>>();
+// most of the cost of a book, and the result depends only on the face and the word, so documents of
+// this process share one store per face (pdfkit 0.20 keeps it in `layoutCache`). Each shaped word
+// holds on to the font object of the document that shaped it (the parsed face, ~0.5 MiB), so a store
+// shared by every book of a worker kept every book's fonts (measured: ~2 MiB more per book, 1 GiB
+// over 500 books); a store therefore serves LAYOUT_DOCUMENTS documents, then starts again.
+const layouts = new Map<FontName, { store: Record<string, unknown>; documents: number }>();
+export const LAYOUT_DOCUMENTS = 16;
 
 interface FontWithLayouts { layoutCache?: Record<string, unknown> | null }
 
 function shareLayouts(doc: PDFKit.PDFDocument, name: FontName): void {
   const font = (doc as unknown as { _font?: FontWithLayouts })._font;
   if (!font || !font.layoutCache) return;
-  let store = layouts.get(name);
-  if (!store) { store = Object.create(null) as Record<string, unknown>; layouts.set(name, store); }
-  if (font.layoutCache !== store) font.layoutCache = store;
+  let shared = layouts.get(name);
+  if (shared && font.layoutCache === shared.store) return;
+  // the face's first use in this document
+  if (!shared || shared.documents >= LAYOUT_DOCUMENTS) {
+    shared = { store: Object.create(null) as Record<string, unknown>, documents: 0 };
+    layouts.set(name, shared);
+  }
+  shared.documents++;
+  font.layoutCache = shared.store;
 }
