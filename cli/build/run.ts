@@ -17,7 +17,7 @@ import { siteFilesFolder } from './site-files.js';
 import { combinedStations, type CombinedPlan } from './volumes-step.js';
 import { siteThemeFolder } from './site-theme.js';
 import { countPdfPages, type StationCache, type StationOutcome } from './station-job.js';
-import { worstPerFile, type ImageWarning } from '../../templates/pdf/image-resolution.js';
+import { worstPerFile, type ImageWarning, type ImageWarningSink } from '../../templates/pdf/image-resolution.js';
 
 export interface ComputeRequest {
   stationsDir: string;
@@ -38,9 +38,11 @@ export interface BuildDeps {
   /** The site into siteDir, with every station-year's downloads (CSV, JSON, iCalendar) inside it, in siteDir/data. */
   renderSite(models: StationYear[], siteDir: string, options: RenderChoices, siteFiles?: string, streams?: StreamYear[]): Promise<unknown>;
   /** `beside`: the caller is rendering the website at the same time (use another thread if there is one). */
-  renderCombinedBook(models: StationYear[], options: RenderChoices, beside: boolean, signal?: AbortSignal, streams?: StreamYear[]): Promise<Buffer>;
+  /** `warn` hears of each publisher's picture that would print blurry (or, for the press, in greys). */
+  renderCombinedBook(models: StationYear[], options: RenderChoices, beside: boolean, signal?: AbortSignal, streams?: StreamYear[],
+    warn?: ImageWarningSink): Promise<Buffer>;
   /** The PDF book of one stream-year. */
-  renderStreamBook?(model: StreamYear, options: RenderChoices): Promise<Buffer>;
+  renderStreamBook?(model: StreamYear, options: RenderChoices, warn?: ImageWarningSink): Promise<Buffer>;
   cores(): number;
 }
 
@@ -161,7 +163,10 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
     // Year after year: each year's station-years, then its stream-years and their books.
     const models: StationYear[] = [];
     const streamModels: StreamYear[] = [];
-    const imageWarnings: ImageWarning[] = []; // every book places the same pictures: one line per file below
+    // every book places the publisher's pictures (station books, pocket tables, stream books, the combined
+    // book or its volumes): one line per picture, said once the last book is drawn
+    const imageWarnings: ImageWarning[] = [];
+    const warn: ImageWarningSink = (w) => imageWarnings.push(w);
     let pdfPages = 0;
     const combinedByYear = new Map<number, CombinedPlan>(); // each year's combined book, or volumes drawn from the cache
     for (const year of years) {
@@ -180,14 +185,13 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
           const pdfDir = join(target.temp, 'pdf');
           await mkdir(pdfDir, { recursive: true });
           for (const model of yearStreams) {
-            const pdf = await deps.renderStreamBook!(model, plan.render);
+            const pdf = await deps.renderStreamBook!(model, plan.render, warn);
             await writeFile(stationYearFile(pdfDir, model.station.id, year, 'pdf'), pdf);
             pdfPages += countPdfPages(pdf);
           }
         });
       }
     }
-    for (const w of worstPerFile(imageWarnings)) events.note(w.text);
 
     // With more than one worker the combined book is drawn beside the website, else after it. The
     // combined book's worker holds its own copy of every model (about 0.85 MiB each) and the whole PDF,
@@ -205,11 +209,11 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
         const combined = combinedByYear.get(year);
         if (combined?.plan.mode === 'none') continue;
         if (combined?.volumes) {
-          pdfPages += await combined.draw();
+          pdfPages += await combined.draw(warn);
           continue;
         }
         const pdf = await deps.renderCombinedBook(models.filter((m) => m.year === year), plan.render, beside, events.signal,
-          streamModels.filter((m) => m.year === year));
+          streamModels.filter((m) => m.year === year), warn);
         await mkdir(join(target.temp, 'pdf'), { recursive: true });
         await writeFile(stationYearFile(join(target.temp, 'pdf'), name, year, 'pdf'), pdf);
         pdfPages += countPdfPages(pdf);
@@ -226,6 +230,7 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
       await book();
     }
     events.signal?.throwIfAborted();
+    for (const w of worstPerFile(imageWarnings)) events.note(w.text);
 
     const tree = await step('counting the output', times, () => treeStats(target.temp));
     events.progress.clear();

@@ -15,6 +15,7 @@ import { checkBookOptions, type BookOptions } from './options.js';
 import type { BookSettings, LogicalPage, PageContext } from './page.js';
 import { renderBook } from './render.js';
 import { HAIRLINE, INK, MID, RULE } from './style.js';
+import { group, tag } from './tags.js';
 import { paragraph, put, putFitted } from './text.js';
 
 const HEADER = 46; // design points above the first day row
@@ -39,9 +40,12 @@ function firstPage(model: StreamYear, title: string, w: Words): LogicalPage {
       const { doc, box } = ctx;
       const s = ctx.settings.geometry.scale;
       let y = box.y + 20 * s;
-      putFitted(doc, st.name, box.x, y, { font: 'bold', size: 18 * s }, box.width, 9 * s);
-      y += 16 * s;
-      put(doc, `${title} \u00b7 ${w.t('stream.title', { year: model.year })}`, box.x, y, { font: 'regular', size: 11 * s, color: MID });
+      // the book's title: the station, then what the book is and its year
+      tag(doc, 'H1', {}, () => {
+        putFitted(doc, `${st.name} `, box.x, y, { font: 'bold', size: 18 * s }, box.width, 9 * s);
+        y += 16 * s;
+        put(doc, `${title} \u00b7 ${w.t('stream.title', { year: model.year })}`, box.x, y, { font: 'regular', size: 11 * s, color: MID });
+      });
       y += 22 * s;
       const facts: [string, string][] = [
         [w.t('stream.station'), st.kind === 'stream-secondary' ? w.t('stream.secondaryOf', { station: model.reference?.name ?? '' })
@@ -53,16 +57,17 @@ function firstPage(model: StreamYear, title: string, w: Words): LogicalPage {
         [w.t('stream.rates'), w.t('stream.inKnots')],
         [w.t('stream.springsNeaps'), model.tideReference ? w.t('stream.asAt', { station: model.tideReference.name }) : w.t('stream.ownRates')],
       ];
-      facts.forEach(([label, value], i) => {
-        putFitted(doc, label, box.x, y, { font: 'narrow-bold', size: 8.5 * s }, 96 * s, 5.5 * s);
+      // read as a two-column table, each label the header of its row; the arrows are decoration beside the bearings
+      group(doc, 'Table', {}, () => facts.forEach(([label, value], i) => group(doc, 'TR', {}, () => {
+        tag(doc, 'TH', { scope: 'Row' }, () => putFitted(doc, label, box.x, y, { font: 'narrow-bold', size: 8.5 * s }, 96 * s, 5.5 * s));
         const arrow = i === 3 ? model.floodDirection : i === 4 ? model.ebbDirection : null;
         const vx = box.x + 100 * s + (arrow === null ? 0 : 12 * s);
         if (arrow !== null) streamArrow(doc, arrow, box.x + 104 * s, y - 3 * s, 8 * s);
-        putFitted(doc, value, vx, y, { font: 'narrow', size: 8.5 * s }, box.x + box.width - vx, 6 * s);
+        tag(doc, 'TD', {}, () => putFitted(doc, value, vx, y, { font: 'narrow', size: 8.5 * s }, box.x + box.width - vx, 6 * s));
         y += 12 * s;
-      });
+      })));
       y += 14 * s;
-      put(doc, w.t('caution.heading').toLocaleUpperCase(w.tag), box.x, y, { font: 'bold', size: 10 * s });
+      tag(doc, 'H2', {}, () => put(doc, w.t('caution.heading').toLocaleUpperCase(w.tag), box.x, y, { font: 'bold', size: 10 * s }));
       y += 14 * s;
       y = paragraph(doc, printable(`${w.caution} ${w.t('caution.streams')}`), box.x, y, box.width, { font: 'regular', size: 8.5 * s });
       if (model.invented) {
