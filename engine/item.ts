@@ -30,3 +30,13 @@ export function firstOf<T>(items: ArrayLike<T>, what: string): T {
 export function lastOf<T>(items: ArrayLike<T>, what: string): T {
   return itemAt(items, items.length - 1, what);
 }
+
+/**
+ * itemAt for the engine's Float64Array hot loops: one function for one kind of array, so the optimising
+ * compiler sees a single element kind here (itemAt is called with every kind of list and would not).
+ */
+export function numberAt(values: Float64Array, index: number, what: string): number {
+  const value = values[index];
+  if (value === undefined) throw new IndexOutOfRangeError(what, index, values.length);
+  return value;
+}
