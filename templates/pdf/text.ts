@@ -40,7 +40,8 @@ export function put(doc: PDFKit.PDFDocument, text: string, x: number, y: number,
 
 function putUntagged(doc: PDFKit.PDFDocument, text: string, x: number, y: number, style: TextStyle, align: Align): number {
   useFont(doc, style.font).fontSize(style.size).fillColor(style.color ?? '#000000');
-  const s = drawable(doc, text);
+  // a right-to-left line keeps no unseen end space (spacedLines): it would land at its left end
+  const s = needsBidi(text) ? drawable(doc, text).trimEnd() : drawable(doc, text);
   const w = doc.widthOfString(s);
   const left = align === 'left' ? x : align === 'right' ? x - w : x - w / 2;
   if (!needsBidi(s)) {
