@@ -40,15 +40,20 @@ export function checkImageResolution(warn: ImageWarningSink | undefined,
   if (text !== null) warn({ file: picture.file, kind: 'resolution', dpi: Math.floor(printedDpi(picture.pixels, widthPt, heightPt)), text });
 }
 
-/** Of several warnings, one of each kind per file: of the resolution ones, where it prints least sharp. */
+/**
+ * Of several warnings, one of each kind per file (of the resolution ones, where it prints least sharp),
+ * each file's lines together, files in the order first heard of.
+ */
 export function worstPerFile(warnings: Iterable<ImageWarning>): ImageWarning[] {
-  const worst = new Map<string, ImageWarning>();
+  const byFile = new Map<string, Map<string, ImageWarning>>();
   for (const w of warnings) {
-    const key = `${w.kind ?? 'resolution'}\u0000${w.file}`;
-    const seen = worst.get(key);
-    if (seen === undefined || (w.dpi ?? Infinity) < (seen.dpi ?? Infinity)) worst.set(key, w);
+    const kinds = byFile.get(w.file) ?? new Map<string, ImageWarning>();
+    byFile.set(w.file, kinds);
+    const kind = w.kind ?? 'resolution';
+    const seen = kinds.get(kind);
+    if (seen === undefined || (w.dpi ?? Infinity) < (seen.dpi ?? Infinity)) kinds.set(kind, w);
   }
-  return [...worst.values()];
+  return [...byFile.values()].flatMap((kinds) => ['resolution', 'colour'].flatMap((k) => kinds.get(k) ?? []));
 }
 
 /** The pixel size of a JPEG or PNG as pdfkit reads it. */
