@@ -24,9 +24,9 @@ export const realBuildDeps: BuildDeps = {
     const { stationJobDeps } = await import('./engine-deps.js');
     return computeStations(request, onStation, stationJobDeps, signal);
   },
-  renderSite: async (models, siteDir, options, siteFiles, streams) => {
-    const { renderSite } = await import('../../templates/site/render.js');
-    return renderSite(models, siteDir, { ...options, quiet: true, ...(siteFiles !== undefined && { siteFiles }), ...(streams && { streams }) });
+  renderSite: async (source, siteDir, options, siteFiles, streams) => {
+    const { renderSiteFrom } = await import('../../templates/site/render.js');
+    return renderSiteFrom(source, siteDir, { ...options, quiet: true, ...(siteFiles !== undefined && { siteFiles }), ...(streams && { streams }) });
   },
   renderCombinedBook: (models, options, beside, signal, streams) => {
     const workerUrl = beside ? compiledWorkerUrl() : null;

@@ -8,6 +8,7 @@ import type { VolumeEntry, VolumeStation, VolumeText } from '../../templates/pdf
 import { resultEvent, type WorkedExample } from '../../templates/pdf/worked-example.js';
 import { readEntry, writeEntry } from './cache.js';
 import type { RenderChoices } from './options.js';
+import { cachedModel } from './station-years.js';
 
 export interface VolumeJob {
   index: number; // 0-based
@@ -22,13 +23,6 @@ export interface VolumeResult { index: number; entries: VolumeEntry[]; pages: nu
 export interface VolumeJobDeps {
   renderVolume(stations: VolumeStation[], options: RenderChoices, text: VolumeText): Promise<{ pdf: Buffer; entries: VolumeEntry[] }>;
   countPages(pdf: Buffer): number;
-}
-
-function loadModel(cacheDir: string, id: string, key: string): StationYear {
-  const entry = readEntry(cacheDir, key, ['model.json']);
-  const model = entry ? JSON.parse(entry.files['model.json']!.toString('utf8')) as StationYear : null;
-  if (!model || model.station.id !== id) throw new Error(`the model of station "${id}" is missing from the build cache ${cacheDir} (was the folder removed during the build?)`);
-  return model;
 }
 
 /** The first high water at the reference port from its first spring tide of the year, worked through. */
@@ -50,11 +44,11 @@ export async function runVolumeJob(job: VolumeJob, cacheDir: string, render: Ren
     await writeFile(job.file, hit.files['volume.pdf']!);
     return { index: job.index, entries: meta.entries, pages: meta.pages, cached: true };
   }
-  const models = new Map(job.stations.map((s) => [s.id, loadModel(cacheDir, s.id, s.key)]));
+  const models = new Map(job.stations.map((s) => [s.id, cachedModel(cacheDir, s.id, s.key)]));
   const stations: VolumeStation[] = job.stations.map((s) => {
     const model = models.get(s.id)!;
     if (!s.compact || s.reference === undefined) return { model, compact: s.compact, worked: null };
-    const reference = models.get(s.reference.id) ?? loadModel(cacheDir, s.reference.id, s.reference.key);
+    const reference = models.get(s.reference.id) ?? cachedModel(cacheDir, s.reference.id, s.reference.key);
     return { model, compact: true, worked: workedExample(model, reference) };
   });
   const { pdf, entries } = await deps.renderVolume(stations, render, job.text);

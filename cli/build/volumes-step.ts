@@ -25,8 +25,8 @@ export async function combinedStations(stations: readonly Station[], outcomes: R
     // Station jobs that report no section lengths (a test's own): the one combined book.
     if (!outcome?.sections) return { plan: { mode: choices.mode === 'none' ? 'none' : 'full', volumes: [] }, volumes: false, draw: async () => 0 };
     planStations.push({
-      id: s.id, name: outcome.model.station.name, kind: s.kind, ...(s.kind === 'secondary' && { reference: s.reference }),
-      ...(s.region !== undefined && { region: s.region }), invented: outcome.model.invented, sections: outcome.sections,
+      id: s.id, name: outcome.summary.station.name, kind: s.kind, ...(s.kind === 'secondary' && { reference: s.reference }),
+      ...(s.region !== undefined && { region: s.region }), invented: outcome.summary.invented, sections: outcome.sections,
     });
   }
   const plan = await planCombined(planStations, choices, build.render);

@@ -49,10 +49,11 @@ function stubs(stations: Station[], overrides: Partial<BuildDeps> = {}): Stubs {
         const s = stations.find((x) => x.id === id)!;
         await mkdir(join(request.tempDir, 'pdf'), { recursive: true });
         await writeFile(join(request.tempDir, 'pdf', `${id}-${request.year}.pdf`), fakePdf(3, s.name));
-        onStation({ id, model: modelOf(s, request.year), pdfPages: 3 });
+        { const model = modelOf(s, request.year); onStation({ id, summary: model, model, pdfPages: 3 }); }
       }
     },
-    async renderSite(models, siteDir) {
+    async renderSite(source, siteDir) {
+      const models = source.stationYears;
       deps.siteOrder = models.map((m) => m.station.id);
       const dataDir = join(siteDir, 'data');
       await mkdir(dataDir, { recursive: true });
@@ -108,9 +109,9 @@ describe('buildAlmanac', () => {
     });
     const site: string[] = [];
     const inner = deps.renderSite.bind(deps);
-    deps.renderSite = async (models, ...rest) => {
-      site.push(...models.map((m) => `${m.station.id}-${m.year}`));
-      return inner(models, ...rest);
+    deps.renderSite = async (source, ...rest) => {
+      site.push(...source.stationYears.map((m) => `${m.station.id}-${m.year}`));
+      return inner(source, ...rest);
     };
     const summary = await buildAlmanac(p, deps, quietEvents());
     expect(site).toEqual(['2027', '2028', '2029'].flatMap((y) => ['a', 'b', 'c', 'd'].map((id) => `${id}-${y}`)));
@@ -171,7 +172,7 @@ describe('buildAlmanac', () => {
     await buildAlmanac(plan({ workers: 2 }), {
       ...stubs(many),
       async computeStations(request, onStation) {
-        for (const id of request.units.flat()) onStation({ id, model: base, pdfPages: 1 });
+        for (const id of request.units.flat()) onStation({ id, summary: base, model: base, pdfPages: 1 });
       },
       async renderSite() {},
       async renderCombinedBook(_models, _options, b) {
@@ -203,7 +204,7 @@ describe('buildAlmanac', () => {
 
   it.each([
     ['a station', { async computeStations() { throw new BuildStepError('station b', new Error('no tide')); } }, 'station b'],
-    ['the website', { async renderSite(_m: StationYear[], siteDir: string) {
+    ['the website', { async renderSite(_source: unknown, siteDir: string) {
       await mkdir(siteDir, { recursive: true });
       await writeFile(join(siteDir, 'half.html'), '<p>half');
       throw Object.assign(new Error('write failed'), { code: 'ENOSPC' });
