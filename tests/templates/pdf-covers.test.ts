@@ -104,6 +104,19 @@ describe('covers as a screen reader reads them', () => {
     expect(spoken(index.children[2])).toBe('Index of stations');
   });
 
+  it.skipIf(!POPPLER)('index volume: the list read as a table of station, volume and page', async () => {
+    const entries = [{ name: 'Saltgrist Cove', kind: 'secondary' as const, region: 'North Coast', volume: 2, page: 31 },
+      { name: 'Brinewold Head', kind: 'reference' as const, volume: 1, page: 4 }];
+    const file = join(dir, 'index-list.pdf');
+    writeFileSync(file, await renderIndexVolume(entries, { units: 'm', page: 'a5' }, { years: '2027', volumes: 2, invented: true }));
+    const [table, ...more] = nodesOf(structureTree(file), 'Table');
+    expect(more).toEqual([]);
+    const [head, ...rows] = table?.children ?? [];
+    expect(head?.children.map((c) => c.type)).toEqual(['TH', 'TH', 'TH']);
+    expect(rows.map((r) => r.children.map(spoken))).toEqual([['Brinewold Head', '1', '4'], ['Saltgrist Cove North Coast', '2', '31']]);
+    for (const r of rows) expect(r.children[0]?.attrs).toContain('Scope /Row');
+  });
+
   it.skipIf(!POPPLER)('stream book: the station and the book as its heading, the facts as labelled rows', { timeout: 600_000 }, async () => {
     const stream = buildStreamYear(set.streams!.find((s) => s.id === 'wrackrun-narrows')!, set, 2027);
     const first = firstSection(await renderStreamBook(stream, { units: 'm', page: 'a5' }), 'stream');
