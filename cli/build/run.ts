@@ -21,7 +21,7 @@ import { countPdfPages, type StationCache, type StationOutcome } from './station
 import { stationYears, type StationYears } from './station-years.js';
 import { sitePageStore } from './site-cache.js';
 import type { SiteSource } from '../../templates/site/render.js';
-import { worstPerFile, type ImageWarning } from '../../templates/pdf/image-resolution.js';
+import { worstPerFile, type ImageWarning, type ImageWarningSink } from '../../templates/pdf/image-resolution.js';
 
 export interface ComputeRequest {
   stationsDir: string;
@@ -42,9 +42,11 @@ export interface BuildDeps {
   /** The site into siteDir, with every station-year's downloads (CSV, JSON, iCalendar) inside it, in siteDir/data. */
   renderSite(source: SiteSource, siteDir: string, options: RenderChoices, siteFiles?: string, streams?: StreamYear[]): Promise<unknown>;
   /** `beside`: the caller is rendering the website at the same time (use another thread if there is one). */
-  renderCombinedBook(models: StationYear[], options: RenderChoices, beside: boolean, signal?: AbortSignal, streams?: StreamYear[]): Promise<Buffer>;
+  /** `warn` hears of each publisher's picture that would print blurry (or, for the press, in greys). */
+  renderCombinedBook(models: StationYear[], options: RenderChoices, beside: boolean, signal?: AbortSignal, streams?: StreamYear[],
+    warn?: ImageWarningSink): Promise<Buffer>;
   /** The PDF book of one stream-year. */
-  renderStreamBook?(model: StreamYear, options: RenderChoices): Promise<Buffer>;
+  renderStreamBook?(model: StreamYear, options: RenderChoices, warn?: ImageWarningSink): Promise<Buffer>;
   cores(): number;
 }
 
@@ -168,7 +170,10 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
     // Year after year: each year's station-years, then its stream-years and their books.
     const found = stationYears(cacheDir); // summaries in memory, models read from the cache when drawn
     const streamModels: StreamYear[] = [];
-    const imageWarnings: ImageWarning[] = []; // every book places the same pictures: one line per file below
+    // every book places the publisher's pictures (station books, pocket tables, stream books, the combined
+    // book or its volumes): one line per picture, said once the last book is drawn
+    const imageWarnings: ImageWarning[] = [];
+    const warn: ImageWarningSink = (w) => imageWarnings.push(w);
     let pdfPages = 0;
     const combinedByYear = new Map<number, CombinedPlan>(); // each year's combined book, or volumes drawn from the cache
     for (const year of years) {
@@ -186,14 +191,13 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
           const pdfDir = join(target.temp, 'pdf');
           await mkdir(pdfDir, { recursive: true });
           for (const model of yearStreams) {
-            const pdf = await deps.renderStreamBook!(model, plan.render);
+            const pdf = await deps.renderStreamBook!(model, plan.render, warn);
             await writeFile(stationYearFile(pdfDir, model.station.id, year, 'pdf'), pdf);
             pdfPages += countPdfPages(pdf);
           }
         });
       }
     }
-    for (const w of worstPerFile(imageWarnings)) events.note(w.text);
 
     // With more than one worker the combined book is drawn beside the website, else after it. The
     // combined book's worker holds its own copy of every model (about 0.85 MiB each) and the whole PDF,
@@ -213,13 +217,13 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
         const combined = combinedByYear.get(year);
         if (combined?.plan.mode === 'none') continue;
         if (combined?.volumes) {
-          pdfPages += await combined.draw();
+          pdfPages += await combined.draw(warn);
           continue;
         }
         // one volume's worth of station-years at most (a larger set is bound in volumes, read one by one)
         const models = found.summaries.filter((m) => m.year === year).map((sy) => found.model(sy));
         const pdf = await deps.renderCombinedBook(models, plan.render, beside, events.signal,
-          streamModels.filter((m) => m.year === year));
+          streamModels.filter((m) => m.year === year), warn);
         await mkdir(join(target.temp, 'pdf'), { recursive: true });
         await writeFile(stationYearFile(join(target.temp, 'pdf'), name, year, 'pdf'), pdf);
         pdfPages += countPdfPages(pdf);
@@ -236,6 +240,7 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
       await book();
     }
     events.signal?.throwIfAborted();
+    for (const w of worstPerFile(imageWarnings)) events.note(w.text);
 
     const tree = await step('counting the output', times, () => treeStats(target.temp));
     events.progress.clear();

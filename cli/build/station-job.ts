@@ -16,7 +16,7 @@ import { worstPerFile, type ImageWarning, type ImageWarningSink } from '../../te
 export interface StationJobDeps {
   buildStationYear(station: Station, set: StationSet, year: number, engine: EngineContext): StationYear | Promise<StationYear>;
   renderStationBook(model: StationYear, options: RenderChoices, warn?: ImageWarningSink): Promise<Buffer>;
-  renderPocketTable?(model: StationYear, options: RenderChoices): Promise<Buffer>;
+  renderPocketTable?(model: StationYear, options: RenderChoices, warn?: ImageWarningSink): Promise<Buffer>;
   /** Pages of the station's section in a combined volume (for filling volumes before drawing them). */
   sectionPages?(model: StationYear, options: RenderChoices): SectionPages;
 }
@@ -98,7 +98,7 @@ export async function runStationJob(id: string, ctx: StationJobContext, deps: St
   let pdfPages = countPdfPages(pdf);
   const files: Record<string, Buffer> = { 'model.json': json, 'book.pdf': pdf };
   if (pocket) {
-    const sheet = await deps.renderPocketTable!(model, ctx.render);
+    const sheet = await deps.renderPocketTable!(model, ctx.render, (w) => warnings.push(w));
     await writeFile(pocketFile, sheet);
     pdfPages += countPdfPages(sheet);
     files['pocket.pdf'] = sheet;

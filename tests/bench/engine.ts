@@ -3,13 +3,13 @@
 //     loop (f, u and V₀ evaluated once a day, one cosine per constituent per step); target ≥ 3×;
 // (b) all high and low waters of that station-year: findExtrema against 1-minute sampling with direct
 //     cosines (which is also 60 times coarser in time); target ≥ 30×.
-import { findExtrema, compilePredictor } from '../../engine/index.js';
+import { findExtrema, compilePredictor, itemAt } from '../../engine/index.js';
 import { sixtyConstituentStation } from '../fixtures/engine-stations.js';
 import { directMinuteSeries } from './direct.js';
 
 const MINUTE = 60_000;
 const DAY = 86_400_000;
-const RUNS = 9;
+const RUNS = 15;
 
 /** High and low waters read off a sampled series (the sample nearest each turn). */
 function sampledExtrema(h: Float64Array): number {
@@ -33,27 +33,34 @@ function median(values: number[]): number {
 // `npm run bench` starts node with --expose-gc
 const collectGarbage = (globalThis as { gc?: () => void }).gc ?? (() => {});
 
-/** Runs each job RUNS times, interleaved so both see the same machine load. */
+/**
+ * Runs each job RUNS times, interleaved so both see the same machine load. Garbage is collected once
+ * before each round, the jobs then run from the last to the first: the first job, the one measured against
+ * the others, pays for any garbage they left. (Collecting before every job as well made the first job's
+ * timings swing by 3× on a loaded machine: two full collections in a row with nothing run between them
+ * throw away more of the optimised code than a build ever does.)
+ */
 export function timeSideBySide(jobs: (() => unknown)[]): Timing[] {
-  // warm up until the optimising compiler has settled: at least 5 runs and 0.5 s of each job
+  // warm up until the optimising compiler has settled: at least 10 runs and 1 s of each job
   for (const job of jobs) {
     const t0 = performance.now();
-    for (let r = 0; r < 5 || performance.now() - t0 < 500; r++) job();
+    for (let r = 0; r < 10 || performance.now() - t0 < 1000; r++) job();
   }
   const wall = jobs.map(() => [] as number[]);
   const cpu = jobs.map(() => [] as number[]);
   for (let r = 0; r < RUNS; r++) {
-    jobs.forEach((job, i) => {
-      collectGarbage(); // neither job pays for the other's garbage
+    collectGarbage();
+    for (let i = jobs.length - 1; i >= 0; i--) {
+      const job = itemAt(jobs, i, 'benchmark jobs');
       const c0 = process.cpuUsage();
       const t0 = performance.now();
       job();
-      wall[i]!.push(performance.now() - t0);
+      itemAt(wall, i, 'wall times').push(performance.now() - t0);
       const c = process.cpuUsage(c0);
-      cpu[i]!.push((c.user + c.system) / 1000);
-    });
+      itemAt(cpu, i, 'CPU times').push((c.user + c.system) / 1000);
+    }
   }
-  return jobs.map((_, i) => ({ wall: median(wall[i]!), cpu: median(cpu[i]!) }));
+  return jobs.map((_, i) => ({ wall: median(itemAt(wall, i, 'wall times')), cpu: median(itemAt(cpu, i, 'CPU times')) }));
 }
 
 export function line(label: string, t: Timing): string {
