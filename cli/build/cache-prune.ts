@@ -12,10 +12,10 @@ import { randomBytes } from 'node:crypto';
 const BUILDS = 'builds';
 const ENTRY = 'entry.json';
 const DAY_MS = 24 * 3600 * 1000;
-/** Some file systems keep modification times to the second or two: touches this close before the start count. */
-const CLOCK_SLACK_MS = 5000;
 
 export interface CacheUse {
+  /** When the build began using the cache, by the file system's clock (entries touched since have a later or equal time). */
+  since: number;
   /** True when no other build is using the cache now. */
   alone(): boolean;
   release(): void;
@@ -42,13 +42,17 @@ function alive(marker: string, dir: string): boolean {
 export function useCache(cacheDir: string): CacheUse {
   const dir = join(cacheDir, BUILDS);
   const own = `${hostname().replace(/[^A-Za-z0-9.-]/g, '_')}~${process.pid}~${randomBytes(4).toString('hex')}`;
+  let since = Date.now();
   try {
     mkdirSync(dir, { recursive: true });
     writeFileSync(join(dir, own), '');
+    // the same clock as the entries' times; whole milliseconds, as a touch (utimes with a Date) sets them
+    since = Math.floor(statSync(join(dir, own)).mtimeMs);
   } catch {
     // a cache folder we may not write: the build says so when it writes its first entry
   }
   return {
+    since,
     alone: () => {
       try {
         return readdirSync(dir).every((m) => m === own || !alive(m, dir));
@@ -69,10 +73,10 @@ export function useCache(cacheDir: string): CacheUse {
   };
 }
 
-/** Removes every entry not touched since `since` (UTC ms), stale temporary folders and dead builds' markers. */
+/** Removes every entry last touched before `since` (CacheUse.since), stale temporary folders and dead builds' markers. */
 export function pruneCache(cacheDir: string, since: number): { entries: number } {
   if (!existsSync(cacheDir)) return { entries: 0 };
-  const before = since - CLOCK_SLACK_MS;
+  const before = since;
   let entries = 0;
   for (const top of readdirSync(cacheDir, { withFileTypes: true })) {
     const path = join(cacheDir, top.name);

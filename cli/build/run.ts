@@ -163,7 +163,6 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
   events.tempCreated(target);
   const cacheDir = cacheDirFor(target.out);
   const cacheUse = useCache(cacheDir);
-  const since = Date.now();
   try {
     const units = workUnits(stations, plan.workers ?? deps.cores());
     const workers = poolSize(plan.workers, deps.cores(), units.length);
@@ -249,7 +248,7 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
     // What this build did not use goes (unless another build is using the cache right now).
     if (cacheUse.alone()) {
       try {
-        await step('pruning the build cache', times, async () => pruneCache(cacheDir, since));
+        await step('pruning the build cache', times, async () => pruneCache(cacheDir, cacheUse.since));
       } catch (error) {
         events.note(`could not remove unused entries of the build cache ${cacheDir} (${messageOf(error)}); the build itself is complete`);
       }

@@ -25,7 +25,7 @@ describe('pruning the build cache', () => {
     for (const n of [1, 2, 3]) aged(keyOf(n));
     mkdirSync(join(dir, 'tmp-123-abcdef'));
     utimesSync(join(dir, 'tmp-123-abcdef'), OLD, OLD);
-    const since = Date.now();
+    const { since, release } = useCache(dir);
     expect(readEntry(dir, keyOf(1), ['a.pdf'])).not.toBeNull(); // read by this build
     writeEntry(dir, keyOf(4), { 'a.pdf': Buffer.from('%PDF 4') }, null); // written by it
     expect(pruneCache(dir, since)).toEqual({ entries: 2 });
@@ -34,6 +34,7 @@ describe('pruning the build cache', () => {
     expect(readEntry(dir, keyOf(2), ['a.pdf'])).toBeNull();
     expect(readEntry(dir, keyOf(3), ['a.pdf'])).toBeNull();
     expect(existsSync(join(dir, 'tmp-123-abcdef'))).toBe(false);
+    release();
   });
 
   it('waits while another live build uses the cache; a dead one does not count', () => {
@@ -44,7 +45,7 @@ describe('pruning the build cache', () => {
     other.release();
     writeFileSync(join(dir, 'builds', `${hostname()}~999999999~dead`), ''); // no such process
     expect(ours.alone()).toBe(true);
-    pruneCache(dir, Date.now());
+    pruneCache(dir, ours.since);
     expect(readdirSync(join(dir, 'builds'))).toHaveLength(1); // the dead build's marker went
     ours.release();
     expect(existsSync(dir)).toBe(false); // nothing else was in it
