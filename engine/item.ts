@@ -21,6 +21,13 @@ export function itemAt<T>(items: ArrayLike<T>, index: number, what: string): T {
   return item;
 }
 
+/** itemAt for a Float64Array: one shape, so the numeric loops that call it stay monomorphic and V8 inlines it. */
+export function valueAt(values: Float64Array, index: number, what: string): number {
+  const value = values[index];
+  if (value === undefined) throw new IndexOutOfRangeError(what, index, values.length);
+  return value;
+}
+
 /** The first item, or an IndexOutOfRangeError naming `what` when the list is empty. */
 export function firstOf<T>(items: ArrayLike<T>, what: string): T {
   return itemAt(items, 0, what);

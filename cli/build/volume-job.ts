@@ -2,7 +2,7 @@
 // read (and a compact secondary port's reference, for its worked example), then dropped. A volume
 // whose stations, place and choices are unchanged is copied from the cache instead.
 import { writeFile } from 'node:fs/promises';
-import { differenceExample } from '../../engine/index.js';
+import { differenceExample, itemAt } from '../../engine/index.js';
 import type { ReferenceStation, SecondaryStation, StationYear } from '../../engine/index.js';
 import type { VolumeEntry, VolumeStation, VolumeText } from '../../templates/pdf/volume.js';
 import { resultEvent, type WorkedExample } from '../../templates/pdf/worked-example.js';
@@ -26,7 +26,7 @@ export interface VolumeJobDeps {
 
 function loadModel(cacheDir: string, id: string, key: string): StationYear {
   const entry = readEntry(cacheDir, key, ['model.json']);
-  const model = entry ? JSON.parse(entry.files['model.json']!.toString('utf8')) as StationYear : null;
+  const model = entry ? JSON.parse(entry.files['model.json'].toString('utf8')) as StationYear : null;
   if (!model || model.station.id !== id) throw new Error(`the model of station "${id}" is missing from the build cache ${cacheDir} (was the folder removed during the build?)`);
   return model;
 }
@@ -39,7 +39,7 @@ function workedExample(model: StationYear, reference: StationYear): WorkedExampl
   if (from === undefined) return null;
   const example = differenceExample(reference.events, reference.station as ReferenceStation, model.station as SecondaryStation, from);
   if (example === null) return null;
-  return { example, highWater: reference.events[example.referenceIndex]!, lowWater: reference.events[example.lowIndex]!,
+  return { example, highWater: itemAt(reference.events, example.referenceIndex, 'reference events'), lowWater: itemAt(reference.events, example.lowIndex, 'reference events'),
     result: resultEvent(model, example.time) };
 }
 
@@ -47,7 +47,7 @@ export async function runVolumeJob(job: VolumeJob, cacheDir: string, render: Ren
   const hit = readEntry(cacheDir, job.key, ['volume.pdf']);
   const meta = hit?.meta as { entries?: VolumeEntry[]; pages?: number } | undefined;
   if (hit && Array.isArray(meta?.entries) && typeof meta.pages === 'number') {
-    await writeFile(job.file, hit.files['volume.pdf']!);
+    await writeFile(job.file, hit.files['volume.pdf']);
     return { index: job.index, entries: meta.entries, pages: meta.pages, cached: true };
   }
   const models = new Map(job.stations.map((s) => [s.id, loadModel(cacheDir, s.id, s.key)]));
