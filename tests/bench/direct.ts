@@ -1,5 +1,5 @@
 // The baseline the benchmarks measure against: direct cosine sums at 1-minute steps.
-import { findConstituent, compileAstronomicalTerms } from '../../engine/index.js';
+import { compileAstronomicalTerms, entryOf, findConstituent, valueAt } from '../../engine/index.js';
 import type { ReferenceStation } from '../../engine/index.js';
 
 const DAY = 86_400_000;
@@ -10,8 +10,8 @@ export function directMinuteSeries(station: ReferenceStation, start: number, day
   const names = Object.keys(station.constituents);
   const n = names.length;
   const terms = compileAstronomicalTerms(names);
-  const H = Float64Array.from(names, (k) => station.constituents[k]!.amplitude);
-  const g = Float64Array.from(names, (k) => station.constituents[k]!.phase);
+  const H = Float64Array.from(names, (k) => entryOf(station.constituents, k, 'constituents').amplitude);
+  const g = Float64Array.from(names, (k) => entryOf(station.constituents, k, 'constituents').phase);
   const omegaPerMinute = Float64Array.from(names, (k) => (findConstituent(k)!.speed * DEG) / 60);
   const V = new Float64Array(n);
   const f = new Float64Array(n);
@@ -22,12 +22,12 @@ export function directMinuteSeries(station: ReferenceStation, start: number, day
   for (let d = 0; d < days; d++) {
     terms.evaluate(start + d * DAY, V, f, u);
     for (let k = 0; k < n; k++) {
-      amplitude[k] = f[k]! * H[k]!;
-      phase[k] = (V[k]! + u[k]! - g[k]!) * DEG;
+      amplitude[k] = valueAt(f, k, 'node factors') * valueAt(H, k, 'amplitudes');
+      phase[k] = (valueAt(V, k, 'equilibrium arguments') + valueAt(u, k, 'nodal angles') - valueAt(g, k, 'phase lags')) * DEG;
     }
     for (let m = 0; m < 1440; m++) {
       let h = station.mean_level;
-      for (let k = 0; k < n; k++) h += amplitude[k]! * Math.cos(phase[k]! + omegaPerMinute[k]! * m);
+      for (let k = 0; k < n; k++) h += valueAt(amplitude, k, 'amplitudes') * Math.cos(valueAt(phase, k, 'phases') + valueAt(omegaPerMinute, k, 'speeds') * m);
       out[d * 1440 + m] = h;
     }
   }

@@ -8,6 +8,7 @@ import { availableParallelism, loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { buildOnce, generateStations, repoRoot, type BuildRun } from './build.js';
+import { entryOf, firstOf } from '../../engine/index.js';
 
 const TARGET_MS = 10 * 60_000;
 const TARGET_BYTES = 1.5 * 1024 ** 3;
@@ -40,28 +41,28 @@ export async function bench(): Promise<void> {
   const root = repoRoot();
   const work = mkdtempSync(join(tmpdir(), 'tw-bench-national-'));
   try {
-    console.log(`national: ${availableParallelism()} cores, ${WORKERS} workers, load average ${loadavg()[0]!.toFixed(1)}`);
+    console.log(`national: ${availableParallelism()} cores, ${WORKERS} workers, load average ${firstOf(loadavg(), 'load averages').toFixed(1)}`);
     const runs: Record<number, BuildRun> = {};
     for (const count of [100, 1000]) {
       const stations = join(work, `stations-${count}`);
       generateStations(join(root, 'stations-demo'), stations, count);
       clean(work);
       runs[count] = buildOnce(root, work, stations, join(work, `out-${count}`), WORKERS);
-      report(`${count} stations, clean`, count, runs[count]!);
+      report(`${count} stations, clean`, count, entryOf(runs, count, 'runs'));
       if (count !== 1000) rmSync(join(work, `out-${count}`), { recursive: true, force: true });
     }
     const edited = editOneSecondary(join(work, 'stations-1000'));
     const rebuild = buildOnce(root, work, join(work, 'stations-1000'), join(work, 'out-1000'), WORKERS);
     report(`1000 stations, rebuilt after editing ${edited.split('/').pop()}`, 1000, rebuild);
-    const small = runs[100]!;
-    const big = runs[1000]!;
+    const small = entryOf(runs, 100, 'runs');
+    const big = entryOf(runs, 1000, 'runs');
     const growth = (big.maxRssBytes - small.maxRssBytes) / 900;
     const perStation = (big.ms / 1000) / (small.ms / 100);
     console.log(`  memory growth per added station: ${(growth / 1024 ** 2).toFixed(2)} MiB (100 → 1,000: ${mib(small.maxRssBytes)} → ${mib(big.maxRssBytes)})`);
     console.log(`  time per station-year, 1,000 against 100: ${(perStation * 100).toFixed(0)} % (target within 10 %: ${Math.abs(perStation - 1) <= 0.1 ? 'met' : 'MISSED'})`);
     console.log(`  target 1,000 under ${s(TARGET_MS)}: ${big.ms < TARGET_MS ? 'met' : 'MISSED'}; peak under ${mib(TARGET_BYTES)}: ${big.maxRssBytes < TARGET_BYTES ? 'met' : 'MISSED'}; `
       + `rebuild ${((rebuild.ms / big.ms) * 100).toFixed(1)} % of the full build (target under 10 %: ${rebuild.ms < big.ms / 10 ? 'met' : 'MISSED'}) `
-      + `(load average now ${loadavg()[0]!.toFixed(1)})`);
+      + `(load average now ${firstOf(loadavg(), 'load averages').toFixed(1)})`);
   } finally {
     rmSync(work, { recursive: true, force: true });
   }

@@ -6,6 +6,7 @@ import { cosineCurve, predictorFor, tideEvents } from '../../engine/tides.js';
 import type { ReferenceStation, Station } from '../../engine/types.js';
 import { kernelSeries, newKernelSeries, openIntervals, type OpenInterval, type WindowSide } from '../../engine/windows.js';
 import { diurnalStation, sixtyConstituentStation, standStation } from '../fixtures/engine-stations.js';
+import { firstOf, itemAt, lastOf } from '../../engine/index.js';
 
 const SECOND = 1000;
 const HOUR = 3_600_000;
@@ -82,7 +83,7 @@ describe('closed form: two solar constituents', () => {
           const found = crossingsOf(openIntervals(station, solo(station), side, level, from, to), from, to);
           const expected = expectedCrossings(level, from, to, withS4);
           expect(found.length, `${side} ${level}`).toBe(expected.length);
-          found.forEach((t, i) => expect(Math.abs(t - expected[i]!), `${side} ${level} #${i}`).toBeLessThan(100));
+          found.forEach((t, i) => expect(Math.abs(t - itemAt(expected, i, 'expected')), `${side} ${level} #${i}`).toBeLessThan(100));
         }
       }
     });
@@ -93,7 +94,7 @@ describe('closed form: two solar constituents', () => {
 function sampledCrossings(heights: Float64Array, start: number, level: number): number[] {
   const out: number[] = [];
   for (let i = 1; i < heights.length; i++) {
-    if (heights[i - 1]! >= level !== heights[i]! >= level) out.push(start + i * SECOND);
+    if (itemAt(heights, i - 1, 'heights') >= level !== itemAt(heights, i, 'heights') >= level) out.push(start + i * SECOND);
   }
   return out;
 }
@@ -111,7 +112,7 @@ function expectMatchesSampling(station: Station, set: ReturnType<typeof solo>, l
       const found = crossingsOf(openIntervals(station, set, side, level, from, to), from, to);
       const sampled = sampledCrossings(heights, from, level);
       expect(found.length, `${station.id} ${side} ${level}`).toBe(sampled.length);
-      found.forEach((t, i) => expect(Math.abs(t - sampled[i]!), `${station.id} ${side} ${level} #${i}`).toBeLessThanOrEqual(30 * SECOND));
+      found.forEach((t, i) => expect(Math.abs(t - itemAt(sampled, i, 'sampled')), `${station.id} ${side} ${level} #${i}`).toBeLessThanOrEqual(30 * SECOND));
       total += found.length;
     }
   }
@@ -146,7 +147,7 @@ describe('the Taylor series crossings are solved on', () => {
       expect(Math.abs(t - s.origin)).toBeLessThanOrEqual(1_800_000); // the nearest whole hour
       for (const hours of [-1.5, -0.7, -0.2, 0.1, 0.45, 1.0, 1.5]) {
         let p = 0;
-        for (let k = s.coef.length - 1; k >= 0; k--) p = p * hours + s.coef[k]!;
+        for (let k = s.coef.length - 1; k >= 0; k--) p = p * hours + itemAt(s.coef, k, 'coef');
         const error = Math.abs(p - predictor.heightAt(s.origin + hours * 3_600_000));
         // + 1e-8 m: the kernel re-anchors at each UTC midnight, where its pieces agree to a few nanometres
         expect(error).toBeLessThanOrEqual(s.remainder * Math.abs(hours) ** s.coef.length + 1e-8);
@@ -196,8 +197,8 @@ describe('windows that never open, never close, and across midnight', () => {
   it('pieces on 23- and 25-hour days stay inside their day and join back into the intervals', () => {
     const lisbon: ReferenceStation = { ...standStation(), timezone: 'Europe/Lisbon' };
     const days = localDays(2027, 'Europe/Lisbon');
-    const yearFrom = days[0]!.start;
-    const yearTo = days[days.length - 1]!.end;
+    const yearFrom = firstOf(days, 'days').start;
+    const yearTo = lastOf(days, 'days').end;
     const intervals = openIntervals(lisbon, solo(lisbon), 'above', lisbon.mean_level, yearFrom, yearTo);
     const split = splitByDay(intervals, days, 'Europe/Lisbon');
     const short = split.find((d) => d.date === '2027-03-28')!;
@@ -206,8 +207,8 @@ describe('windows that never open, never close, and across midnight', () => {
     expect(days.find((d) => d.date === '2027-10-31')!.hours).toBe(25);
     for (const [i, d] of split.entries()) {
       for (const p of d.pieces) {
-        expect(Date.parse(p.start)).toBeGreaterThanOrEqual(days[i]!.start);
-        expect(Date.parse(p.end)).toBeLessThanOrEqual(days[i]!.end);
+        expect(Date.parse(p.start)).toBeGreaterThanOrEqual(itemAt(days, i, 'days').start);
+        expect(Date.parse(p.end)).toBeLessThanOrEqual(itemAt(days, i, 'days').end);
       }
     }
     // every piece joined to its neighbour across midnight gives back the interval (to its nearest minute)
