@@ -21,13 +21,6 @@ export function itemAt<T>(items: ArrayLike<T>, index: number, what: string): T {
   return item;
 }
 
-/** itemAt for a Float64Array: one shape, so the numeric loops that call it stay monomorphic and V8 inlines it. */
-export function valueAt(values: Float64Array, index: number, what: string): number {
-  const value = values[index];
-  if (value === undefined) throw new IndexOutOfRangeError(what, index, values.length);
-  return value;
-}
-
 /** The first item, or an IndexOutOfRangeError naming `what` when the list is empty. */
 export function firstOf<T>(items: ArrayLike<T>, what: string): T {
   return itemAt(items, 0, what);
@@ -54,4 +47,14 @@ export function entryOf<K extends PropertyKey, T>(table: Readonly<Partial<Record
   const value = table[key];
   if (value === undefined) throw new MissingEntryError(what, key);
   return value as T;
+}
+
+/**
+ * itemAt for the engine's Float64Array hot loops: one function for one kind of array, so the optimising
+ * compiler sees a single element kind here (itemAt is called with every kind of list and would not).
+ */
+export function numberAt(values: Float64Array, index: number, what: string): number {
+  const value = values[index];
+  if (value === undefined) throw new IndexOutOfRangeError(what, index, values.length);
+  return value;
 }

@@ -3,7 +3,7 @@
 
 import { fundamentalArguments, lunarOrbit, normalizeDegrees, type FundamentalArguments } from './astro.js';
 import { findConstituent, CONSTITUENT_NAMES, type Constituent, type NodalRule } from './constituents.js';
-import { itemAt, valueAt } from './item.js';
+import { itemAt, numberAt } from './item.js';
 
 const DEG = Math.PI / 180;
 
@@ -108,15 +108,15 @@ export function compileAstronomicalTerms(names: readonly string[]): Astronomical
       for (let k = 0; k < n; k++) {
         const m = k * 6;
         const v =
-          valueAt(phase, k, 'phase') + valueAt(mult, m, 'mult') * a.T + valueAt(mult, m + 1, 'mult') * a.s + valueAt(mult, m + 2, 'mult') * a.h +
-          valueAt(mult, m + 3, 'mult') * a.p + valueAt(mult, m + 4, 'mult') * a.N + valueAt(mult, m + 5, 'mult') * a.pp;
+          numberAt(phase, k, 'phase') + numberAt(mult, m, 'mult') * a.T + numberAt(mult, m + 1, 'mult') * a.s + numberAt(mult, m + 2, 'mult') * a.h +
+          numberAt(mult, m + 3, 'mult') * a.p + numberAt(mult, m + 4, 'mult') * a.N + numberAt(mult, m + 5, 'mult') * a.pp;
         V[k] = normalizeDegrees(v);
         let fk = 1;
         let uk = 0;
         for (let j = itemAt(termStart, k, 'termStart'); j < itemAt(termStart, k + 1, 'termStart'); j++) {
           const r = itemAt(termRule, j, 'termRule');
-          for (let e = 0; e < itemAt(termF, j, 'termF'); e++) fk *= valueAt(ruleF, r, 'ruleF');
-          uk += itemAt(termU, j, 'termU') * valueAt(ruleU, r, 'ruleU');
+          for (let e = 0; e < itemAt(termF, j, 'termF'); e++) fk *= numberAt(ruleF, r, 'ruleF');
+          uk += itemAt(termU, j, 'termU') * numberAt(ruleU, r, 'ruleU');
         }
         f[k] = fk;
         u[k] = uk;
@@ -136,8 +136,8 @@ export function nodeFactorsFromArguments(
   const u = new Float64Array(constituents.length);
   constituents.forEach((c, k) => {
     for (const term of c.nodal) {
-      f[k] = valueAt(f, k, 'f') * rules[term.rule].f ** term.fExponent;
-      u[k] = valueAt(u, k, 'u') + term.uMultiplier * rules[term.rule].u;
+      f[k] = numberAt(f, k, 'f') * rules[term.rule].f ** term.fExponent;
+      u[k] = numberAt(u, k, 'u') + term.uMultiplier * rules[term.rule].u;
     }
   });
   return { f, u };

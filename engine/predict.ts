@@ -11,7 +11,7 @@ import { StationFileError } from './errors.js';
 import { compileAstronomicalTerms, type AstronomicalTerms } from './nodal.js';
 import { findConstituent, CONSTITUENT_NAMES } from './constituents.js';
 import type { ReferenceStation } from './types.js';
-import { valueAt } from './item.js';
+import { numberAt } from './item.js';
 
 const DEG = Math.PI / 180;
 const TWO_PI = 2 * Math.PI;
@@ -127,8 +127,8 @@ function fillAnchor(k: CompiledConstants, t: number, into: Anchor): Anchor {
   const { V, f, u } = k;
   k.terms.evaluate(t, V, f, u);
   for (let i = 0; i < V.length; i++) {
-    into.phase[i] = normalizeDegrees(valueAt(V, i, 'equilibrium arguments') + valueAt(u, i, 'nodal angles') - valueAt(k.g, i, 'phase lags')) * DEG;
-    into.amplitude[i] = valueAt(f, i, 'node factors') * valueAt(k.H, i, 'amplitudes');
+    into.phase[i] = normalizeDegrees(numberAt(V, i, 'equilibrium arguments') + numberAt(u, i, 'nodal angles') - numberAt(k.g, i, 'phase lags')) * DEG;
+    into.amplitude[i] = numberAt(f, i, 'node factors') * numberAt(k.H, i, 'amplitudes');
   }
   into.t = t;
   return into;
@@ -140,17 +140,17 @@ function windowBetween(k: CompiledConstants, a: Anchor, b: Anchor, w: PhasorWind
   w.start = a.t;
   w.end = b.t;
   for (let i = 0; i < n; i++) {
-    const amplitude = valueAt(a.amplitude, i, 'anchor amplitudes'), phase = valueAt(a.phase, i, 'anchor phases');
-    const speed = valueAt(k.speed, i, 'speeds');
+    const amplitude = numberAt(a.amplitude, i, 'anchor amplitudes'), phase = numberAt(a.phase, i, 'anchor phases');
+    const speed = numberAt(k.speed, i, 'speeds');
     w.re[i] = amplitude * Math.cos(phase);
     w.im[i] = amplitude * Math.sin(phase);
     const nominal = speed * DEG * hours;
     if (hours > 0) {
       // unwrap: the measured turn differs from speed × time only by the small change of u
-      const measured = valueAt(b.phase, i, 'anchor phases') - phase;
+      const measured = numberAt(b.phase, i, 'anchor phases') - phase;
       const turn = measured + TWO_PI * Math.round((nominal - measured) / TWO_PI);
       w.omega[i] = turn / hours;
-      w.beta[i] = amplitude > 0 ? logRatio(valueAt(b.amplitude, i, 'anchor amplitudes'), amplitude) / hours : 0;
+      w.beta[i] = amplitude > 0 ? logRatio(numberAt(b.amplitude, i, 'anchor amplitudes'), amplitude) / hours : 0;
     } else {
       w.omega[i] = speed * DEG;
       w.beta[i] = 0;
@@ -200,8 +200,8 @@ export function compilePredictor(station: ReferenceStation): Predictor {
     const tau = (t - w.start) / MS_PER_HOUR;
     let sum = 0;
     for (let i = 0; i < n; i++) {
-      const beta = valueAt(w.beta, i, 'growth rates'), omega = valueAt(w.omega, i, 'angular speeds');
-      const re = valueAt(w.re, i, 'phasors'), im = valueAt(w.im, i, 'phasors');
+      const beta = numberAt(w.beta, i, 'growth rates'), omega = numberAt(w.omega, i, 'angular speeds');
+      const re = numberAt(w.re, i, 'phasors'), im = numberAt(w.im, i, 'phasors');
       const b = beta * tau;
       const grow = 1 + b * (1 + b / 2); // e^{βτ}; |βτ| < 1e-4 over a day
       const c = Math.cos(omega * tau);
@@ -263,20 +263,20 @@ function accumulateWindow(
   const cr = rotation.cos;
   const ci = rotation.sin;
   for (let i = 0; i < n; i++) {
-    const grow = Math.exp(valueAt(w.beta, i, 'growth rates') * stepHours);
-    const turn = valueAt(w.omega, i, 'angular speeds') * stepHours;
+    const grow = Math.exp(numberAt(w.beta, i, 'growth rates') * stepHours);
+    const turn = numberAt(w.omega, i, 'angular speeds') * stepHours;
     cr[i] = grow * Math.cos(turn);
     ci[i] = grow * Math.sin(turn);
   }
   const end = j0 + m;
   let i = 0;
   for (; i + 3 < n; i += 4) {
-    let x0 = valueAt(w.re, i, 'phasors'), y0 = valueAt(w.im, i, 'phasors'), x1 = valueAt(w.re, i + 1, 'phasors'), y1 = valueAt(w.im, i + 1, 'phasors');
-    let x2 = valueAt(w.re, i + 2, 'phasors'), y2 = valueAt(w.im, i + 2, 'phasors'), x3 = valueAt(w.re, i + 3, 'phasors'), y3 = valueAt(w.im, i + 3, 'phasors');
-    const c0 = valueAt(cr, i, 'step rotations'), s0 = valueAt(ci, i, 'step rotations'), c1 = valueAt(cr, i + 1, 'step rotations'), s1 = valueAt(ci, i + 1, 'step rotations');
-    const c2 = valueAt(cr, i + 2, 'step rotations'), s2 = valueAt(ci, i + 2, 'step rotations'), c3 = valueAt(cr, i + 3, 'step rotations'), s3 = valueAt(ci, i + 3, 'step rotations');
+    let x0 = numberAt(w.re, i, 'phasors'), y0 = numberAt(w.im, i, 'phasors'), x1 = numberAt(w.re, i + 1, 'phasors'), y1 = numberAt(w.im, i + 1, 'phasors');
+    let x2 = numberAt(w.re, i + 2, 'phasors'), y2 = numberAt(w.im, i + 2, 'phasors'), x3 = numberAt(w.re, i + 3, 'phasors'), y3 = numberAt(w.im, i + 3, 'phasors');
+    const c0 = numberAt(cr, i, 'step rotations'), s0 = numberAt(ci, i, 'step rotations'), c1 = numberAt(cr, i + 1, 'step rotations'), s1 = numberAt(ci, i + 1, 'step rotations');
+    const c2 = numberAt(cr, i + 2, 'step rotations'), s2 = numberAt(ci, i + 2, 'step rotations'), c3 = numberAt(cr, i + 3, 'step rotations'), s3 = numberAt(ci, i + 3, 'step rotations');
     for (let j = j0; j < end; j++) {
-      out[j] = valueAt(out, j, 'heights') + (x0 + x1 + (x2 + x3));
+      out[j] = numberAt(out, j, 'heights') + (x0 + x1 + (x2 + x3));
       let t = x0 * c0 - y0 * s0;
       y0 = x0 * s0 + y0 * c0;
       x0 = t;
@@ -292,10 +292,10 @@ function accumulateWindow(
     }
   }
   for (; i < n; i++) {
-    let x = valueAt(w.re, i, 'phasors'), y = valueAt(w.im, i, 'phasors');
-    const c = valueAt(cr, i, 'step rotations'), s = valueAt(ci, i, 'step rotations');
+    let x = numberAt(w.re, i, 'phasors'), y = numberAt(w.im, i, 'phasors');
+    const c = numberAt(cr, i, 'step rotations'), s = numberAt(ci, i, 'step rotations');
     for (let j = j0; j < end; j++) {
-      out[j] = valueAt(out, j, 'heights') + x;
+      out[j] = numberAt(out, j, 'heights') + x;
       const t = x * c - y * s;
       y = x * s + y * c;
       x = t;
@@ -313,8 +313,8 @@ export function directHeights(station: ReferenceStation): (t: number) => number 
     k.terms.evaluate(t, k.V, k.f, k.u);
     let h = station.mean_level;
     for (let i = 0; i < k.names.length; i++) {
-      const amplitude = valueAt(k.f, i, 'node factors') * valueAt(k.H, i, 'amplitudes');
-      h += amplitude * Math.cos((valueAt(k.V, i, 'equilibrium arguments') + valueAt(k.u, i, 'nodal angles') - valueAt(k.g, i, 'phase lags')) * DEG);
+      const amplitude = numberAt(k.f, i, 'node factors') * numberAt(k.H, i, 'amplitudes');
+      h += amplitude * Math.cos((numberAt(k.V, i, 'equilibrium arguments') + numberAt(k.u, i, 'nodal angles') - numberAt(k.g, i, 'phase lags')) * DEG);
     }
     return h;
   };

@@ -2,7 +2,7 @@
 // range, its peaks (springs) and troughs (neaps), each paired with the syzygy or quadrature it follows.
 import type { DaySpan } from './sky.js';
 import type { MoonPhaseName, SpringNeapKind, TideEvent } from './types.js';
-import { itemAt, valueAt } from './item.js';
+import { itemAt, numberAt } from './item.js';
 
 const HOUR = 3_600_000;
 // Half the envelope window: peaks of a fortnightly envelope stand at least ~10 days apart.
@@ -65,9 +65,9 @@ export function rangeEnvelope(events: readonly TideEvent[], days: readonly DaySp
   }
   const smooth = new Float64Array(n);
   for (let j = 0; j < n; j++) {
-    const a = valueAt(raw, Math.max(0, j - 1), 'raw');
-    const b = valueAt(raw, j, 'raw');
-    const c = valueAt(raw, Math.min(n - 1, j + 1), 'raw');
+    const a = numberAt(raw, Math.max(0, j - 1), 'raw');
+    const b = numberAt(raw, j, 'raw');
+    const c = numberAt(raw, Math.min(n - 1, j + 1), 'raw');
     smooth[j] = (a + 2 * b + c) / 4;
   }
   return { raw, smooth };
@@ -85,10 +85,10 @@ function turningPoints(s: Float64Array): Turn[] {
     let isMin = true;
     for (let k = j - HALF_WINDOW_DAYS; k <= j + HALF_WINDOW_DAYS; k++) {
       if (k === j) continue;
-      if (valueAt(s, k, 's') > valueAt(s, j, 's') || (k < j && s[k] === s[j])) isMax = false;
-      if (valueAt(s, k, 's') < valueAt(s, j, 's') || (k < j && s[k] === s[j])) isMin = false;
+      if (numberAt(s, k, 's') > numberAt(s, j, 's') || (k < j && s[k] === s[j])) isMax = false;
+      if (numberAt(s, k, 's') < numberAt(s, j, 's') || (k < j && s[k] === s[j])) isMin = false;
     }
-    if (Number.isNaN(valueAt(s, j, 's'))) continue;
+    if (Number.isNaN(numberAt(s, j, 's'))) continue;
     if (isMax) turns.push({ index: j, kind: 'spring' });
     else if (isMin) turns.push({ index: j, kind: 'neap' });
   }
@@ -96,7 +96,7 @@ function turningPoints(s: Float64Array): Turn[] {
   for (const t of turns) {
     const last = out[out.length - 1];
     if (last && last.kind === t.kind) {
-      const better = t.kind === 'spring' ? valueAt(s, t.index, 's') > valueAt(s, last.index, 's') : valueAt(s, t.index, 's') < valueAt(s, last.index, 's');
+      const better = t.kind === 'spring' ? numberAt(s, t.index, 's') > numberAt(s, last.index, 's') : numberAt(s, t.index, 's') < numberAt(s, last.index, 's');
       if (better) out[out.length - 1] = t;
     } else out.push(t);
   }
@@ -127,7 +127,7 @@ export function springNeapMarkers(
   for (const turn of turningPoints(smooth)) {
     const j = turn.index;
     const mid = (k: number) => (itemAt(days, k, 'days').start + itemAt(days, k, 'days').end) / 2;
-    const delta = parabolicOffset(valueAt(smooth, j - 1, 'smooth'), valueAt(smooth, j, 'smooth'), valueAt(smooth, j + 1, 'smooth'));
+    const delta = parabolicOffset(numberAt(smooth, j - 1, 'smooth'), numberAt(smooth, j, 'smooth'), numberAt(smooth, j + 1, 'smooth'));
     const time = mid(j) + (delta >= 0 ? delta * (mid(j + 1) - mid(j)) : delta * (mid(j) - mid(j - 1)));
     const wanted = turn.kind === 'spring' ? ['new', 'full'] : ['first-quarter', 'last-quarter'];
     let best: QuarterInstant | null = null;
@@ -141,7 +141,7 @@ export function springNeapMarkers(
       date: itemAt(days, j, 'days').date,
       kind: turn.kind,
       time: Math.round(time),
-      envelope: valueAt(raw, j, 'raw'),
+      envelope: numberAt(raw, j, 'raw'),
       astronomical: best.time,
       astronomicalPhase: best.phase,
       lagHours: (time - best.time) / HOUR,

@@ -11,7 +11,7 @@ import {
   type StreamLookup,
 } from './streams/secondary.js';
 import type { AnyStreamStation, StreamEvent } from './streams/types.js';
-import { valueAt } from './item.js';
+import { numberAt } from './item.js';
 
 export type * from './streams/types.js';
 export { componentsToEllipse, ellipseToComponents, type ComponentConstant } from './streams/ellipse.js';
@@ -63,7 +63,7 @@ export function streamAlongFlood(
   const fx = Math.sin((station.flood_direction * Math.PI) / 180);
   const fy = Math.cos((station.flood_direction * Math.PI) / 180);
   const out = new Float64Array(count);
-  for (let i = 0; i < count; i++) out[i] = valueAt(east, i, 'east') * fx + valueAt(north, i, 'north') * fy;
+  for (let i = 0; i < count; i++) out[i] = numberAt(east, i, 'east') * fx + numberAt(north, i, 'north') * fy;
   return out;
 }
 export { isCurrentRecord, parseCurrentRecord, type CurrentRecord } from './streams/current-record.js';

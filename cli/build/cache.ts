@@ -8,7 +8,7 @@
 //  - the cache only ever feeds the temporary output folder, so it can never leave out/ half-written.
 //    Deleting the whole cache folder at any time costs only a full build.
 import { createHash, randomBytes } from 'node:crypto';
-import { existsSync, mkdirSync, readFileSync, renameSync, rmSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, readFileSync, renameSync, rmSync, utimesSync, writeFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 
 export const CACHE_FOLDER = '.tidewright-cache';
@@ -63,6 +63,16 @@ export function entryFile(cacheDir: string, key: string, name: string): string {
   return join(entryDir(cacheDir, key), name);
 }
 
+/** Marks an entry as used now: the build's prune keeps what its build touched (cli/build/cache-prune.ts). */
+function touch(path: string): void {
+  const now = new Date();
+  try {
+    utimesSync(path, now, now);
+  } catch {
+    // a read-only cache: still usable, only never pruned
+  }
+}
+
 /**
  * The entry's files and meta when the entry is whole and is this key's, else null. `names`: the
  * files wanted (all of them must be there).
@@ -80,6 +90,7 @@ export function readEntry<Name extends string>(cacheDir: string, key: string, na
       if (data.length !== want.bytes || sha256(data) !== want.sha256) return null;
       files[name] = data;
     }
+    touch(join(dir, ENTRY));
     return { files, meta: record.meta };
   } catch {
     return null; // missing, unreadable or not JSON: a miss

@@ -2,13 +2,15 @@
 // website (both need every model; neither needs the other).
 import { Worker } from 'node:worker_threads';
 import type { StationYear, StreamYear } from '../../engine/index.js';
+import type { ImageWarningSink } from '../../templates/pdf/image-resolution.js';
 import { BuildStepError, deserializeError } from './failure.js';
 import { workerExecArgv } from './pool.js';
 import type { RenderChoices } from './options.js';
 import type { CombinedSetup, FromWorker, ToWorker } from './protocol.js';
 import { stopWorker, trackWorker } from './threads.js';
 
-export function combinedBookInWorker(workerUrl: URL, models: StationYear[], render: RenderChoices, signal?: AbortSignal, streams: StreamYear[] = []): Promise<Buffer> {
+export function combinedBookInWorker(workerUrl: URL, models: StationYear[], render: RenderChoices, signal?: AbortSignal, streams: StreamYear[] = [],
+  warn?: ImageWarningSink): Promise<Buffer> {
   if (signal?.aborted) return Promise.reject(new BuildStepError('rendering the combined book', signal.reason ?? new Error('stopped')));
   const setup: CombinedSetup = { job: 'combined', render };
   const worker = new Worker(workerUrl, { workerData: setup, execArgv: workerExecArgv() });
@@ -27,7 +29,10 @@ export function combinedBookInWorker(workerUrl: URL, models: StationYear[], rend
     const onAbort = (): void => finish(new BuildStepError('rendering the combined book', signal?.reason ?? new Error('stopped')));
     signal?.addEventListener('abort', onAbort, { once: true });
     worker.on('message', (message: FromWorker) => {
-      if (message.type === 'combined-done') result = Buffer.from(message.pdf.buffer, message.pdf.byteOffset, message.pdf.byteLength);
+      if (message.type === 'combined-done') {
+        result = Buffer.from(message.pdf.buffer, message.pdf.byteOffset, message.pdf.byteLength);
+        for (const w of message.imageWarnings) warn?.(w);
+      }
       else if (message.type === 'failed') finish(new BuildStepError('rendering the combined book', deserializeError(message.error)));
     });
     worker.on('error', (error) => finish(new BuildStepError('rendering the combined book', error)));

@@ -24,15 +24,16 @@ export const realBuildDeps: BuildDeps = {
     const { stationJobDeps } = await import('./engine-deps.js');
     return computeStations(request, onStation, stationJobDeps, signal);
   },
-  renderSite: async (models, siteDir, options, siteFiles, streams) => {
-    const { renderSite } = await import('../../templates/site/render.js');
-    return renderSite(models, siteDir, { ...options, quiet: true, ...(siteFiles !== undefined && { siteFiles }), ...(streams && { streams }) });
+  renderSite: async (source, siteDir, options, siteFiles, streams) => {
+    const { renderSiteFrom } = await import('../../templates/site/render.js');
+    return renderSiteFrom(source, siteDir, { ...options, quiet: true, ...(siteFiles !== undefined && { siteFiles }), ...(streams && { streams }) });
   },
-  renderCombinedBook: (models, options, beside, signal, streams) => {
+  renderCombinedBook: (models, options, beside, signal, streams, warn) => {
     const workerUrl = beside ? compiledWorkerUrl() : null;
-    if (workerUrl) return combinedBookInWorker(workerUrl, models, options, signal, streams);
-    return import('../../templates/pdf/book.js').then(({ renderCombinedBook }) => renderCombinedBook(models, options, streams));
+    if (workerUrl) return combinedBookInWorker(workerUrl, models, options, signal, streams, warn);
+    return import('../../templates/pdf/book.js').then(({ renderCombinedBook }) => renderCombinedBook(models, { ...options, ...(warn && { warn }) }, streams));
   },
-  renderStreamBook: (model, options) => import('../../templates/pdf/stream-book.js').then(({ renderStreamBook }) => renderStreamBook(model, options)),
+  renderStreamBook: (model, options, warn) => import('../../templates/pdf/stream-book.js')
+    .then(({ renderStreamBook }) => renderStreamBook(model, { ...options, ...(warn && { warn }) })),
   cores: () => availableParallelism(),
 };

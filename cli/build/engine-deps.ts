@@ -8,8 +8,8 @@ import type { StationJobDeps } from './station-job.js';
 export const stationJobDeps: StationJobDeps = {
   buildStationYear: (station, set, year, context) => buildStationYear(station, set, year, { context }),
   renderStationBook: (model, options, warn) => renderStationBook(model, warn === undefined ? options : { ...options, warn }),
-  renderPocketTable: (model, options) => renderPocketTable(model, {
-    ...options, sheet: options.page === 'letter' || options.page === 'half-letter' ? 'letter' : 'a4',
+  renderPocketTable: (model, options, warn) => renderPocketTable(model, {
+    ...options, ...(warn && { warn }), sheet: options.page === 'letter' || options.page === 'half-letter' ? 'letter' : 'a4',
   }),
   sectionPages: (model, options) => sectionPageCounts(model, options),
 };

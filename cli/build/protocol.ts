@@ -1,5 +1,6 @@
 // Messages between the build and its worker threads. Everything is plain data (structured clone).
 import type { StationYear, StreamYear } from '../../engine/index.js';
+import type { ImageWarning } from '../../templates/pdf/image-resolution.js';
 import type { SerializedError } from './failure.js';
 import type { RenderChoices } from './options.js';
 import type { StationCache, StationOutcome } from './station-job.js';
@@ -39,6 +40,6 @@ export type FromWorker =
   | { type: 'ready' }
   | { type: 'station'; outcome: StationOutcome }
   | { type: 'unit-done' }
-  | { type: 'combined-done'; pdf: Uint8Array }
+  | { type: 'combined-done'; pdf: Uint8Array; imageWarnings: ImageWarning[] } // one per picture
   | { type: 'volume-done'; result: VolumeResult }
   | { type: 'failed'; id: string | null; error: SerializedError };

@@ -6,19 +6,23 @@ import { firstOf } from '../../engine/index.js';
 import type {
   StationFileError, Station, StationYear, AnyStreamStation, StreamYear,
 } from '../../engine/index.js';
-import { BuildStepError, StationSetInvalid } from './failure.js';
+import { BuildStepError, messageOf, StationSetInvalid } from './failure.js';
 import { poolSize, workUnits } from './groups.js';
 import type { BuildPlan, RenderChoices } from './options.js';
 import { commitOutput, createTemp, discardTemp, planOutput, recoverStale, type OutputTarget } from './output.js';
 import { combinedBookName, stationYearFile } from './paths.js';
 import type { Progress } from './progress.js';
 import { cacheDirFor } from './cache.js';
+import { pruneCache, useCache } from './cache-prune.js';
 import { stationYearKeys } from './cache-keys.js';
 import { siteFilesFolder } from './site-files.js';
 import { combinedStations, type CombinedPlan } from './volumes-step.js';
 import { siteThemeFolder } from './site-theme.js';
 import { countPdfPages, type StationCache, type StationOutcome } from './station-job.js';
-import { worstPerFile, type ImageWarning } from '../../templates/pdf/image-resolution.js';
+import { stationYears, type StationYears } from './station-years.js';
+import { sitePageStore } from './site-cache.js';
+import type { SiteSource } from '../../templates/site/render.js';
+import { worstPerFile, type ImageWarning, type ImageWarningSink } from '../../templates/pdf/image-resolution.js';
 
 export interface ComputeRequest {
   stationsDir: string;
@@ -37,11 +41,13 @@ export interface BuildDeps {
   computeStreams?(stations: Station[], streams: AnyStreamStation[], year: number): StreamYear[];
   computeStations(request: ComputeRequest, onStation: (outcome: StationOutcome) => void, signal?: AbortSignal): Promise<void>;
   /** The site into siteDir, with every station-year's downloads (CSV, JSON, iCalendar) inside it, in siteDir/data. */
-  renderSite(models: StationYear[], siteDir: string, options: RenderChoices, siteFiles?: string, streams?: StreamYear[]): Promise<unknown>;
+  renderSite(source: SiteSource, siteDir: string, options: RenderChoices, siteFiles?: string, streams?: StreamYear[]): Promise<unknown>;
   /** `beside`: the caller is rendering the website at the same time (use another thread if there is one). */
-  renderCombinedBook(models: StationYear[], options: RenderChoices, beside: boolean, signal?: AbortSignal, streams?: StreamYear[]): Promise<Buffer>;
+  /** `warn` hears of each publisher's picture that would print blurry (or, for the press, in greys). */
+  renderCombinedBook(models: StationYear[], options: RenderChoices, beside: boolean, signal?: AbortSignal, streams?: StreamYear[],
+    warn?: ImageWarningSink): Promise<Buffer>;
   /** The PDF book of one stream-year. */
-  renderStreamBook?(model: StreamYear, options: RenderChoices): Promise<Buffer>;
+  renderStreamBook?(model: StreamYear, options: RenderChoices, warn?: ImageWarningSink): Promise<Buffer>;
   cores(): number;
 }
 
@@ -110,7 +116,7 @@ async function allSettledOrFirstError(work: Promise<unknown>[]): Promise<void> {
 async function computeYear(
   plan: BuildPlan, deps: BuildDeps, events: BuildEvents, times: Record<string, number>,
   job: { year: number; tempDir: string; units: string[][]; workers: number; cacheDir: string }, stations: readonly Station[],
-): Promise<{ models: StationYear[]; pdfPages: number; imageWarnings: ImageWarning[]; combined: CombinedPlan }> {
+  found: StationYears): Promise<{ pdfPages: number; imageWarnings: ImageWarning[]; combined: CombinedPlan }> {
   const outcomes = new Map<string, StationOutcome>();
   const imageWarnings: ImageWarning[] = [];
   const several = (plan.years ?? [plan.year]).length > 1;
@@ -128,11 +134,11 @@ async function computeYear(
   ));
   const missing = stations.filter((s) => !outcomes.has(s.id)).map((s) => s.id);
   if (missing.length > 0) throw new BuildStepError('computing the stations', new Error(`no result for ${missing.join(', ')}`));
+  for (const s of stations) found.add(outcomes.get(s.id)!, cache.keys[s.id]); // in the set's order
   const combined = await step('planning the combined volumes', times,
     () => combinedStations(stations, outcomes, { ...plan, year: job.year }, cache, job.tempDir, job.workers, events.signal));
   return {
     combined,
-    models: stations.map((s) => outcomes.get(s.id)!.model),
     pdfPages: stations.reduce((n, s) => n + outcomes.get(s.id)!.pdfPages, 0),
     imageWarnings,
   };
@@ -156,20 +162,25 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
 
   createTemp(target);
   events.tempCreated(target);
+  const cacheDir = cacheDirFor(target.out);
+  const cacheUse = useCache(cacheDir);
+  const since = Date.now();
   try {
     const units = workUnits(stations, plan.workers ?? deps.cores());
     const workers = poolSize(plan.workers, deps.cores(), units.length);
     // Year after year: each year's station-years, then its stream-years and their books.
-    const models: StationYear[] = [];
+    const found = stationYears(cacheDir); // summaries in memory, models read from the cache when drawn
     const streamModels: StreamYear[] = [];
-    const imageWarnings: ImageWarning[] = []; // every book places the same pictures: one line per file below
+    // every book places the publisher's pictures (station books, pocket tables, stream books, the combined
+    // book or its volumes): one line per picture, said once the last book is drawn
+    const imageWarnings: ImageWarning[] = [];
+    const warn: ImageWarningSink = (w) => imageWarnings.push(w);
     let pdfPages = 0;
     const combinedByYear = new Map<number, CombinedPlan>(); // each year's combined book, or volumes drawn from the cache
     for (const year of years) {
       const computed = await computeYear(plan, deps, events, times,
-        { year, tempDir: target.temp, units, workers, cacheDir: cacheDirFor(target.out) }, stations);
+        { year, tempDir: target.temp, units, workers, cacheDir }, stations, found);
       combinedByYear.set(year, computed.combined);
-      models.push(...computed.models);
       imageWarnings.push(...computed.imageWarnings);
       pdfPages += computed.pdfPages;
       const yearStreams = streamStations.length > 0 && deps.computeStreams
@@ -181,14 +192,13 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
           const pdfDir = join(target.temp, 'pdf');
           await mkdir(pdfDir, { recursive: true });
           for (const model of yearStreams) {
-            const pdf = await deps.renderStreamBook!(model, plan.render);
+            const pdf = await deps.renderStreamBook!(model, plan.render, warn);
             await writeFile(stationYearFile(pdfDir, model.station.id, year, 'pdf'), pdf);
             pdfPages += countPdfPages(pdf);
           }
         });
       }
     }
-    for (const w of worstPerFile(imageWarnings)) events.note(w.text);
 
     // With more than one worker the combined book is drawn beside the website, else after it. The
     // combined book's worker holds its own copy of every model (about 0.85 MiB each) and the whole PDF,
@@ -198,19 +208,23 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
     const volumes = [...combinedByYear.values()].some((c) => c.volumes);
     const beside = volumes || (workers > 1 && stations.length <= BESIDE_MAX_STATIONS);
     const name = combinedBookName(plan.render.title, stations.map((s) => s.id));
+    const pages = sitePageStore(cacheDir, found.keyOf, siteTheme ?? undefined);
+    const source: SiteSource = { stationYears: found.summaries, model: found.model, pages };
     const site = (): Promise<unknown> => step('rendering the website and downloads', times,
-      () => deps.renderSite(models, join(target.temp, 'site'),
+      () => deps.renderSite(source, join(target.temp, 'site'),
         siteTheme === null ? plan.render : { ...plan.render, siteTheme }, siteFiles ?? undefined, streamModels));
     const book = (): Promise<void> => step('rendering the combined book', times, async () => {
       for (const year of years) {
         const combined = combinedByYear.get(year);
         if (combined?.plan.mode === 'none') continue;
         if (combined?.volumes) {
-          pdfPages += await combined.draw();
+          pdfPages += await combined.draw(warn);
           continue;
         }
-        const pdf = await deps.renderCombinedBook(models.filter((m) => m.year === year), plan.render, beside, events.signal,
-          streamModels.filter((m) => m.year === year));
+        // one volume's worth of station-years at most (a larger set is bound in volumes, read one by one)
+        const models = found.summaries.filter((m) => m.year === year).map((sy) => found.model(sy));
+        const pdf = await deps.renderCombinedBook(models, plan.render, beside, events.signal,
+          streamModels.filter((m) => m.year === year), warn);
         await mkdir(join(target.temp, 'pdf'), { recursive: true });
         await writeFile(stationYearFile(join(target.temp, 'pdf'), name, year, 'pdf'), pdf);
         pdfPages += countPdfPages(pdf);
@@ -227,11 +241,20 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
       await book();
     }
     events.signal?.throwIfAborted();
+    for (const w of worstPerFile(imageWarnings)) events.note(w.text);
 
     const tree = await step('counting the output', times, () => treeStats(target.temp));
     events.progress.clear();
     commitOutput(target);
     events.committed(target);
+    // What this build did not use goes (unless another build is using the cache right now).
+    if (cacheUse.alone()) {
+      try {
+        await step('pruning the build cache', times, async () => pruneCache(cacheDir, since));
+      } catch (error) {
+        events.note(`could not remove unused entries of the build cache ${cacheDir} (${messageOf(error)}); the build itself is complete`);
+      }
+    }
     return {
       out: target.out, year: firstOf(years, 'years of the build'), years, stations: stations.length, workers, pdfPages, webPages: tree.html,
       files: tree.files, bytes: tree.bytes, ms: performance.now() - started, stepMs: times,
@@ -240,5 +263,7 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
     events.progress.clear();
     discardTemp(target);
     throw error;
+  } finally {
+    cacheUse.release();
   }
 }

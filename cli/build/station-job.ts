@@ -3,6 +3,7 @@
 // are written by the site renderer, which links them from the station pages.)
 import { mkdir, writeFile } from 'node:fs/promises';
 import type { SectionPages } from '../../templates/pdf/volume.js';
+import { summaryOf, type StationYearSummary } from '../../templates/site/summary.js';
 import { readEntry, writeEntry } from './cache.js';
 import { messageOf } from './failure.js';
 import { join } from 'node:path';
@@ -15,7 +16,7 @@ import { worstPerFile, type ImageWarning, type ImageWarningSink } from '../../te
 export interface StationJobDeps {
   buildStationYear(station: Station, set: StationSet, year: number, engine: EngineContext): StationYear | Promise<StationYear>;
   renderStationBook(model: StationYear, options: RenderChoices, warn?: ImageWarningSink): Promise<Buffer>;
-  renderPocketTable?(model: StationYear, options: RenderChoices): Promise<Buffer>;
+  renderPocketTable?(model: StationYear, options: RenderChoices, warn?: ImageWarningSink): Promise<Buffer>;
   /** Pages of the station's section in a combined volume (for filling volumes before drawing them). */
   sectionPages?(model: StationYear, options: RenderChoices): SectionPages;
 }
@@ -37,7 +38,8 @@ export interface StationJobContext {
 
 export interface StationOutcome {
   id: string;
-  model: StationYear;
+  summary: StationYearSummary; // what the index and the volumes' plan need; the model itself stays in the cache
+  model?: StationYear; // only from a job without a cache to keep it in
   pdfPages: number;
   sections?: SectionPages;
   cached?: boolean; // reused from the build cache
@@ -65,7 +67,7 @@ function throughJson(model: StationYear): { model: StationYear; json: Buffer } {
   return { model: JSON.parse(json.toString('utf8')) as StationYear, json };
 }
 
-interface CachedMeta { pdfPages: number; sections?: SectionPages; imageWarnings?: ImageWarning[] }
+interface CachedMeta { pdfPages: number; summary: StationYearSummary; sections?: SectionPages; imageWarnings?: ImageWarning[] }
 
 export async function runStationJob(id: string, ctx: StationJobContext, deps: StationJobDeps): Promise<StationOutcome> {
   const station = ctx.set.byId.get(assertSafeId(id));
@@ -79,12 +81,11 @@ export async function runStationJob(id: string, ctx: StationJobContext, deps: St
   const names = ['model.json', 'book.pdf', ...(pocket ? ['pocket.pdf'] as const : [])] as const;
   const hit = ctx.cache && key !== undefined ? readEntry(ctx.cache.dir, key, names) : null;
   if (hit) {
-    const meta = hit.meta as CachedMeta;
-    const model = JSON.parse(hit.files['model.json'].toString('utf8')) as StationYear;
-    if (model.station?.id === id && typeof meta?.pdfPages === 'number') {
+    const meta = hit.meta as CachedMeta | null;
+    if (meta?.summary?.station?.id === id && typeof meta.pdfPages === 'number') {
       await writeFile(bookFile, hit.files['book.pdf']);
       if (pocket) await writeFile(pocketFile, hit.files['pocket.pdf']);
-      return { id, model, pdfPages: meta.pdfPages, ...(meta.sections && { sections: meta.sections }),
+      return { id, summary: meta.summary, pdfPages: meta.pdfPages, ...(meta.sections && { sections: meta.sections }),
         ...(meta.imageWarnings && { imageWarnings: meta.imageWarnings }), cached: true };
     }
   }
@@ -97,21 +98,24 @@ export async function runStationJob(id: string, ctx: StationJobContext, deps: St
   let pdfPages = countPdfPages(pdf);
   const files: Record<string, Buffer> = { 'model.json': json, 'book.pdf': pdf };
   if (pocket) {
-    const sheet = await deps.renderPocketTable!(model, ctx.render);
+    const sheet = await deps.renderPocketTable!(model, ctx.render, (w) => warnings.push(w));
     await writeFile(pocketFile, sheet);
     pdfPages += countPdfPages(sheet);
     files['pocket.pdf'] = sheet;
   }
   const sections = deps.sectionPages?.(model, ctx.render);
   const imageWarnings = worstPerFile(warnings);
+  const summary = summaryOf(model);
   if (ctx.cache && key !== undefined) {
     const cacheDir = ctx.cache.dir;
     try {
-      writeEntry(cacheDir, key, files, { pdfPages, imageWarnings, ...(sections && { sections }) });
+      const meta: CachedMeta = { pdfPages, summary, imageWarnings, ...(sections && { sections }) };
+      writeEntry(cacheDir, key, files, meta);
     } catch (error) {
       // the cause (a full disk…) is named in the message itself: errors cross from the worker as text
       throw new Error(`could not write the build cache in ${cacheDir}: ${messageOf(error)}; the combined volumes read the models from it: check the disk has space and the folder is writable`);
     }
   }
-  return { id, model, pdfPages, imageWarnings, ...(sections && { sections }) };
+  // With a cache the model stays there (the site and the volumes read it back); without one it travels.
+  return { id, summary, pdfPages, imageWarnings, ...(sections && { sections }), ...(!(ctx.cache && key !== undefined) && { model }) };
 }

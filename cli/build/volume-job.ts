@@ -6,8 +6,10 @@ import { differenceExample, itemAt } from '../../engine/index.js';
 import type { ReferenceStation, SecondaryStation, StationYear } from '../../engine/index.js';
 import type { VolumeEntry, VolumeStation, VolumeText } from '../../templates/pdf/volume.js';
 import { resultEvent, type WorkedExample } from '../../templates/pdf/worked-example.js';
+import { worstPerFile, type ImageWarning, type ImageWarningSink } from '../../templates/pdf/image-resolution.js';
 import { readEntry, writeEntry } from './cache.js';
 import type { RenderChoices } from './options.js';
+import { cachedModel } from './station-years.js';
 
 export interface VolumeJob {
   index: number; // 0-based
@@ -17,18 +19,17 @@ export interface VolumeJob {
   key: string; // the volume's own cache key
 }
 
-export interface VolumeResult { index: number; entries: VolumeEntry[]; pages: number; cached: boolean }
-
-export interface VolumeJobDeps {
-  renderVolume(stations: VolumeStation[], options: RenderChoices, text: VolumeText): Promise<{ pdf: Buffer; entries: VolumeEntry[] }>;
-  countPages(pdf: Buffer): number;
+export interface VolumeResult {
+  index: number;
+  entries: VolumeEntry[];
+  pages: number;
+  cached: boolean;
+  imageWarnings?: ImageWarning[]; // the publisher's pictures that print blurry (or in greys), one per picture
 }
 
-function loadModel(cacheDir: string, id: string, key: string): StationYear {
-  const entry = readEntry(cacheDir, key, ['model.json']);
-  const model = entry ? JSON.parse(entry.files['model.json'].toString('utf8')) as StationYear : null;
-  if (!model || model.station.id !== id) throw new Error(`the model of station "${id}" is missing from the build cache ${cacheDir} (was the folder removed during the build?)`);
-  return model;
+export interface VolumeJobDeps {
+  renderVolume(stations: VolumeStation[], options: RenderChoices & { warn?: ImageWarningSink }, text: VolumeText): Promise<{ pdf: Buffer; entries: VolumeEntry[] }>;
+  countPages(pdf: Buffer): number;
 }
 
 /** The first high water at the reference port from its first spring tide of the year, worked through. */
@@ -45,22 +46,24 @@ function workedExample(model: StationYear, reference: StationYear): WorkedExampl
 
 export async function runVolumeJob(job: VolumeJob, cacheDir: string, render: RenderChoices, deps: VolumeJobDeps): Promise<VolumeResult> {
   const hit = readEntry(cacheDir, job.key, ['volume.pdf']);
-  const meta = hit?.meta as { entries?: VolumeEntry[]; pages?: number } | undefined;
+  const meta = hit?.meta as { entries?: VolumeEntry[]; pages?: number; imageWarnings?: ImageWarning[] } | undefined;
   if (hit && Array.isArray(meta?.entries) && typeof meta.pages === 'number') {
     await writeFile(job.file, hit.files['volume.pdf']);
-    return { index: job.index, entries: meta.entries, pages: meta.pages, cached: true };
+    return { index: job.index, entries: meta.entries, pages: meta.pages, cached: true, ...(meta.imageWarnings && { imageWarnings: meta.imageWarnings }) };
   }
-  const models = new Map(job.stations.map((s) => [s.id, loadModel(cacheDir, s.id, s.key)]));
+  const models = new Map(job.stations.map((s) => [s.id, cachedModel(cacheDir, s.id, s.key)]));
   const stations: VolumeStation[] = job.stations.map((s) => {
     const model = models.get(s.id)!;
     if (!s.compact || s.reference === undefined) return { model, compact: s.compact, worked: null };
-    const reference = models.get(s.reference.id) ?? loadModel(cacheDir, s.reference.id, s.reference.key);
+    const reference = models.get(s.reference.id) ?? cachedModel(cacheDir, s.reference.id, s.reference.key);
     return { model, compact: true, worked: workedExample(model, reference) };
   });
-  const { pdf, entries } = await deps.renderVolume(stations, render, job.text);
+  const warnings: ImageWarning[] = [];
+  const { pdf, entries } = await deps.renderVolume(stations, { ...render, warn: (w) => warnings.push(w) }, job.text);
   models.clear();
   await writeFile(job.file, pdf);
   const pages = deps.countPages(pdf);
-  writeEntry(cacheDir, job.key, { 'volume.pdf': pdf }, { entries, pages });
-  return { index: job.index, entries, pages, cached: false };
+  const imageWarnings = worstPerFile(warnings);
+  writeEntry(cacheDir, job.key, { 'volume.pdf': pdf }, { entries, pages, imageWarnings });
+  return { index: job.index, entries, pages, cached: false, imageWarnings };
 }

@@ -6,6 +6,7 @@
 import { Worker } from 'node:worker_threads';
 import { mkdir, writeFile } from 'node:fs/promises';
 import { join } from 'node:path';
+import type { ImageWarningSink } from '../../templates/pdf/image-resolution.js';
 import type { IndexEntry } from '../../templates/pdf/index-volume.js';
 import { cacheKey } from './cache.js';
 import { codeFingerprint } from './cache-keys.js';
@@ -31,6 +32,7 @@ export interface BindRequest {
   workers: number;
   workerUrl: URL | null; // null: draw in this thread (tests run the TypeScript sources)
   signal?: AbortSignal;
+  warn?: ImageWarningSink; // hears of the publisher's pictures on the covers (each volume's, drawn or cached)
 }
 
 /** The plan for the combined output (page counts from the real page composition). */
@@ -134,6 +136,7 @@ export async function bindVolumes(plan: VolumePlan, req: BindRequest): Promise<{
   const results = (req.workerUrl ? await runInWorkers(jobs, req, req.workerUrl) : await runHere(jobs, req))
     .sort((a, b) => a.index - b.index);
   let pages = results.reduce((n, r) => n + r.pages, 0);
+  for (const w of results.flatMap((r) => r.imageWarnings ?? [])) req.warn?.(w);
   if (jobs.length > 1) {
     const byId = new Map(req.stations.map((s) => [s.id, s]));
     const entries: IndexEntry[] = results.flatMap((r) => r.entries.map((e) => {
@@ -141,7 +144,7 @@ export async function bindVolumes(plan: VolumePlan, req: BindRequest): Promise<{
       return { name: s.name, kind: s.kind, ...(s.region !== undefined && { region: s.region }), volume: r.index + 1, page: e.page };
     }));
     const { renderIndexVolume } = await import('../../templates/pdf/index-volume.js');
-    const pdf = await renderIndexVolume(entries, req.render, { years: String(req.year), volumes: jobs.length, invented: req.stations.some((s) => s.invented) });
+    const pdf = await renderIndexVolume(entries, { ...req.render, ...(req.warn && { warn: req.warn }) }, { years: String(req.year), volumes: jobs.length, invented: req.stations.some((s) => s.invented) });
     await writeFile(join(req.pdfDir, volumeFileName(req.name, req.year, 'index')), pdf);
     pages += countPdfPages(pdf);
   }

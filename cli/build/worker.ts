@@ -4,6 +4,7 @@
 import { parentPort, workerData } from 'node:worker_threads';
 import { createSkyEphemeris, loadStationSet } from '../../engine/index.js';
 import { renderCombinedBook } from '../../templates/pdf/book.js';
+import { worstPerFile, type ImageWarning } from '../../templates/pdf/image-resolution.js';
 import { serializeError } from './failure.js';
 import type { CombinedSetup, FromWorker, ToWorker, VolumeSetup, WorkerSetup } from './protocol.js';
 import { volumeWorker } from './volume-worker.js';
@@ -62,11 +63,12 @@ function combinedWorker(init: CombinedSetup): void {
     }
     void (async () => {
       try {
-        const pdf = await renderCombinedBook(message.models, init.render, message.streams ?? []);
+        const warnings: ImageWarning[] = [];
+        const pdf = await renderCombinedBook(message.models, { ...init.render, warn: (w) => warnings.push(w) }, message.streams ?? []);
         // Handed over, not copied: the book can be tens of megabytes.
         const bytes = new Uint8Array(pdf.buffer, pdf.byteOffset, pdf.byteLength);
         const own = bytes.byteOffset === 0 && bytes.byteLength === bytes.buffer.byteLength ? bytes : bytes.slice();
-        post({ type: 'combined-done', pdf: own }, [own.buffer as ArrayBuffer]);
+        post({ type: 'combined-done', pdf: own, imageWarnings: worstPerFile(warnings) }, [own.buffer as ArrayBuffer]);
       } catch (error) {
         post({ type: 'failed', id: null, error: serializeError(error) });
       }

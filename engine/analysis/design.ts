@@ -5,7 +5,7 @@
 import { constituentSpeed } from '../constituents.js';
 import { equilibriumArguments, nodeFactors } from '../nodal.js';
 import type { InferenceRule } from './inference.js';
-import { itemAt, valueAt } from '../item.js';
+import { itemAt, numberAt } from '../item.js';
 
 const HOUR = 3_600_000;
 const DAY = 86_400_000;
@@ -48,8 +48,8 @@ export function designRows(
     const V = equilibriumArguments(names, anchor);
     day = new Float64Array(2 * m);
     for (let j = 0; j < m; j++) {
-      day[j] = valueAt(nodal.f, j, 'f');
-      day[m + j] = (valueAt(V, j, 'V') + valueAt(nodal.u, j, 'u')) * RAD;
+      day[j] = numberAt(nodal.f, j, 'f');
+      day[m + j] = (numberAt(V, j, 'V') + numberAt(nodal.u, j, 'u')) * RAD;
     }
     days.set(index, day);
   };
@@ -60,18 +60,18 @@ export function designRows(
       const hours = (t - anchor) / HOUR;
       row[0] = 1;
       for (let j = 0; j < fittedCount; j++) {
-        const arg = valueAt(day, m + j, 'day') + valueAt(speeds, j, 'speeds') * hours;
-        const f = valueAt(day, j, 'day');
+        const arg = numberAt(day, m + j, 'day') + numberAt(speeds, j, 'speeds') * hours;
+        const f = numberAt(day, j, 'day');
         row[1 + 2 * j] = f * Math.cos(arg);
         row[2 + 2 * j] = f * Math.sin(arg);
       }
       for (let i = 0; i < ratios.length; i++) {
         const j = fittedCount + i;
-        const arg = valueAt(day, m + j, 'day') + valueAt(speeds, j, 'speeds') * hours;
-        const rf = valueAt(ratios, i, 'ratios') * valueAt(day, j, 'day');
+        const arg = numberAt(day, m + j, 'day') + numberAt(speeds, j, 'speeds') * hours;
+        const rf = numberAt(ratios, i, 'ratios') * numberAt(day, j, 'day');
         const k = itemAt(target, i, 'target');
-        row[1 + 2 * k] = valueAt(row, 1 + 2 * k, 'row') + rf * Math.cos(arg);
-        row[2 + 2 * k] = valueAt(row, 2 + 2 * k, 'row') + rf * Math.sin(arg);
+        row[1 + 2 * k] = numberAt(row, 1 + 2 * k, 'row') + rf * Math.cos(arg);
+        row[2 + 2 * k] = numberAt(row, 2 + 2 * k, 'row') + rf * Math.sin(arg);
       }
       // −½ at the first reading, +½ at the last: its coefficient is the change of level over the record
       if (trend !== undefined) row[1 + 2 * fittedCount] = (t - trend.from) / (trend.to - trend.from) - 0.5;

@@ -11,7 +11,7 @@ import { addObservation, createNormalEquations, SingularSystemError, solveNormal
 import { selectConstituents, separationHours, type ExcludedConstituent } from './rayleigh.js';
 import type { GaugeRecord } from './record.js';
 import { constituentUncertainty, residualStatistics, type ResidualStatistics } from './statistics.js';
-import { firstOf, itemAt, valueAt } from '../item.js';
+import { firstOf, itemAt, numberAt } from '../item.js';
 
 export interface AnalysedConstituent {
   name: string;
@@ -69,8 +69,8 @@ export function analyseRecord(record: GaugeRecord, options: AnalysisOptions = {}
   const equations = createNormalEquations(size);
   const row = new Float64Array(size);
   for (let i = 0; i < n; i++) {
-    rows.fill(valueAt(record.times, i, 'times'), row);
-    addObservation(equations, row, valueAt(record.heights, i, 'heights'));
+    rows.fill(numberAt(record.times, i, 'times'), row);
+    addObservation(equations, row, numberAt(record.heights, i, 'heights'));
   }
   let solution;
   try {
@@ -86,16 +86,16 @@ export function analyseRecord(record: GaugeRecord, options: AnalysisOptions = {}
   const x = solution.coefficients;
   const fitted = new Float64Array(n);
   for (let i = 0; i < n; i++) {
-    rows.fill(valueAt(record.times, i, 'times'), row);
+    rows.fill(numberAt(record.times, i, 'times'), row);
     let sum = 0;
-    for (let k = 0; k < size; k++) sum += valueAt(row, k, 'row') * valueAt(x, k, 'x');
+    for (let k = 0; k < size; k++) sum += numberAt(row, k, 'row') * numberAt(x, k, 'x');
     fitted[i] = sum;
   }
   const residual = residualStatistics(record, fitted, size);
   const variance = residual.standardError ** 2;
   const constituents: AnalysedConstituent[] = names.map((name, j) => {
     const ia = 1 + 2 * j;
-    const u = constituentUncertainty(valueAt(x, ia, 'x'), valueAt(x, ia + 1, 'x'), solution.inverse, size, ia, variance);
+    const u = constituentUncertainty(numberAt(x, ia, 'x'), numberAt(x, ia + 1, 'x'), solution.inverse, size, ia, variance);
     return { name, speed: constituentSpeed(name), ...u };
   });
   for (const r of inferences) {
@@ -117,7 +117,7 @@ export function analyseRecord(record: GaugeRecord, options: AnalysisOptions = {}
     rayleigh,
     meanLevel: firstOf(x, 'x'),
     meanLevelError: 1.96 * Math.sqrt(variance * firstOf(solution.inverse, 'inverse')),
-    ...(withTrend ? { trend: { change: valueAt(x, size - 1, 'x'), error: 1.96 * Math.sqrt(variance * valueAt(solution.inverse, size * size - 1, 'inverse')) } } : {}),
+    ...(withTrend ? { trend: { change: numberAt(x, size - 1, 'x'), error: 1.96 * Math.sqrt(variance * numberAt(solution.inverse, size * size - 1, 'inverse')) } } : {}),
     constituents,
     excluded,
     residual,

@@ -9,7 +9,7 @@
 import type { TideEvent } from '../types.js';
 import { addObservation, createNormalEquations, SingularSystemError, solveNormalEquations } from './leastsquares.js';
 import type { GaugeRecord } from './record.js';
-import { firstOf, itemAt, valueAt } from '../item.js';
+import { firstOf, itemAt, numberAt } from '../item.js';
 
 const HOUR = 3_600_000;
 const MINUTE = 60_000;
@@ -25,7 +25,7 @@ interface Fitted extends TideEvent {
 
 function medianStep(times: Float64Array): number {
   const steps: number[] = [];
-  for (let i = 1; i < times.length; i++) steps.push(valueAt(times, i, 'times') - valueAt(times, i - 1, 'times'));
+  for (let i = 1; i < times.length; i++) steps.push(numberAt(times, i, 'times') - numberAt(times, i - 1, 'times'));
   steps.sort((a, b) => a - b);
   return steps[steps.length >> 1] ?? HOUR;
 }
@@ -35,8 +35,8 @@ function smooth(times: Float64Array, heights: Float64Array, halfWidth: number): 
   const out = new Float64Array(times.length);
   let lo = 0, hi = 0, sum = 0;
   for (let i = 0; i < times.length; i++) {
-    while (hi < times.length && valueAt(times, hi, 'times') <= valueAt(times, i, 'times') + halfWidth) sum += valueAt(heights, hi++, 'heights');
-    while (valueAt(times, lo, 'times') < valueAt(times, i, 'times') - halfWidth) sum -= valueAt(heights, lo++, 'heights');
+    while (hi < times.length && numberAt(times, hi, 'times') <= numberAt(times, i, 'times') + halfWidth) sum += numberAt(heights, hi++, 'heights');
+    while (numberAt(times, lo, 'times') < numberAt(times, i, 'times') - halfWidth) sum -= numberAt(heights, lo++, 'heights');
     out[i] = sum / (hi - lo);
   }
   return out;
@@ -47,11 +47,11 @@ function candidates(times: Float64Array, values: Float64Array, halfWidth: number
   const found: number[] = [];
   let lo = 0;
   for (let i = 0; i < times.length; i++) {
-    while (valueAt(times, lo, 'times') < valueAt(times, i, 'times') - halfWidth) lo++;
-    const v = sign * valueAt(values, i, 'values');
+    while (numberAt(times, lo, 'times') < numberAt(times, i, 'times') - halfWidth) lo++;
+    const v = sign * numberAt(values, i, 'values');
     let best = true;
-    for (let j = lo; j < times.length && valueAt(times, j, 'times') <= valueAt(times, i, 'times') + halfWidth; j++) {
-      const w = sign * valueAt(values, j, 'values');
+    for (let j = lo; j < times.length && numberAt(times, j, 'times') <= numberAt(times, i, 'times') + halfWidth; j++) {
+      const w = sign * numberAt(values, j, 'values');
       if (w > v || (w === v && j < i)) {
         best = false;
         break;
@@ -70,9 +70,9 @@ function polynomialFit(record: GaugeRecord, tc: number, reach: number, degree: n
   const eq = createNormalEquations(degree + 1);
   const row = new Float64Array(degree + 1);
   for (let i = a; i <= b; i++) {
-    const x = (valueAt(times, i, 'times') - tc) / reach;
+    const x = (numberAt(times, i, 'times') - tc) / reach;
     for (let k = 0, p = 1; k <= degree; k++, p *= x) row[k] = p;
-    addObservation(eq, row, valueAt(heights, i, 'heights'));
+    addObservation(eq, row, numberAt(heights, i, 'heights'));
   }
   try {
     return solveNormalEquations(eq).coefficients;
@@ -96,7 +96,7 @@ function turningPoint(record: GaugeRecord, tc: number, reach: number, sign: 1 | 
   if (count < 5) return null;
   const c = polynomialFit(record, tc, reach, count >= 7 ? 3 : 2);
   if (c === null) return null;
-  const c1 = valueAt(c, 1, 'c'), c2 = valueAt(c, 2, 'c'), c3 = c[3] ?? 0;
+  const c1 = numberAt(c, 1, 'c'), c2 = numberAt(c, 2, 'c'), c3 = c[3] ?? 0;
   // Roots of p'(x) = c1 + 2c2·x + 3c3·x²; keep the one nearest tc that curves the right way.
   const roots: number[] = [];
   if (Math.abs(3 * c3) <= 1e-9 * Math.abs(c2)) roots.push(-c1 / (2 * c2));
@@ -120,7 +120,7 @@ function lowerBound(times: Float64Array, t: number): number {
   let lo = 0, hi = times.length;
   while (lo < hi) {
     const mid = (lo + hi) >> 1;
-    if (valueAt(times, mid, 'times') < t) lo = mid + 1;
+    if (numberAt(times, mid, 'times') < t) lo = mid + 1;
     else hi = mid;
   }
   return lo;
@@ -135,7 +135,7 @@ function lowerBound(times: Float64Array, t: number): number {
  */
 function refine(record: GaugeRecord, centre: number, halfWidth: number, step: number, sign: 1 | -1): Fitted | null {
   const reach = Math.max(halfWidth, 2.01 * step);
-  let time = turningPoint(record, valueAt(record.times, centre, 'times'), reach, sign);
+  let time = turningPoint(record, numberAt(record.times, centre, 'times'), reach, sign);
   for (let pass = 0; pass < 2 && time !== null; pass++) {
     const again = turningPoint(record, time, reach, sign);
     if (again === null) break;
@@ -151,10 +151,10 @@ function refine(record: GaugeRecord, centre: number, halfWidth: number, step: nu
   const a = lowerBound(record.times, time - reach);
   let sumSq = 0;
   for (let i = a; i < a + count; i++) {
-    const x = (valueAt(record.times, i, 'times') - time) / reach;
+    const x = (numberAt(record.times, i, 'times') - time) / reach;
     let p = 0;
-    for (let k = degree; k >= 0; k--) p = p * x + valueAt(c, k, 'c');
-    sumSq += (valueAt(record.heights, i, 'heights') - p) ** 2;
+    for (let k = degree; k >= 0; k--) p = p * x + numberAt(c, k, 'c');
+    sumSq += (numberAt(record.heights, i, 'heights') - p) ** 2;
   }
   return { time: Math.round(time / 1000) * 1000, type: sign === 1 ? 'high' : 'low', height: firstOf(c, 'c'), rms: Math.sqrt(sumSq / count) };
 }

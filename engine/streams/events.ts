@@ -21,7 +21,7 @@
 import type { StreamPredictor } from './predict.js';
 import { bearingOf } from './predict.js';
 import type { StreamEvent } from './types.js';
-import { itemAt, valueAt } from '../item.js';
+import { itemAt, numberAt } from '../item.js';
 
 const MS_PER_HOUR = 3_600_000;
 const PAD_MS = 86_400_000; // events are found a day beyond the span, so a slack has both its maxima
@@ -92,8 +92,8 @@ export function streamEvents(p: StreamPredictor, from: number, to: number): Stre
   let s0 = NaN;
   for (let i = 0; i < count; i++) {
     const t1 = start + i * step;
-    const g1 = valueAt(v.east, i, 'east') * valueAt(r.east, i, 'east') + valueAt(v.north, i, 'north') * valueAt(r.north, i, 'north');
-    const s1 = valueAt(v.east, i, 'east') * fx + valueAt(v.north, i, 'north') * fy;
+    const g1 = numberAt(v.east, i, 'east') * numberAt(r.east, i, 'east') + numberAt(v.north, i, 'north') * numberAt(r.north, i, 'north');
+    const s1 = numberAt(v.east, i, 'east') * fx + numberAt(v.north, i, 'north') * fy;
     if (i > 0) {
       const t0 = t1 - step;
       if (g0 > 0 !== g1 > 0) {

@@ -1,13 +1,11 @@
 // The cover of a combined book: title, edition year, how many stations, the caution.
-import { cautionBlock, coverImage, inventedBanner } from './cover-parts.js';
-import { accentBar, drawLogo } from './cover.js';
+import { accentBar, besideLogo, cautionFoot, coverHeading, coverImage, drawLogo, inventedBanner } from './cover-parts.js';
 import type { Picture } from './picture.js';
 import type { LogicalPage } from './page.js';
 import { unit } from './page.js';
 import type { StationView } from './station-view.js';
-import { DARK, INK, MID } from './style.js';
-import { tag } from './tags.js';
-import { fitLines, put, putFitted } from './text.js';
+import { DARK } from './style.js';
+import { put, putFitted } from './text.js';
 
 export interface BookCoverText { title: string; publisher?: string; years: string; logo?: Picture; coverImage?: Picture; accent?: string; volume?: string }
 
@@ -18,21 +16,12 @@ export function bookCoverPage(views: StationView[], text: BookCoverText, caution
     draw(ctx) {
       const { doc, box } = ctx;
       const s = unit(ctx);
-      let y = box.y + 12 * s;
-      drawLogo(ctx, text.logo, text.publisher);
-      accentBar(ctx, text.accent);
       const w = ctx.settings.words;
-      put(doc, w.t('book.kicker').toLocaleUpperCase(w.tag), box.x, y, { font: 'bold', size: 9 * s, color: MID });
-      y += 62 * s;
-      put(doc, text.years, box.x - 3 * s, y, { font: 'bold', size: 70 * s, color: text.accent ?? INK });
-      y += 36 * s;
-      const title = fitLines(doc, text.title, { font: 'bold', size: 22 * s }, box.width, 3, 11 * s);
-      tag(doc, 'H1', {}, () => {
-        for (const line of title.lines) {
-          put(doc, line, box.x, y, title.style);
-          y += title.style.size * 1.18;
-        }
-      });
+      accentBar(ctx, text.accent);
+      let y = coverHeading(ctx, { kicker: w.t('book.kicker'), kickerWidth: besideLogo(ctx, text.logo), year: text.years,
+        ...(text.accent !== undefined && { yearColor: text.accent }), title: text.title, gap: 36,
+        titleStyle: { size: 22, lines: 3, minSize: 11, leading: 1.18 } });
+      drawLogo(ctx, text.logo, text.publisher);
       if (text.volume !== undefined) {
         putFitted(doc, text.volume, box.x, y + 2 * s, { font: 'bold', size: 12 * s, color: DARK }, box.width, 7 * s);
         y += 18 * s;
@@ -43,8 +32,9 @@ export function bookCoverPage(views: StationView[], text: BookCoverText, caution
       { font: 'regular', size: 10 * s, color: DARK });
       y += 40 * s;
       if (invented) y = inventedBanner(ctx, y) + 20 * s;
-      const cautionTop = cautionBlock(ctx, caution, text.publisher);
-      if (text.coverImage) coverImage(ctx, text.coverImage, y - 6 * s, cautionTop - 4 * s);
+      const foot = cautionFoot(ctx, caution, text.publisher);
+      if (text.coverImage) coverImage(ctx, text.coverImage, y - 6 * s, foot.top - 4 * s, text.publisher);
+      foot.draw();
     },
   };
 }

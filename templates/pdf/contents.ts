@@ -84,12 +84,13 @@ export function contentsPages(entries: ContentsEntry[], boxHeight: number, s: nu
           const target = `station-${e.view.model.station.id}`;
           // each entry a TOCI whose Link holds the entry's words and, as its OBJR, the link annotation
           group(doc, 'TOCI', {}, () => linked(doc, () => {
-            const used = putFitted(doc, e.view.name, box.x + indent, y, nameStyle, nameMax, 6.5 * s);
+            // each piece ends in an unseen space, so that the entry reads as words, not one run
+            const used = putFitted(doc, `${e.view.name} `, box.x + indent, y, nameStyle, nameMax, 6.5 * s);
             const nameW = Math.min(widthOf(doc, e.view.name, used), nameMax);
             const descX = box.x + indent + nameW + 6 * s;
             const descMax = box.x + box.width - numW - 14 * s - descX;
             const dw = Math.min(descMax, widthOf(doc, desc, { font: 'narrow', size: 7.5 * s }));
-            putFitted(doc, desc, descX, y, { font: 'narrow', size: 7.5 * s, color: MID }, descMax, 5 * s);
+            putFitted(doc, `${desc} `, descX, y, { font: 'narrow', size: 7.5 * s, color: MID }, descMax, 5 * s);
             doc.save().lineWidth(0.6 * s).strokeColor(RULE).dash(0.6 * s, { space: 2.2 * s })
               .moveTo(descX + dw + 4 * s, y).lineTo(box.x + box.width - numW - 4 * s, y).stroke().undash().restore();
             put(doc, num, box.x + box.width, y, { font: 'bold', size: 9.5 * s }, 'right');

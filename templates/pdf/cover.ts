@@ -1,19 +1,15 @@
 // The cover of a station book, also used (as a section title page) for each station of a combined
 // book: station, year, position, datum, the kind of port, a real fortnight of its tide, the caution.
 import { firstOf, lastOf } from '../../engine/index.js';
-import { cautionBlock, coverImage, inventedBanner } from './cover-parts.js';
+import { accentBar, besideLogo, cautionFoot, coverHeading, coverImage, drawLogo, inventedBanner } from './cover-parts.js';
 import { printable } from './format.js';
 import type { LogicalPage, PageContext } from './page.js';
 import { unit } from './page.js';
-import { checkImageResolution } from './image-resolution.js';
 import type { StationView } from './station-view.js';
 import { DARK, INK, LIGHT, MID } from './style.js';
-import { tag } from './tags.js';
-import { fitLines, paragraph, put, putFitted } from './text.js';
-import { fitted, type Picture } from './picture.js';
-
-/** The largest a logo prints on a cover, in design points (A5). */
-export const LOGO_BOX = { width: 70, height: 44 };
+import { group, tag } from './tags.js';
+import { paragraph, put, putFitted } from './text.js';
+import type { Picture } from './picture.js';
 
 export interface GuideEntry { label: string; page: number }
 
@@ -26,27 +22,6 @@ export interface CoverText {
   accent?: string; // the publisher's colour: the year and a bar above it
 }
 
-/** The publisher's logo in the top right corner of a cover; returns the width it leaves for the top line. */
-export function drawLogo(ctx: PageContext, logo: Picture | undefined, publisher?: string): number {
-  const { doc, box } = ctx;
-  const s = unit(ctx);
-  if (logo === undefined) return box.width;
-  const size = fitted(logo.pixels, LOGO_BOX.width * s, LOGO_BOX.height * s);
-  checkImageResolution(ctx.settings.warn, logo, size.width, size.height);
-  tag(doc, 'Figure', { alt: publisher ? `Logo of ${publisher}` : 'Logo of the publisher' }, () => {
-    doc.image(logo.data, box.x + box.width - size.width, box.y, { width: size.width, height: size.height });
-  });
-  return box.width - size.width - 8 * s;
-}
-
-/** The year in the publisher's colour (black without one), with a bar of it above the top line. */
-export function accentBar(ctx: PageContext, accent: string | undefined): void {
-  if (accent === undefined) return;
-  const { doc, box } = ctx;
-  const s = unit(ctx);
-  doc.save().rect(box.x, box.y - 2 * s, 36 * s, 3.2 * s).fill(accent).restore();
-}
-
 /** "In this book": the parts and the first page of each month, if the space allows. */
 function drawGuide(ctx: PageContext, guide: NonNullable<CoverText['guide']>, top: number, bottom: number): void {
   const { doc, box } = ctx;
@@ -57,14 +32,17 @@ function drawGuide(ctx: PageContext, guide: NonNullable<CoverText['guide']>, top
   put(doc, ctx.settings.words.t('book.inThisBook').toLocaleUpperCase(ctx.settings.words.tag), box.x, top, { font: 'bold', size: 7.5 * s, color: MID });
   let y = top + line * 1.2;
   const colW = box.width / 3;
-  const cell = (e: GuideEntry, i: number, yy: number) => {
+  // each entry, its name and page, one item of the book's table of contents
+  const cell = (e: GuideEntry, i: number, yy: number) => tag(doc, 'TOCI', {}, () => {
     const x = box.x + (i % 3) * colW;
-    put(doc, e.label, x, yy, { font: 'regular', size: 8.6 * s });
+    put(doc, `${e.label} `, x, yy, { font: 'regular', size: 8.6 * s }); // read as "January 4", not "January4"
     put(doc, String(e.page), x + colW - 12 * s, yy, { font: 'bold', size: 8.6 * s }, 'right');
-  };
-  guide.parts.forEach((e, i) => cell(e, i, y + Math.floor(i / 3) * line));
-  y += Math.ceil(guide.parts.length / 3) * line + 3 * s;
-  guide.months.forEach((e, i) => cell(e, i, y + Math.floor(i / 3) * line));
+  });
+  group(doc, 'TOC', {}, () => {
+    guide.parts.forEach((e, i) => cell(e, i, y + Math.floor(i / 3) * line));
+    y += Math.ceil(guide.parts.length / 3) * line + 3 * s;
+    guide.months.forEach((e, i) => cell(e, i, y + Math.floor(i / 3) * line));
+  });
 }
 
 /** Two weeks of the tide drawn wide: the station's own curve for its first fortnight. */
@@ -102,16 +80,12 @@ export function coverPage(view: StationView, text: CoverText, kind: 'cover' | 's
     draw(ctx) {
       const { doc, box } = ctx;
       const s = unit(ctx);
-      let y = box.y + 12 * s;
-      const topWidth = kind === 'cover' ? drawLogo(ctx, text.logo, text.publisher) : box.width;
-      if (kind === 'cover') accentBar(ctx, text.accent);
-      putFitted(doc, text.kicker.toUpperCase(), box.x, y, { font: 'bold', size: 9 * s, color: MID }, topWidth, 6.5 * s);
-      y += 62 * s;
-      put(doc, String(model.year), box.x - 3 * s, y, { font: 'bold', size: 70 * s, color: text.accent ?? INK });
-      y += 38 * s;
-
-      const name = fitLines(doc, view.name, { font: 'bold', size: 25 * s }, box.width, 4, 9 * s);
-      tag(doc, 'H1', {}, () => { for (const line of name.lines) { put(doc, line, box.x, y, name.style); y += name.style.size * 1.16; } });
+      const cover = kind === 'cover';
+      if (cover) accentBar(ctx, text.accent);
+      let y = coverHeading(ctx, { kicker: text.kicker, kickerWidth: cover ? besideLogo(ctx, text.logo) : box.width, year: String(model.year),
+        ...(text.accent !== undefined && { yearColor: text.accent }), title: view.name, gap: 38,
+        titleStyle: { size: 25, lines: 4, minSize: 9, leading: 1.16 } });
+      if (cover) drawLogo(ctx, text.logo, text.publisher);
       y += 4 * s;
       const station = model.station;
       const kindLine = station.kind === 'secondary'
@@ -125,11 +99,16 @@ export function coverPage(view: StationView, text: CoverText, kind: 'cover' | 's
         [view.words.t('book.heightsAbove'), printable(station.datum)],
         [view.words.t('fact.localTime'), view.words.zoneSummary(model)],
       ];
-      for (const [k, v] of facts) {
-        putFitted(doc, k, box.x, y, { font: 'narrow', size: 8.5 * s, color: MID }, 58 * s, 5.5 * s);
-        // the value wraps onto a second line rather than shrinking out of reach (a zone described in words)
-        y = paragraph(doc, v, box.x + 62 * s, y, box.width - 62 * s, { font: 'regular', size: 9.5 * s }, 11.5 * s, 2) + 2.5 * s;
-      }
+      // read as a two-column table, each label the header of its row (as on the facts page)
+      group(doc, 'Table', {}, () => {
+        for (const [k, v] of facts) {
+          group(doc, 'TR', {}, () => {
+            tag(doc, 'TH', { scope: 'Row' }, () => putFitted(doc, k, box.x, y, { font: 'narrow', size: 8.5 * s, color: MID }, 58 * s, 5.5 * s));
+            // the value wraps onto a second line rather than shrinking out of reach (a zone described in words)
+            y = tag(doc, 'TD', {}, () => paragraph(doc, v, box.x + 62 * s, y, box.width - 62 * s, { font: 'regular', size: 9.5 * s }, 11.5 * s, 2)) + 2.5 * s;
+          });
+        }
+      });
 
       y += 16 * s;
       tag(doc, 'Figure', { alt: `The predicted tide at ${view.name} over the first two weeks of ${model.year}, drawn as a curve.` },
@@ -137,9 +116,10 @@ export function coverPage(view: StationView, text: CoverText, kind: 'cover' | 's
       y += 70 * s + 26 * s;
 
       if (model.invented) y = inventedBanner(ctx, y) + 20 * s;
-      const cautionTop = cautionBlock(ctx, view.words.caution, text.publisher);
-      if (kind === 'cover' && text.coverImage) coverImage(ctx, text.coverImage, y - 6 * s, cautionTop - 4 * s);
-      else if (text.guide) drawGuide(ctx, text.guide, y, cautionTop - 4 * s);
+      const foot = cautionFoot(ctx, view.words.caution, text.publisher);
+      if (cover && text.coverImage) coverImage(ctx, text.coverImage, y - 6 * s, foot.top - 4 * s, text.publisher);
+      else if (text.guide) drawGuide(ctx, text.guide, y, foot.top - 4 * s);
+      foot.draw();
     },
   };
 }

@@ -19,8 +19,11 @@ export function resolutionWarning(file: string, pixels: PixelSize, widthPt: numb
     + `supply it at ${need.w} \u00d7 ${need.h} pixels or more (300 dpi)`;
 }
 
-/** A picture that would print below 300 dpi where it is placed: the file, its dpi there, the line to print. */
-export interface ImageWarning { file: string; dpi: number; text: string }
+/**
+ * A note about a publisher's picture, one line to print: it would print below 300 dpi where it is placed
+ * (`dpi` there), or, in press output, it is in colour and prints in greys (place-picture.ts).
+ */
+export interface ImageWarning { file: string; kind?: 'resolution' | 'colour'; dpi?: number; text: string }
 
 /** Where a book's image warnings go (BookSettings.warn); the build prints one line per file. */
 export type ImageWarningSink = (warning: ImageWarning) => void;
@@ -34,17 +37,23 @@ export function checkImageResolution(warn: ImageWarningSink | undefined,
   picture: { file: string; pixels: PixelSize; vector: boolean }, widthPt: number, heightPt: number): void {
   if (warn === undefined || picture.vector) return;
   const text = resolutionWarning(picture.file, picture.pixels, widthPt, heightPt);
-  if (text !== null) warn({ file: picture.file, dpi: Math.floor(printedDpi(picture.pixels, widthPt, heightPt)), text });
+  if (text !== null) warn({ file: picture.file, kind: 'resolution', dpi: Math.floor(printedDpi(picture.pixels, widthPt, heightPt)), text });
 }
 
-/** Of several warnings, one per file: the one where it prints least sharp. */
+/**
+ * Of several warnings, one of each kind per file (of the resolution ones, where it prints least sharp),
+ * each file's lines together, files in the order first heard of.
+ */
 export function worstPerFile(warnings: Iterable<ImageWarning>): ImageWarning[] {
-  const worst = new Map<string, ImageWarning>();
+  const byFile = new Map<string, Map<string, ImageWarning>>();
   for (const w of warnings) {
-    const seen = worst.get(w.file);
-    if (seen === undefined || w.dpi < seen.dpi) worst.set(w.file, w);
+    const kinds = byFile.get(w.file) ?? new Map<string, ImageWarning>();
+    byFile.set(w.file, kinds);
+    const kind = w.kind ?? 'resolution';
+    const seen = kinds.get(kind);
+    if (seen === undefined || (w.dpi ?? Infinity) < (seen.dpi ?? Infinity)) kinds.set(kind, w);
   }
-  return [...worst.values()];
+  return [...byFile.values()].flatMap((kinds) => ['resolution', 'colour'].flatMap((k) => kinds.get(k) ?? []));
 }
 
 /** The pixel size of a JPEG or PNG as pdfkit reads it. */

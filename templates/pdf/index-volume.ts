@@ -1,7 +1,7 @@
 // The index volume of a set bound in several volumes: a cover, then every station A to Z with its
 // region, its volume and the page its section starts on.
 import { wordsFor, type Words } from '../locale/index.js';
-import { cautionBlock, inventedBanner } from './cover-parts.js';
+import { accentBar, besideLogo, cautionFoot, coverHeading, drawLogo, inventedBanner } from './cover-parts.js';
 import { editionDate } from './document.js';
 import { printable } from './format.js';
 import { contentBox, pageGeometry } from './geometry.js';
@@ -9,10 +9,11 @@ import { notesPage } from './notes.js';
 import { checkBookOptions, type BookOptions } from './options.js';
 import type { LogicalPage, PageContext } from './page.js';
 import { unit } from './page.js';
+import type { Picture } from './picture.js';
+import { publisherAccent, publisherLogo } from './publisher.js';
 import { renderBook } from './render.js';
 import { DARK, HAIRLINE, MID, RULE } from './style.js';
-import { tag } from './tags.js';
-import { fitLines, paragraph, put, putFitted, widthOf } from './text.js';
+import { paragraph, put, putFitted, widthOf } from './text.js';
 
 export interface IndexEntry {
   name: string;
@@ -31,26 +32,27 @@ function linesPerPage(g: ReturnType<typeof pageGeometry>): number {
   return Math.max(1, Math.floor((contentBox(g, 1).height - TOP * g.scale) / (LINE * g.scale)));
 }
 
-function coverPage(title: string, text: IndexText, w: Words, count: number, publisher: string | undefined): LogicalPage {
+interface IndexCover { title: string; publisher?: string; logo?: Picture; accent?: string }
+
+function coverPage(cover: IndexCover, text: IndexText, w: Words, count: number): LogicalPage {
   return {
     kind: 'cover',
     footer: { invented: text.invented },
     draw(ctx) {
       const { doc, box } = ctx;
       const s = unit(ctx);
-      let y = box.y + 12 * s;
-      put(doc, w.t('book.kicker').toLocaleUpperCase(w.tag), box.x, y, { font: 'bold', size: 9 * s, color: MID });
-      y += 62 * s;
-      put(doc, text.years, box.x - 3 * s, y, { font: 'bold', size: 70 * s });
-      y += 36 * s;
-      const lines = fitLines(doc, title, { font: 'bold', size: 22 * s }, box.width, 3, 11 * s);
-      for (const line of lines.lines) { put(doc, line, box.x, y, lines.style); y += lines.style.size * 1.18; }
-      tag(doc, 'H1', {}, () => putFitted(doc, w.t('index.title'), box.x, y + 4 * s, { font: 'bold', size: 14 * s, color: DARK }, box.width, 8 * s));
+      accentBar(ctx, cover.accent);
+      let y = coverHeading(ctx, { kicker: w.t('book.kicker'), kickerWidth: besideLogo(ctx, cover.logo), year: text.years,
+        ...(cover.accent !== undefined && { yearColor: cover.accent }), title: cover.title, gap: 36,
+        titleStyle: { size: 22, lines: 3, minSize: 11, leading: 1.18 } });
+      drawLogo(ctx, cover.logo, cover.publisher);
+      // what this volume is: the index of the set, a subtitle under the set's title
+      putFitted(doc, w.t('index.title'), box.x, y + 4 * s, { font: 'bold', size: 14 * s, color: DARK }, box.width, 8 * s);
       y = paragraph(doc, w.t('index.intro', { count: text.volumes }), box.x, y + 22 * s, box.width,
         { font: 'regular', size: 9.5 * s, color: DARK }, 12 * s) + 4 * s;
       put(doc, w.t('book.subjectCombined', { count }), box.x, y + 4 * s, { font: 'narrow', size: 8.5 * s, color: MID });
       if (text.invented) inventedBanner(ctx, y + 24 * s);
-      cautionBlock(ctx, w.caution, publisher);
+      cautionFoot(ctx, w.caution, cover.publisher).draw();
     },
   };
 }
@@ -107,9 +109,12 @@ export async function renderIndexVolume(entries: readonly IndexEntry[], options:
   const title = printable(options.title ?? w.t('book.defaultTitle'));
   const sorted = indexOrder(entries, w.tag).map((e) => ({ ...e, name: printable(e.name), ...(e.region !== undefined && { region: printable(e.region) }) }));
   const per = linesPerPage(g);
-  const pages: LogicalPage[] = [coverPage(title, text, w, entries.length, options.publisher)];
+  const logo = publisherLogo(options, g);
+  const accent = publisherAccent(options);
+  const cover = { title, ...(options.publisher !== undefined && { publisher: options.publisher }), ...(logo && { logo }), ...(accent !== undefined && { accent }) };
+  const pages: LogicalPage[] = [coverPage(cover, text, w, entries.length)];
   for (let i = 0; i < sorted.length; i += per) pages.push(listPage(sorted.slice(i, i + per), i === 0, w, text.invented));
-  return renderBook(pages, { units: options.units, geometry: g, title, publisher: options.publisher, words: w, press: options.press }, {
+  return renderBook(pages, { units: options.units, geometry: g, title, publisher: options.publisher, words: w, press: options.press, warn: options.warn }, {
     title: `${title}: ${w.t('index.title')}`,
     author: options.publisher,
     subject: w.t('book.subjectCombined', { count: entries.length }) + `${text.invented ? ` (${w.t('book.inventedSubject')})` : ''}`,

@@ -7,7 +7,7 @@ import { markdownBlocks } from './markdown-blocks.js';
 import { layoutMarkdown, type Placed, type Run } from './markdown-layout.js';
 import type { LogicalPage, PageContext } from './page.js';
 import { unit } from './page.js';
-import { checkImageResolution } from './image-resolution.js';
+import { placePicture } from './place-picture.js';
 import type { PageGeometry } from './geometry.js';
 import { contentBox } from './geometry.js';
 import { fitted, loadPicture, type Picture } from './picture.js';
@@ -84,10 +84,8 @@ function drawPlaced(ctx: PageContext, items: Placed[]): void {
     } else if (item.kind === 'rule') {
       doc.save().lineWidth(0.6 * unit(ctx)).strokeColor(RULE).moveTo(box.x, box.y + item.y).lineTo(box.x + item.width, box.y + item.y).stroke().restore();
     } else if (item.kind === 'image') {
-      checkImageResolution(ctx.settings.warn, item.picture, item.width, item.height);
-      tag(doc, 'Figure', { alt: item.alt || 'Picture' }, () => {
-        doc.image(item.picture.data, box.x + item.x, box.y + item.y, { width: item.width, height: item.height });
-      });
+      tag(doc, 'Figure', { alt: item.alt || 'Picture' },
+        () => placePicture(doc, ctx.settings, item.picture, box.x + item.x, box.y + item.y, item.width, item.height));
       if (item.caption.length > 0) drawBlock(ctx, 'Caption', item.caption);
     } else {
       for (const rule of item.rules) {
@@ -134,10 +132,8 @@ function markdownPages(page: PublisherPage, c: OwnPagesContext): LogicalPage[] {
 
 function drawPicture(ctx: PageContext, picture: Picture, image: PageImage, x: number, y: number, w: number, h: number): void {
   const size = fitted(picture.pixels, w, h);
-  checkImageResolution(ctx.settings.warn, picture, size.width, size.height);
-  tag(ctx.doc, 'Figure', { alt: image.alt || 'Picture' }, () => {
-    ctx.doc.image(picture.data, x + (w - size.width) / 2, y + (h - size.height) / 2, { width: size.width, height: size.height });
-  });
+  tag(ctx.doc, 'Figure', { alt: image.alt || 'Picture' },
+    () => placePicture(ctx.doc, ctx.settings, picture, x + (w - size.width) / 2, y + (h - size.height) / 2, size.width, size.height));
 }
 
 /** One picture filling the page, or a grid of halves (the full width) and quarters (half of it). */

@@ -11,7 +11,10 @@ import { POCKET_COLUMNS, POCKET_ROWS, pocketPlan } from './pocket/fold.js';
 import type { PocketMonthLayout } from './pocket/month-panel.js';
 import { drawPocketMonth, pocketMonthLayout } from './pocket/month-panel.js';
 import type { PanelText } from './pocket/panels.js';
-import { drawCaution, drawCover, drawKey, drawLevels } from './pocket/panels.js';
+import { drawCaution, drawCover, drawKey, drawLevels, POCKET_LOGO } from './pocket/panels.js';
+import type { ImageWarningSink } from './image-resolution.js';
+import { loadPicture } from './picture.js';
+import { addTrimmedPage, useBlackInk, type PagePlacement } from './press.js';
 import { RULE } from './style.js';
 import { beginTaggedPage, group } from './tags.js';
 
@@ -26,6 +29,9 @@ export interface PocketOptions {
   publisher?: string;
   locale?: string;
   caution?: string; // the publisher's own caution, replacing the catalogue's
+  logo?: string; // path of the publisher's logo (SVG, PNG or JPEG): top right of the cover panel
+  press?: boolean; // crop marks, TrimBox and BleedBox round the sheet, black ink only (press.ts)
+  warn?: ImageWarningSink; // told of a logo that would print below 300 dpi, or in greys for the press
 }
 
 // landscape sheets: ISO 216 A4, ANSI letter
@@ -92,22 +98,31 @@ export async function renderPocketTable(model: StationYear, options: PocketOptio
     date: editionDate(model.year),
     lang: words.tag,
   });
-  const text: PanelText = { title, publisher: options.publisher, words, southern: model.station.position.latitude < 0 };
+  const press = options.press === true;
+  if (press) useBlackInk(doc);
+  const text: PanelText = {
+    title, publisher: options.publisher, words, southern: model.station.position.latitude < 0,
+    ...(options.logo !== undefined && { logo: loadPicture(options.logo, POCKET_LOGO.width) }),
+    pictures: { press, ...(options.warn && { warn: options.warn }) },
+  };
   const plan = pocketPlan();
-  doc.addPage({ size: [sheet.width, sheet.height], margin: 0 });
   // one layout for every month, fitted to the smallest panel a month is printed on (an edge panel)
-  const layout = pocketMonthLayout(doc, model, smallestPanel(sheet), words);
-  for (const [i, side] of [plan.outside, plan.inside].entries()) {
-    if (i > 0) doc.addPage({ size: [sheet.width, sheet.height], margin: 0 });
-    drawSide(doc, model, side, sheet, text, layout);
+  let layout: PocketMonthLayout | undefined;
+  for (const side of [plan.outside, plan.inside]) {
+    // the sheet is the trimmed size; for the press it sits inside bleed, crop marks and page boxes
+    const at = addTrimmedPage(doc, sheet.width, sheet.height, press);
+    layout ??= pocketMonthLayout(doc, model, smallestPanel(sheet), words);
+    drawSide(doc, model, side, sheet, text, layout, at);
   }
   return finish(doc);
 }
 
 function drawSide(doc: PDFKit.PDFDocument, model: StationYear, side: SideGrid, sheet: Size, text: PanelText,
-  layout: PocketMonthLayout): void {
+  layout: PocketMonthLayout, at: PagePlacement): void {
   beginTaggedPage(doc);
+  doc.save().translate(at.dx, at.dy);
   side.forEach((row, r) => row.forEach((content, c) => group(doc, 'Sect', {},
     () => drawPanel(doc, model, content, panelBox(sheet, r, c), text, layout))));
   foldMarks(doc, sheet);
+  doc.restore();
 }

@@ -2,7 +2,7 @@
 // accent colour, and their own pages before and after the tide tables.
 import { pagesAt } from '../pages/types.js';
 import type { OwnPlaces } from './compose.js';
-import { LOGO_BOX } from './cover.js';
+import { LOGO_BOX } from './cover-parts.js';
 import { contentBox, type PageGeometry } from './geometry.js';
 import type { ImprintText } from './imprint.js';
 import type { BookOptions } from './options.js';
@@ -16,12 +16,23 @@ export interface PublisherParts {
   own: OwnPlaces;
 }
 
+/** The publisher's logo made ready for a cover of this format, if there is one. */
+export function publisherLogo(options: BookOptions, g: PageGeometry): Picture | undefined {
+  return options.logo === undefined ? undefined : loadPicture(options.logo, LOGO_BOX.width * g.scale);
+}
+
+/** The publisher's colour, except in press output (black ink only). */
+export function publisherAccent(options: BookOptions): string | undefined {
+  return options.press ? undefined : options.accent;
+}
+
 /** The publisher's parts of a book; `level` is the outline level of their pages (0 beside stations' sections). */
 export function publisherParts(options: BookOptions, g: PageGeometry, invented: boolean, level: 0 | 1): PublisherParts {
-  const accent = options.press ? undefined : options.accent;
+  const accent = publisherAccent(options);
   const own = { geometry: g, invented, level, accent };
+  const logo = publisherLogo(options, g);
   return {
-    ...(options.logo !== undefined && { logo: loadPicture(options.logo, LOGO_BOX.width * g.scale) }),
+    ...(logo && { logo }),
     ...(options.coverImage !== undefined && { coverImage: loadPicture(options.coverImage, contentBox(g, 1).width) }),
     ...(accent !== undefined && { accent }),
     own: {
@@ -32,5 +43,5 @@ export function publisherParts(options: BookOptions, g: PageGeometry, invented: 
 }
 
 export function imprintText(options: BookOptions): ImprintText {
-  return { publisher: options.publisher, contact: options.contact, stamp: options.stamp, accent: options.press ? undefined : options.accent };
+  return { publisher: options.publisher, contact: options.contact, stamp: options.stamp, accent: publisherAccent(options) };
 }

@@ -15,7 +15,8 @@ import { checkBookOptions, type BookOptions } from './options.js';
 import type { BookSettings, LogicalPage, PageContext } from './page.js';
 import { renderBook } from './render.js';
 import { HAIRLINE, INK, MID, RULE } from './style.js';
-import { paragraph, put, putFitted } from './text.js';
+import { group, tag } from './tags.js';
+import { paragraph, put, putFitted, widthOf } from './text.js';
 
 const HEADER = 46; // design points above the first day row
 
@@ -39,9 +40,12 @@ function firstPage(model: StreamYear, title: string, w: Words): LogicalPage {
       const { doc, box } = ctx;
       const s = ctx.settings.geometry.scale;
       let y = box.y + 20 * s;
-      putFitted(doc, st.name, box.x, y, { font: 'bold', size: 18 * s }, box.width, 9 * s);
-      y += 16 * s;
-      put(doc, `${title} \u00b7 ${w.t('stream.title', { year: model.year })}`, box.x, y, { font: 'regular', size: 11 * s, color: MID });
+      // the book's title: the station, then what the book is and its year
+      tag(doc, 'H1', {}, () => {
+        putFitted(doc, `${st.name} `, box.x, y, { font: 'bold', size: 18 * s }, box.width, 9 * s);
+        y += 16 * s;
+        put(doc, `${title} \u00b7 ${w.t('stream.title', { year: model.year })}`, box.x, y, { font: 'regular', size: 11 * s, color: MID });
+      });
       y += 22 * s;
       const facts: [string, string][] = [
         [w.t('stream.station'), st.kind === 'stream-secondary' ? w.t('stream.secondaryOf', { station: model.reference?.name ?? '' })
@@ -53,16 +57,17 @@ function firstPage(model: StreamYear, title: string, w: Words): LogicalPage {
         [w.t('stream.rates'), w.t('stream.inKnots')],
         [w.t('stream.springsNeaps'), model.tideReference ? w.t('stream.asAt', { station: model.tideReference.name }) : w.t('stream.ownRates')],
       ];
-      facts.forEach(([label, value], i) => {
-        putFitted(doc, label, box.x, y, { font: 'narrow-bold', size: 8.5 * s }, 96 * s, 5.5 * s);
+      // read as a two-column table, each label the header of its row; the arrows are decoration beside the bearings
+      group(doc, 'Table', {}, () => facts.forEach(([label, value], i) => group(doc, 'TR', {}, () => {
+        tag(doc, 'TH', { scope: 'Row' }, () => putFitted(doc, label, box.x, y, { font: 'narrow-bold', size: 8.5 * s }, 96 * s, 5.5 * s));
         const arrow = i === 3 ? model.floodDirection : i === 4 ? model.ebbDirection : null;
         const vx = box.x + 100 * s + (arrow === null ? 0 : 12 * s);
         if (arrow !== null) streamArrow(doc, arrow, box.x + 104 * s, y - 3 * s, 8 * s);
-        putFitted(doc, value, vx, y, { font: 'narrow', size: 8.5 * s }, box.x + box.width - vx, 6 * s);
+        tag(doc, 'TD', {}, () => putFitted(doc, value, vx, y, { font: 'narrow', size: 8.5 * s }, box.x + box.width - vx, 6 * s));
         y += 12 * s;
-      });
+      })));
       y += 14 * s;
-      put(doc, w.t('caution.heading').toLocaleUpperCase(w.tag), box.x, y, { font: 'bold', size: 10 * s });
+      tag(doc, 'H2', {}, () => put(doc, w.t('caution.heading').toLocaleUpperCase(w.tag), box.x, y, { font: 'bold', size: 10 * s }));
       y += 14 * s;
       y = paragraph(doc, printable(`${w.caution} ${w.t('caution.streams')}`), box.x, y, box.width, { font: 'regular', size: 8.5 * s });
       if (model.invented) {
@@ -76,8 +81,13 @@ function firstPage(model: StreamYear, title: string, w: Words): LogicalPage {
 }
 
 function peak(doc: PDFKit.PDFDocument, e: StreamAlmanacEvent, x: number, y: number, u: number): number {
-  const w1 = put(doc, e.clock, x, y, { font: 'narrow', size: 7.4 * u });
-  const w2 = put(doc, e.speed.toFixed(1), x + w1 + 3 * u, y, { font: 'narrow-bold', size: 7.4 * u });
+  // each piece drawn with an unseen space after it (read as words), placed by its own width
+  const time = { font: 'narrow' as const, size: 7.4 * u };
+  const rate = { font: 'narrow-bold' as const, size: 7.4 * u };
+  const w1 = widthOf(doc, e.clock, time);
+  const w2 = widthOf(doc, e.speed.toFixed(1), rate);
+  put(doc, `${e.clock} `, x, y, time);
+  put(doc, `${e.speed.toFixed(1)} `, x + w1 + 3 * u, y, rate);
   if (e.direction !== null) streamArrow(doc, e.direction, x + w1 + w2 + 9 * u, y - 2.6 * u, 7 * u);
   return w1 + w2 + 16 * u;
 }
@@ -93,8 +103,10 @@ function monthPage(model: StreamYear, month: StreamYear['months'][number], words
       const u = ctx.settings.geometry.scale;
       const right = box.x + box.width;
       const y0 = box.y;
-      const mw = put(doc, words.monthName(month.month), box.x, y0 + 17 * u, { font: 'bold', size: 21 * u });
-      put(doc, String(model.year), box.x + mw + 6 * u, y0 + 17 * u, { font: 'regular', size: 21 * u, color: MID });
+      tag(doc, 'H1', {}, () => {
+        const mw = put(doc, `${words.monthName(month.month)} `, box.x, y0 + 17 * u, { font: 'bold', size: 21 * u });
+        put(doc, String(model.year), box.x + mw + 6 * u, y0 + 17 * u, { font: 'regular', size: 21 * u, color: MID });
+      });
       putFitted(doc, model.station.name, right, y0 + 8 * u, { font: 'bold', size: 9.5 * u }, box.width / 2, 6 * u, 'right');
       put(doc, words.t('stream.groupName'), right, y0 + 17.5 * u, { font: 'narrow', size: 7.6 * u, color: MID }, 'right');
       const info = `${offsetStatement(days as never, words)} \u00b7 ${words.t('stream.rates')} ${words.t('stream.inKnots')} \u00b7 ${words.t('stream.directionsText', { flood: bearing(model.floodDirection), ebb: bearing(model.ebbDirection) })}`;
@@ -103,31 +115,61 @@ function monthPage(model: StreamYear, month: StreamYear['months'][number], words
       const col = { day: box.x, slack: box.x + box.width * 0.12, flood: box.x + box.width * 0.41, ebb: box.x + box.width * 0.705 };
       const hy = y0 + 41 * u;
       const head = { font: 'narrow-bold' as const, size: 6.3 * u, color: MID };
-      put(doc, words.t('site.colDay').toLocaleUpperCase(words.tag), col.day, hy, head);
-      put(doc, words.t('stream.colSlack').toLocaleUpperCase(words.tag), col.slack, hy, head);
-      putFitted(doc, `${words.t('stream.flood').toLocaleUpperCase(words.tag)}  ${words.t('stream.colUnit')}`, col.flood, hy, head, col.ebb - col.flood - 4 * u, 4 * u);
-      putFitted(doc, `${words.t('stream.ebb').toLocaleUpperCase(words.tag)}  ${words.t('stream.colUnit')}`, col.ebb, hy, head, right - col.ebb, 4 * u);
-      doc.save().lineWidth(0.9 * u).strokeColor(INK).moveTo(box.x, y0 + HEADER * u - 3 * u).lineTo(right, y0 + HEADER * u - 3 * u).stroke().restore();
-
-      const row = (box.height - HEADER * u) / 31;
-      let top = y0 + HEADER * u;
-      for (const day of days) {
-        const base = top + row * 0.68;
-        put(doc, `${words.weekdayShort(day.weekday)} ${day.dayOfMonth}`, col.day, base, { font: day.weekday === 7 ? 'narrow-bold' : 'narrow', size: 7.6 * u });
-        if (day.springNeap) springNeapBadge(doc, day.springNeap, col.slack - 6 * u, top + row / 2, 7 * u, 7 * u, 5.2 * u,
-          words.t(day.springNeap === 'spring' ? 'tide.springMark' : 'tide.neapMark'));
-        let sx = col.slack;
-        for (const e of day.events.filter((x) => x.type === 'slack')) sx += put(doc, e.clock, sx, base, { font: 'narrow', size: 7.4 * u }) + 4.5 * u;
-        let fx = col.flood;
-        for (const e of day.events.filter((x) => x.type === 'flood')) fx += peak(doc, e, fx, base, u);
-        let ex = col.ebb;
-        for (const e of day.events.filter((x) => x.type === 'ebb')) ex += peak(doc, e, ex, base, u);
-        top += row;
-        const weekEnd = day.weekday === 7;
-        doc.save().lineWidth(weekEnd ? 0.9 * u : HAIRLINE).strokeColor(weekEnd ? INK : RULE).moveTo(box.x, top).lineTo(right, top).stroke().restore();
-      }
+      // the month read as a table: a row of column headers, then each day a row headed by its date
+      group(doc, 'Table', { title: `${words.monthName(month.month)} ${model.year}` }, () => {
+        group(doc, 'TR', {}, () => {
+          const th = (draw: () => unknown) => tag(doc, 'TH', { scope: 'Column' }, draw);
+          th(() => put(doc, words.t('site.colDay').toLocaleUpperCase(words.tag), col.day, hy, head));
+          th(() => put(doc, words.t('stream.colSlack').toLocaleUpperCase(words.tag), col.slack, hy, head));
+          th(() => putFitted(doc, `${words.t('stream.flood').toLocaleUpperCase(words.tag)}  ${words.t('stream.colUnit')}`, col.flood, hy, head, col.ebb - col.flood - 4 * u, 4 * u));
+          th(() => putFitted(doc, `${words.t('stream.ebb').toLocaleUpperCase(words.tag)}  ${words.t('stream.colUnit')}`, col.ebb, hy, head, right - col.ebb, 4 * u));
+        });
+        drawDays(ctx, model, days, col, words);
+      });
     },
   };
+}
+
+/** The day rows of a stream month: date, slack times (with a spring or neap mark), floods and ebbs. */
+function drawDays(ctx: PageContext, model: StreamYear, days: StreamDayEntry[], col: { day: number; slack: number; flood: number; ebb: number },
+  words: Words): void {
+  const { doc, box } = ctx;
+  const u = ctx.settings.geometry.scale;
+  const right = box.x + box.width;
+  const y0 = box.y;
+  doc.save().lineWidth(0.9 * u).strokeColor(INK).moveTo(box.x, y0 + HEADER * u - 3 * u).lineTo(right, y0 + HEADER * u - 3 * u).stroke().restore();
+
+  const row = (box.height - HEADER * u) / 31;
+  let top = y0 + HEADER * u;
+  for (const day of days) {
+    const base = top + row * 0.68;
+    group(doc, 'TR', {}, () => {
+      tag(doc, 'TH', { scope: 'Row' }, () => put(doc, `${words.weekdayShort(day.weekday)} ${day.dayOfMonth}`, col.day, base,
+        { font: day.weekday === 7 ? 'narrow-bold' : 'narrow', size: 7.6 * u }));
+      group(doc, 'TD', {}, () => {
+        const mark = day.springNeap;
+        if (mark) {
+          tag(doc, 'Figure', { alt: words.springNeapName(mark) }, () => springNeapBadge(doc, mark, col.slack - 6 * u, top + row / 2, 7 * u, 7 * u, 5.2 * u,
+            words.t(mark === 'spring' ? 'tide.springMark' : 'tide.neapMark')));
+        }
+        let sx = col.slack;
+        tag(doc, 'P', {}, () => {
+          for (const e of day.events.filter((x) => x.type === 'slack')) {
+            put(doc, `${e.clock} `, sx, base, { font: 'narrow', size: 7.4 * u });
+            sx += widthOf(doc, e.clock, { font: 'narrow', size: 7.4 * u }) + 4.5 * u;
+          }
+        });
+      });
+      // a strongest stream's arrow is drawn inside its cell: the rate and the month's directions say where it runs
+      let fx = col.flood;
+      tag(doc, 'TD', {}, () => { for (const e of day.events.filter((x) => x.type === 'flood')) fx += peak(doc, e, fx, base, u); });
+      let ex = col.ebb;
+      tag(doc, 'TD', {}, () => { for (const e of day.events.filter((x) => x.type === 'ebb')) ex += peak(doc, e, ex, base, u); });
+    });
+    top += row;
+    const weekEnd = day.weekday === 7;
+    doc.save().lineWidth(weekEnd ? 0.9 * u : HAIRLINE).strokeColor(weekEnd ? INK : RULE).moveTo(box.x, top).lineTo(right, top).stroke().restore();
+  }
 }
 
 /** The pages of one stream-year: its first page, then a page per month. */

@@ -40,7 +40,8 @@ export function put(doc: PDFKit.PDFDocument, text: string, x: number, y: number,
 
 function putUntagged(doc: PDFKit.PDFDocument, text: string, x: number, y: number, style: TextStyle, align: Align): number {
   useFont(doc, style.font).fontSize(style.size).fillColor(style.color ?? '#000000');
-  const s = drawable(doc, text);
+  // a right-to-left line keeps no unseen end space (spacedLines): it would land at its left end
+  const s = needsBidi(text) ? drawable(doc, text).trimEnd() : drawable(doc, text);
   const w = doc.widthOfString(s);
   const left = align === 'left' ? x : align === 'right' ? x - w : x - w / 2;
   if (!needsBidi(s)) {
@@ -110,6 +111,14 @@ export function wrapLines(doc: PDFKit.PDFDocument, text: string, style: TextStyl
   return lines;
 }
 
+/**
+ * Lines of one piece of text, each but the last ending in a space that is never seen: text read out of the
+ * PDF (a screen reader, copying) then keeps the word breaks that fell at the ends of lines.
+ */
+export function spacedLines(lines: readonly string[]): string[] {
+  return lines.map((line, i) => (i < lines.length - 1 ? `${line} ` : line));
+}
+
 /** Draws a wrapped paragraph from the first baseline y; returns the baseline after the last line. */
 export function paragraph(doc: PDFKit.PDFDocument, text: string, x: number, y: number, width: number,
   style: TextStyle, leading = style.size * 1.3, maxLines = Infinity): number {
@@ -117,7 +126,7 @@ export function paragraph(doc: PDFKit.PDFDocument, text: string, x: number, y: n
   const shown = lines.slice(0, maxLines);
   if (lines.length > shown.length) shown[shown.length - 1] = clipText(doc, `${shown[shown.length - 1]} …`, style, width);
   let yy = y;
-  tag(doc, 'P', {}, () => { for (const line of shown) { put(doc, line, x, yy, style); yy += leading; } });
+  tag(doc, 'P', {}, () => { for (const line of spacedLines(shown)) { put(doc, line, x, yy, style); yy += leading; } });
   return yy;
 }
 

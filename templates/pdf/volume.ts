@@ -97,7 +97,7 @@ export async function renderVolume(stations: VolumeStation[], options: BookOptio
   });
   const pages = [cover, ...contentsPages(entries, contentBox(g, 1).height, g.scale, invented, w), caution, ...sections,
     imprintPage(views.map((v) => v.model), w, imprintText(options))];
-  const pdf = await renderBook(pages, { units: options.units, geometry: g, title, publisher: options.publisher, words: w, press: options.press }, {
+  const pdf = await renderBook(pages, { units: options.units, geometry: g, title, publisher: options.publisher, words: w, press: options.press, warn: options.warn }, {
     title: volumeLine === undefined ? title : `${title}: ${volumeLine}`,
     author: options.publisher,
     subject: w.t('book.subjectCombined', { count: views.length }) + `${invented ? ` (${w.t('book.inventedSubject')})` : ''}`,

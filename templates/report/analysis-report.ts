@@ -5,7 +5,7 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import nunjucks from 'nunjucks';
-import { valueAt, type HarmonicAnalysis, type StationMeta } from '../../engine/index.js';
+import { numberAt, type HarmonicAnalysis, type StationMeta } from '../../engine/index.js';
 import { wordsFor, type MessageKey, type Words } from '../locale/index.js';
 import { projectRoot } from '../site/paths.js';
 import { timeSeriesChart } from './chart.js';
@@ -31,7 +31,7 @@ function busiestWindow(times: Float64Array, days: number): [number, number] {
   let best = 0, bestStart = times[0] ?? 0;
   let j = 0; // the first reading at or after t + width
   for (const [i, t] of times.entries()) {
-    while (j < times.length && valueAt(times, j, 'record times') < t + width) j++;
+    while (j < times.length && numberAt(times, j, 'record times') < t + width) j++;
     if (j - i > best) {
       best = j - i;
       bestStart = t;
@@ -45,7 +45,7 @@ function busiestWindow(times: Float64Array, days: number): [number, number] {
 function charts(a: HarmonicAnalysis, w: Words): Record<'record' | 'fit' | 'residual', nunjucks.runtime.SafeString> {
   const { record, fitted } = a;
   const breakAfterMs = Math.max(3 * a.summary.intervalHours * HOUR, 2 * HOUR);
-  const residuals = record.heights.map((h, i) => h - valueAt(fitted, i, 'fitted heights'));
+  const residuals = record.heights.map((h, i) => h - numberAt(fitted, i, 'fitted heights'));
   const [start, end] = busiestWindow(record.times, 4);
   const safe = (svg: string) => new nunjucks.runtime.SafeString(svg);
   return {

@@ -2,7 +2,7 @@
 // lowest and highest value of each pixel column, so a year of readings keeps its envelope in a few
 // kilobytes; gaps in the record stay visible as breaks in the line.
 
-import { valueAt } from '../../engine/index.js';
+import { numberAt } from '../../engine/index.js';
 import { escapeHtml } from './escape.js';
 
 const DAY = 86_400_000;
@@ -84,7 +84,7 @@ function seriesPath(s: ChartSeries, x: (t: number) => number, y: (v: number) => 
     }
   };
   for (const [i, t] of s.times.entries()) {
-    const v = valueAt(s.values, i, 'chart values');
+    const v = numberAt(s.values, i, 'chart values');
     if (t < start || t > end || !Number.isFinite(v)) continue;
     if (t - lastT > breakAfterMs) {
       flush();
@@ -121,7 +121,7 @@ export function timeSeriesChart(series: readonly ChartSeries[], options: ChartOp
   }
   for (const s of series) {
     for (const [i, t] of s.times.entries()) {
-      const v = valueAt(s.values, i, 'chart values');
+      const v = numberAt(s.values, i, 'chart values');
       if (t < start || t > end || !Number.isFinite(v)) continue;
       if (v < lo) lo = v;
       if (v > hi) hi = v;

@@ -1,9 +1,10 @@
 // The index of a large set: stations grouped by their `region:` (when any station has one; else the
 // reference-port groups alone), an A–Z jump list to the groups, the words the in-page search needs,
 // and the map of every station. Built once from the models; the template only places it.
-import type { StationYear, StreamYear } from '../../engine/index.js';
+import type { StreamYear } from '../../engine/index.js';
 import { CATALOGUES, type Words } from '../locale/index.js';
 import { stationMap, type MapStation, type StationMap } from './map.js';
+import type { StationYearSummary } from './summary.js';
 import { indexGroups, type IndexGroup } from './views.js';
 
 export interface IndexRegion {
@@ -59,7 +60,7 @@ function countOf(groups: readonly IndexGroup[]): number {
 }
 
 /** Every station once (its first year's page), tide stations then streams, for the map. */
-function mapStations(models: readonly StationYear[], streams: readonly StreamYear[]): MapStation[] {
+function mapStations(models: readonly StationYearSummary[], streams: readonly StreamYear[]): MapStation[] {
   const seen = new Map<string, MapStation>();
   for (const m of [...models, ...streams].sort((a, b) => a.year - b.year)) {
     const st = m.station;
@@ -76,8 +77,8 @@ function countForms(words: Words): { form: string; text: string }[] {
   return Object.entries(message).filter(([form]) => form !== 'count').map(([form, text]) => ({ form, text: String(text) }));
 }
 
-export function siteIndex(models: readonly StationYear[], streams: readonly StreamYear[], words: Words, groups: IndexGroup[]): SiteIndex {
-  const regionOf = (m: StationYear | StreamYear): string | null => m.station.region ?? null;
+export function siteIndex(models: readonly StationYearSummary[], streams: readonly StreamYear[], words: Words, groups: IndexGroup[]): SiteIndex {
+  const regionOf = (m: StationYearSummary | StreamYear): string | null => m.station.region ?? null;
   const byRegion = [...models, ...streams].some((m) => regionOf(m) !== null);
   const common = { map: stationMap(mapStations(models, streams)), countForms: countForms(words) };
   if (!byRegion) {

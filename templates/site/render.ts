@@ -1,23 +1,27 @@
-// renderSite: the website of a set of station-years, written by Eleventy 3 into outDir. The models and
-// filters are handed to Eleventy here (templates/_data/site.js returns the handoff), and every
-// station-year's downloads are written inside the site (outDir/data/), once, so the site is whole
-// wherever it is uploaded as one folder and its links reach them.
+// renderSite: the website of a set of station-years, written by Eleventy 3 into outDir. The site's
+// structure and filters are handed to Eleventy here (templates/_data/site.js returns the handoff), and
+// every station-year's downloads are written inside the site (outDir/data/), once, so the site is
+// whole wherever it is uploaded as one folder and its links reach them.
 //
-// Eleventy keeps every page it renders in memory until its run ends (about 5 MiB per station-year),
-// so the pages are written in several runs into the same folder: one per batch of station-years (their
-// year and month pages only) and one for the shared pages (index, datums, assets). Every run sees the
-// same site-wide facts, so the pages are the same as from one run; the memory no longer grows with
-// the number of stations beyond the models themselves.
+// Memory stays flat however many stations there are: the shared pages (index, map, imprint) are built
+// from the station-years' small summaries, and each station-year's model is read (from the build
+// cache, by the caller's `model`) only when its own pages are drawn, in runs of a few station-years
+// (Eleventy keeps every page of a run in memory until the run ends, about 5 MiB per station-year).
+// Every run sees the same site-wide facts, so the pages are the same as from one run. A station-year
+// whose pages were kept from an earlier build under the same facts is copied instead of drawn.
+import { createHash } from 'node:crypto';
 import { copyFile, cp, mkdir, mkdtemp, readdir, rm } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
-import { join, resolve } from 'node:path';
+import { join, relative, resolve } from 'node:path';
 import Eleventy from '@11ty/eleventy';
 import type { StationYear, StreamYear } from '../../engine/index.js';
 import { writeStreamExports } from '../exports/streams.js';
 import { writeExports } from '../exports/write.js';
 import { registerSiteFilters } from './filters.js';
 import { projectRoot } from './paths.js';
-import { buildSiteData, siteWords, type MonthPage, type SiteData, type SiteOptions, type StationYearPage } from './views.js';
+import { stationPageChrome, stationYearPages, stationYearUrl, type StationPageFacts } from './station-pages.js';
+import type { StationYearSummary } from './summary.js';
+import { pageFacts, sharedSiteData, siteOrder, siteWords, type SiteData, type SiteOptions } from './views.js';
 
 export interface RenderSiteOptions extends SiteOptions {
   quiet?: boolean;
@@ -77,30 +81,82 @@ async function runEleventy(root: string, input: string, out: string, site: SiteD
   await eleventy.write();
 }
 
-/** The station-year pages in runs of at most `size`, each with its own month pages (same order as in `site`). */
-function batches(site: SiteData, size: number): { stationYears: StationYearPage[]; monthPages: MonthPage[] }[] {
-  const list: { stationYears: StationYearPage[]; monthPages: MonthPage[] }[] = [];
-  let month = 0;
-  for (let i = 0; i < site.stationYears.length; i += size) {
-    const stationYears = site.stationYears.slice(i, i + size);
-    const count = stationYears.reduce((n, sy) => n + sy.months.length, 0);
-    list.push({ stationYears, monthPages: site.monthPages.slice(month, month + count) });
-    month += count;
+/** The station-years of a site: their summaries, and each one's model when its pages are drawn. */
+export interface SiteSource {
+  stationYears: readonly StationYearSummary[];
+  model(stationYear: StationYearSummary): StationYear | Promise<StationYear>;
+  /** Pages and downloads of station-years kept from earlier builds (the build cache). */
+  pages?: StationPageStore;
+}
+
+/** What a station-year's pages depend on beyond its own model and the site's options. */
+export interface StationPageKey {
+  shared: string; // digest of what every station page shows of the site as a whole
+  page: StationPageFacts;
+}
+
+export interface StationPageStore {
+  /** Writes the station-year's kept files into the site folder; false when none are kept under `key`. */
+  restore(stationYear: StationYearSummary, key: StationPageKey, siteDir: string): Promise<boolean>;
+  /** Keeps the station-year's files (paths relative to the site folder, just written) under `key`. */
+  store(stationYear: StationYearSummary, key: StationPageKey, files: readonly string[], siteDir: string): Promise<void>;
+}
+
+/**
+ * Digest of what the station pages show of the site as a whole. A publisher's own templates may show
+ * anything handed to them (the index, every station's name…), so then it is all of it.
+ */
+function sharedDigest(site: SiteData, themed: boolean): string {
+  const view = themed ? { ...site, stationYears: [], monthPages: [] } : stationPageChrome(site);
+  return createHash('sha256').update(JSON.stringify(view)).digest('hex');
+}
+
+/** Every file under a folder, as paths relative to `root`. */
+async function filesUnder(root: string, dir: string): Promise<string[]> {
+  const files: string[] = [];
+  for (const entry of await readdir(dir, { withFileTypes: true, recursive: true })) {
+    if (entry.isFile()) files.push(relative(root, join(entry.parentPath, entry.name)).split('\\').join('/'));
   }
-  return list;
+  return files.sort();
 }
 
 export async function renderSite(models: StationYear[], outDir: string, options: RenderSiteOptions): Promise<void> {
+  return renderSiteFrom({ stationYears: models, model: (sy) => sy as StationYear }, outDir, options);
+}
+
+export async function renderSiteFrom(source: SiteSource, outDir: string, options: RenderSiteOptions): Promise<void> {
   const root = projectRoot();
   const out = resolve(outDir);
   const size = options.stationYearsPerRun ?? STATION_YEARS_PER_RUN;
   if (!Number.isInteger(size) || size < 1) throw new RangeError(`stationYearsPerRun must be a whole number from 1, not ${size}`);
-  const site = buildSiteData(models, options, true, options.streams ?? []);
+  const words = siteWords(options);
+  const site = sharedSiteData(source.stationYears, options, true, options.streams ?? []);
+  const facts = pageFacts(source.stationYears);
+  const shared = source.pages ? sharedDigest(site, options.siteTheme !== undefined) : '';
+  const keyOf = (sy: StationYearSummary): StationPageKey => ({ shared, page: facts(sy) });
+  const siteData = join(out, 'data');
+  await mkdir(siteData, { recursive: true });
+  const toDraw: StationYearSummary[] = [];
+  for (const sy of siteOrder(source.stationYears)) {
+    if (!source.pages || !await source.pages.restore(sy, keyOf(sy), out)) toDraw.push(sy);
+  }
   const layered = options.siteTheme === undefined ? null : await layeredTemplates(root, options.siteTheme);
   const input = layered ?? join(root, 'templates');
   try {
-    for (const batch of batches(site, size)) await runEleventy(root, input, out, { ...site, ...batch }, SHARED_PAGES, options);
-    await runEleventy(root, input, out, { ...site, stationYears: [], monthPages: [] }, STATION_PAGES, options, options.siteFiles);
+    for (let i = 0; i < toDraw.length; i += size) {
+      const models: StationYear[] = [];
+      for (const sy of toDraw.slice(i, i + size)) models.push(await source.model(sy));
+      const pages = models.map((model) => stationYearPages(model, facts(model), words));
+      await runEleventy(root, input, out, { ...site, stationYears: pages.map((p) => p.page), monthPages: pages.flatMap((p) => p.months) }, SHARED_PAGES, options);
+      for (const model of models) {
+        const names = await writeExports(model, siteData, words, options.stamp);
+        if (!source.pages) continue;
+        const exports = [names.csv, names.json, names.ics, names.hourly, ...(names.windows ? [names.windows.csv, names.windows.json] : [])];
+        const files = [...await filesUnder(out, join(out, stationYearUrl(model.station.id, model.year))), ...exports.map((n) => `data/${n}`)];
+        await source.pages.store(model, keyOf(model), files, out);
+      }
+    }
+    await runEleventy(root, input, out, site, STATION_PAGES, options, options.siteFiles);
   } finally {
     if (layered !== null) await rm(layered, { recursive: true, force: true });
   }
@@ -110,9 +166,5 @@ export async function renderSite(models: StationYear[], outDir: string, options:
   for (const own of site.ownPages) {
     for (const file of own.files) await copyFile(file.from, join(out, own.url.slice(1), file.name));
   }
-
-  const siteData = join(out, 'data');
-  await mkdir(siteData, { recursive: true });
-  for (const model of models) await writeExports(model, siteData, siteWords(options), options.stamp);
-  for (const model of options.streams ?? []) await writeStreamExports(model, siteData, siteWords(options), options.stamp);
+  for (const model of options.streams ?? []) await writeStreamExports(model, siteData, words, options.stamp);
 }

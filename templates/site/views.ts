@@ -1,15 +1,16 @@
-// The site's page structure, built once from the models: the grouped index, one entry per
+// The site's page structure: the grouped index from the station-years' summaries, one entry per
 // station-year page and per month page (with their URLs and neighbours). Numbers stay in the models;
 // formatting and drawing happen in the filters while each page renders.
 import type {
   MonthEntry, OffsetChange, Station, StationYear, TideTypeCode, StreamYear,
 } from '../../engine/index.js';
 import { extname } from 'node:path';
-import { exportFileNames } from '../exports/write.js';
 import type { PublisherPage } from '../pages/types.js';
 import { siteOwnPages, type SiteOwnPage } from './own-pages.js';
 import { wordsFor, type Units, type Words } from '../locale/index.js';
 import { siteIndex, type SiteIndex } from './index-views.js';
+import { stationYearPages, stationYearUrl, type StationPageFacts } from './station-pages.js';
+import type { StationYearSummary } from './summary.js';
 import { indexStreams, streamPages, type IndexStream, type StreamMonthPage, type StreamYearPage } from './stream-views.js';
 
 export interface SiteOptions {
@@ -126,10 +127,9 @@ export interface SiteData {
 
 const byName = (a: { name: string }, b: { name: string }): number => a.name.localeCompare(b.name, 'en');
 
-export const stationYearUrl = (id: string, year: number): string => `/${id}/${year}/`;
 
 /** The index's groups of a set of station-years: each reference port with its secondary ports and streams. */
-export function indexGroups(models: readonly StationYear[], streams: readonly StreamYear[], words: Words): IndexGroup[] {
+export function indexGroups(models: readonly StationYearSummary[], streams: readonly StreamYear[], words: Words): IndexGroup[] {
   const stations = new Map<string, IndexStation>();
   const referenceOf = new Map<string, { id: string; name: string } | null>();
   for (const m of models) {
@@ -184,65 +184,36 @@ function groupOf(referenceId: string | null, referenceName: string, reference: I
     secondaries: [], streams: [], streamsOnly: false, elsewhere: null };
 }
 
-function clockChangesOf(days: StationYear['days']): DatedChange[] {
-  return days.flatMap((d) => (d.offsetChange ? [{ date: d.date, change: d.offsetChange }] : []));
-}
-
-function monthPagesOf(model: StationYear, yearUrl: string, words: Words): MonthPage[] {
-  const pages: MonthPage[] = model.months.map((month) => {
-    const days = model.days.slice(month.firstDayIndex, month.firstDayIndex + month.dayCount);
-    const clockChanges = clockChangesOf(days);
-    return { url: `${yearUrl}${month.slug}/`, yearUrl, model, month, days, prev: null, next: null, siblings: [], clockChanges, years: [] };
-  });
-  const label = (p: MonthPage): string => words.monthName(p.month.month);
-  const siblings = pages.map((p) => ({ url: p.url, label: label(p), short: words.monthShort(p.month.month) }));
-  pages.forEach((p, i) => {
-    p.siblings = siblings;
-    const prev = pages[i - 1];
-    const next = pages[i + 1];
-    if (prev) p.prev = { url: prev.url, label: label(prev), short: words.monthShort(prev.month.month) };
-    if (next) p.next = { url: next.url, label: label(next), short: words.monthShort(next.month.month) };
-  });
-  return pages;
-}
-
 /** The words of a site: its language, units and caution. */
 export function siteWords(options: SiteOptions): Words {
   return wordsFor({ locale: options.locale, units: options.units, caution: options.caution });
 }
 
-export function buildSiteData(models: StationYear[], options: SiteOptions, downloads = true, streams: readonly StreamYear[] = []): SiteData {
-  const words = siteWords(options);
-  const sorted = [...models].sort((a, b) => a.station.id.localeCompare(b.station.id, 'en') || a.year - b.year);
-  const built = new Set(sorted.map((m) => stationYearUrl(m.station.id, m.year)));
-  const stationYears: StationYearPage[] = [];
-  const monthPages: MonthPage[] = [];
-  const seen = new Set<string>();
+/** Where each station's years and built station-years are: the facts each station-year's pages show of the others. */
+export function pageFacts(summaries: readonly StationYearSummary[]): (sy: StationYearSummary) => StationPageFacts {
+  const built = new Set(summaries.map((m) => stationYearUrl(m.station.id, m.year)));
   const yearsOf = new Map<string, number[]>();
-  for (const m of sorted) yearsOf.set(m.station.id, [...(yearsOf.get(m.station.id) ?? []), m.year]);
-  for (const model of sorted) {
-    const names = exportFileNames(model); // also checks the id is safe for a file name and a URL
-    const url = stationYearUrl(model.station.id, model.year);
-    if (seen.has(url)) throw new Error(`two models for ${model.station.id} ${model.year}: each station-year may appear once`);
+  for (const m of summaries) yearsOf.set(m.station.id, [...(yearsOf.get(m.station.id) ?? []), m.year]);
+  return (sy) => ({
+    referenceBuilt: sy.reference !== null && built.has(stationYearUrl(sy.reference.id, sy.year)),
+    years: [...new Set(yearsOf.get(sy.station.id))].sort((a, b) => a - b),
+  });
+}
+
+/** Station-years in the site's order: by station id, then year. */
+export function siteOrder<T extends StationYearSummary>(summaries: readonly T[]): T[] {
+  return [...summaries].sort((a, b) => a.station.id.localeCompare(b.station.id, 'en') || a.year - b.year);
+}
+
+/** Everything of the site but its station-year pages (`stationYears` and `monthPages` left empty). */
+export function sharedSiteData(summaries: readonly StationYearSummary[], options: SiteOptions, downloads = true, streams: readonly StreamYear[] = []): SiteData {
+  const words = siteWords(options);
+  const sorted = siteOrder(summaries);
+  const seen = new Set<string>();
+  for (const m of sorted) {
+    const url = stationYearUrl(m.station.id, m.year);
+    if (seen.has(url)) throw new Error(`two models for ${m.station.id} ${m.year}: each station-year may appear once`);
     seen.add(url);
-    const months = monthPagesOf(model, url, words);
-    const years = [...new Set(yearsOf.get(model.station.id))];
-    const yearLinks = (suffix: string): YearLink[] => years.map((year) =>
-      ({ year, url: `${stationYearUrl(model.station.id, year)}${suffix}`, current: year === model.year }));
-    for (const p of months) p.years = yearLinks(`${p.month.slug}/`);
-    const ref = model.reference;
-    stationYears.push({
-      url, model,
-      referenceUrl: ref && built.has(stationYearUrl(ref.id, model.year)) ? stationYearUrl(ref.id, model.year) : null,
-      months: months.map((p) => ({ month: p.month, url: p.url })),
-      clockChanges: clockChangesOf(model.days),
-      years: yearLinks(''),
-      downloads: {
-        csv: `/data/${names.csv}`, json: `/data/${names.json}`, ics: `/data/${names.ics}`, hourly: `/data/${names.hourly}`,
-        windows: names.windows ? { csv: `/data/${names.windows.csv}`, json: `/data/${names.windows.json}` } : null,
-      },
-    });
-    monthPages.push(...months);
   }
   const first = sorted[0];
   const stream = streamPages(streams, words);
@@ -269,9 +240,22 @@ export function buildSiteData(models: StationYear[], options: SiteOptions, downl
     },
     groups,
     index: siteIndex(sorted, streams, words, groups),
-    stationYears,
-    monthPages,
+    stationYears: [],
+    monthPages: [],
     ...stream,
     streamCaution: streams.length > 0 ? words.t('caution.streams') : null,
   };
+}
+
+/** The whole site's data, every station-year's pages included (small sets, tests, Eleventy on its own). */
+export function buildSiteData(models: StationYear[], options: SiteOptions, downloads = true, streams: readonly StreamYear[] = []): SiteData {
+  const site = sharedSiteData(models, options, downloads, streams);
+  const facts = pageFacts(models);
+  const words = siteWords(options);
+  for (const model of siteOrder(models)) {
+    const { page, months } = stationYearPages(model, facts(model), words);
+    site.stationYears.push(page);
+    site.monthPages.push(...months);
+  }
+  return site;
 }

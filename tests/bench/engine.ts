@@ -3,20 +3,20 @@
 //     loop (f, u and V₀ evaluated once a day, one cosine per constituent per step); target ≥ 3×;
 // (b) all high and low waters of that station-year: findExtrema against 1-minute sampling with direct
 //     cosines (which is also 60 times coarser in time); target ≥ 30×.
-import { compilePredictor, findExtrema, itemAt, valueAt } from '../../engine/index.js';
+import { compilePredictor, findExtrema, itemAt, numberAt } from '../../engine/index.js';
 import { sixtyConstituentStation } from '../fixtures/engine-stations.js';
 import { directMinuteSeries } from './direct.js';
 
 const MINUTE = 60_000;
 const DAY = 86_400_000;
-const RUNS = 9;
+const RUNS = 15;
 
 /** High and low waters read off a sampled series (the sample nearest each turn). */
 function sampledExtrema(h: Float64Array): number {
   let events = 0;
   let before = h[0] ?? Number.NaN, here = h[1] ?? Number.NaN; // NaN compares false: fewer than 3 samples have no turn
   for (let j = 2; j < h.length; j++) {
-    const after = valueAt(h, j, 'sampled heights');
+    const after = numberAt(h, j, 'sampled heights');
     if ((here > before && here >= after) || (here < before && here <= after)) events++;
     before = here;
     here = after;
@@ -37,17 +37,23 @@ function median(values: number[]): number {
 // `npm run bench` starts node with --expose-gc
 const collectGarbage = (globalThis as { gc?: () => void }).gc ?? (() => {});
 
-/** Runs each job RUNS times, interleaved so both see the same machine load. */
+/**
+ * Runs each job RUNS times, interleaved so both see the same machine load. Garbage is collected once
+ * before each round, the jobs then run from the last to the first: the first job, the one measured against
+ * the others, pays for any garbage they left. (Collecting before every job as well made the first job's
+ * timings swing by 3× on a loaded machine: two full collections in a row with nothing run between them
+ * throw away more of the optimised code than a build ever does.)
+ */
 export function timeSideBySide(jobs: (() => unknown)[]): Timing[] {
-  // warm up until the optimising compiler has settled: at least 5 runs and 0.5 s of each job
+  // warm up until the optimising compiler has settled: at least 10 runs and 1 s of each job
   for (const job of jobs) {
     const t0 = performance.now();
-    for (let r = 0; r < 5 || performance.now() - t0 < 500; r++) job();
+    for (let r = 0; r < 10 || performance.now() - t0 < 1000; r++) job();
   }
   const runs = jobs.map((job) => ({ job, wall: [] as number[], cpu: [] as number[] }));
   for (let r = 0; r < RUNS; r++) {
-    for (const { job, wall, cpu } of runs) {
-      collectGarbage(); // neither job pays for the other's garbage
+    collectGarbage();
+    for (const { job, wall, cpu } of [...runs].reverse()) {
       const c0 = process.cpuUsage();
       const t0 = performance.now();
       job();
@@ -78,7 +84,7 @@ export async function bench(): Promise<void> {
   const kernel = predictor.heights(start, MINUTE, days * 1440);
   const direct = directMinuteSeries(station, start, days);
   let worst = 0;
-  for (let j = 0; j < kernel.length; j++) worst = Math.max(worst, Math.abs(valueAt(kernel, j, 'kernel heights') - valueAt(direct, j, 'direct heights')));
+  for (let j = 0; j < kernel.length; j++) worst = Math.max(worst, Math.abs(numberAt(kernel, j, 'kernel heights') - numberAt(direct, j, 'direct heights')));
   const [k, d] = timeSideBySide([
     () => predictor.heights(start, MINUTE, days * 1440),
     () => directMinuteSeries(station, start, days),

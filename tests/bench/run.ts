@@ -1,6 +1,7 @@
 // Runs every benchmark module in turn and prints its figures: `npm run bench` (after tsc) runs
 // dist/tests/bench/run.js. Each module exports `bench(): Promise<void>`; add yours to the list.
-// `npm run bench -- --national` runs only the national-scale benchmark (1,000 stations: long).
+// `npm run bench -- --national` runs only the national-scale benchmark (1,000 stations: long;
+// `--national --stations 100` builds only that many).
 import { bench as datums } from './datums.js';
 import { bench as engine } from './engine.js';
 import { bench as analysis } from './analysis.js';

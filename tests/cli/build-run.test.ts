@@ -7,7 +7,7 @@ import { tmpdir } from 'node:os';
 import { join, relative } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { StationFileError } from '../../engine/index.js';
-import type { Station, StationYear } from '../../engine/index.js';
+import type { AnyStreamStation, Station, StationYear, StreamYear } from '../../engine/index.js';
 import { BuildStepError, StationSetInvalid } from '../../cli/build/failure.js';
 import { poolSize, workUnits } from '../../cli/build/groups.js';
 import type { BuildPlan } from '../../cli/build/options.js';
@@ -49,10 +49,11 @@ function stubs(stations: Station[], overrides: Partial<BuildDeps> = {}): Stubs {
         const s = stations.find((x) => x.id === id)!;
         await mkdir(join(request.tempDir, 'pdf'), { recursive: true });
         await writeFile(join(request.tempDir, 'pdf', `${id}-${request.year}.pdf`), fakePdf(3, s.name));
-        onStation({ id, model: modelOf(s, request.year), pdfPages: 3 });
+        { const model = modelOf(s, request.year); onStation({ id, summary: model, model, pdfPages: 3 }); }
       }
     },
-    async renderSite(models, siteDir) {
+    async renderSite(source, siteDir) {
+      const models = source.stationYears;
       deps.siteOrder = models.map((m) => m.station.id);
       const dataDir = join(siteDir, 'data');
       await mkdir(dataDir, { recursive: true });
@@ -108,9 +109,9 @@ describe('buildAlmanac', () => {
     });
     const site: string[] = [];
     const inner = deps.renderSite.bind(deps);
-    deps.renderSite = async (models, ...rest) => {
-      site.push(...models.map((m) => `${m.station.id}-${m.year}`));
-      return inner(models, ...rest);
+    deps.renderSite = async (source, ...rest) => {
+      site.push(...source.stationYears.map((m) => `${m.station.id}-${m.year}`));
+      return inner(source, ...rest);
     };
     const summary = await buildAlmanac(p, deps, quietEvents());
     expect(site).toEqual(['2027', '2028', '2029'].flatMap((y) => ['a', 'b', 'c', 'd'].map((id) => `${id}-${y}`)));
@@ -139,6 +140,36 @@ describe('buildAlmanac', () => {
     expect(summary).toMatchObject({ out: p.outDir, year: 2027, stations: 4, workers: 2, pdfPages: 4 * 3 + 13,
       webPages: 1, files: 11 });
     expect(readdirSync(p.dir).sort()).toEqual(['out', 'stations']);
+  });
+
+  it('says once per picture what every kind of book found about the publisher\u2019s pictures, after the last book', async () => {
+    const line = (file: string, dpi: number) => ({ file, kind: 'resolution' as const, dpi, text: `${file}: ${dpi} dpi` });
+    const log: string[] = [];
+    const stream = { id: 'sx', kind: 'stream' } as unknown as AnyStreamStation; // the stubs read nothing else of it
+    const deps = stubs(SET, {
+      checkSet: () => ({ stations: SET, streams: [stream], problems: [] }),
+      computeStreams: (_stations, _streams, year) => [{ station: { id: 'sx' }, year } as unknown as StreamYear],
+      async computeStations(request, onStation) {
+        for (const id of request.units.flat()) {
+          const s = SET.find((x) => x.id === id) ?? sampleStation;
+          // every station book and pocket table places the logo; one book's cached outcome says so too
+          const model = modelOf(s, request.year);
+          onStation({ id, summary: model, model, pdfPages: 3, imageWarnings: [line('logo.png', 200)] });
+        }
+      },
+      async renderStreamBook(_model, _options, warn) {
+        warn?.(line('pages/plan.png', 240)); // only the stream book places this one
+        return fakePdf(14, 'stream');
+      },
+      async renderCombinedBook(models, _options, _beside, _signal, _streams, warn) {
+        warn?.(line('logo.png', 150)); // printed larger on the combined book's cover
+        warn?.(line('cover.jpg', 120));
+        warn?.({ file: 'cover.jpg', kind: 'colour', text: 'cover.jpg: in colour' });
+        return fakePdf(models.length * 3 + 1, 'combined');
+      },
+    });
+    await buildAlmanac(plan(), deps, quietEvents(log));
+    expect(log).toEqual(['logo.png: 150 dpi', 'pages/plan.png: 240 dpi', 'cover.jpg: 120 dpi', 'cover.jpg: in colour']);
   });
 
   it('with one worker, draws the combined book after the website; with more, beside it', async () => {
@@ -171,7 +202,7 @@ describe('buildAlmanac', () => {
     await buildAlmanac(plan({ workers: 2 }), {
       ...stubs(many),
       async computeStations(request, onStation) {
-        for (const id of request.units.flat()) onStation({ id, model: base, pdfPages: 1 });
+        for (const id of request.units.flat()) onStation({ id, summary: base, model: base, pdfPages: 1 });
       },
       async renderSite() {},
       async renderCombinedBook(_models, _options, b) {
@@ -203,7 +234,7 @@ describe('buildAlmanac', () => {
 
   it.each([
     ['a station', { async computeStations() { throw new BuildStepError('station b', new Error('no tide')); } }, 'station b'],
-    ['the website', { async renderSite(_m: StationYear[], siteDir: string) {
+    ['the website', { async renderSite(_source: unknown, siteDir: string) {
       await mkdir(siteDir, { recursive: true });
       await writeFile(join(siteDir, 'half.html'), '<p>half');
       throw Object.assign(new Error('write failed'), { code: 'ENOSPC' });

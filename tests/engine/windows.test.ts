@@ -4,7 +4,8 @@ import { localDays } from '../../engine/localtime.js';
 import { loadStationSet } from '../../engine/stations.js';
 import { cosineCurve, predictorFor, tideEvents } from '../../engine/tides.js';
 import type { ReferenceStation, Station } from '../../engine/types.js';
-import { kernelSeries, newKernelSeries, openIntervals, type OpenInterval, type WindowSide } from '../../engine/windows.js';
+import { findExtrema, scanTides } from '../../engine/extrema.js';
+import { openIntervals, type OpenInterval, type WindowSide } from '../../engine/windows.js';
 import { diurnalStation, sixtyConstituentStation, standStation } from '../fixtures/engine-stations.js';
 import { firstOf, itemAt, lastOf } from '../../engine/index.js';
 
@@ -131,30 +132,30 @@ function levelsFor(station: Station, set: ReturnType<typeof solo>, days: number)
   return [lo + 0.25 * (hi - lo), (lo + hi) / 2, lo + 0.8 * (hi - lo), (Math.min(...lows) + Math.max(...lows)) / 2];
 }
 
-describe('the Taylor series crossings are solved on', () => {
+describe('crossings found in the same pass as the high and low waters', () => {
   // The oracle is the kernel's own height (predictor.heightAt, itself checked against direct cosine sums in
-  // tests/engine/predict.test.ts): the series about a mark must agree with it within its stated remainder.
-  it('stays within its remainder bound up to 90 minutes from its origin, 60 constituents', () => {
+  // tests/engine/predict.test.ts): 5 ms either side of each crossing the tide stands on either side of the level.
+  it('each crossing is bracketed to 5 ms by the prediction, 60 constituents, and the events are unchanged', () => {
     const station = sixtyConstituentStation();
     const predictor = predictorFor(station);
-    const series = kernelSeries(predictor);
-    const s = newKernelSeries();
-    const start = Date.UTC(2027, 2, 28);
-    let worst = 0;
-    for (let i = 0; i < 200; i++) {
-      const t = start + i * 3_917_000; // about 9 days, at minutes unrelated to the marks
-      series(t, s);
-      expect(Math.abs(t - s.origin)).toBeLessThanOrEqual(1_800_000); // the nearest whole hour
-      for (const hours of [-1.5, -0.7, -0.2, 0.1, 0.45, 1.0, 1.5]) {
-        let p = 0;
-        for (let k = s.coef.length - 1; k >= 0; k--) p = p * hours + itemAt(s.coef, k, 'coef');
-        const error = Math.abs(p - predictor.heightAt(s.origin + hours * 3_600_000));
-        // + 1e-8 m: the kernel re-anchors at each UTC midnight, where its pieces agree to a few nanometres
-        expect(error).toBeLessThanOrEqual(s.remainder * Math.abs(hours) ** s.coef.length + 1e-8);
-        worst = Math.max(worst, error);
+    const from = Date.UTC(2027, 2, 20, 7, 13); // not on a midnight or a grid point
+    const to = from + 30 * DAY;
+    const levels = [station.mean_level - 1.5, station.mean_level, station.mean_level + 1.5];
+    const scan = scanTides(predictor, from, to, levels);
+    expect(scan.events).toEqual(findExtrema(predictor, from, to));
+    let count = 0;
+    for (const c of scan.levels) {
+      expect(c.aboveAtStart).toBe(predictor.heightAt(from) >= c.level);
+      for (const t of c.times) {
+        const before = predictor.heightAt(t - 5) - c.level;
+        const after = predictor.heightAt(t + 5) - c.level;
+        expect(before * after).toBeLessThanOrEqual(0);
+        count++;
       }
+      // crossings alternate in direction, so the state at the end follows from the count
+      expect(predictor.heightAt(to - 1) >= c.level).toBe(c.aboveAtStart !== (c.times.length % 2 === 1));
     }
-    expect(worst).toBeLessThan(1e-3);
+    expect(count).toBeGreaterThan(200);
   });
 });
 

@@ -1,5 +1,6 @@
 // Press output: page boxes read back with pdfinfo -box, crop marks and thumb tabs found in the rendered
-// pixels, colours written as black ink only, and the image-resolution warning.
+// pixels, colours written as black ink only (the publisher's pictures too, in greys), and the
+// image-resolution warning.
 import { execFileSync } from 'node:child_process';
 import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -9,8 +10,12 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { buildStationYear } from '../../engine/index.js';
 import { loadStationSet } from '../../engine/index.js';
 import { renderStationBook } from '../../templates/pdf/book.js';
-import { pageGeometry } from '../../templates/pdf/geometry.js';
-import { resolutionWarning } from '../../templates/pdf/image-resolution.js';
+import { contentBox, pageGeometry } from '../../templates/pdf/geometry.js';
+import { resolutionWarning, type ImageWarning } from '../../templates/pdf/image-resolution.js';
+import { greyPixels } from '../../templates/pdf/place-picture.js';
+import { loadPicture } from '../../templates/pdf/picture.js';
+import { renderPocketTable } from '../../templates/pdf/pocket.js';
+import { solidPng, solidRgbaPng } from '../fixtures/images.js';
 import { BLEED, blackInk, SLUG } from '../../templates/pdf/press.js';
 import { zipSame } from '../fixtures/lists.js';
 
@@ -21,13 +26,17 @@ const MM = 72 / 25.4;
 let dir = '';
 let press: Buffer;
 let file = '';
+let logo = '';
+const warnings: ImageWarning[] = [];
 const set = loadStationSet('stations-demo');
 const model = buildStationYear(set.byId.get('brinewold-head')!, set, 2027);
 const a5 = pageGeometry('a5');
 
 beforeAll(async () => {
   dir = mkdtempSync(join(tmpdir(), 'tidewright-press-'));
-  press = await renderStationBook(model, { units: 'm', page: 'a5', press: true });
+  logo = join(dir, 'logo.png');
+  writeFileSync(logo, solidPng(600, 300, [15, 59, 90])); // a deep blue, 600 px across a 70 pt logo box: sharp
+  press = await renderStationBook(model, { units: 'm', page: 'a5', press: true, logo, warn: (w) => warnings.push(w) });
   file = join(dir, 'press.pdf');
   writeFileSync(file, press);
 });
@@ -100,9 +109,56 @@ describe('press output', () => {
   });
 
   it('is byte-identical when rendered again, and a book without press has no page boxes', async () => {
-    expect((await renderStationBook(model, { units: 'm', page: 'a5', press: true })).equals(press)).toBe(true);
+    expect((await renderStationBook(model, { units: 'm', page: 'a5', press: true, logo })).equals(press)).toBe(true);
     const plain = (await renderStationBook(model, { units: 'm', page: 'a5' })).toString('latin1');
     expect(plain).not.toContain('/TrimBox');
+  });
+});
+
+describe('the publisher\u2019s pictures in press output', () => {
+  // Luma Y′ = 0.2126 R′ + 0.7152 G′ + 0.0722 B′ (ITU-R BT.709-6, item 3.2): for (15, 59, 90), 51.9
+  it('turns each pixel into the grey of its luma, keeps transparency, and knows a grey picture from a coloured one', () => {
+    const picture = (bytes: Buffer) => {
+      const path = join(dir, `p${bytes.length}.png`);
+      writeFileSync(path, bytes);
+      return loadPicture(path, 100);
+    };
+    const blue = greyPixels(picture(solidPng(8, 4, [15, 59, 90])));
+    expect([...new Set(blue.grey)]).toEqual([52]);
+    expect(blue.alpha).toBeNull();
+    expect(blue.coloured).toBe(true);
+    const grey = greyPixels(picture(solidPng(8, 4, [90, 90, 90])));
+    expect([...new Set(grey.grey)]).toEqual([90]);
+    expect(grey.coloured).toBe(false);
+    // half covered orange: 0.2126·200 + 0.7152·100 + 0.0722·50 = 117.7, coverage kept as it was
+    const orange = greyPixels(picture(solidRgbaPng(8, 4, [200, 100, 50, 128])));
+    for (const g of orange.grey) expect(Math.abs(g - 117.7)).toBeLessThanOrEqual(1.5);
+    expect([...new Set(orange.alpha)]).toEqual([128]);
+  });
+
+  it.skipIf(!POPPLER)('places the logo as a DeviceGray image printing the grey of its luma, and says so once', () => {
+    const list = execFileSync('pdfimages', ['-list', file], { encoding: 'utf8' }).split('\n').slice(2).filter((l) => l.trim() !== '');
+    expect(list.length).toBeGreaterThan(0);
+    for (const line of list) expect(line.split(/\s+/)[6]).toBe('gray');
+    // the logo sits in the top right corner of the cover's type area, 70 pt wide at most
+    const r = raster(1, 150);
+    const box = contentBox(a5, 1);
+    expect(Math.abs(r.at(SLUG + box.x + box.width - 20, SLUG + box.y + 10) - 52)).toBeLessThanOrEqual(2);
+    const colour = warnings.filter((w) => w.kind === 'colour');
+    expect(colour).toHaveLength(1);
+    expect(colour[0]?.text).toMatch(/logo\.png: in colour, and press output prints in black ink only, so it prints in greys; check the proof, or supply a greyscale picture/);
+  });
+
+  it.skipIf(!POPPLER)('prints the pocket table for the press too: trim and bleed boxes round the sheet, the logo in grey', async () => {
+    const sheet = join(dir, 'pocket.pdf');
+    writeFileSync(sheet, await renderPocketTable(model, { units: 'm', sheet: 'a4', press: true, logo }));
+    const boxes = execFileSync('pdfinfo', ['-box', sheet], { encoding: 'utf8' });
+    const [x0 = 0, y0 = 0, x1 = 0, y1 = 0] = /TrimBox:\s+([\d.]+)\s+([\d.]+)\s+([\d.]+)\s+([\d.]+)/.exec(boxes)?.slice(1).map(Number) ?? [];
+    expect(x1 - x0).toBeCloseTo(297 * MM, 1);
+    expect(y1 - y0).toBeCloseTo(210 * MM, 1);
+    expect(boxes).toMatch(/BleedBox/);
+    const list = execFileSync('pdfimages', ['-list', sheet], { encoding: 'utf8' }).split('\n').slice(2).filter((l) => l.trim() !== '');
+    expect(list.map((l) => l.split(/\s+/)[6])).toEqual(['gray']);
   });
 });
 

@@ -10,6 +10,8 @@ import { renderCombinedBook } from '../../templates/pdf/book.js';
 import { renderStreamBook } from '../../templates/pdf/stream-book.js';
 import { wordsFor } from '../../templates/locale/index.js';
 import { demoModels } from './site-build.js';
+import { zipSame } from '../fixtures/lists.js';
+import { nodesOf, structureTree, textUnder } from '../fixtures/pdf-structure.js';
 
 const POPPLER = ['pdftotext', 'pdffonts', 'pdfinfo'].every((t) => existsSync(`/usr/bin/${t}`));
 if (!POPPLER) console.warn('poppler-utils not found in /usr/bin: the stream book checks are SKIPPED');
@@ -57,6 +59,24 @@ describe('renderStreamBook', () => {
       for (const e of day.events) {
         expect(line).toContain(e.clock);
         if (e.type !== 'slack') expect(line).toContain(`${e.clock} ${e.speed.toFixed(1)}`);
+      }
+    }
+  });
+
+  it.skipIf(!POPPLER)('reads each month as a table: column headers, then each day a row headed by its date, with its events', () => {
+    const tables = nodesOf(structureTree(file), 'Table').filter((t) => (t.children[0]?.children ?? []).every((c) => c.type === 'TH'));
+    expect(tables).toHaveLength(12);
+    for (const [i, table] of tables.entries()) {
+      const [head, ...rows] = table.children;
+      expect(head?.children.map((c) => c.attrs)).toEqual([['Scope /Column'], ['Scope /Column'], ['Scope /Column'], ['Scope /Column']]);
+      const days = model.days.filter((d) => d.month === i + 1);
+      expect(rows).toHaveLength(days.length);
+      for (const [row, day] of zipSame(rows, days, 'days of the month')) {
+        expect(row.children.map((c) => c.type)).toEqual(['TH', 'TD', 'TD', 'TD']);
+        expect(row.children[0]?.attrs).toContain('Scope /Row');
+        const said = textUnder(row).replace(/\s+/g, ' ');
+        expect(said).toContain(`${wordsFor().weekdayShort(day.weekday)} ${day.dayOfMonth}`);
+        for (const e of day.events) expect(said).toContain(e.type === 'slack' ? e.clock : `${e.clock} ${e.speed.toFixed(1)}`);
       }
     }
   });

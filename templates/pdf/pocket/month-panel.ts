@@ -109,7 +109,7 @@ export function drawPocketMonth(doc: PDFKit.PDFDocument, model: StationYear, mon
   const days = model.days.slice(month.firstDayIndex, month.firstDayIndex + month.dayCount);
   const head = { font: 'narrow-bold' as const, size: LABEL_MIN, color: MID };
   const monthName = words.monthName(month.month);
-  put(doc, monthName, box.x, box.y + 9, { font: 'bold', size: 10 });
+  tag(doc, 'H2', {}, () => put(doc, monthName, box.x, box.y + 9, { font: 'bold', size: 10 }));
   const change = days.find((d) => d.offsetChange !== null);
   const start = firstOf(days, 'days of the month').offsetStart;
   const offsets = change ? `${words.offset(start)} \u2192 ${words.offset(change.offsetChange!.to)}` : words.offset(start);

@@ -7,9 +7,22 @@ import { printable } from '../format.js';
 import type { Box } from '../geometry.js';
 import { clockGlyph, laneMark, moonGlyph } from '../glyphs.js';
 import { DARK, INK, LABEL_MIN, MID, WHITE } from '../style.js';
-import { fitLines, paragraph, put, putFitted, widthOf, wrapLines } from '../text.js';
+import { fitLines, paragraph, put, putFitted, spacedLines, widthOf, wrapLines } from '../text.js';
+import { fitted, type Picture } from '../picture.js';
+import { placePicture, type PictureSettings } from '../place-picture.js';
+import { group, tag } from '../tags.js';
 
-export interface PanelText { title: string; publisher?: string; words: Words; southern: boolean }
+export interface PanelText {
+  title: string;
+  publisher?: string;
+  words: Words;
+  southern: boolean;
+  logo?: Picture; // the publisher's logo, top right of the cover panel
+  pictures: PictureSettings; // press output and the image warnings
+}
+
+/** The largest the logo prints on the cover panel, in points. */
+export const POCKET_LOGO = { width: 56, height: 30 };
 
 const BODY = 6.6;
 
@@ -19,14 +32,27 @@ function inventedStrip(doc: PDFKit.PDFDocument, box: Box, y: number, words: Word
   return y + 17;
 }
 
+/**
+ * The cover panel: one heading (the title line, the year, the station), the logo, the facts as a table of
+ * labelled rows, the invented-data notice, the publisher and the caution in short.
+ */
 export function drawCover(doc: PDFKit.PDFDocument, model: StationYear, box: Box, text: PanelText): void {
+  const logo = text.logo === undefined ? undefined : fitted(text.logo.pixels, Math.min(POCKET_LOGO.width, box.width * 0.35), POCKET_LOGO.height);
   let y = box.y + 8;
-  putFitted(doc, text.title.toUpperCase(), box.x, y, { font: 'bold', size: 7, color: MID }, box.width, LABEL_MIN);
-  y += 38;
-  put(doc, String(model.year), box.x - 1.5, y, { font: 'bold', size: 40 });
-  y += 20;
   const name = fitLines(doc, printable(model.station.name), { font: 'bold', size: 15 }, box.width, 3, 8);
-  for (const line of name.lines) { put(doc, line, box.x, y, name.style); y += name.style.size * 1.15; }
+  tag(doc, 'H1', {}, () => {
+    putFitted(doc, `${text.title.toLocaleUpperCase(text.words.tag)} `, box.x, y, { font: 'bold', size: 7, color: MID },
+      box.width - (logo ? logo.width + 6 : 0), LABEL_MIN);
+    y += 38;
+    put(doc, `${model.year} `, box.x - 1.5, y, { font: 'bold', size: 40 });
+    y += 20;
+    for (const line of spacedLines(name.lines)) { put(doc, line, box.x, y, name.style); y += name.style.size * 1.15; }
+  });
+  if (text.logo && logo) {
+    const picture = text.logo;
+    tag(doc, 'Figure', { alt: text.publisher ? `Logo of ${text.publisher}` : 'Logo of the publisher' },
+      () => placePicture(doc, text.pictures, picture, box.x + box.width - logo.width, box.y, logo.width, logo.height));
+  }
   y += 2;
   const rows: [string, string][] = [
     [text.words.t('site.heights'), text.words.t('site.heightsAbove', { unit: text.words.unitName(), datum: printable(model.station.datum) })],
@@ -37,10 +63,14 @@ export function drawCover(doc: PDFKit.PDFDocument, model: StationYear, box: Box,
   // the label column as wide as its longest label (languages differ), within reason
   const labelStyle = { font: 'narrow' as const, size: LABEL_MIN, color: MID };
   const labelW = Math.min(box.width * 0.4, Math.max(38, ...rows.map(([k]) => widthOf(doc, k, labelStyle) + 3)));
-  for (const [k, v] of rows) {
-    putFitted(doc, k, box.x, y, labelStyle, labelW - 2, LABEL_MIN);
-    y = paragraph(doc, v, box.x + labelW, y, box.width - labelW, { font: 'narrow', size: BODY }, BODY * 1.2, 3) + 1;
-  }
+  group(doc, 'Table', {}, () => {
+    for (const [k, v] of rows) {
+      group(doc, 'TR', {}, () => {
+        tag(doc, 'TH', { scope: 'Row' }, () => putFitted(doc, k, box.x, y, labelStyle, labelW - 2, LABEL_MIN));
+        y = tag(doc, 'TD', {}, () => paragraph(doc, v, box.x + labelW, y, box.width - labelW, { font: 'narrow', size: BODY }, BODY * 1.2, 3)) + 1;
+      });
+    }
+  });
   y += 4;
   if (model.invented) y = inventedStrip(doc, box, y, text.words) + 6;
   // the caution in short at the foot, the publisher above it
@@ -57,7 +87,7 @@ export function drawCover(doc: PDFKit.PDFDocument, model: StationYear, box: Box,
 
 export function drawKey(doc: PDFKit.PDFDocument, model: StationYear, box: Box, text: PanelText): void {
   let y = box.y + 9;
-  putFitted(doc, text.words.t('pocket.howToRead'), box.x, y, { font: 'bold', size: 9 }, box.width, LABEL_MIN);
+  tag(doc, 'H2', {}, () => putFitted(doc, text.words.t('pocket.howToRead'), box.x, y, { font: 'bold', size: 9 }, box.width, LABEL_MIN));
   y += 14;
   const textX = box.x + 34;
   const style = { font: 'narrow' as const, size: BODY };
@@ -99,7 +129,7 @@ export function drawKey(doc: PDFKit.PDFDocument, model: StationYear, box: Box, t
 
 export function drawLevels(doc: PDFKit.PDFDocument, model: StationYear, box: Box, text: PanelText): void {
   let y = box.y + 9;
-  putFitted(doc, text.words.t('pocket.levels'), box.x, y, { font: 'bold', size: 9 }, box.width * 0.55, LABEL_MIN);
+  tag(doc, 'H2', {}, () => putFitted(doc, text.words.t('pocket.levels'), box.x, y, { font: 'bold', size: 9 }, box.width * 0.55, LABEL_MIN));
   y += 6;
   put(doc, text.words.t('site.heightsAbove', { unit: text.words.unit(), datum: printable(model.station.datum) }), box.x + box.width, y - 6, { font: 'narrow', size: LABEL_MIN, color: MID }, 'right');
   y += 9;
@@ -129,7 +159,7 @@ export function drawLevels(doc: PDFKit.PDFDocument, model: StationYear, box: Box
 
 export function drawCaution(doc: PDFKit.PDFDocument, model: StationYear, box: Box, text: PanelText): void {
   let y = box.y + 9;
-  put(doc, text.words.t('caution.heading'), box.x, y, { font: 'bold', size: 9 });
+  tag(doc, 'H2', {}, () => put(doc, text.words.t('caution.heading'), box.x, y, { font: 'bold', size: 9 }));
   y += 13;
   y = paragraph(doc, text.words.caution, box.x, y, box.width, { font: 'regular', size: BODY }, BODY * 1.3);
   if (model.invented) {
