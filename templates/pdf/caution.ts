@@ -12,7 +12,7 @@ import { unit } from './page.js';
 import type { StationView } from './station-view.js';
 import { DARK, FAINT, INK } from './style.js';
 import { artifact, group, tag } from './tags.js';
-import { paragraph, put, wrapLines } from './text.js';
+import { paragraph, put, spacedLines, wrapLines } from './text.js';
 
 type KeyItem = { draw: (x: number, baseline: number) => void; text: string };
 
@@ -126,10 +126,12 @@ export function cautionPage(view: StationView, scope: CautionScope = { combined:
       // a list: each item's sample mark is decoration, its words the item's body (one paragraph however it wraps)
       group(doc, 'L', {}, () => {
         for (const { item, lines, height } of plan.rows) {
-          const base = y + Math.min(15 * s, height * 0.62);
+          // the words and the sample both centred in the item's row, so a long item never rises into the one above
+          const centre = y + height / 2;
+          const base = centre + 0.35 * plan.style.size;
           group(doc, 'LI', {}, () => {
             artifact(doc, () => item.draw(box.x, base));
-            tag(doc, 'LBody', {}, () => lines.forEach((line, i) => put(doc, line, textX, base + (i - (lines.length - 1) / 2) * lead, plan.style)));
+            tag(doc, 'LBody', {}, () => spacedLines(lines).forEach((line, i) => put(doc, line, textX, base + (i - (lines.length - 1) / 2) * lead, plan.style)));
           });
           y += height;
         }

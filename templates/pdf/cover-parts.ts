@@ -21,22 +21,33 @@ export interface CoverHeading {
   title: string;
   titleStyle: { size: number; lines: number; minSize: number; leading: number };
   gap: number; // design points from the year's baseline to the title's
+  section?: boolean; // a station's title page inside a combined book: the heading is the station alone
 }
 
-/** The cover's top as one H1: the kicker, the year and the title; returns the baseline after the title. */
+/**
+ * The cover's top as one H1: the kicker, the year and the title (a book's cover). On a station's title page
+ * inside a combined book the kicker and year read as a paragraph and the H1 is the station's name, so that
+ * moving by headings goes station by station. Returns the baseline after the title.
+ */
 export function coverHeading(ctx: PageContext, h: CoverHeading): number {
   const { doc, box } = ctx;
   const s = unit(ctx);
   const words = ctx.settings.words;
   let y = box.y + 12 * s;
   const title = fitLines(doc, h.title, { font: 'bold', size: h.titleStyle.size * s }, box.width, h.titleStyle.lines, h.titleStyle.minSize * s);
-  tag(doc, 'H1', {}, () => {
+  const top = () => {
     putFitted(doc, `${h.kicker.toLocaleUpperCase(words.tag)} `, box.x, y, { font: 'bold', size: 9 * s, color: MID }, h.kickerWidth, 6.5 * s);
     y += 62 * s;
     put(doc, `${h.year} `, box.x - 3 * s, y, { font: 'bold', size: 70 * s, color: h.yearColor ?? INK });
     y += h.gap * s;
-    for (const line of spacedLines(title.lines)) { put(doc, line, box.x, y, title.style); y += title.style.size * h.titleStyle.leading; }
-  });
+  };
+  const name = () => { for (const line of spacedLines(title.lines)) { put(doc, line, box.x, y, title.style); y += title.style.size * h.titleStyle.leading; } };
+  if (h.section) {
+    tag(doc, 'P', {}, top);
+    tag(doc, 'H1', {}, name);
+  } else {
+    tag(doc, 'H1', {}, () => { top(); name(); });
+  }
   return y;
 }
 

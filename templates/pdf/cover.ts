@@ -83,7 +83,7 @@ export function coverPage(view: StationView, text: CoverText, kind: 'cover' | 's
       const cover = kind === 'cover';
       if (cover) accentBar(ctx, text.accent);
       let y = coverHeading(ctx, { kicker: text.kicker, kickerWidth: cover ? besideLogo(ctx, text.logo) : box.width, year: String(model.year),
-        ...(text.accent !== undefined && { yearColor: text.accent }), title: view.name, gap: 38,
+        ...(text.accent !== undefined && { yearColor: text.accent }), title: view.name, gap: 38, section: !cover,
         titleStyle: { size: 25, lines: 4, minSize: 9, leading: 1.16 } });
       if (cover) drawLogo(ctx, text.logo, text.publisher);
       y += 4 * s;

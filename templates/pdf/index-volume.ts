@@ -13,6 +13,7 @@ import type { Picture } from './picture.js';
 import { publisherAccent, publisherLogo } from './publisher.js';
 import { renderBook } from './render.js';
 import { DARK, HAIRLINE, MID, RULE } from './style.js';
+import { artifact, group, tag } from './tags.js';
 import { paragraph, put, putFitted, widthOf } from './text.js';
 
 export interface IndexEntry {
@@ -69,29 +70,39 @@ function listPage(chunk: IndexEntry[], first: boolean, w: Words, invented: boole
       const pageX = box.x + box.width;
       const volX = pageX - 34 * s;
       let y = box.y + 10 * s;
-      put(doc, w.t('index.volume'), volX, y, head, 'right');
-      put(doc, w.t('index.page'), pageX, y, head, 'right');
-      doc.save().lineWidth(HAIRLINE).strokeColor(RULE).moveTo(box.x, y + 4 * s).lineTo(pageX, y + 4 * s).stroke().restore();
-      y = box.y + TOP * s;
-      let letter = '';
-      for (const e of chunk) {
-        const initial = e.name.slice(0, 1).toLocaleUpperCase(w.tag);
-        const style = { font: e.kind === 'reference' ? 'bold' as const : 'regular' as const, size: 8.6 * s };
-        if (initial !== letter) {
-          put(doc, initial, box.x, y, { font: 'bold', size: 8.6 * s, color: MID });
-          letter = initial;
+      // read as a table: station (with its region), volume, page; the A–Z letters are decoration
+      group(doc, 'Table', { title: w.t('index.title') }, () => {
+        group(doc, 'TR', {}, () => {
+          tag(doc, 'TH', { scope: 'Column', actual: w.t('stream.station') }, () => undefined);
+          tag(doc, 'TH', { scope: 'Column' }, () => put(doc, w.t('index.volume'), volX, y, head, 'right'));
+          tag(doc, 'TH', { scope: 'Column' }, () => put(doc, w.t('index.page'), pageX, y, head, 'right'));
+        });
+        doc.save().lineWidth(HAIRLINE).strokeColor(RULE).moveTo(box.x, y + 4 * s).lineTo(pageX, y + 4 * s).stroke().restore();
+        y = box.y + TOP * s;
+        let letter = '';
+        for (const e of chunk) {
+          const initial = e.name.slice(0, 1).toLocaleUpperCase(w.tag);
+          const style = { font: e.kind === 'reference' ? 'bold' as const : 'regular' as const, size: 8.6 * s };
+          if (initial !== letter) {
+            artifact(doc, () => put(doc, initial, box.x, y, { font: 'bold', size: 8.6 * s, color: MID }));
+            letter = initial;
+          }
+          group(doc, 'TR', {}, () => {
+            tag(doc, 'TH', { scope: 'Row' }, () => {
+              const nameX = box.x + 14 * s;
+              const nameMax = (volX - 30 * s - nameX) * (e.region ? 0.62 : 1);
+              const used = putFitted(doc, `${e.name} `, nameX, y, style, nameMax, 6 * s);
+              if (e.region) {
+                const regionX = nameX + Math.min(widthOf(doc, e.name, used), nameMax) + 6 * s;
+                putFitted(doc, e.region, regionX, y, { font: 'narrow', size: 7.4 * s, color: MID }, volX - 30 * s - regionX, 5 * s);
+              }
+            });
+            tag(doc, 'TD', {}, () => put(doc, String(e.volume), volX, y, { font: 'regular', size: 8.6 * s }, 'right'));
+            tag(doc, 'TD', {}, () => put(doc, String(e.page), pageX, y, { font: 'bold', size: 8.6 * s }, 'right'));
+          });
+          y += LINE * s;
         }
-        const nameX = box.x + 14 * s;
-        const nameMax = (volX - 30 * s - nameX) * (e.region ? 0.62 : 1);
-        const used = putFitted(doc, e.name, nameX, y, style, nameMax, 6 * s);
-        if (e.region) {
-          const regionX = nameX + Math.min(widthOf(doc, e.name, used), nameMax) + 6 * s;
-          putFitted(doc, e.region, regionX, y, { font: 'narrow', size: 7.4 * s, color: MID }, volX - 30 * s - regionX, 5 * s);
-        }
-        put(doc, String(e.volume), volX, y, { font: 'regular', size: 8.6 * s }, 'right');
-        put(doc, String(e.page), pageX, y, { font: 'bold', size: 8.6 * s }, 'right');
-        y += LINE * s;
-      }
+      });
     },
   };
 }

@@ -26,10 +26,13 @@ function decodedPixels(picture: Picture): { rgba: Uint8Array; width: number; hei
   const svg = `<svg xmlns="http://www.w3.org/2000/svg" xmlns:xlink="http://www.w3.org/1999/xlink" width="${width}" height="${height}">`
     + `<image width="${width}" height="${height}" preserveAspectRatio="none" xlink:href="data:${mime};base64,${picture.data.toString('base64')}"/></svg>`;
   const rendered = new Resvg(svg, { fitTo: { mode: 'original' } }).render();
-  if (rendered.width !== width || rendered.height !== height) {
-    throw new Error(`${picture.file}: could not be read to print it in greys (decoded ${rendered.width} \u00d7 ${rendered.height} pixels)`);
+  const rgba = rendered.pixels;
+  // resvg leaves an image it cannot decode (a CMYK JPEG…) out: the page comes back empty
+  if (rendered.width !== width || rendered.height !== height || !rgba.some((v, i) => i % 4 === 3 && v !== 0)) {
+    throw new Error(`${picture.file}: press output prints pictures in greys, and this picture could not be read for it; `
+      + 'save it as an RGB or greyscale PNG or JPEG');
   }
-  return { rgba: rendered.pixels, width, height };
+  return { rgba, width, height };
 }
 
 /** The grey of each pixel (BT.709 luma) and its coverage; `coloured` if any pixel is not a grey already. */

@@ -63,8 +63,9 @@ function firstPage(model: StreamYear, title: string, w: Words): LogicalPage {
         const arrow = i === 3 ? model.floodDirection : i === 4 ? model.ebbDirection : null;
         const vx = box.x + 100 * s + (arrow === null ? 0 : 12 * s);
         if (arrow !== null) streamArrow(doc, arrow, box.x + 104 * s, y - 3 * s, 8 * s);
-        tag(doc, 'TD', {}, () => putFitted(doc, value, vx, y, { font: 'narrow', size: 8.5 * s }, box.x + box.width - vx, 6 * s));
-        y += 12 * s;
+        // a long value (a zone described in words) wraps onto a second line rather than shrinking out of reach
+        const end = tag(doc, 'TD', {}, () => paragraph(doc, value, vx, y, box.x + box.width - vx, { font: 'narrow', size: 8.5 * s }, 10.5 * s, 2));
+        y = end + 1.5 * s;
       })));
       y += 14 * s;
       tag(doc, 'H2', {}, () => put(doc, w.t('caution.heading').toLocaleUpperCase(w.tag), box.x, y, { font: 'bold', size: 10 * s }));
@@ -75,7 +76,10 @@ function firstPage(model: StreamYear, title: string, w: Words): LogicalPage {
         paragraph(doc, `${w.t('book.inventedBanner')}: ${w.t('stream.inventedThis')}`, box.x, y, box.width, { font: 'bold', size: 8.5 * s });
       }
       y += 18 * s;
-      paragraph(doc, `${w.t('book.howToRead')}: ${w.t('stream.keySlack')} ${w.t('stream.keySlackText')}; ${w.t('stream.flood')} ${w.t('stream.and')} ${w.t('stream.ebb')}${w.t('stream.keyPeak')}`, box.x, y + 12 * s, box.width, { font: 'oblique', size: 8 * s, color: MID });
+      // the key's words speak of a sample arrow turned to 045°: it is drawn beside them
+      streamArrow(doc, 45, box.x + 5 * s, y + 9 * s, 9 * s);
+      paragraph(doc, `${w.t('book.howToRead')}: ${w.t('stream.keySlack')} ${w.t('stream.keySlackText')}; ${w.t('stream.flood')} ${w.t('stream.and')} ${w.t('stream.ebb')}${w.t('stream.keyPeak')}`,
+        box.x + 15 * s, y + 12 * s, box.width - 15 * s, { font: 'oblique', size: 8 * s, color: MID });
     },
   };
 }

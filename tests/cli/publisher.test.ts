@@ -98,7 +98,7 @@ describe('the publisher fixture', () => {
     expect(onPage(grid)).toHaveLength(3);
   });
 
-  it.skipIf(!POPPLER)('tags a link on a page as a Link element whose object reference is its annotation', () => {
+  it.skipIf(!POPPLER)('tags a link on a page as a Link element whose object reference is its annotation', { timeout: 600_000 }, () => {
     // welcome.md: "Write to [the harbour office](mailto:office@example.invalid) with corrections."
     const links = nodesOf(structureTree(book), 'Link').filter((l) => textUnder(l).includes('the harbour office'));
     expect(links).toHaveLength(1);

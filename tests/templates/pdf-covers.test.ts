@@ -33,18 +33,23 @@ beforeAll(() => {
 });
 afterAll(() => { if (dir) rmSync(dir, { recursive: true, force: true }); });
 
-/** The structure of the first page (or panel) of a PDF: the first section under the Document. */
-function firstSection(pdf: Buffer, name: string): StructNode {
+/** The sections under the Document of a PDF, one a page (or a pocket panel). */
+function sectionsOf(pdf: Buffer, name: string): StructNode[] {
   const file = join(dir, `${name}.pdf`);
   writeFileSync(file, pdf);
   const [document] = structureTree(file).children;
   expect(document?.type).toBe('Document');
-  const [first] = document?.children ?? [];
+  return document?.children ?? [];
+}
+
+/** The structure of the first page (or panel) of a PDF. */
+function firstSection(pdf: Buffer, name: string): StructNode {
+  const [first] = sectionsOf(pdf, name);
   if (first === undefined) throw new Error(`${name}: an empty structure tree`);
   return first;
 }
 
-const types = (node: StructNode): string[] => node.children.map((c) => c.type);
+const types = (node: StructNode | undefined): string[] => (node?.children ?? []).map((c) => c.type);
 const spoken = (node: StructNode | undefined): string => (node === undefined ? '' : textUnder(node).replace(/\s+/g, ' ').trim());
 
 /** Label/value rows: each row a row header cell and a data cell. */
@@ -88,9 +93,12 @@ describe('covers as a screen reader reads them', () => {
 
   it.skipIf(!POPPLER)('combined book, its volumes and the index volume: the set\u2019s title as the heading', { timeout: 900_000 }, async () => {
     const options = { units: 'm' as const, page: 'a5' as const, title: 'Four Coasts Tides (invented)', ...publisher };
-    const combined = firstSection(await renderCombinedBook([model], options), 'combined');
+    const [combined, ...pages] = sectionsOf(await renderCombinedBook([model], options), 'combined');
     expect(types(combined)).toEqual(['H1', 'Figure', 'P', 'P', 'Figure', 'P', 'P']);
-    expect(spoken(combined.children[0])).toBe('TIDE PREDICTIONS 2027 Four Coasts Tides (invented)');
+    expect(spoken(combined?.children[0])).toBe('TIDE PREDICTIONS 2027 Four Coasts Tides (invented)');
+    // the station's title page inside the book: its heading is the station alone, the lines above it a paragraph
+    const section = pages.find((p) => p.children[1]?.type === 'H1' && spoken(p.children[1]) === 'Brinewold Head (invented)');
+    expect(spoken(section?.children[0])).toBe('REFERENCE PORT · FOUR COASTS TIDES (INVENTED) 2027');
 
     const { pdf } = await renderVolume([{ model, compact: false, worked: null }], { ...options, imposition: 'none' }, { volume: 1, volumes: 2, label: 'North' });
     const volume = firstSection(pdf, 'volume');
@@ -102,6 +110,19 @@ describe('covers as a screen reader reads them', () => {
     expect(types(index)).toEqual(['H1', 'Figure', 'P', 'P', 'P', 'P', 'P', 'P']);
     expect(spoken(index.children[0])).toBe('TIDE PREDICTIONS 2027 Four Coasts Tides (invented)');
     expect(spoken(index.children[2])).toBe('Index of stations');
+  });
+
+  it.skipIf(!POPPLER)('index volume: the list read as a table of station, volume and page', async () => {
+    const entries = [{ name: 'Saltgrist Cove', kind: 'secondary' as const, region: 'North Coast', volume: 2, page: 31 },
+      { name: 'Brinewold Head', kind: 'reference' as const, volume: 1, page: 4 }];
+    const file = join(dir, 'index-list.pdf');
+    writeFileSync(file, await renderIndexVolume(entries, { units: 'm', page: 'a5' }, { years: '2027', volumes: 2, invented: true }));
+    const [table, ...more] = nodesOf(structureTree(file), 'Table');
+    expect(more).toEqual([]);
+    const [head, ...rows] = table?.children ?? [];
+    expect(head?.children.map((c) => c.type)).toEqual(['TH', 'TH', 'TH']);
+    expect(rows.map((r) => r.children.map(spoken))).toEqual([['Brinewold Head', '1', '4'], ['Saltgrist Cove North Coast', '2', '31']]);
+    for (const r of rows) expect(r.children[0]?.attrs).toContain('Scope /Row');
   });
 
   it.skipIf(!POPPLER)('stream book: the station and the book as its heading, the facts as labelled rows', { timeout: 600_000 }, async () => {

@@ -134,6 +134,10 @@ describe('the publisher\u2019s pictures in press output', () => {
     const orange = greyPixels(picture(solidRgbaPng(8, 4, [200, 100, 50, 128])));
     for (const g of orange.grey) expect(Math.abs(g - 117.7)).toBeLessThanOrEqual(1.5);
     expect([...new Set(orange.alpha)]).toEqual([128]);
+    // a picture the decoder cannot read is named with the fix, never left out of the page in silence
+    const broken = solidPng(8, 4, [1, 2, 3]);
+    broken.fill(0x55, 40, broken.length - 12); // IHDR intact (the size reads), pixel data garbled
+    expect(() => greyPixels(picture(broken))).toThrow(/p\d+\.png: press output prints pictures in greys, and this picture could not be read for it; save it as an RGB or greyscale PNG or JPEG/);
   });
 
   it.skipIf(!POPPLER)('places the logo as a DeviceGray image printing the grey of its luma, and says so once', () => {
