@@ -24,9 +24,9 @@ const deg = (x: number | null): string => (x === null ? '—' : `${String(Math.r
 export function streamSummary(model: StreamYear, words: Words = wordsFor()): string {
   const s = model.station;
   const kn = (x: number | null): string => (x === null ? '   —   ' : `${words.number(x, 1).padStart(4)} kn`);
-  const heads = [words.t('cli.colMonth'), words.t('cli.colSlacks'), words.t('cli.colStrongestFlood'), words.t('cli.colStrongestEbb')];
+  const heads = [words.t('cli.colMonth'), words.t('cli.colSlacks'), words.t('cli.colStrongestFlood'), words.t('cli.colStrongestEbb')] as const;
   const monthWidth = Math.max(...model.months.map((mo) => words.monthName(mo.month).length));
-  const widths = [Math.max(monthWidth, heads[0]!.length), heads[1]!.length, Math.max(25, heads[2]!.length), 0];
+  const widths = [Math.max(monthWidth, heads[0].length), heads[1].length, Math.max(25, heads[2].length), 0] as const;
   const kind = model.reference
     ? words.t('cli.streamSecondaryOf', { station: model.reference.name, id: model.reference.id })
     : `${words.t('stream.kind')}${model.rotary ? ` (${words.t('cli.rotary')})` : ''}`;
@@ -44,7 +44,7 @@ export function streamSummary(model: StreamYear, words: Words = wordsFor()): str
     const events = model.days.slice(month.firstDayIndex, month.firstDayIndex + month.dayCount).flatMap((d) => d.events);
     const best = (type: 'flood' | 'ebb') => events.filter((e) => e.type === type).reduce<(typeof events)[number] | null>((a, e) => (!a || e.speed > a.speed ? e : a), null);
     const at = (e: (typeof events)[number] | null) => (e === null ? '—' : `${kn(e.speed)} ${deg(e.direction)} ${e.date.slice(5, 10)} ${e.clock}`);
-    lines.push(row([words.monthName(month.month), String(events.filter((e) => e.type === 'slack').length).padStart(widths[1]!), at(best('flood')), at(best('ebb'))], widths));
+    lines.push(row([words.monthName(month.month), String(events.filter((e) => e.type === 'slack').length).padStart(widths[1]), at(best('flood')), at(best('ebb'))], widths));
   }
   lines.push('');
   for (const c of model.offsetChanges) lines.push(words.t('cli.clockChange', { change: words.offsetChange(c) }));

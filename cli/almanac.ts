@@ -98,9 +98,9 @@ export function summary(model: StationYear, words: Words = wordsFor()): string {
   const m = (x: number): string => words.height(x);
   const s = model.station;
   const d = model.datums;
-  const heads = [words.t('cli.colMonth'), words.t('cli.colHighWaters'), words.t('cli.colLowWaters'), words.t('cli.colHighest'), words.t('cli.colLowest')];
+  const heads = [words.t('cli.colMonth'), words.t('cli.colHighWaters'), words.t('cli.colLowWaters'), words.t('cli.colHighest'), words.t('cli.colLowest')] as const;
   const monthWidth = Math.max(...model.months.map((mo) => words.monthName(mo.month).length));
-  const widths = [Math.max(monthWidth, heads[0]!.length), heads[1]!.length, heads[2]!.length, Math.max(18, heads[3]!.length), 0];
+  const widths = [Math.max(monthWidth, heads[0].length), heads[1].length, heads[2].length, Math.max(18, heads[3].length), 0] as const;
   const lines = [
     `${words.t('cli.almanacHead', { station: s.name, id: s.id, year: String(model.year), zone: model.timezone })}${model.invented ? ` — ${words.t('cli.invented')}` : ''}`,
     model.reference ? words.t('cli.secondaryOf', { station: model.reference.name, id: model.reference.id }) : words.t('port.reference'),
@@ -118,10 +118,10 @@ export function summary(model: StationYear, words: Words = wordsFor()): string {
     const events = days.flatMap((day) => day.events);
     const highs = events.filter((e) => e.type === 'high');
     const lows = events.filter((e) => e.type === 'low');
-    const top = highs.reduce((a, b) => (b.height > a.height ? b : a), highs[0]!);
-    const bottom = lows.reduce((a, b) => (b.height < a.height ? b : a), lows[0]!);
-    const at = (e: typeof top) => `${m(e.height).padStart(7)} ${e.date.slice(5, 10)} ${e.clock}`;
-    lines.push(row([words.monthName(month.month), String(highs.length).padStart(widths[1]!), String(lows.length).padStart(widths[2]!), at(top), at(bottom)], widths));
+    const top = highs.reduce<(typeof events)[number] | null>((a, b) => (!a || b.height > a.height ? b : a), null);
+    const bottom = lows.reduce<(typeof events)[number] | null>((a, b) => (!a || b.height < a.height ? b : a), null);
+    const at = (e: typeof top) => (e === null ? '—' : `${m(e.height).padStart(7)} ${e.date.slice(5, 10)} ${e.clock}`);
+    lines.push(row([words.monthName(month.month), String(highs.length).padStart(widths[1]), String(lows.length).padStart(widths[2]), at(top), at(bottom)], widths));
   }
   lines.push('');
   for (const c of model.offsetChanges) lines.push(words.t('cli.clockChange', { change: words.offsetChange(c) }));

@@ -107,11 +107,13 @@ export async function runAnalyse(argv: string[]): Promise<number> {
 /** `--longitude -15.8` as `--longitude=-15.8`, so a negative number is read as the value, not an option. */
 export function withNegativeNumbers(argv: readonly string[]): string[] {
   const out: string[] = [];
-  for (let i = 0; i < argv.length; i++) {
-    const arg = argv[i]!, next = argv[i + 1];
+  let joined = -1; // the index of a value already joined to its option
+  for (const [i, arg] of argv.entries()) {
+    if (i === joined) continue;
+    const next = argv[i + 1];
     if (/^--(latitude|longitude)$/.test(arg) && next !== undefined && /^-(\d|\.\d)/.test(next)) {
       out.push(`${arg}=${next}`);
-      i++;
+      joined = i + 1;
     } else out.push(arg);
   }
   return out;

@@ -19,12 +19,14 @@ export function parseCommandLine<const O extends OptionSpec>(command: string, ar
 /** `--year -1` as `--year=-1`, so a negative number is the option's (bad) value, not an unknown option. */
 function negativeValues(argv: readonly string[], options: OptionSpec): string[] {
   const out: string[] = [];
-  for (let i = 0; i < argv.length; i++) {
-    const arg = argv[i]!, next = argv[i + 1];
+  let joined = -1; // the index of a value already joined to its option
+  for (const [i, arg] of argv.entries()) {
+    if (i === joined) continue;
+    const next = argv[i + 1];
     const name = arg.startsWith('--') ? arg.slice(2) : null;
     if (name !== null && options[name]?.type === 'string' && next !== undefined && /^-(\d|\.\d)/.test(next)) {
       out.push(`${arg}=${next}`);
-      i++;
+      joined = i + 1;
     } else out.push(arg);
   }
   return out;

@@ -37,9 +37,14 @@ export function weekdayWidth(words: Words): number {
   return Math.max(...[1, 2, 3, 4, 5, 6, 7].map((d) => words.weekdayShort(d).length));
 }
 
-/** Pads a row of cells to the widths of the column heads (at least), two spaces apart. */
+/** Each column's width: the length of its head or the least width given for it, whichever is more. */
+export function columnWidths(heads: readonly string[], least: readonly number[]): number[] {
+  return heads.map((head, i) => Math.max(head.length, least[i] ?? 0));
+}
+
+/** Pads a row of cells to the widths of the column heads (at least), two spaces apart; a cell without a width is not padded. */
 export function row(cells: readonly string[], widths: readonly number[]): string {
-  return cells.map((c, i) => (i === cells.length - 1 ? c : c.padEnd(widths[i]!))).join('  ').trimEnd();
+  return cells.map((c, i) => (i === cells.length - 1 ? c : c.padEnd(widths[i] ?? 0))).join('  ').trimEnd();
 }
 
 /** The lines above a table: the station, where and when, how to read it, its provenance and the caution. */

@@ -64,7 +64,7 @@ async function loadCommand(name: string): Promise<CommandRunner> {
     throw new UsageError(name, 'is not available in this copy of tidewright (its module is missing)', 'update tidewright, or run tidewright help for the commands it has');
   }
   const module = (await import(/* @vite-ignore */ `./${name}.js`)) as Record<string, unknown>;
-  const runner = module[`run${name[0]!.toUpperCase()}${name.slice(1)}`];
+  const runner = module[`run${name.charAt(0).toUpperCase()}${name.slice(1)}`];
   if (typeof runner !== 'function') {
     throw new UsageError(name, 'is not available in this copy of tidewright', 'run tidewright help for the commands it has');
   }

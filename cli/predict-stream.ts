@@ -2,12 +2,12 @@
 // --every the velocity at that step, as a table for people or as JSON/CSV for programs.
 
 import {
-  isoLocal, isoUtc, bearingOf, streamEventsFor, streamVelocities, type StreamLookup,
+  isoLocal, isoUtc, bearingOf, itemAt, streamEventsFor, streamVelocities, type StreamLookup,
 } from '../engine/index.js';
 import type { AnyStreamStation, StreamEvent } from '../engine/index.js';
 import { csvTable, csvText, type ExportRecord } from '../templates/exports/fields.js';
 import type { Words } from '../templates/locale/index.js';
-import { row, tableHeader, tableStamp, weekdayWidth } from './locale.js';
+import { columnWidths, row, tableHeader, tableStamp, weekdayWidth } from './locale.js';
 
 const MINUTE = 60_000;
 
@@ -38,9 +38,8 @@ interface Sample { t: number; east: number; north: number; speed: number; direct
 function samples(req: StreamPredictRequest, stepMs: number): Sample[] {
   const count = Math.ceil((req.to - req.from) / stepMs);
   const { east, north } = streamVelocities(req.station, req.set, req.from, stepMs, count);
-  return Array.from({ length: count }, (_, i) => {
-    const e = east[i]!;
-    const n = north[i]!;
+  return Array.from(east, (e, i) => {
+    const n = itemAt(north, i, 'north component');
     const ok = Number.isFinite(e) && Number.isFinite(n);
     return { t: req.from + i * stepMs, east: e, north: n, speed: ok ? Math.hypot(e, n) : Number.NaN, direction: ok ? bearingOf(e, n) : null };
   });
@@ -68,8 +67,7 @@ function tableRows(rows: readonly { t: number; type?: 'slack' | 'flood' | 'ebb';
   const names = { slack: words.t('cli.slack'), flood: words.t('cli.flood'), ebb: words.t('cli.ebb') };
   const heads = [words.t('cli.colDate'), words.t('cli.colDay'), words.t('cli.colTime'), 'UTC±',
     ...(withType ? [words.t('cli.colStream')] : []), words.t('cli.colRate'), words.t('cli.colDirection')];
-  const widths = [10, weekdayWidth(words), 5, 6, ...(withType ? [Math.max(...Object.values(names).map((x) => x.length))] : []), 7, 4]
-    .map((w, i) => Math.max(w, heads[i]!.length));
+  const widths = columnWidths(heads, [10, weekdayWidth(words), 5, 6, ...(withType ? [Math.max(...Object.values(names).map((x) => x.length))] : []), 7, 4]);
   const lines = [row(heads, widths)];
   let lastDate = '';
   for (const r of rows) {

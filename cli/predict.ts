@@ -10,7 +10,7 @@ import {
 import type { AnyStreamStation, Station, TideEvent } from '../engine/index.js';
 import { csvTable, csvText, eventFields, eventRecord, HEIGHT_DIGITS, heightFields, heightRecord, type ExportRecord } from '../templates/exports/fields.js';
 import { oneOf, parseCommandLine, parseMinutes, parseWhen, positionalArguments } from './args.js';
-import { commandWords, LOCALE_HELP, LOCALE_OPTION, row, tableHeader, tableStamp, weekdayWidth } from './locale.js';
+import { columnWidths, commandWords, LOCALE_HELP, LOCALE_OPTION, row, tableHeader, tableStamp, weekdayWidth } from './locale.js';
 import { renderStreamPrediction, type StreamPredictRequest } from './predict-stream.js';
 import { FIRST_YEAR, instantInRange, LAST_YEAR } from './years.js';
 
@@ -114,8 +114,11 @@ function eventRecords(events: readonly TideEvent[], station: Station): ExportRec
   return events.map((e) => eventRecord(station.id, isoUtc(e.time), isoLocal(e.time, zone), localDate(e.time, zone), e.type, e.height, 'm'));
 }
 
-function heightRecords(times: readonly number[], heights: Float64Array, station: Station): ExportRecord[] {
-  return times.map((t, i) => heightRecord(station.id, isoUtc(t), isoLocal(t, station.timezone), heights[i]!, 'm'));
+function heightRecords(from: number, stepMs: number, heights: Float64Array, station: Station): ExportRecord[] {
+  return Array.from(heights, (height, i) => {
+    const t = from + i * stepMs;
+    return heightRecord(station.id, isoUtc(t), isoLocal(t, station.timezone), height, 'm');
+  });
 }
 
 function jsonRecords(records: readonly ExportRecord[]): string {
@@ -147,8 +150,9 @@ function tableRows(rows: readonly TableRow[], zone: string, words: Words): strin
   const withType = rows.some((r) => r.type !== undefined);
   const heads = [words.t('cli.colDate'), words.t('cli.colDay'), words.t('cli.colTime'), 'UTC±',
     ...(withType ? [words.t('cli.colTide')] : []), words.t('cli.colHeight')];
-  const types = [words.t('cli.tideHigh'), words.t('cli.tideLow')];
-  const widths = [10, weekdayWidth(words), 5, 6, ...(withType ? [Math.max(...types.map((x) => x.length))] : []), 6].map((w, i) => Math.max(w, heads[i]!.length));
+  const [high, low] = [words.t('cli.tideHigh'), words.t('cli.tideLow')];
+  const heightWidth = Math.max(6, words.t('cli.colHeight').length);
+  const widths = columnWidths(heads, [10, weekdayWidth(words), 5, 6, ...(withType ? [Math.max(high.length, low.length)] : []), heightWidth]);
   const lines = [row(heads, widths)];
   let lastDate = '';
   for (const r of rows) {
@@ -156,9 +160,9 @@ function tableRows(rows: readonly TableRow[], zone: string, words: Words): strin
     const first = at.date !== lastDate;
     lastDate = at.date;
     const height = Number.isFinite(r.height)
-      ? `${words.heightNumber(r.height, Math.round(r.height * 100) < 0).padStart(widths[widths.length - 1]!)} m${Math.round(r.height * 100) < 0 ? `  ${words.t('cli.belowDatum')}` : ''}`
+      ? `${words.heightNumber(r.height, Math.round(r.height * 100) < 0).padStart(heightWidth)} m${Math.round(r.height * 100) < 0 ? `  ${words.t('cli.belowDatum')}` : ''}`
       : words.t('cli.noValue');
-    const type = withType ? [r.type === 'high' ? types[0]! : types[1]!] : [];
+    const type = withType ? [r.type === 'high' ? high : low] : [];
     lines.push(row([first ? at.date : '', first ? at.weekday : '', at.clock, at.offset, ...type, height], widths));
   }
   if (rows.length === 0) lines.push(words.t('cli.none'));
@@ -178,12 +182,11 @@ function render(req: PredictRequest): string {
   const stepMs = Math.round(req.stepMinutes * MINUTE);
   const count = Math.ceil((req.to - req.from) / stepMs);
   const heights = tideHeights(req.station, req.set, req.from, stepMs, count);
-  const times = Array.from({ length: count }, (_, i) => req.from + i * stepMs);
-  if (req.format === 'json') return jsonRecords(heightRecords(times, heights, req.station));
-  if (req.format === 'csv') return csvText(csvTable(heightFields('m'), heightRecords(times, heights, req.station), HEIGHT_DIGITS));
+  if (req.format === 'json') return jsonRecords(heightRecords(req.from, stepMs, heights, req.station));
+  if (req.format === 'csv') return csvText(csvTable(heightFields('m'), heightRecords(req.from, stepMs, heights, req.station), HEIGHT_DIGITS));
   const step = req.words.t('unit.minutes', { count: req.stepMinutes });
   const what = req.words.t(req.station.kind === 'secondary' ? 'cli.heightsEverySecondary' : 'cli.heightsEvery', { step });
-  const rows = times.map((t, i) => ({ t, height: heights[i]! }));
+  const rows = Array.from(heights, (height, i) => ({ t: req.from + i * stepMs, height }));
   return [...tideHeader(req, what), ...tableRows(rows, zone, req.words)].join('\n') + '\n';
 }
 

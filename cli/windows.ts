@@ -133,9 +133,9 @@ function table(req: WindowsRequest): string {
     return `${at.date} ${at.weekday} ${at.clock} ${at.offset}`;
   };
   const rule = words.t(req.side === 'above' ? 'window.ruleAbove' : 'window.ruleBelow', { level });
-  const heads = [words.t('cli.opens'), words.t('cli.closes'), words.t('cli.openFor')];
+  const heads = [words.t('cli.opens'), words.t('cli.closes'), words.t('cli.openFor')] as const;
   const width = Math.max(...[from, to].map((t) => stamp(t).length)) + 2;
-  const widths = [Math.max(width, heads[0]!.length), Math.max(width, heads[1]!.length), 0];
+  const widths = [Math.max(width, heads[0].length), Math.max(width, heads[1].length), 0] as const;
   const lines = [
     ...tableHeader(words, {
       station: words.t('cli.stationLine', { station: station.name, kind: words.t(station.kind === 'reference' ? 'port.referenceLower' : 'port.secondaryLower'), id: station.id }),

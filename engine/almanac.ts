@@ -21,6 +21,7 @@ import type {
   AlmanacEvent, ModelWarning, MoonPhaseEntry, MoonPhaseName, SpringNeapEntry, SpringNeapKind, Station, StationYear,
   TideEvent,
 } from './types.js';
+import { firstOf, itemAt, lastOf } from './item.js';
 
 export { CAUTION, isInvented } from './almanac/caution.js';
 
@@ -51,17 +52,17 @@ export function buildStationYear(
   const reference = harmonicStationOf(station, set);
   const days = localDays(year, zone);
   const padDays: DaySpan[] = [...paddingDays(year, zone, -1), ...days, ...paddingDays(year, zone, 1)];
-  const yearStart = days[0]!.start;
-  const yearEnd = days[days.length - 1]!.end;
+  const yearStart = firstOf(days, 'days').start;
+  const yearEnd = lastOf(days, 'days').end;
 
   // One event list for everything: the year's events are those printed on one of its days.
-  const allEvents = tideEvents(station, set, padDays[0]!.start - DAY, padDays[padDays.length - 1]!.end + DAY, ctx);
+  const allEvents = tideEvents(station, set, firstOf(padDays, 'padDays').start - DAY, lastOf(padDays, 'padDays').end + DAY, ctx);
   const yearEvents = allEvents.filter((e) => dayIndexOf(days, e.time) >= 0);
   if (yearEvents.length === 0) throw new RangeError(`no high or low water predicted for ${station.id} in ${year}`);
   const events = yearEvents.map((e) => almanacEvent(e, zone));
 
   const summary = stationDatums(station, set, ctx);
-  const quarters = moonQuarters(padDays[0]!.start - 20 * DAY, padDays[padDays.length - 1]!.end + 5 * DAY);
+  const quarters = moonQuarters(firstOf(padDays, 'padDays').start - 20 * DAY, lastOf(padDays, 'padDays').end + 5 * DAY);
   const moonPhases = yearQuarters(quarters, days, zone);
   const springNeap = springNeapEntries(allEvents, padDays, days, quarters, summary.ageOfTideHours);
 
@@ -125,7 +126,7 @@ function dayCurve(
 ): number[] {
   const n = Math.floor((day.end - day.start) / stepMs) + 1;
   const out = Array.from(sample(day.start, stepMs, n), mm);
-  if (day.start + (n - 1) * stepMs < day.end) out.push(mm(sample(day.end, stepMs, 1)[0]!));
+  if (day.start + (n - 1) * stepMs < day.end) out.push(mm(firstOf(sample(day.end, stepMs, 1), 'height at the end of the day')));
   return out;
 }
 
@@ -148,9 +149,9 @@ function yearExtremes(raw: readonly TideEvent[], events: readonly AlmanacEvent[]
   let hi = -1;
   let lo = -1;
   raw.forEach((e, i) => {
-    if (e.type === 'high' && (hi < 0 || e.height > raw[hi]!.height)) hi = i;
-    if (e.type === 'low' && (lo < 0 || e.height < raw[lo]!.height)) lo = i;
+    if (e.type === 'high' && (hi < 0 || e.height > itemAt(raw, hi, 'raw').height)) hi = i;
+    if (e.type === 'low' && (lo < 0 || e.height < itemAt(raw, lo, 'raw').height)) lo = i;
   });
   // A year always has both; fall back to any event rather than crash on a degenerate station.
-  return { highest: events[hi < 0 ? 0 : hi]!, lowest: events[lo < 0 ? 0 : lo]! };
+  return { highest: itemAt(events, hi < 0 ? 0 : hi, 'events'), lowest: itemAt(events, lo < 0 ? 0 : lo, 'events') };
 }

@@ -29,24 +29,25 @@ const HOURS_PER_CENTURY = 36525 * 24;
 // Meeus (1998), Astronomical Algorithms, 2nd ed.: Moon's mean longitude L′, mean anomaly M′ and node Ω
 // (eq. 47.1, 47.4, 47.7); Sun's mean longitude L₀ and mean anomaly M (eq. 25.2, 25.3). Coefficients of
 // T (Julian centuries from J2000.0), T², T³, T⁴.
-const MOON_MEAN_LONGITUDE = [218.3164477, 481267.88123421, -0.0015786, 1 / 538841, -1 / 65194000];
-const MOON_MEAN_ANOMALY = [134.9633964, 477198.8675055, 0.0087414, 1 / 69699, -1 / 14712000];
-const MOON_NODE = [125.0445479, -1934.1362891, 0.0020754, 1 / 467441, -1 / 60616000];
-const SUN_MEAN_LONGITUDE = [280.46646, 36000.76983, 0.0003032, 0, 0];
-const SUN_MEAN_ANOMALY = [357.52911, 35999.05029, -0.0001537, 0, 0];
+type Polynomial = readonly [number, number, number, number, number];
+const MOON_MEAN_LONGITUDE: Polynomial = [218.3164477, 481267.88123421, -0.0015786, 1 / 538841, -1 / 65194000];
+const MOON_MEAN_ANOMALY: Polynomial = [134.9633964, 477198.8675055, 0.0087414, 1 / 69699, -1 / 14712000];
+const MOON_NODE: Polynomial = [125.0445479, -1934.1362891, 0.0020754, 1 / 467441, -1 / 60616000];
+const SUN_MEAN_LONGITUDE: Polynomial = [280.46646, 36000.76983, 0.0003032, 0, 0];
+const SUN_MEAN_ANOMALY: Polynomial = [357.52911, 35999.05029, -0.0001537, 0, 0];
 
 /** Rates of the fundamental arguments, degrees per mean solar hour (the linear terms above). */
 export const ARGUMENT_RATES = {
   T: 15,
-  s: MOON_MEAN_LONGITUDE[1]! / HOURS_PER_CENTURY,
-  h: SUN_MEAN_LONGITUDE[1]! / HOURS_PER_CENTURY,
-  p: (MOON_MEAN_LONGITUDE[1]! - MOON_MEAN_ANOMALY[1]!) / HOURS_PER_CENTURY,
-  N: MOON_NODE[1]! / HOURS_PER_CENTURY,
-  pp: (SUN_MEAN_LONGITUDE[1]! - SUN_MEAN_ANOMALY[1]!) / HOURS_PER_CENTURY,
+  s: MOON_MEAN_LONGITUDE[1] / HOURS_PER_CENTURY,
+  h: SUN_MEAN_LONGITUDE[1] / HOURS_PER_CENTURY,
+  p: (MOON_MEAN_LONGITUDE[1] - MOON_MEAN_ANOMALY[1]) / HOURS_PER_CENTURY,
+  N: MOON_NODE[1] / HOURS_PER_CENTURY,
+  pp: (SUN_MEAN_LONGITUDE[1] - SUN_MEAN_ANOMALY[1]) / HOURS_PER_CENTURY,
 } as const;
 
-function polynomial(c: readonly number[], x: number): number {
-  return c[0]! + x * (c[1]! + x * (c[2]! + x * (c[3]! + x * c[4]!)));
+function polynomial(c: Polynomial, x: number): number {
+  return c[0] + x * (c[1] + x * (c[2] + x * (c[3] + x * c[4])));
 }
 
 /** Reduce an angle in degrees to [0, 360). */

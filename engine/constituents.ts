@@ -14,14 +14,17 @@ export interface NodalTerm {
   fExponent: number;
 }
 
+/** Six numbers, one per fundamental argument (τ or T, s, h, p, N′ or N, p′). */
+export type ArgumentMultipliers = readonly [number, number, number, number, number, number];
+
 export interface Constituent {
   name: string;
   aliases: readonly string[];
   species: Species;
   /** Doodson numbers: multipliers of τ, s, h, p, N′, p′ (τ = T + h − s, N′ = −N). */
-  doodson: readonly number[];
+  doodson: ArgumentMultipliers;
   /** Schureman's multipliers of T, s, h, p, N, p′ in the equilibrium argument V. */
-  multipliers: readonly number[];
+  multipliers: ArgumentMultipliers;
   /** Constant of V in degrees (Schureman's convention), in (−180, 180]. */
   phase: number;
   /** Angular speed, degrees per mean solar hour. */
@@ -48,16 +51,20 @@ function speciesOf(name: string, tau: number): Species {
 }
 
 /** Doodson (τ-based) numbers → Schureman's (T-based) multipliers: a·τ = a·T + a·h − a·s, and N′ = −N. */
-function schuremanMultipliers(d: readonly number[]): number[] {
-  return [d[0]!, d[1]! - d[0]!, d[2]! + d[0]!, d[3]!, d[4] === 0 ? 0 : -d[4]!, d[5]!];
+function schuremanMultipliers(d: ArgumentMultipliers): ArgumentMultipliers {
+  return [d[0], d[1] - d[0], d[2] + d[0], d[3], d[4] === 0 ? 0 : -d[4], d[5]];
 }
 
-const RATES = [ARGUMENT_RATES.T, ARGUMENT_RATES.s, ARGUMENT_RATES.h, ARGUMENT_RATES.p, ARGUMENT_RATES.N, ARGUMENT_RATES.pp];
+const RATES: ArgumentMultipliers = [ARGUMENT_RATES.T, ARGUMENT_RATES.s, ARGUMENT_RATES.h, ARGUMENT_RATES.p, ARGUMENT_RATES.N, ARGUMENT_RATES.pp];
 
-function speedOf(multipliers: readonly number[]): number {
-  let speed = 0;
-  for (let i = 0; i < 6; i++) speed += multipliers[i]! * RATES[i]!;
-  return speed;
+function speedOf(m: ArgumentMultipliers): number {
+  const r = RATES;
+  return m[0] * r[0] + m[1] * r[1] + m[2] * r[2] + m[3] * r[3] + m[4] * r[4] + m[5] * r[5];
+}
+
+/** a + n·b, argument by argument. */
+function plusTimes(a: ArgumentMultipliers, n: number, b: ArgumentMultipliers): ArgumentMultipliers {
+  return [a[0] + n * b[0], a[1] + n * b[1], a[2] + n * b[2], a[3] + n * b[3], a[4] + n * b[4], a[5] + n * b[5]];
 }
 
 function wrapPhase(p: number): number {
@@ -85,13 +92,13 @@ function resolveTable(): Constituent[] {
     out.push(c);
   }
   for (const row of COMPOUND) {
-    const doodson = [0, 0, 0, 0, 0, 0];
+    let doodson: ArgumentMultipliers = [0, 0, 0, 0, 0, 0];
     let phase = 0;
     const terms = new Map<NodalRule, NodalTerm>();
     for (const [parentName, n] of row.parents) {
       const parent = byName.get(parentName);
       if (!parent) throw new Error(`constituent ${row.name}: parent ${parentName} must come earlier in the table`);
-      for (let i = 0; i < 6; i++) doodson[i]! += n * parent.doodson[i]!;
+      doodson = plusTimes(doodson, n, parent.doodson);
       phase += n * parent.phase;
       // Schureman: u of a compound is the sum of its parents' u, f the product of their f
       for (const term of parent.nodal) {
@@ -105,7 +112,7 @@ function resolveTable(): Constituent[] {
     const c: Constituent = {
       name: row.name,
       aliases: row.aliases ?? [],
-      species: speciesOf(row.name, doodson[0]!),
+      species: speciesOf(row.name, doodson[0]),
       doodson,
       multipliers,
       phase: wrapPhase(phase),

@@ -2,6 +2,7 @@
 // compact section of the combined volumes prints, with the arithmetic of secondaryEventsFrom.
 import { interpolateDifference, springNeapFactor, springNeapRanges } from './secondary.js';
 import type { EventType, ReferenceStation, SecondaryStation } from './types.js';
+import { itemAt } from './item.js';
 
 interface PrintedEvent { time: string; type: EventType; height: number }
 
@@ -28,11 +29,11 @@ export function differenceExample(events: readonly PrintedEvent[], reference: Re
   const { springs, neaps } = springNeapRanges(reference);
   if (!(springs - neaps > 1e-6)) return null;
   for (let i = 0; i < events.length; i++) {
-    const e = events[i]!;
+    const e = itemAt(events, i, 'events');
     if (e.type !== 'high' || Date.parse(e.time) < start) continue;
     const lowIndex = events.findIndex((l, j) => j > i && l.type === 'low');
     if (lowIndex < 0) return null;
-    const range = Math.abs(e.height - events[lowIndex]!.height);
+    const range = Math.abs(e.height - itemAt(events, lowIndex, 'events').height);
     const factor = springNeapFactor(range, springs, neaps);
     const d = secondary.differences.high_water;
     const diff = interpolateDifference(d.neaps, d.springs, factor);

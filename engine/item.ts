@@ -31,6 +31,24 @@ export function lastOf<T>(items: ArrayLike<T>, what: string): T {
   return itemAt(items, items.length - 1, what);
 }
 
+/** A key the program's own invariant says is in a table turned out not to be: a bug, never a user's mistake. */
+export class MissingEntryError extends Error {
+  override name = 'MissingEntryError';
+  constructor(
+    readonly what: string,
+    readonly key: PropertyKey,
+  ) {
+    super(`internal error: ${what} has no entry ${JSON.stringify(String(key))}`);
+  }
+}
+
+/** The value under `key` of a table that holds no `undefined`, or a MissingEntryError naming `what` when there is none. */
+export function entryOf<K extends PropertyKey, T>(table: Readonly<Partial<Record<K, T>>>, key: K, what: string): T {
+  const value = table[key];
+  if (value === undefined) throw new MissingEntryError(what, key);
+  return value as T;
+}
+
 /**
  * itemAt for the engine's Float64Array hot loops: one function for one kind of array, so the optimising
  * compiler sees a single element kind here (itemAt is called with every kind of list and would not).

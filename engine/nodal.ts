@@ -3,6 +3,7 @@
 
 import { fundamentalArguments, lunarOrbit, normalizeDegrees, type FundamentalArguments } from './astro.js';
 import { findConstituent, CONSTITUENT_NAMES, type Constituent, type NodalRule } from './constituents.js';
+import { itemAt, numberAt } from './item.js';
 
 const DEG = Math.PI / 180;
 
@@ -84,7 +85,7 @@ export function compileAstronomicalTerms(names: readonly string[]): Astronomical
   const termU: number[] = [];
   const termF: number[] = [];
   constituents.forEach((c, k) => {
-    for (let i = 0; i < 6; i++) mult[k * 6 + i] = c.multipliers[i]!;
+    for (let i = 0; i < 6; i++) mult[k * 6 + i] = itemAt(c.multipliers, i, 'multipliers');
     phase[k] = c.phase;
     for (const term of c.nodal) {
       termRule.push(RULE_NAMES.indexOf(term.rule));
@@ -101,21 +102,21 @@ export function compileAstronomicalTerms(names: readonly string[]): Astronomical
       const a = fundamentalArguments(t);
       const rules = nodalRules(a);
       for (let i = 0; i < RULE_NAMES.length; i++) {
-        ruleF[i] = rules[RULE_NAMES[i]!].f;
-        ruleU[i] = rules[RULE_NAMES[i]!].u;
+        ruleF[i] = rules[itemAt(RULE_NAMES, i, 'RULE_NAMES')].f;
+        ruleU[i] = rules[itemAt(RULE_NAMES, i, 'RULE_NAMES')].u;
       }
       for (let k = 0; k < n; k++) {
         const m = k * 6;
         const v =
-          phase[k]! + mult[m]! * a.T + mult[m + 1]! * a.s + mult[m + 2]! * a.h +
-          mult[m + 3]! * a.p + mult[m + 4]! * a.N + mult[m + 5]! * a.pp;
+          numberAt(phase, k, 'phase') + numberAt(mult, m, 'mult') * a.T + numberAt(mult, m + 1, 'mult') * a.s + numberAt(mult, m + 2, 'mult') * a.h +
+          numberAt(mult, m + 3, 'mult') * a.p + numberAt(mult, m + 4, 'mult') * a.N + numberAt(mult, m + 5, 'mult') * a.pp;
         V[k] = normalizeDegrees(v);
         let fk = 1;
         let uk = 0;
-        for (let j = termStart[k]!; j < termStart[k + 1]!; j++) {
-          const r = termRule[j]!;
-          for (let e = 0; e < termF[j]!; e++) fk *= ruleF[r]!;
-          uk += termU[j]! * ruleU[r]!;
+        for (let j = itemAt(termStart, k, 'termStart'); j < itemAt(termStart, k + 1, 'termStart'); j++) {
+          const r = itemAt(termRule, j, 'termRule');
+          for (let e = 0; e < itemAt(termF, j, 'termF'); e++) fk *= numberAt(ruleF, r, 'ruleF');
+          uk += itemAt(termU, j, 'termU') * numberAt(ruleU, r, 'ruleU');
         }
         f[k] = fk;
         u[k] = uk;
@@ -135,8 +136,8 @@ export function nodeFactorsFromArguments(
   const u = new Float64Array(constituents.length);
   constituents.forEach((c, k) => {
     for (const term of c.nodal) {
-      f[k]! *= rules[term.rule].f ** term.fExponent;
-      u[k]! += term.uMultiplier * rules[term.rule].u;
+      f[k] = numberAt(f, k, 'f') * rules[term.rule].f ** term.fExponent;
+      u[k] = numberAt(u, k, 'u') + term.uMultiplier * rules[term.rule].u;
     }
   });
   return { f, u };

@@ -11,6 +11,7 @@ import { StationFileError } from './errors.js';
 import { compileAstronomicalTerms, type AstronomicalTerms } from './nodal.js';
 import { findConstituent, CONSTITUENT_NAMES } from './constituents.js';
 import type { ReferenceStation } from './types.js';
+import { numberAt } from './item.js';
 
 const DEG = Math.PI / 180;
 const TWO_PI = 2 * Math.PI;
@@ -126,8 +127,8 @@ function fillAnchor(k: CompiledConstants, t: number, into: Anchor): Anchor {
   const { V, f, u } = k;
   k.terms.evaluate(t, V, f, u);
   for (let i = 0; i < V.length; i++) {
-    into.phase[i] = normalizeDegrees(V[i]! + u[i]! - k.g[i]!) * DEG;
-    into.amplitude[i] = f[i]! * k.H[i]!;
+    into.phase[i] = normalizeDegrees(numberAt(V, i, 'equilibrium arguments') + numberAt(u, i, 'nodal angles') - numberAt(k.g, i, 'phase lags')) * DEG;
+    into.amplitude[i] = numberAt(f, i, 'node factors') * numberAt(k.H, i, 'amplitudes');
   }
   into.t = t;
   return into;
@@ -139,17 +140,19 @@ function windowBetween(k: CompiledConstants, a: Anchor, b: Anchor, w: PhasorWind
   w.start = a.t;
   w.end = b.t;
   for (let i = 0; i < n; i++) {
-    w.re[i] = a.amplitude[i]! * Math.cos(a.phase[i]!);
-    w.im[i] = a.amplitude[i]! * Math.sin(a.phase[i]!);
-    const nominal = k.speed[i]! * DEG * hours;
+    const amplitude = numberAt(a.amplitude, i, 'anchor amplitudes'), phase = numberAt(a.phase, i, 'anchor phases');
+    const speed = numberAt(k.speed, i, 'speeds');
+    w.re[i] = amplitude * Math.cos(phase);
+    w.im[i] = amplitude * Math.sin(phase);
+    const nominal = speed * DEG * hours;
     if (hours > 0) {
       // unwrap: the measured turn differs from speed × time only by the small change of u
-      const measured = b.phase[i]! - a.phase[i]!;
+      const measured = numberAt(b.phase, i, 'anchor phases') - phase;
       const turn = measured + TWO_PI * Math.round((nominal - measured) / TWO_PI);
       w.omega[i] = turn / hours;
-      w.beta[i] = a.amplitude[i]! > 0 ? logRatio(b.amplitude[i]!, a.amplitude[i]!) / hours : 0;
+      w.beta[i] = amplitude > 0 ? logRatio(numberAt(b.amplitude, i, 'anchor amplitudes'), amplitude) / hours : 0;
     } else {
-      w.omega[i] = k.speed[i]! * DEG;
+      w.omega[i] = speed * DEG;
       w.beta[i] = 0;
     }
   }
@@ -197,16 +200,18 @@ export function compilePredictor(station: ReferenceStation): Predictor {
     const tau = (t - w.start) / MS_PER_HOUR;
     let sum = 0;
     for (let i = 0; i < n; i++) {
-      const b = w.beta[i]! * tau;
+      const beta = numberAt(w.beta, i, 'growth rates'), omega = numberAt(w.omega, i, 'angular speeds');
+      const re = numberAt(w.re, i, 'phasors'), im = numberAt(w.im, i, 'phasors');
+      const b = beta * tau;
       const grow = 1 + b * (1 + b / 2); // e^{βτ}; |βτ| < 1e-4 over a day
-      const c = Math.cos(w.omega[i]! * tau);
-      const s = Math.sin(w.omega[i]! * tau);
-      const x = grow * (w.re[i]! * c - w.im[i]! * s);
+      const c = Math.cos(omega * tau);
+      const s = Math.sin(omega * tau);
+      const x = grow * (re * c - im * s);
       if (!derivative) {
         sum += x;
       } else {
-        const y = grow * (w.re[i]! * s + w.im[i]! * c);
-        sum += w.beta[i]! * x - w.omega[i]! * y;
+        const y = grow * (re * s + im * c);
+        sum += beta * x - omega * y;
       }
     }
     return derivative ? sum : z0 + sum;
@@ -258,19 +263,20 @@ function accumulateWindow(
   const cr = rotation.cos;
   const ci = rotation.sin;
   for (let i = 0; i < n; i++) {
-    const grow = Math.exp(w.beta[i]! * stepHours);
-    cr[i] = grow * Math.cos(w.omega[i]! * stepHours);
-    ci[i] = grow * Math.sin(w.omega[i]! * stepHours);
+    const grow = Math.exp(numberAt(w.beta, i, 'growth rates') * stepHours);
+    const turn = numberAt(w.omega, i, 'angular speeds') * stepHours;
+    cr[i] = grow * Math.cos(turn);
+    ci[i] = grow * Math.sin(turn);
   }
   const end = j0 + m;
   let i = 0;
   for (; i + 3 < n; i += 4) {
-    let x0 = w.re[i]!, y0 = w.im[i]!, x1 = w.re[i + 1]!, y1 = w.im[i + 1]!;
-    let x2 = w.re[i + 2]!, y2 = w.im[i + 2]!, x3 = w.re[i + 3]!, y3 = w.im[i + 3]!;
-    const c0 = cr[i]!, s0 = ci[i]!, c1 = cr[i + 1]!, s1 = ci[i + 1]!;
-    const c2 = cr[i + 2]!, s2 = ci[i + 2]!, c3 = cr[i + 3]!, s3 = ci[i + 3]!;
+    let x0 = numberAt(w.re, i, 'phasors'), y0 = numberAt(w.im, i, 'phasors'), x1 = numberAt(w.re, i + 1, 'phasors'), y1 = numberAt(w.im, i + 1, 'phasors');
+    let x2 = numberAt(w.re, i + 2, 'phasors'), y2 = numberAt(w.im, i + 2, 'phasors'), x3 = numberAt(w.re, i + 3, 'phasors'), y3 = numberAt(w.im, i + 3, 'phasors');
+    const c0 = numberAt(cr, i, 'step rotations'), s0 = numberAt(ci, i, 'step rotations'), c1 = numberAt(cr, i + 1, 'step rotations'), s1 = numberAt(ci, i + 1, 'step rotations');
+    const c2 = numberAt(cr, i + 2, 'step rotations'), s2 = numberAt(ci, i + 2, 'step rotations'), c3 = numberAt(cr, i + 3, 'step rotations'), s3 = numberAt(ci, i + 3, 'step rotations');
     for (let j = j0; j < end; j++) {
-      out[j]! += x0 + x1 + (x2 + x3);
+      out[j] = numberAt(out, j, 'heights') + (x0 + x1 + (x2 + x3));
       let t = x0 * c0 - y0 * s0;
       y0 = x0 * s0 + y0 * c0;
       x0 = t;
@@ -286,10 +292,10 @@ function accumulateWindow(
     }
   }
   for (; i < n; i++) {
-    let x = w.re[i]!, y = w.im[i]!;
-    const c = cr[i]!, s = ci[i]!;
+    let x = numberAt(w.re, i, 'phasors'), y = numberAt(w.im, i, 'phasors');
+    const c = numberAt(cr, i, 'step rotations'), s = numberAt(ci, i, 'step rotations');
     for (let j = j0; j < end; j++) {
-      out[j]! += x;
+      out[j] = numberAt(out, j, 'heights') + x;
       const t = x * c - y * s;
       y = x * s + y * c;
       x = t;
@@ -307,7 +313,8 @@ export function directHeights(station: ReferenceStation): (t: number) => number 
     k.terms.evaluate(t, k.V, k.f, k.u);
     let h = station.mean_level;
     for (let i = 0; i < k.names.length; i++) {
-      h += k.f[i]! * k.H[i]! * Math.cos((k.V[i]! + k.u[i]! - k.g[i]!) * DEG);
+      const amplitude = numberAt(k.f, i, 'node factors') * numberAt(k.H, i, 'amplitudes');
+      h += amplitude * Math.cos((numberAt(k.V, i, 'equilibrium arguments') + numberAt(k.u, i, 'nodal angles') - numberAt(k.g, i, 'phase lags')) * DEG);
     }
     return h;
   };

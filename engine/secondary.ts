@@ -4,6 +4,7 @@ import { StationFileError } from './errors.js';
 import type {
   DifferencePair, ReferenceStation, SecondaryDifferences, SecondaryStation, Station, TideEvent,
 } from './types.js';
+import { itemAt } from './item.js';
 
 /** What the secondary-port code needs of a station set (a `StationSet` fits). */
 export interface StationLookup {
@@ -71,12 +72,12 @@ export function interpolateDifference(
 
 /** Range of reference event i: to the next event of the other type, else the previous one. */
 function eventRange(events: readonly TideEvent[], i: number): number | null {
-  const e = events[i]!;
+  const e = itemAt(events, i, 'events');
   for (let j = i + 1; j < events.length; j++) {
-    if (events[j]!.type !== e.type) return Math.abs(e.height - events[j]!.height);
+    if (itemAt(events, j, 'events').type !== e.type) return Math.abs(e.height - itemAt(events, j, 'events').height);
   }
   for (let j = i - 1; j >= 0; j--) {
-    if (events[j]!.type !== e.type) return Math.abs(e.height - events[j]!.height);
+    if (itemAt(events, j, 'events').type !== e.type) return Math.abs(e.height - itemAt(events, j, 'events').height);
   }
   return null;
 }
@@ -106,7 +107,7 @@ export function secondaryEventsFrom(
   const d: SecondaryDifferences = secondary.differences;
   const out: TideEvent[] = [];
   for (let i = 0; i < referenceEvents.length; i++) {
-    const e = referenceEvents[i]!;
+    const e = itemAt(referenceEvents, i, 'referenceEvents');
     const range = eventRange(referenceEvents, i);
     if (range === null) continue;
     const k = springNeapFactor(range, springs, neaps);

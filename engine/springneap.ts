@@ -2,6 +2,7 @@
 // range, its peaks (springs) and troughs (neaps), each paired with the syzygy or quadrature it follows.
 import type { DaySpan } from './sky.js';
 import type { MoonPhaseName, SpringNeapKind, TideEvent } from './types.js';
+import { itemAt, numberAt } from './item.js';
 
 const HOUR = 3_600_000;
 // Half the envelope window: peaks of a fortnightly envelope stand at least ~10 days apart.
@@ -29,8 +30,8 @@ export interface SpringNeapMarker {
 export function dayRange(events: readonly TideEvent[], start: number, end: number): number | null {
   let best: number | null = null;
   for (let i = 0; i + 1 < events.length; i++) {
-    const a = events[i]!;
-    const b = events[i + 1]!;
+    const a = itemAt(events, i, 'events');
+    const b = itemAt(events, i + 1, 'events');
     if (b.time < start || a.time >= end || a.type === b.type) continue;
     if (!((a.time >= start && a.time < end) || (b.time >= start && b.time < end))) continue;
     const r = Math.abs(a.height - b.height);
@@ -43,8 +44,8 @@ export function dayRange(events: readonly TideEvent[], start: number, end: numbe
 function highLowSpread(events: readonly TideEvent[], from: number, to: number, first: number): number {
   let hi = -Infinity;
   let lo = Infinity;
-  for (let i = first; i < events.length && events[i]!.time < to; i++) {
-    const e = events[i]!;
+  for (let i = first; i < events.length && itemAt(events, i, 'events').time < to; i++) {
+    const e = itemAt(events, i, 'events');
     if (e.time < from) continue;
     if (e.type === 'high') hi = Math.max(hi, e.height);
     else lo = Math.min(lo, e.height);
@@ -58,15 +59,15 @@ export function rangeEnvelope(events: readonly TideEvent[], days: readonly DaySp
   const raw = new Float64Array(n);
   let first = 0;
   for (let j = 0; j < n; j++) {
-    const mid = (days[j]!.start + days[j]!.end) / 2;
-    while (first < events.length && events[first]!.time < mid - ENVELOPE_HALF_SPAN) first++;
+    const mid = (itemAt(days, j, 'days').start + itemAt(days, j, 'days').end) / 2;
+    while (first < events.length && itemAt(events, first, 'events').time < mid - ENVELOPE_HALF_SPAN) first++;
     raw[j] = highLowSpread(events, mid - ENVELOPE_HALF_SPAN, mid + ENVELOPE_HALF_SPAN, first);
   }
   const smooth = new Float64Array(n);
   for (let j = 0; j < n; j++) {
-    const a = raw[Math.max(0, j - 1)]!;
-    const b = raw[j]!;
-    const c = raw[Math.min(n - 1, j + 1)]!;
+    const a = numberAt(raw, Math.max(0, j - 1), 'raw');
+    const b = numberAt(raw, j, 'raw');
+    const c = numberAt(raw, Math.min(n - 1, j + 1), 'raw');
     smooth[j] = (a + 2 * b + c) / 4;
   }
   return { raw, smooth };
@@ -84,10 +85,10 @@ function turningPoints(s: Float64Array): Turn[] {
     let isMin = true;
     for (let k = j - HALF_WINDOW_DAYS; k <= j + HALF_WINDOW_DAYS; k++) {
       if (k === j) continue;
-      if (s[k]! > s[j]! || (k < j && s[k] === s[j])) isMax = false;
-      if (s[k]! < s[j]! || (k < j && s[k] === s[j])) isMin = false;
+      if (numberAt(s, k, 's') > numberAt(s, j, 's') || (k < j && s[k] === s[j])) isMax = false;
+      if (numberAt(s, k, 's') < numberAt(s, j, 's') || (k < j && s[k] === s[j])) isMin = false;
     }
-    if (Number.isNaN(s[j]!)) continue;
+    if (Number.isNaN(numberAt(s, j, 's'))) continue;
     if (isMax) turns.push({ index: j, kind: 'spring' });
     else if (isMin) turns.push({ index: j, kind: 'neap' });
   }
@@ -95,7 +96,7 @@ function turningPoints(s: Float64Array): Turn[] {
   for (const t of turns) {
     const last = out[out.length - 1];
     if (last && last.kind === t.kind) {
-      const better = t.kind === 'spring' ? s[t.index]! > s[last.index]! : s[t.index]! < s[last.index]!;
+      const better = t.kind === 'spring' ? numberAt(s, t.index, 's') > numberAt(s, last.index, 's') : numberAt(s, t.index, 's') < numberAt(s, last.index, 's');
       if (better) out[out.length - 1] = t;
     } else out.push(t);
   }
@@ -125,8 +126,8 @@ export function springNeapMarkers(
   const out: SpringNeapMarker[] = [];
   for (const turn of turningPoints(smooth)) {
     const j = turn.index;
-    const mid = (k: number) => (days[k]!.start + days[k]!.end) / 2;
-    const delta = parabolicOffset(smooth[j - 1]!, smooth[j]!, smooth[j + 1]!);
+    const mid = (k: number) => (itemAt(days, k, 'days').start + itemAt(days, k, 'days').end) / 2;
+    const delta = parabolicOffset(numberAt(smooth, j - 1, 'smooth'), numberAt(smooth, j, 'smooth'), numberAt(smooth, j + 1, 'smooth'));
     const time = mid(j) + (delta >= 0 ? delta * (mid(j + 1) - mid(j)) : delta * (mid(j) - mid(j - 1)));
     const wanted = turn.kind === 'spring' ? ['new', 'full'] : ['first-quarter', 'last-quarter'];
     let best: QuarterInstant | null = null;
@@ -137,10 +138,10 @@ export function springNeapMarkers(
     }
     if (!best) continue;
     out.push({
-      date: days[j]!.date,
+      date: itemAt(days, j, 'days').date,
       kind: turn.kind,
       time: Math.round(time),
-      envelope: raw[j]!,
+      envelope: numberAt(raw, j, 'raw'),
       astronomical: best.time,
       astronomicalPhase: best.phase,
       lagHours: (time - best.time) / HOUR,

@@ -11,6 +11,7 @@ import {
   type StreamLookup,
 } from './streams/secondary.js';
 import type { AnyStreamStation, StreamEvent } from './streams/types.js';
+import { numberAt } from './item.js';
 
 export type * from './streams/types.js';
 export { componentsToEllipse, ellipseToComponents, type ComponentConstant } from './streams/ellipse.js';
@@ -62,7 +63,7 @@ export function streamAlongFlood(
   const fx = Math.sin((station.flood_direction * Math.PI) / 180);
   const fy = Math.cos((station.flood_direction * Math.PI) / 180);
   const out = new Float64Array(count);
-  for (let i = 0; i < count; i++) out[i] = east[i]! * fx + north[i]! * fy;
+  for (let i = 0; i < count; i++) out[i] = numberAt(east, i, 'east') * fx + numberAt(north, i, 'north') * fy;
   return out;
 }
 export { isCurrentRecord, parseCurrentRecord, type CurrentRecord } from './streams/current-record.js';

@@ -8,6 +8,7 @@ import {
   referencePortOf, secondaryEventsFrom, secondaryPaddingMs, type StationLookup,
 } from './secondary.js';
 import type { ReferenceStation, SecondaryStation, Station, TideEvent } from './types.js';
+import { itemAt } from './item.js';
 
 export type { StationLookup } from './secondary.js';
 
@@ -75,10 +76,10 @@ export function cosineCurve(
   for (let i = 0; i < count; i++) {
     const t = start + i * stepMs;
     // Samples are usually ascending; step back if a negative step walks the other way.
-    while (j > 0 && t < events[j]!.time) j--;
-    while (j < events.length - 2 && t >= events[j + 1]!.time) j++;
-    const a = events[j]!;
-    const b = events[j + 1]!;
+    while (j > 0 && t < itemAt(events, j, 'events').time) j--;
+    while (j < events.length - 2 && t >= itemAt(events, j + 1, 'events').time) j++;
+    const a = itemAt(events, j, 'events');
+    const b = itemAt(events, j + 1, 'events');
     if (t < a.time || t > b.time) {
       out[i] = Number.NaN;
       continue;

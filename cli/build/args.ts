@@ -80,7 +80,7 @@ export function localeOption(option: string, text: string): string {
   if (language === null) {
     throw new UsageError(option, `"${text}" is not a language tidewright publishes in`, `write one of ${LANGUAGES.join(', ')}`);
   }
-  return Intl.getCanonicalLocales(text)[0]!;
+  return new Intl.Locale(text).toString();
 }
 
 /** Turns the arguments after `build` into checked values; a bad one is a UsageError. */

@@ -77,12 +77,12 @@ function touch(path: string): void {
  * The entry's files and meta when the entry is whole and is this key's, else null. `names`: the
  * files wanted (all of them must be there).
  */
-export function readEntry(cacheDir: string, key: string, names: readonly string[]): { files: CacheEntryFiles; meta: unknown } | null {
+export function readEntry<Name extends string>(cacheDir: string, key: string, names: readonly Name[]): { files: Record<Name, Buffer>; meta: unknown } | null {
   const dir = entryDir(cacheDir, key);
   try {
     const record = JSON.parse(readFileSync(join(dir, ENTRY), 'utf8')) as EntryRecord;
     if (record.format !== FORMAT || record.key !== key || typeof record.files !== 'object' || record.files === null) return null;
-    const files: CacheEntryFiles = {};
+    const files = {} as Record<Name, Buffer>; // filled with every name below, or no entry is returned
     for (const name of names) {
       const want = record.files[name];
       if (!want) return null;

@@ -36,9 +36,10 @@ function frontMatter(file: string, text: string): { data: Record<string, unknown
     throw pageError(file, '(front matter)', 'does not start with front matter',
       'start the file with a --- line, then title: … (and place:, order:, in: as needed), then another --- line');
   }
-  const doc = parseDocument(match[1]!, { uniqueKeys: true });
-  if (doc.errors.length > 0) {
-    const what = (doc.errors[0]!.message.split('\n')[0] ?? '').replace(/ at line \d+, column \d+:?$/, '');
+  const doc = parseDocument(match[1] ?? '', { uniqueKeys: true });
+  const [error] = doc.errors;
+  if (error) {
+    const what = (error.message.split('\n')[0] ?? '').replace(/ at line \d+, column \d+:?$/, '');
     throw pageError(file, '(front matter)', `YAML syntax error: ${what}`, 'write one setting per line as key: value, e.g. title: Welcome');
   }
   if (!isMap(doc.contents)) throw pageError(file, '(front matter)', 'is not a list of key: value settings', 'write at least title: … between the --- lines');

@@ -1,7 +1,7 @@
 // One BuildPlan from the command line, the project file and the defaults (in that order of precedence).
 import { existsSync, statSync } from 'node:fs';
 import { resolve } from 'node:path';
-import { UsageError } from '../../engine/index.js';
+import { firstOf, UsageError } from '../../engine/index.js';
 import type { BuildArgs } from './args.js';
 import type { BuildPlan } from './options.js';
 import { loadProjectFile } from './project.js';
@@ -29,7 +29,7 @@ export function makePlan(
   const project = loadProjectFile(stationsDir);
   const s = project.settings;
   const years = args.years ?? s.year ?? [defaultYear(now)];
-  const year = years[0]!;
+  const year = firstOf(years, 'years of the build');
   return {
     stationsDir,
     outDir: resolve(cwd, args.out ?? DEFAULT_OUT_DIR),

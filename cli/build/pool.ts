@@ -19,11 +19,12 @@ export interface PoolRun {
 /** Node options for the workers: this process's, less those that only make sense for a main script. */
 export function workerExecArgv(argv: readonly string[] = process.execArgv): string[] {
   const out: string[] = [];
-  for (let i = 0; i < argv.length; i++) {
-    const arg = argv[i]!;
-    const name = arg.split('=')[0]!;
+  let value = -1; // the index of the value of a dropped option
+  for (const [i, arg] of argv.entries()) {
+    if (i === value) continue;
+    const name = arg.replace(/=.*$/s, '');
     if (['-e', '--eval', '-p', '--print', '--input-type'].includes(name)) {
-      if (!arg.includes('=')) i++; // its value is the next word
+      if (!arg.includes('=')) value = i + 1; // its value is the next word
     } else if (!['--test', '--watch', '--check', '-c', '-i', '--interactive'].includes(name)) {
       out.push(arg);
     }

@@ -2,6 +2,7 @@
 // station (workers), render the site and the combined book, then swap the finished folder into place.
 import { mkdir, readdir, stat, writeFile } from 'node:fs/promises';
 import { join } from 'node:path';
+import { firstOf } from '../../engine/index.js';
 import type {
   StationFileError, Station, StationYear, AnyStreamStation, StreamYear,
 } from '../../engine/index.js';
@@ -254,7 +255,7 @@ export async function buildAlmanac(plan: BuildPlan, deps: BuildDeps, events: Bui
       }
     }
     return {
-      out: target.out, year: years[0]!, years, stations: stations.length, workers, pdfPages, webPages: tree.html,
+      out: target.out, year: firstOf(years, 'years of the build'), years, stations: stations.length, workers, pdfPages, webPages: tree.html,
       files: tree.files, bytes: tree.bytes, ms: performance.now() - started, stepMs: times,
     };
   } catch (error) {

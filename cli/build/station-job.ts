@@ -78,13 +78,13 @@ export async function runStationJob(id: string, ctx: StationJobContext, deps: St
   const pocketFile = bookFile.replace(/\.pdf$/, '-pocket.pdf');
   const pocket = ctx.render.pocket !== false && deps.renderPocketTable !== undefined;
   const key = ctx.cache?.keys[id];
-  const names = ['model.json', 'book.pdf', ...(pocket ? ['pocket.pdf'] : [])];
+  const names = ['model.json', 'book.pdf', ...(pocket ? ['pocket.pdf'] as const : [])] as const;
   const hit = ctx.cache && key !== undefined ? readEntry(ctx.cache.dir, key, names) : null;
   if (hit) {
     const meta = hit.meta as CachedMeta | null;
     if (meta?.summary?.station?.id === id && typeof meta.pdfPages === 'number') {
-      await writeFile(bookFile, hit.files['book.pdf']!);
-      if (pocket) await writeFile(pocketFile, hit.files['pocket.pdf']!);
+      await writeFile(bookFile, hit.files['book.pdf']);
+      if (pocket) await writeFile(pocketFile, hit.files['pocket.pdf']);
       return { id, summary: meta.summary, pdfPages: meta.pdfPages, ...(meta.sections && { sections: meta.sections }),
         ...(meta.imageWarnings && { imageWarnings: meta.imageWarnings }), cached: true };
     }

@@ -2,7 +2,7 @@
 // read (and a compact secondary port's reference, for its worked example), then dropped. A volume
 // whose stations, place and choices are unchanged is copied from the cache instead.
 import { writeFile } from 'node:fs/promises';
-import { differenceExample } from '../../engine/index.js';
+import { differenceExample, itemAt } from '../../engine/index.js';
 import type { ReferenceStation, SecondaryStation, StationYear } from '../../engine/index.js';
 import type { VolumeEntry, VolumeStation, VolumeText } from '../../templates/pdf/volume.js';
 import { resultEvent, type WorkedExample } from '../../templates/pdf/worked-example.js';
@@ -40,7 +40,7 @@ function workedExample(model: StationYear, reference: StationYear): WorkedExampl
   if (from === undefined) return null;
   const example = differenceExample(reference.events, reference.station as ReferenceStation, model.station as SecondaryStation, from);
   if (example === null) return null;
-  return { example, highWater: reference.events[example.referenceIndex]!, lowWater: reference.events[example.lowIndex]!,
+  return { example, highWater: itemAt(reference.events, example.referenceIndex, 'reference events'), lowWater: itemAt(reference.events, example.lowIndex, 'reference events'),
     result: resultEvent(model, example.time) };
 }
 
@@ -48,7 +48,7 @@ export async function runVolumeJob(job: VolumeJob, cacheDir: string, render: Ren
   const hit = readEntry(cacheDir, job.key, ['volume.pdf']);
   const meta = hit?.meta as { entries?: VolumeEntry[]; pages?: number; imageWarnings?: ImageWarning[] } | undefined;
   if (hit && Array.isArray(meta?.entries) && typeof meta.pages === 'number') {
-    await writeFile(job.file, hit.files['volume.pdf']!);
+    await writeFile(job.file, hit.files['volume.pdf']);
     return { index: job.index, entries: meta.entries, pages: meta.pages, cached: true, ...(meta.imageWarnings && { imageWarnings: meta.imageWarnings }) };
   }
   const models = new Map(job.stations.map((s) => [s.id, cachedModel(cacheDir, s.id, s.key)]));

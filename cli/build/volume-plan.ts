@@ -2,6 +2,7 @@
 // by their reference port's region), each reference port followed by its secondary ports, and packed
 // into volumes of at most `pages` pages; a region starts a volume of its own and a reference port's
 // group is split only when it alone is longer than a volume.
+import { firstOf, lastOf } from '../../engine/index.js';
 import type { SectionPages } from '../../templates/pdf/volume.js';
 import type { CombinedMode, VolumeChoices } from './volume-options.js';
 
@@ -70,8 +71,9 @@ export function volumeLength(stations: readonly PlanStation[], compact: boolean,
 function labelOf(region: string, members: readonly PlanStation[]): string {
   if (region !== '') return region;
   const refs = members.filter((s) => s.kind === 'reference');
-  const first = refs[0] ?? members[0]!;
-  const last = refs[refs.length - 1] ?? members[members.length - 1]!;
+  const named = refs.length > 0 ? refs : members;
+  const first = firstOf(named, 'volume members');
+  const last = lastOf(named, 'volume members');
   return first === last ? first.name : `${first.name} \u2013 ${last.name}`;
 }
 

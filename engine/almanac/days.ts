@@ -6,6 +6,7 @@ import type {
   AlmanacEvent, DayEntry, MonthEntry, MoonPhaseName, SpringNeapKind, TideEvent,
 } from '../types.js';
 import { mm } from './format.js';
+import { itemAt } from '../item.js';
 
 export interface DayInputs {
   zone: string;
@@ -60,14 +61,14 @@ export function dayEntries(input: DayInputs): DayEntry[] {
   input.events.forEach((e, i) => {
     const d = dayIndexOf(days, e.time);
     if (d < 0) throw new RangeError(`event at ${isoUtc(e.time)} lies outside the year's days`);
-    perDay[d]!.push(input.formatted[i]!);
+    itemAt(perDay, d, 'perDay').push(itemAt(input.formatted, i, 'formatted'));
   });
   return days.map((day, i): DayEntry => {
     const range = dayRange(input.rangeEvents, day.start, day.end);
     return {
-      ...commonDayFields(day, input.sky[i]!, zone, input.moonPhaseOn.get(day.date) ?? null),
-      events: perDay[i]!,
-      curve: input.curves[i]!,
+      ...commonDayFields(day, itemAt(input.sky, i, 'sky'), zone, input.moonPhaseOn.get(day.date) ?? null),
+      events: itemAt(perDay, i, 'perDay'),
+      curve: itemAt(input.curves, i, 'curves'),
       springNeap: input.springNeapOn.get(day.date) ?? null,
       range: range === null ? null : mm(range),
     };

@@ -6,6 +6,7 @@ import { predictorFor, type StationLookup } from '../tides.js';
 import type { HourlyDay, HourlyYear, Station, TideEvent } from '../types.js';
 import { windowMethod } from '../windows.js';
 import { mm } from './format.js';
+import { itemAt } from '../item.js';
 
 const QUARTER_HOUR = 900_000; // every UTC offset in use is a whole number of quarter hours
 
@@ -21,9 +22,9 @@ function secondaryCurveAt(events: readonly TideEvent[], times: readonly number[]
   const out: number[] = [];
   let j = 0;
   for (const t of times) {
-    while (j < events.length - 2 && t >= events[j + 1]!.time) j++;
-    const a = events[j]!;
-    const b = events[j + 1]!;
+    while (j < events.length - 2 && t >= itemAt(events, j + 1, 'events').time) j++;
+    const a = itemAt(events, j, 'events');
+    const b = itemAt(events, j + 1, 'events');
     if (!b || t < a.time || t > b.time) {
       out.push(Number.NaN);
       continue;

@@ -8,6 +8,7 @@ import type {
 } from '../types.js';
 import { openIntervalsOf, windowMethod, type OpenInterval } from '../windows.js';
 import { mm } from './format.js';
+import { firstOf, itemAt, lastOf } from '../item.js';
 
 /** The side and level of a station file's window (the schema guarantees exactly one of the two). */
 export function sideAndLevel(spec: WindowSpec): { side: 'above' | 'below'; level: number } {
@@ -23,13 +24,13 @@ export function yearWindows(
   yearEvents: readonly TideEvent[], ctx?: EngineContext,
 ): WindowYear[] {
   const zone = station.timezone;
-  const from = days[0]!.start;
-  const to = days[days.length - 1]!.end;
+  const from = firstOf(days, 'days').start;
+  const to = lastOf(days, 'days').end;
   const specs = station.windows ?? [];
   const all = openIntervalsOf(station, set, specs.map(sideAndLevel), from, to, events, ctx);
   return specs.map((spec, k): WindowYear => {
     const { side, level } = sideAndLevel(spec);
-    const exact = all[k]!;
+    const exact = itemAt(all, k, 'all');
     const byDay = splitByDay(exact, days, zone);
     return {
       id: spec.id,
@@ -70,10 +71,10 @@ export function splitByDay(intervals: readonly OpenInterval[], days: readonly Lo
     .filter((w) => w.end > w.start);
   let j = 0;
   return days.map((day): WindowDay => {
-    while (j < rounded.length && rounded[j]!.end <= day.start) j++;
+    while (j < rounded.length && itemAt(rounded, j, 'rounded').end <= day.start) j++;
     const pieces: WindowPiece[] = [];
-    for (let k = j; k < rounded.length && rounded[k]!.start < day.end; k++) {
-      const w = rounded[k]!;
+    for (let k = j; k < rounded.length && itemAt(rounded, k, 'rounded').start < day.end; k++) {
+      const w = itemAt(rounded, k, 'rounded');
       const start = Math.max(w.start, day.start);
       const end = Math.min(w.end, day.end);
       if (end <= start) continue;
@@ -86,7 +87,7 @@ export function splitByDay(intervals: readonly OpenInterval[], days: readonly Lo
         fromPreviousDay, intoNextDay,
       });
     }
-    const allDay = pieces.length === 1 && pieces[0]!.fromPreviousDay && pieces[0]!.intoNextDay;
+    const allDay = pieces.length === 1 && firstOf(pieces, 'pieces').fromPreviousDay && firstOf(pieces, 'pieces').intoNextDay;
     return { date: day.date, state: pieces.length === 0 ? 'closed' : allDay ? 'open' : 'some', pieces };
   });
 }

@@ -6,6 +6,7 @@ import type { DaySpan, MoonQuarter } from '../sky.js';
 import { dayRange, springNeapMarkers } from '../springneap.js';
 import type { SpringNeapEntry, TideEvent } from '../types.js';
 import { mm } from './format.js';
+import { firstOf, itemAt, lastOf } from '../item.js';
 
 const DAY = 86_400_000;
 // Days looked at beyond each end of the year, so a fortnight's envelope near 1 January is whole.
@@ -19,7 +20,7 @@ export function paddingDays(year: number, zone: string, side: -1 | 1): DaySpan[]
     dates.push(new Date(first + i * DAY).toISOString().slice(0, 10));
   }
   const starts = dates.map((d) => parseDateInZone(d, zone));
-  return dates.slice(0, -1).map((date, i) => ({ date, start: starts[i]!, end: starts[i + 1]! }));
+  return dates.slice(0, -1).map((date, i) => ({ date, start: itemAt(starts, i, 'starts'), end: itemAt(starts, i + 1, 'starts') }));
 }
 
 /** A deep copy as loaded, its source path cut to the file name (no machine paths in published data). */
@@ -34,8 +35,8 @@ export function springNeapEntries(
   events: readonly TideEvent[], padDays: readonly DaySpan[], days: readonly LocalDay[],
   quarters: readonly MoonQuarter[], ageHours: number,
 ): SpringNeapEntry[] {
-  const first = days[0]!.date;
-  const last = days[days.length - 1]!.date;
+  const first = firstOf(days, 'days').date;
+  const last = lastOf(days, 'days').date;
   return springNeapMarkers(events, padDays, quarters, ageHours)
     .filter((m) => m.date >= first && m.date <= last)
     .map((m) => {

@@ -3,6 +3,7 @@
 
 import { RecordFileError } from '../errors.js';
 import type { GaugeRecord } from './record.js';
+import { numberAt } from '../item.js';
 
 const HOUR = 3_600_000;
 
@@ -26,7 +27,7 @@ function median(values: Float64Array): number {
   if (values.length === 0) return 0;
   const sorted = Float64Array.from(values).sort();
   const mid = sorted.length >> 1;
-  return sorted.length % 2 === 1 ? sorted[mid]! : (sorted[mid - 1]! + sorted[mid]!) / 2;
+  return sorted.length % 2 === 1 ? numberAt(sorted, mid, 'sorted') : (numberAt(sorted, mid - 1, 'sorted') + numberAt(sorted, mid, 'sorted')) / 2;
 }
 
 /** Span, sampling interval, coverage and gaps of a (sorted, de-duplicated) record. */
@@ -37,15 +38,15 @@ export function summariseRecord(record: GaugeRecord): RecordSummary {
   const end = times[n - 1] ?? 0;
   const spanHours = (end - start) / HOUR;
   const steps = new Float64Array(Math.max(0, n - 1));
-  for (let i = 1; i < n; i++) steps[i - 1] = (times[i]! - times[i - 1]!) / HOUR;
+  for (let i = 1; i < n; i++) steps[i - 1] = (numberAt(times, i, 'times') - numberAt(times, i - 1, 'times')) / HOUR;
   const intervalHours = median(steps);
   // A reading stands for up to 1.5 sampling intervals of the span; the rest of a longer step is a gap.
   let covered = 0;
   const gaps: RecordGap[] = [];
   for (let i = 0; i < steps.length; i++) {
-    const step = steps[i]!;
+    const step = numberAt(steps, i, 'steps');
     covered += Math.min(step, 1.5 * intervalHours);
-    if (step > 3 * intervalHours) gaps.push({ from: times[i]!, to: times[i + 1]!, hours: step });
+    if (step > 3 * intervalHours) gaps.push({ from: numberAt(times, i, 'times'), to: numberAt(times, i + 1, 'times'), hours: step });
   }
   gaps.sort((a, b) => b.hours - a.hours);
   const coverage = spanHours > 0 ? Math.min(1, covered / spanHours) : 0;

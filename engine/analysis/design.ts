@@ -5,6 +5,7 @@
 import { constituentSpeed } from '../constituents.js';
 import { equilibriumArguments, nodeFactors } from '../nodal.js';
 import type { InferenceRule } from './inference.js';
+import { itemAt, numberAt } from '../item.js';
 
 const HOUR = 3_600_000;
 const DAY = 86_400_000;
@@ -47,8 +48,8 @@ export function designRows(
     const V = equilibriumArguments(names, anchor);
     day = new Float64Array(2 * m);
     for (let j = 0; j < m; j++) {
-      day[j] = nodal.f[j]!;
-      day[m + j] = (V[j]! + nodal.u[j]!) * RAD;
+      day[j] = numberAt(nodal.f, j, 'f');
+      day[m + j] = (numberAt(V, j, 'V') + numberAt(nodal.u, j, 'u')) * RAD;
     }
     days.set(index, day);
   };
@@ -59,18 +60,18 @@ export function designRows(
       const hours = (t - anchor) / HOUR;
       row[0] = 1;
       for (let j = 0; j < fittedCount; j++) {
-        const arg = day[m + j]! + speeds[j]! * hours;
-        const f = day[j]!;
+        const arg = numberAt(day, m + j, 'day') + numberAt(speeds, j, 'speeds') * hours;
+        const f = numberAt(day, j, 'day');
         row[1 + 2 * j] = f * Math.cos(arg);
         row[2 + 2 * j] = f * Math.sin(arg);
       }
       for (let i = 0; i < ratios.length; i++) {
         const j = fittedCount + i;
-        const arg = day[m + j]! + speeds[j]! * hours;
-        const rf = ratios[i]! * day[j]!;
-        const k = target[i]!;
-        row[1 + 2 * k]! += rf * Math.cos(arg);
-        row[2 + 2 * k]! += rf * Math.sin(arg);
+        const arg = numberAt(day, m + j, 'day') + numberAt(speeds, j, 'speeds') * hours;
+        const rf = numberAt(ratios, i, 'ratios') * numberAt(day, j, 'day');
+        const k = itemAt(target, i, 'target');
+        row[1 + 2 * k] = numberAt(row, 1 + 2 * k, 'row') + rf * Math.cos(arg);
+        row[2 + 2 * k] = numberAt(row, 2 + 2 * k, 'row') + rf * Math.sin(arg);
       }
       // −½ at the first reading, +½ at the last: its coefficient is the change of level over the record
       if (trend !== undefined) row[1 + 2 * fittedCount] = (t - trend.from) / (trend.to - trend.from) - 0.5;

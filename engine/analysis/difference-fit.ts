@@ -1,6 +1,7 @@
 // A straight line d = d_neaps + k·(d_springs − d_neaps) through (k, d) pairs by least squares, with one
 // round of outlier rejection (|residual| above 3.5 robust standard deviations, σ ≈ 1.4826·MAD; Hampel's
 // rule) so that one badly matched or surge-hit event does not tilt the line.
+import { itemAt } from '../item.js';
 
 export interface DifferenceFit {
   neaps: number; // d at k = 0
@@ -16,13 +17,13 @@ const MIN_K_SPREAD = 0.15;
 
 function line(k: readonly number[], d: readonly number[], use: readonly boolean[]): { a: number; b: number; constant: boolean } {
   let n = 0, sk = 0, sd = 0;
-  for (let i = 0; i < k.length; i++) if (use[i]) { n++; sk += k[i]!; sd += d[i]!; }
+  for (let i = 0; i < k.length; i++) if (use[i]) { n++; sk += itemAt(k, i, 'k'); sd += itemAt(d, i, 'd'); }
   const mk = sk / n, md = sd / n;
   let skk = 0, skd = 0;
   for (let i = 0; i < k.length; i++) {
     if (!use[i]) continue;
-    skk += (k[i]! - mk) ** 2;
-    skd += (k[i]! - mk) * (d[i]! - md);
+    skk += (itemAt(k, i, 'k') - mk) ** 2;
+    skd += (itemAt(k, i, 'k') - mk) * (itemAt(d, i, 'd') - md);
   }
   if (n < 3 || Math.sqrt(skk / n) < MIN_K_SPREAD) return { a: md, b: 0, constant: true };
   const b = skd / skk;
@@ -32,14 +33,14 @@ function line(k: readonly number[], d: readonly number[], use: readonly boolean[
 function median(values: number[]): number {
   const s = [...values].sort((x, y) => x - y);
   const m = s.length >> 1;
-  return s.length % 2 ? s[m]! : (s[m - 1]! + s[m]!) / 2;
+  return s.length % 2 ? itemAt(s, m, 's') : (itemAt(s, m - 1, 's') + itemAt(s, m, 's')) / 2;
 }
 
 /** Fits d against k; `floor` is the smallest residual ever called an outlier (minutes or metres). */
 export function fitAgainstRangeFactor(k: readonly number[], d: readonly number[], floor: number): DifferenceFit {
   const use = k.map(() => true);
   let fit = line(k, d, use);
-  const residual = (i: number): number => d[i]! - (fit.a + fit.b * k[i]!);
+  const residual = (i: number): number => itemAt(d, i, 'd') - (fit.a + fit.b * itemAt(k, i, 'k'));
   const mad = median(k.map((_, i) => Math.abs(residual(i))));
   const limit = Math.max(floor, 3.5 * 1.4826 * mad);
   let rejected = 0;

@@ -11,6 +11,7 @@ import { summariseRecord, type RecordSummary } from './coverage.js';
 import { fitAgainstRangeFactor, type DifferenceFit } from './difference-fit.js';
 import { recordExtrema } from './record-extrema.js';
 import type { GaugeRecord } from './record.js';
+import { itemAt } from '../item.js';
 
 const HOUR = 3_600_000;
 const DAY = 86_400_000;
@@ -42,9 +43,9 @@ export interface DifferenceOptions {
 
 /** Range of event i: to the next event of the other type, else the previous (as the almanac does). */
 function rangeAt(events: readonly TideEvent[], i: number): number | null {
-  const e = events[i]!;
-  for (let j = i + 1; j < events.length; j++) if (events[j]!.type !== e.type) return Math.abs(e.height - events[j]!.height);
-  for (let j = i - 1; j >= 0; j--) if (events[j]!.type !== e.type) return Math.abs(e.height - events[j]!.height);
+  const e = itemAt(events, i, 'events');
+  for (let j = i + 1; j < events.length; j++) if (itemAt(events, j, 'events').type !== e.type) return Math.abs(e.height - itemAt(events, j, 'events').height);
+  for (let j = i - 1; j >= 0; j--) if (itemAt(events, j, 'events').type !== e.type) return Math.abs(e.height - itemAt(events, j, 'events').height);
   return null;
 }
 
@@ -55,18 +56,18 @@ function match(observed: readonly TideEvent[], reference: readonly TideEvent[], 
   observed.forEach((e, i) => {
     let nearest = -1;
     for (let j = 0; j < reference.length; j++) {
-      const r = reference[j]!;
+      const r = itemAt(reference, j, 'reference');
       if (r.type !== e.type) continue;
-      if (nearest < 0 || Math.abs(r.time - e.time) < Math.abs(reference[nearest]!.time - e.time)) nearest = j;
+      if (nearest < 0 || Math.abs(r.time - e.time) < Math.abs(itemAt(reference, nearest, 'reference').time - e.time)) nearest = j;
     }
-    if (nearest < 0 || Math.abs(reference[nearest]!.time - e.time) > window) {
+    if (nearest < 0 || Math.abs(itemAt(reference, nearest, 'reference').time - e.time) > window) {
       unmatched.push(i);
       return;
     }
     const other = best.get(nearest);
     if (other === undefined) best.set(nearest, i);
     else {
-      const keepNew = Math.abs(e.time - reference[nearest]!.time) < Math.abs(observed[other]!.time - reference[nearest]!.time);
+      const keepNew = Math.abs(e.time - itemAt(reference, nearest, 'reference').time) < Math.abs(itemAt(observed, other, 'observed').time - itemAt(reference, nearest, 'reference').time);
       unmatched.push(keepNew ? other : i);
       if (keepNew) best.set(nearest, i);
     }
@@ -95,7 +96,7 @@ export function analyseDifferences(
   for (const [o, r] of pairs) {
     const range = rangeAt(referenceEvents, r);
     if (range === null) continue;
-    const obs = observed[o]!, ref = referenceEvents[r]!;
+    const obs = itemAt(observed, o, 'observed'), ref = itemAt(referenceEvents, r, 'referenceEvents');
     matched.push({
       observed: obs,
       reference: ref,
@@ -128,7 +129,7 @@ export function analyseDifferences(
     reference,
     observed,
     matched,
-    unmatched: unmatched.map((i) => observed[i]!),
+    unmatched: unmatched.map((i) => itemAt(observed, i, 'observed')),
     differences: {
       high_water: {
         springs: { time: fits.highTime.springs, height: fits.highHeight.springs },

@@ -11,6 +11,7 @@ import { addObservation, createNormalEquations, SingularSystemError, solveNormal
 import { selectConstituents, separationHours, type ExcludedConstituent } from './rayleigh.js';
 import type { GaugeRecord } from './record.js';
 import { constituentUncertainty, residualStatistics, type ResidualStatistics } from './statistics.js';
+import { firstOf, itemAt, numberAt } from '../item.js';
 
 export interface AnalysedConstituent {
   name: string;
@@ -68,8 +69,8 @@ export function analyseRecord(record: GaugeRecord, options: AnalysisOptions = {}
   const equations = createNormalEquations(size);
   const row = new Float64Array(size);
   for (let i = 0; i < n; i++) {
-    rows.fill(record.times[i]!, row);
-    addObservation(equations, row, record.heights[i]!);
+    rows.fill(numberAt(record.times, i, 'times'), row);
+    addObservation(equations, row, numberAt(record.heights, i, 'heights'));
   }
   let solution;
   try {
@@ -77,7 +78,7 @@ export function analyseRecord(record: GaugeRecord, options: AnalysisOptions = {}
   } catch (error) {
     if (!(error instanceof SingularSystemError)) throw error;
     const name = error.index === 0 ? 'the mean level'
-      : error.index === 1 + 2 * names.length ? 'the change of level over the record' : names[(error.index - 1) >> 1]!;
+      : error.index === 1 + 2 * names.length ? 'the change of level over the record' : itemAt(names, (error.index - 1) >> 1, 'names');
     throw new RecordFileError(record.file, 'time',
       `the readings' gaps leave ${name} indistinguishable from the other constituents`,
       'analyse a record with fewer or shorter gaps, or raise --rayleigh to fit fewer constituents');
@@ -85,16 +86,16 @@ export function analyseRecord(record: GaugeRecord, options: AnalysisOptions = {}
   const x = solution.coefficients;
   const fitted = new Float64Array(n);
   for (let i = 0; i < n; i++) {
-    rows.fill(record.times[i]!, row);
+    rows.fill(numberAt(record.times, i, 'times'), row);
     let sum = 0;
-    for (let k = 0; k < size; k++) sum += row[k]! * x[k]!;
+    for (let k = 0; k < size; k++) sum += numberAt(row, k, 'row') * numberAt(x, k, 'x');
     fitted[i] = sum;
   }
   const residual = residualStatistics(record, fitted, size);
   const variance = residual.standardError ** 2;
   const constituents: AnalysedConstituent[] = names.map((name, j) => {
     const ia = 1 + 2 * j;
-    const u = constituentUncertainty(x[ia]!, x[ia + 1]!, solution.inverse, size, ia, variance);
+    const u = constituentUncertainty(numberAt(x, ia, 'x'), numberAt(x, ia + 1, 'x'), solution.inverse, size, ia, variance);
     return { name, speed: constituentSpeed(name), ...u };
   });
   for (const r of inferences) {
@@ -114,9 +115,9 @@ export function analyseRecord(record: GaugeRecord, options: AnalysisOptions = {}
     record,
     summary,
     rayleigh,
-    meanLevel: x[0]!,
-    meanLevelError: 1.96 * Math.sqrt(variance * solution.inverse[0]!),
-    ...(withTrend ? { trend: { change: x[size - 1]!, error: 1.96 * Math.sqrt(variance * solution.inverse[size * size - 1]!) } } : {}),
+    meanLevel: firstOf(x, 'x'),
+    meanLevelError: 1.96 * Math.sqrt(variance * firstOf(solution.inverse, 'inverse')),
+    ...(withTrend ? { trend: { change: numberAt(x, size - 1, 'x'), error: 1.96 * Math.sqrt(variance * numberAt(solution.inverse, size * size - 1, 'inverse')) } } : {}),
     constituents,
     excluded,
     residual,

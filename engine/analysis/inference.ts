@@ -5,6 +5,7 @@
 // phase lag. Each keeps its own node factor and argument. The pair enters the least squares as one
 // unknown: H [f₁cos(θ₁ − g) + r f₂cos(θ₂ − g)] = H cos g·(f₁cos θ₁ + r f₂cos θ₂) + H sin g·(f₁sin θ₁ + r f₂sin θ₂),
 // so the neighbour is fitted with the inferred line's share already in the model, not corrected after.
+import { entryOf } from '../item.js';
 
 /**
  * Equilibrium amplitudes (metres) of Cartwright and Tayler (1971) and Cartwright and Edden (1973), from
@@ -23,7 +24,7 @@ export interface InferenceRule {
 }
 
 const rule = (name: string, from: string): InferenceRule =>
-  ({ name, from, ratio: EQUILIBRIUM_AMPLITUDE[name]! / EQUILIBRIUM_AMPLITUDE[from]! });
+  ({ name, from, ratio: entryOf(EQUILIBRIUM_AMPLITUDE, name, 'EQUILIBRIUM_AMPLITUDE') / entryOf(EQUILIBRIUM_AMPLITUDE, from, 'EQUILIBRIUM_AMPLITUDE') });
 
 /**
  * The pairs inferred when the record cannot separate the first from its neighbours. These are the lines

@@ -1,6 +1,7 @@
 // Linear least squares by the normal equations, solved with a Cholesky factorisation (Golub and
 // Van Loan, Matrix Computations, §4.2). The design matrix is never stored: each observation's row is
 // folded into AᵀA and Aᵀy soon after it is made, so a year of hourly readings needs only m² numbers.
+import { numberAt } from '../item.js';
 
 // Rows are gathered in blocks of 32 and folded in together: each entry of AᵀA is then updated once per
 // block by a short dot product instead of once per row (about twice as fast, measured on a year of
@@ -30,21 +31,21 @@ function flush(eq: NormalEquations): void {
   for (let i = 0; i < size; i++) {
     const bi = i * BLOCK;
     let sy = 0;
-    for (let r = 0; r < pending; r++) sy += block[bi + r]! * blockY[r]!;
-    rhs[i]! += sy;
+    for (let r = 0; r < pending; r++) sy += numberAt(block, bi + r, 'block') * numberAt(blockY, r, 'blockY');
+    rhs[i] = numberAt(rhs, i, 'rhs') + sy;
     const base = i * size;
     for (let j = i; j < size; j++) {
       const bj = j * BLOCK;
       // four partial sums let the dot product run without waiting on each addition
       let s0 = 0, s1 = 0, s2 = 0, s3 = 0, r = 0;
       for (; r + 3 < pending; r += 4) {
-        s0 += block[bi + r]! * block[bj + r]!;
-        s1 += block[bi + r + 1]! * block[bj + r + 1]!;
-        s2 += block[bi + r + 2]! * block[bj + r + 2]!;
-        s3 += block[bi + r + 3]! * block[bj + r + 3]!;
+        s0 += numberAt(block, bi + r, 'block') * numberAt(block, bj + r, 'block');
+        s1 += numberAt(block, bi + r + 1, 'block') * numberAt(block, bj + r + 1, 'block');
+        s2 += numberAt(block, bi + r + 2, 'block') * numberAt(block, bj + r + 2, 'block');
+        s3 += numberAt(block, bi + r + 3, 'block') * numberAt(block, bj + r + 3, 'block');
       }
-      for (; r < pending; r++) s0 += block[bi + r]! * block[bj + r]!;
-      matrix[base + j]! += (s0 + s1) + (s2 + s3);
+      for (; r < pending; r++) s0 += numberAt(block, bi + r, 'block') * numberAt(block, bj + r, 'block');
+      matrix[base + j] = numberAt(matrix, base + j, 'matrix') + ((s0 + s1) + (s2 + s3));
     }
   }
   eq.pending = 0;
@@ -53,7 +54,7 @@ function flush(eq: NormalEquations): void {
 /** Adds one observation y with design row `row` to the normal equations. */
 export function addObservation(eq: NormalEquations, row: Float64Array, y: number): void {
   const p = eq.pending;
-  for (let k = 0; k < eq.size; k++) eq.block[k * BLOCK + p] = row[k]!;
+  for (let k = 0; k < eq.size; k++) eq.block[k * BLOCK + p] = numberAt(row, k, 'row');
   eq.blockY[p] = y;
   eq.count++;
   if (++eq.pending === BLOCK) flush(eq);
@@ -81,14 +82,14 @@ export class SingularSystemError extends Error {
 export function choleskyFactor(upper: Float64Array, size: number, relativeTolerance = 1e-10): Float64Array {
   const L = new Float64Array(size * size);
   for (let j = 0; j < size; j++) {
-    let diag = upper[j * size + j]!;
-    for (let k = 0; k < j; k++) diag -= L[j * size + k]! ** 2;
-    if (!(diag > relativeTolerance * upper[j * size + j]!)) throw new SingularSystemError(j);
+    let diag = numberAt(upper, j * size + j, 'upper');
+    for (let k = 0; k < j; k++) diag -= numberAt(L, j * size + k, 'L') ** 2;
+    if (!(diag > relativeTolerance * numberAt(upper, j * size + j, 'upper'))) throw new SingularSystemError(j);
     const ljj = Math.sqrt(diag);
     L[j * size + j] = ljj;
     for (let i = j + 1; i < size; i++) {
-      let sum = upper[j * size + i]!; // A[i][j] = A[j][i] from the upper triangle
-      for (let k = 0; k < j; k++) sum -= L[i * size + k]! * L[j * size + k]!;
+      let sum = numberAt(upper, j * size + i, 'upper'); // A[i][j] = A[j][i] from the upper triangle
+      for (let k = 0; k < j; k++) sum -= numberAt(L, i * size + k, 'L') * numberAt(L, j * size + k, 'L');
       L[i * size + j] = sum / ljj;
     }
   }
@@ -99,14 +100,14 @@ export function choleskyFactor(upper: Float64Array, size: number, relativeTolera
 export function solveCholesky(L: Float64Array, size: number, b: Float64Array): Float64Array {
   const x = Float64Array.from(b);
   for (let i = 0; i < size; i++) {
-    let sum = x[i]!;
-    for (let k = 0; k < i; k++) sum -= L[i * size + k]! * x[k]!;
-    x[i] = sum / L[i * size + i]!;
+    let sum = numberAt(x, i, 'x');
+    for (let k = 0; k < i; k++) sum -= numberAt(L, i * size + k, 'L') * numberAt(x, k, 'x');
+    x[i] = sum / numberAt(L, i * size + i, 'L');
   }
   for (let i = size - 1; i >= 0; i--) {
-    let sum = x[i]!;
-    for (let k = i + 1; k < size; k++) sum -= L[k * size + i]! * x[k]!;
-    x[i] = sum / L[i * size + i]!;
+    let sum = numberAt(x, i, 'x');
+    for (let k = i + 1; k < size; k++) sum -= numberAt(L, k * size + i, 'L') * numberAt(x, k, 'x');
+    x[i] = sum / numberAt(L, i * size + i, 'L');
   }
   return x;
 }
@@ -119,7 +120,7 @@ export function inverseFromCholesky(L: Float64Array, size: number): Float64Array
     unit.fill(0);
     unit[c] = 1;
     const column = solveCholesky(L, size, unit);
-    for (let r = 0; r < size; r++) inverse[r * size + c] = column[r]!;
+    for (let r = 0; r < size; r++) inverse[r * size + c] = numberAt(column, r, 'column');
   }
   return inverse;
 }

@@ -4,6 +4,7 @@
 // length, and the sampling interval resolves it (below the Nyquist speed 180°/Δt).
 
 import { constituentSpeed, findConstituent } from '../constituents.js';
+import { itemAt } from '../item.js';
 
 /**
  * Candidates in order of priority: the large astronomical ones first, so that when two cannot be
@@ -60,7 +61,7 @@ export function selectConstituents(options: SelectionOptions): ConstituentSelect
     let closest = -1;
     let closestGap = Infinity;
     for (let i = 0; i < admittedSpeeds.length; i++) {
-      const gap = Math.abs(speed - admittedSpeeds[i]!);
+      const gap = Math.abs(speed - itemAt(admittedSpeeds, i, 'admittedSpeeds'));
       if (gap < closestGap) {
         closestGap = gap;
         closest = i;
@@ -73,7 +74,7 @@ export function selectConstituents(options: SelectionOptions): ConstituentSelect
       excluded.push({
         name,
         reason: 'rayleigh',
-        conflictsWith: admittedNames[closest]!,
+        conflictsWith: itemAt(admittedNames, closest, 'admittedNames'),
         daysNeeded: closestGap > 0 ? (360 * R) / closestGap / 24 : Infinity,
       });
     }

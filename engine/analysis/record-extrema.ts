@@ -9,6 +9,7 @@
 import type { TideEvent } from '../types.js';
 import { addObservation, createNormalEquations, SingularSystemError, solveNormalEquations } from './leastsquares.js';
 import type { GaugeRecord } from './record.js';
+import { firstOf, itemAt, numberAt } from '../item.js';
 
 const HOUR = 3_600_000;
 const MINUTE = 60_000;
@@ -24,7 +25,7 @@ interface Fitted extends TideEvent {
 
 function medianStep(times: Float64Array): number {
   const steps: number[] = [];
-  for (let i = 1; i < times.length; i++) steps.push(times[i]! - times[i - 1]!);
+  for (let i = 1; i < times.length; i++) steps.push(numberAt(times, i, 'times') - numberAt(times, i - 1, 'times'));
   steps.sort((a, b) => a - b);
   return steps[steps.length >> 1] ?? HOUR;
 }
@@ -34,8 +35,8 @@ function smooth(times: Float64Array, heights: Float64Array, halfWidth: number): 
   const out = new Float64Array(times.length);
   let lo = 0, hi = 0, sum = 0;
   for (let i = 0; i < times.length; i++) {
-    while (hi < times.length && times[hi]! <= times[i]! + halfWidth) sum += heights[hi++]!;
-    while (times[lo]! < times[i]! - halfWidth) sum -= heights[lo++]!;
+    while (hi < times.length && numberAt(times, hi, 'times') <= numberAt(times, i, 'times') + halfWidth) sum += numberAt(heights, hi++, 'heights');
+    while (numberAt(times, lo, 'times') < numberAt(times, i, 'times') - halfWidth) sum -= numberAt(heights, lo++, 'heights');
     out[i] = sum / (hi - lo);
   }
   return out;
@@ -46,11 +47,11 @@ function candidates(times: Float64Array, values: Float64Array, halfWidth: number
   const found: number[] = [];
   let lo = 0;
   for (let i = 0; i < times.length; i++) {
-    while (times[lo]! < times[i]! - halfWidth) lo++;
-    const v = sign * values[i]!;
+    while (numberAt(times, lo, 'times') < numberAt(times, i, 'times') - halfWidth) lo++;
+    const v = sign * numberAt(values, i, 'values');
     let best = true;
-    for (let j = lo; j < times.length && times[j]! <= times[i]! + halfWidth; j++) {
-      const w = sign * values[j]!;
+    for (let j = lo; j < times.length && numberAt(times, j, 'times') <= numberAt(times, i, 'times') + halfWidth; j++) {
+      const w = sign * numberAt(values, j, 'values');
       if (w > v || (w === v && j < i)) {
         best = false;
         break;
@@ -69,9 +70,9 @@ function polynomialFit(record: GaugeRecord, tc: number, reach: number, degree: n
   const eq = createNormalEquations(degree + 1);
   const row = new Float64Array(degree + 1);
   for (let i = a; i <= b; i++) {
-    const x = (times[i]! - tc) / reach;
+    const x = (numberAt(times, i, 'times') - tc) / reach;
     for (let k = 0, p = 1; k <= degree; k++, p *= x) row[k] = p;
-    addObservation(eq, row, heights[i]!);
+    addObservation(eq, row, numberAt(heights, i, 'heights'));
   }
   try {
     return solveNormalEquations(eq).coefficients;
@@ -95,7 +96,7 @@ function turningPoint(record: GaugeRecord, tc: number, reach: number, sign: 1 | 
   if (count < 5) return null;
   const c = polynomialFit(record, tc, reach, count >= 7 ? 3 : 2);
   if (c === null) return null;
-  const c1 = c[1]!, c2 = c[2]!, c3 = c[3] ?? 0;
+  const c1 = numberAt(c, 1, 'c'), c2 = numberAt(c, 2, 'c'), c3 = c[3] ?? 0;
   // Roots of p'(x) = c1 + 2c2·x + 3c3·x²; keep the one nearest tc that curves the right way.
   const roots: number[] = [];
   if (Math.abs(3 * c3) <= 1e-9 * Math.abs(c2)) roots.push(-c1 / (2 * c2));
@@ -119,7 +120,7 @@ function lowerBound(times: Float64Array, t: number): number {
   let lo = 0, hi = times.length;
   while (lo < hi) {
     const mid = (lo + hi) >> 1;
-    if (times[mid]! < t) lo = mid + 1;
+    if (numberAt(times, mid, 'times') < t) lo = mid + 1;
     else hi = mid;
   }
   return lo;
@@ -134,7 +135,7 @@ function lowerBound(times: Float64Array, t: number): number {
  */
 function refine(record: GaugeRecord, centre: number, halfWidth: number, step: number, sign: 1 | -1): Fitted | null {
   const reach = Math.max(halfWidth, 2.01 * step);
-  let time = turningPoint(record, record.times[centre]!, reach, sign);
+  let time = turningPoint(record, numberAt(record.times, centre, 'times'), reach, sign);
   for (let pass = 0; pass < 2 && time !== null; pass++) {
     const again = turningPoint(record, time, reach, sign);
     if (again === null) break;
@@ -150,12 +151,12 @@ function refine(record: GaugeRecord, centre: number, halfWidth: number, step: nu
   const a = lowerBound(record.times, time - reach);
   let sumSq = 0;
   for (let i = a; i < a + count; i++) {
-    const x = (record.times[i]! - time) / reach;
+    const x = (numberAt(record.times, i, 'times') - time) / reach;
     let p = 0;
-    for (let k = degree; k >= 0; k--) p = p * x + c[k]!;
-    sumSq += (record.heights[i]! - p) ** 2;
+    for (let k = degree; k >= 0; k--) p = p * x + numberAt(c, k, 'c');
+    sumSq += (numberAt(record.heights, i, 'heights') - p) ** 2;
   }
-  return { time: Math.round(time / 1000) * 1000, type: sign === 1 ? 'high' : 'low', height: c[0]!, rms: Math.sqrt(sumSq / count) };
+  return { time: Math.round(time / 1000) * 1000, type: sign === 1 ? 'high' : 'low', height: firstOf(c, 'c'), rms: Math.sqrt(sumSq / count) };
 }
 
 /** Keeps events alternating high/low (the more extreme of a run) and drops wiggles smaller than `minRange`. */
@@ -178,7 +179,7 @@ function clean(events: Fitted[], minRange: number): Fitted[] {
     // The smallest high-low pair below the noise is a wiggle, not two tides: remove both.
     let worst = -1, worstRange = minRange;
     for (let i = 1; i < list.length; i++) {
-      const range = Math.abs(list[i]!.height - list[i - 1]!.height);
+      const range = Math.abs(itemAt(list, i, 'list').height - itemAt(list, i - 1, 'list').height);
       if (range < worstRange) {
         worstRange = range;
         worst = i;

@@ -3,6 +3,7 @@
 // instant are an error (we cannot know which one the gauge meant, and averaging would hide a fault).
 
 import { RecordFileError } from '../errors.js';
+import { itemAt } from '../item.js';
 
 /** A gauge record as the analysis reads it: times strictly increasing. */
 export interface GaugeRecord {
@@ -104,7 +105,7 @@ export function parseRecord(text: string, file: string): GaugeRecord {
   const lines = text.replace(/^\uFEFF/, '').split(/\r\n|\n|\r/);
   let seenContent = false;
   for (let i = 0; i < lines.length; i++) {
-    const body = lines[i]!.trim();
+    const body = itemAt(lines, i, 'lines').trim();
     if (body === '' || body.startsWith('#')) continue;
     const row = parseRow(file, i + 1, body, !seenContent);
     seenContent = true;
@@ -115,7 +116,7 @@ export function parseRecord(text: string, file: string): GaugeRecord {
       `write one row per reading, e.g. ${EXAMPLE_ROW}`);
   }
   let wasUnsorted = false;
-  for (let i = 1; i < rows.length; i++) if (rows[i]!.time < rows[i - 1]!.time) wasUnsorted = true;
+  for (let i = 1; i < rows.length; i++) if (itemAt(rows, i, 'rows').time < itemAt(rows, i - 1, 'rows').time) wasUnsorted = true;
   if (wasUnsorted) rows.sort((a, b) => a.time - b.time || a.line - b.line);
   const times: number[] = [];
   const heights: number[] = [];

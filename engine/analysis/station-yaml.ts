@@ -6,6 +6,7 @@ import { basename } from 'node:path';
 import { CAUTION } from '../almanac/caution.js';
 import type { ReferenceStation } from '../types.js';
 import type { HarmonicAnalysis } from './harmonic.js';
+import { entryOf } from '../item.js';
 
 export interface StationMeta {
   id: string;
@@ -128,7 +129,7 @@ export function referenceStationYaml(a: HarmonicAnalysis, meta: StationMeta): st
   ];
   const width = Math.max(...a.constituents.map((c) => c.name.length));
   for (const c of a.constituents) {
-    const k = station.constituents[c.name]!;
+    const k = entryOf(station.constituents, c.name, 'constituents');
     const body = `  ${`${c.name}:`.padEnd(width + 1)} { amplitude: ${k.amplitude.toFixed(4)}, phase: ${k.phase.toFixed(2).padStart(6)} }`;
     lines.push(c.inferred === undefined
       ? `${body}  # ± ${c.amplitudeError.toFixed(4)} m, ± ${c.phaseError.toFixed(1)}°`

@@ -3,6 +3,7 @@
 // assume independent errors; a real residual is autocorrelated, so the intervals are optimistic.
 
 import type { GaugeRecord } from './record.js';
+import { numberAt } from '../item.js';
 
 const DEG = 180 / Math.PI;
 const Z95 = 1.959964; // two-sided 95 % point of the normal distribution
@@ -21,16 +22,16 @@ export function residualStatistics(record: GaugeRecord, fitted: Float64Array, un
   const { heights, times } = record;
   const n = heights.length;
   let mean = 0;
-  for (let i = 0; i < n; i++) mean += heights[i]!;
+  for (let i = 0; i < n; i++) mean += numberAt(heights, i, 'heights');
   mean /= n;
   let sumSq = 0, total = 0, maxAbs = 0, maxAbsTime = times[0] ?? 0;
   for (let i = 0; i < n; i++) {
-    const r = heights[i]! - fitted[i]!;
+    const r = numberAt(heights, i, 'heights') - numberAt(fitted, i, 'fitted');
     sumSq += r * r;
-    total += (heights[i]! - mean) ** 2;
+    total += (numberAt(heights, i, 'heights') - mean) ** 2;
     if (Math.abs(r) > maxAbs) {
       maxAbs = Math.abs(r);
-      maxAbsTime = times[i]!;
+      maxAbsTime = numberAt(times, i, 'times');
     }
   }
   return {
@@ -58,9 +59,9 @@ export interface ConstituentEstimate {
 export function constituentUncertainty(
   a: number, b: number, inverse: Float64Array, size: number, index: number, variance: number,
 ): ConstituentEstimate {
-  const caa = variance * inverse[index * size + index]!;
-  const cbb = variance * inverse[(index + 1) * size + index + 1]!;
-  const cab = variance * inverse[index * size + index + 1]!;
+  const caa = variance * numberAt(inverse, index * size + index, 'inverse');
+  const cbb = variance * numberAt(inverse, (index + 1) * size + index + 1, 'inverse');
+  const cab = variance * numberAt(inverse, index * size + index + 1, 'inverse');
   const amplitude = Math.hypot(a, b);
   let phase = (Math.atan2(b, a) * DEG) % 360;
   if (phase < 0) phase += 360;

@@ -13,6 +13,7 @@
 // build and drops with it: no state at module scope.
 
 import { Body, GeoVector, MakeTime, RotateVector, Rotation_EQJ_EQD, SiderealTime } from 'astronomy-engine';
+import { firstOf, itemAt, numberAt } from '../item.js';
 
 export type SkyBody = 'sun' | 'moon';
 
@@ -111,7 +112,7 @@ function interpolate(eph: SkyEphemeris, body: SkyBody, t: number): Float64Array 
   if (first + 4 * SLOTS <= BLOCK * SLOTS) {
     const b = blockOf(eph, body, index);
     for (let s = 0; s < SLOTS; s++) {
-      scratch[s] = w0 * b[first + s]! + w1 * b[first + SLOTS + s]! + w2 * b[first + 2 * SLOTS + s]! + w3 * b[first + 3 * SLOTS + s]!;
+      scratch[s] = w0 * numberAt(b, first + s, 'b') + w1 * numberAt(b, first + SLOTS + s, 'b') + w2 * numberAt(b, first + 2 * SLOTS + s, 'b') + w3 * numberAt(b, first + 3 * SLOTS + s, 'b');
     }
     return scratch;
   }
@@ -123,7 +124,7 @@ function interpolate(eph: SkyEphemeris, body: SkyBody, t: number): Float64Array 
     const bj = Math.floor(kj / BLOCK);
     const b = blockOf(eph, body, bj);
     const at = (kj - bj * BLOCK) * SLOTS;
-    for (let s = 0; s < SLOTS; s++) scratch[s] = scratch[s]! + w[j]! * b[at + s]!;
+    for (let s = 0; s < SLOTS; s++) scratch[s] = numberAt(scratch, s, 'scratch') + itemAt(w, j, 'w') * numberAt(b, at + s, 'b');
   }
   return scratch;
 }
@@ -136,12 +137,12 @@ function interpolate(eph: SkyEphemeris, body: SkyBody, t: number): Float64Array 
 export function skyHeight(eph: SkyEphemeris, body: SkyBody, t: number, site: SkySite): number {
   const g = interpolate(eph, body, t);
   const ut = (t - J2000_MS) / DAY_MS;
-  const theta = (earthRotation(ut) + g[3]! + site.lambda) * DEG; // local apparent sidereal angle
+  const theta = (earthRotation(ut) + numberAt(g, 3, 'g') + site.lambda) * DEG; // local apparent sidereal angle
   const cosT = Math.cos(theta);
   const sinT = Math.sin(theta);
-  const x = g[0]! - site.rhoCos * cosT;
-  const y = g[1]! - site.rhoCos * sinT;
-  const z = g[2]! - site.rhoSin;
+  const x = firstOf(g, 'g') - site.rhoCos * cosT;
+  const y = numberAt(g, 1, 'g') - site.rhoCos * sinT;
+  const z = numberAt(g, 2, 'g') - site.rhoSin;
   const r = Math.sqrt(x * x + y * y + z * z);
   const up = (site.cosPhi * (x * cosT + y * sinT) + site.sinPhi * z) / r;
   const altitude = Math.asin(Math.max(-1, Math.min(1, up))) / DEG;

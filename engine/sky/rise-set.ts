@@ -12,6 +12,7 @@ import { zoneOffset } from '../zone-offsets.js';
 import { crossings, type Crossing } from './crossings.js';
 import { createSkyEphemeris, skyHeight, skySite, type SkyBody, type SkyEphemeris } from './ephemeris.js';
 import type { Position } from '../types.js';
+import { firstOf, itemAt, lastOf } from '../item.js';
 
 const DAY = 86_400_000;
 const MARGIN = DAY; // crossings are collected a day beyond the range, then cut to each local day
@@ -53,8 +54,8 @@ export function skyForDays(
   days: readonly DaySpan[], position: Position, zone: string, eph: SkyEphemeris = createSkyEphemeris(),
 ): SkyDay[] {
   if (days.length === 0) return [];
-  const from = days[0]!.start - MARGIN;
-  const to = days[days.length - 1]!.end + MARGIN;
+  const from = firstOf(days, 'days').start - MARGIN;
+  const to = lastOf(days, 'days').end + MARGIN;
   const site = skySite(position.latitude, position.longitude);
   const sun = crossings(eph, 'sun', from, to, site);
   const moon = crossings(eph, 'moon', from, to, site);
@@ -94,8 +95,8 @@ export function skyCrossings(
 // A crossing belongs to the day of its printed (rounded) minute, as every almanac time does.
 function pickDay(list: readonly Crossing[], body: SkyBody, day: DaySpan): SkyEvent[] {
   const out: SkyEvent[] = [];
-  for (let i = firstAtOrAfter(list, day.start - 30_000); i < list.length && list[i]!.time < day.end; i++) {
-    const c = list[i]!;
+  for (let i = firstAtOrAfter(list, day.start - 30_000); i < list.length && itemAt(list, i, 'list').time < day.end; i++) {
+    const c = itemAt(list, i, 'list');
     const shown = roundToMinute(c.time);
     if (shown < day.start || shown >= day.end) continue;
     out.push({ body, type: c.direction === 1 ? 'rise' : 'set', time: c.time });
@@ -115,7 +116,7 @@ function firstAtOrAfter(list: readonly Crossing[], t: number): number {
   let hi = list.length;
   while (lo < hi) {
     const mid = (lo + hi) >> 1;
-    if (list[mid]!.time < t) lo = mid + 1;
+    if (itemAt(list, mid, 'list').time < t) lo = mid + 1;
     else hi = mid;
   }
   return lo;

@@ -11,7 +11,7 @@ export function fieldName(path: readonly PropertyKey[]): string {
   return path.length === 0 ? '(file)' : path.map(String).join('.');
 }
 
-function valueAt(root: unknown, path: readonly PropertyKey[]): unknown {
+function numberAt(root: unknown, path: readonly PropertyKey[]): unknown {
   let node = root;
   for (const key of path) {
     if (node === null || typeof node !== 'object') return undefined;
@@ -61,7 +61,7 @@ function rangeWords(
     return { problem: `${value} is outside 0 to 360 degrees`, fix: `write ${reduced}, the same angle reduced into [0, 360)` };
   }
   if (last === 'amplitude' && value < 0) {
-    const phase = valueAt(raw, [...path.slice(0, -1), 'phase']);
+    const phase = numberAt(raw, [...path.slice(0, -1), 'phase']);
     const turned = typeof phase === 'number' ? `phase: ${round((((phase + 180) % 360) + 360) % 360, 6)}` : 'the phase turned by 180 degrees';
     return {
       problem: `${value} is negative`,
@@ -112,7 +112,7 @@ function oneIssue(file: string, raw: unknown, issue: z.core.$ZodIssue, kind: Sta
         return new StationFileError(file, fieldName([...path, key]), words.problem, words.fix);
       });
     case 'invalid_type': {
-      const value = valueAt(raw, path);
+      const value = numberAt(raw, path);
       if (value === undefined) return [new StationFileError(file, fieldName(path), 'is missing', fieldHelp(path, kind))];
       if (value === null) return [new StationFileError(file, fieldName(path), 'is empty', fieldHelp(path, kind))];
       const expected = EXPECTED_WORDS[issue.expected] ?? issue.expected;
@@ -124,13 +124,13 @@ function oneIssue(file: string, raw: unknown, issue: z.core.$ZodIssue, kind: Sta
     }
     case 'too_small':
     case 'too_big': {
-      const value = valueAt(raw, path);
+      const value = numberAt(raw, path);
       if (typeof value !== 'number') break;
       const words = rangeWords(raw, path, value, issue, kind);
       return [new StationFileError(file, fieldName(path), words.problem, words.fix)];
     }
     case 'invalid_value': {
-      const value = valueAt(raw, path);
+      const value = numberAt(raw, path);
       return [new StationFileError(file, fieldName(path), `${describeValue(value)} is not allowed here`, fieldHelp(path, kind))];
     }
     default:

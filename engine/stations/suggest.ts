@@ -1,5 +1,6 @@
 // "Did you mean …?" for names a person typed: a case-insensitive exact match wins, otherwise the
 // candidate with the smallest edit distance, if it is close enough to be a plausible typo.
+import { itemAt } from '../item.js';
 
 /** Edit distance with adjacent transpositions (optimal string alignment; Damerau 1964): form → from is 1. */
 export function editDistance(a: string, b: string): number {
@@ -11,12 +12,12 @@ export function editDistance(a: string, b: string): number {
   for (let i = 1; i < rows; i++) {
     for (let j = 1; j < cols; j++) {
       const cost = a[i - 1] === b[j - 1] ? 0 : 1;
-      let best = Math.min(d[(i - 1) * cols + j]! + 1, d[i * cols + j - 1]! + 1, d[(i - 1) * cols + j - 1]! + cost);
-      if (i > 1 && j > 1 && a[i - 1] === b[j - 2] && a[i - 2] === b[j - 1]) best = Math.min(best, d[(i - 2) * cols + j - 2]! + 1);
+      let best = Math.min(itemAt(d, (i - 1) * cols + j, 'd') + 1, itemAt(d, i * cols + j - 1, 'd') + 1, itemAt(d, (i - 1) * cols + j - 1, 'd') + cost);
+      if (i > 1 && j > 1 && a[i - 1] === b[j - 2] && a[i - 2] === b[j - 1]) best = Math.min(best, itemAt(d, (i - 2) * cols + j - 2, 'd') + 1);
       d[i * cols + j] = best;
     }
   }
-  return d[rows * cols - 1]!;
+  return itemAt(d, rows * cols - 1, 'd');
 }
 
 const MAX_TYPED = 100;

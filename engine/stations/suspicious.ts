@@ -5,6 +5,7 @@ import { StationFileError } from '../errors.js';
 import { compilePredictor } from '../predict.js';
 import type { ReferenceStation, SecondaryStation, Station } from '../types.js';
 import { DEFAULT_DATUM_EPOCH } from './schema.js';
+import { numberAt } from '../item.js';
 
 /** Larger than the largest tidal constituent anywhere (M2 is about 5–6 m in the greatest bays). */
 export const MAX_PLAUSIBLE_AMPLITUDE = 10;
@@ -33,7 +34,7 @@ export function lowestOfYear(station: ReferenceStation): number {
   const count = Math.round((Date.UTC(year + 1, 0, 1) - start) / SCAN_STEP_MS);
   const heights = compilePredictor(station).heights(start, SCAN_STEP_MS, count);
   let lowest = Infinity;
-  for (let i = 0; i < heights.length; i++) if (heights[i]! < lowest) lowest = heights[i]!;
+  for (let i = 0; i < heights.length; i++) if (numberAt(heights, i, 'heights') < lowest) lowest = numberAt(heights, i, 'heights');
   return lowest;
 }
 

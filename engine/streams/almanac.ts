@@ -28,6 +28,7 @@ import type {
   AnyStreamStation, StreamAlmanacEvent, StreamDayEntry, StreamEvent, StreamYear,
 } from './types.js';
 import { streamAlongFlood, streamEventsFor } from '../streams.js';
+import { firstOf, itemAt, lastOf } from '../item.js';
 
 const MINUTE = 60_000;
 const DAY = 86_400_000;
@@ -78,11 +79,11 @@ export function buildStreamYear(
   const zone = station.timezone;
   const days = localDays(year, zone);
   const padDays = [...paddingDays(year, zone, -1), ...days, ...paddingDays(year, zone, 1)];
-  const allEvents = streamEventsFor(station, set, padDays[0]!.start - DAY, padDays[padDays.length - 1]!.end + DAY, ctx);
+  const allEvents = streamEventsFor(station, set, firstOf(padDays, 'padDays').start - DAY, lastOf(padDays, 'padDays').end + DAY, ctx);
   const yearEvents = allEvents.filter((e) => dayIndexOf(days, e.time) >= 0);
   const events = yearEvents.map((e) => streamAlmanacEvent(e, zone));
 
-  const quarters = moonQuarters(padDays[0]!.start - 20 * DAY, padDays[padDays.length - 1]!.end + 5 * DAY);
+  const quarters = moonQuarters(firstOf(padDays, 'padDays').start - 20 * DAY, lastOf(padDays, 'padDays').end + 5 * DAY);
   const moonPhases: MoonPhaseEntry[] = quarters
     .filter((q) => dayIndexOf(days, q.time) >= 0)
     .map((q) => ({ time: isoUtc(q.time), local: isoLocal(q.time, zone), clock: clock(q.time, zone), date: localDate(q.time, zone), phase: q.phase }));
@@ -90,7 +91,7 @@ export function buildStreamYear(
   const tide = tideReferenceOf(station, set);
   const harmonic = station.kind === 'stream' ? station : referenceStreamOf(station, set);
   const rangeEvents = tide
-    ? tideEvents(tide, set as StationLookup, padDays[0]!.start - DAY, padDays[padDays.length - 1]!.end + DAY, ctx)
+    ? tideEvents(tide, set as StationLookup, firstOf(padDays, 'padDays').start - DAY, lastOf(padDays, 'padDays').end + DAY, ctx)
     : asRangeEvents(allEvents);
   const age = tide
     ? ageOfTideHours(harmonicStationOf(tide, set as StationLookup).constituents)
@@ -101,13 +102,13 @@ export function buildStreamYear(
   const sky = skyForDays(days, station.position, zone, ctx.sky);
   const springNeapOn = new Map(springNeap.map((s) => [s.date, s.kind] as [string, SpringNeapKind]));
   const perDay: StreamAlmanacEvent[][] = days.map(() => []);
-  yearEvents.forEach((e, i) => perDay[dayIndexOf(days, e.time)]!.push(events[i]!));
+  yearEvents.forEach((e, i) => itemAt(perDay, dayIndexOf(days, e.time), 'perDay').push(itemAt(events, i, 'events')));
   const moonPhaseOn = new Map(moonPhases.map((m) => [m.date, m.phase] as [string, MoonPhaseName]));
   const dayList = days.map((day, i): StreamDayEntry => {
-    const most = (type: 'flood' | 'ebb') => perDay[i]!.filter((e) => e.type === type).reduce<number | null>((m, e) => (m === null || e.speed > m ? e.speed : m), null);
+    const most = (type: 'flood' | 'ebb') => itemAt(perDay, i, 'perDay').filter((e) => e.type === type).reduce<number | null>((m, e) => (m === null || e.speed > m ? e.speed : m), null);
     return {
-      ...commonDayFields(day, sky[i]!, zone, moonPhaseOn.get(day.date) ?? null),
-      events: perDay[i]!,
+      ...commonDayFields(day, itemAt(sky, i, 'sky'), zone, moonPhaseOn.get(day.date) ?? null),
+      events: itemAt(perDay, i, 'perDay'),
       curve: dayCurve(station, set, day, step, ctx),
       springNeap: springNeapOn.get(day.date) ?? null,
       strongestFlood: most('flood'),
@@ -146,6 +147,6 @@ export function buildStreamYear(
 function dayCurve(station: AnyStreamStation, set: StreamYearLookup, day: LocalDay, stepMs: number, ctx: EngineContext): number[] {
   const n = Math.floor((day.end - day.start) / stepMs) + 1;
   const out = Array.from(streamAlongFlood(station, set, day.start, stepMs, n, ctx), knots);
-  if (day.start + (n - 1) * stepMs < day.end) out.push(knots(streamAlongFlood(station, set, day.end, stepMs, 1, ctx)[0]!));
+  if (day.start + (n - 1) * stepMs < day.end) out.push(knots(firstOf(streamAlongFlood(station, set, day.end, stepMs, 1, ctx), 'stream at the end of the day')));
   return out;
 }

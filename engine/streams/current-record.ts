@@ -5,6 +5,7 @@
 
 import { RecordFileError } from '../errors.js';
 import { parseInstant } from '../analysis/record.js';
+import { firstOf, itemAt } from '../item.js';
 
 export interface CurrentRecord {
   file: string;
@@ -28,8 +29,8 @@ export function isCurrentRecord(text: string): boolean {
 function columnsOf(header: string): CurrentRecord['columns'] | undefined {
   const names = fields(header).map((f) => f.toLowerCase());
   if (names.length !== 3) return undefined;
-  if (/^(speed|rate)/.test(names[1]!) && /^dir/.test(names[2]!)) return 'speed-direction';
-  if (/^(east|u\b)/.test(names[1]!) && /^(north|v\b)/.test(names[2]!)) return 'east-north';
+  if (/^(speed|rate)/.test(itemAt(names, 1, 'names')) && /^dir/.test(itemAt(names, 2, 'names'))) return 'speed-direction';
+  if (/^(east|u\b)/.test(itemAt(names, 1, 'names')) && /^(north|v\b)/.test(itemAt(names, 2, 'names'))) return 'east-north';
   return undefined;
 }
 
@@ -39,7 +40,7 @@ export function parseCurrentRecord(text: string, file: string): CurrentRecord {
   const rows: { line: number; time: number; east: number; north: number }[] = [];
   const DEG = Math.PI / 180;
   for (let i = 0; i < lines.length; i++) {
-    const body = lines[i]!.trim();
+    const body = itemAt(lines, i, 'lines').trim();
     if (body === '' || body.startsWith('#')) continue;
     if (columns === undefined) {
       columns = columnsOf(body);
@@ -50,12 +51,12 @@ export function parseCurrentRecord(text: string, file: string): CurrentRecord {
     if (f.length !== 3) {
       throw new RecordFileError(file, `line ${i + 1}`, `the row has ${f.length} fields ("${body}")`, `write exactly three fields, e.g. 2027-01-01T00:00:00Z,1.25,${columns === 'east-north' ? '0.40' : '70'}`);
     }
-    const time = parseInstant(f[0]!);
+    const time = parseInstant(firstOf(f, 'f'));
     if (time === undefined || time === 'no-offset') {
       throw new RecordFileError(file, `line ${i + 1}, time`, `"${f[0]}" is not an ISO 8601 time with Z or a UTC offset`, 'write the time like 2027-01-01T00:00:00Z');
     }
     for (const k of [1, 2]) {
-      if (!DECIMAL.test(f[k]!)) {
+      if (!DECIMAL.test(itemAt(f, k, 'f'))) {
         throw new RecordFileError(file, `line ${i + 1}, ${k === 1 ? (columns === 'east-north' ? 'east' : 'speed') : (columns === 'east-north' ? 'north' : 'direction')}`,
           `"${f[k]}" is not a number`, 'write a number with a decimal point, or delete the row: gaps are allowed');
       }

@@ -21,6 +21,7 @@
 import type { StreamPredictor } from './predict.js';
 import { bearingOf } from './predict.js';
 import type { StreamEvent } from './types.js';
+import { itemAt, numberAt } from '../item.js';
 
 const MS_PER_HOUR = 3_600_000;
 const PAD_MS = 86_400_000; // events are found a day beyond the span, so a slack has both its maxima
@@ -91,8 +92,8 @@ export function streamEvents(p: StreamPredictor, from: number, to: number): Stre
   let s0 = NaN;
   for (let i = 0; i < count; i++) {
     const t1 = start + i * step;
-    const g1 = v.east[i]! * r.east[i]! + v.north[i]! * r.north[i]!;
-    const s1 = v.east[i]! * fx + v.north[i]! * fy;
+    const g1 = numberAt(v.east, i, 'east') * numberAt(r.east, i, 'east') + numberAt(v.north, i, 'north') * numberAt(r.north, i, 'north');
+    const s1 = numberAt(v.east, i, 'east') * fx + numberAt(v.north, i, 'north') * fy;
     if (i > 0) {
       const t0 = t1 - step;
       if (g0 > 0 !== g1 > 0) {
@@ -120,7 +121,7 @@ export function streamEvents(p: StreamPredictor, from: number, to: number): Stre
   const least = (list: Critical[], a: number, b: number): Critical | undefined =>
     list.filter((c) => c.t > a && c.t < b).reduce<Critical | undefined>((best, c) => (!best || c.speed < best.speed ? c : best), undefined);
   for (let i = 0; i < maxima.length; i++) {
-    const m = maxima[i]!;
+    const m = itemAt(maxima, i, 'maxima');
     const kind = m.along >= 0 ? 'flood' : 'ebb';
     const previous = maxima[i - 1];
     if (previous && (previous.along >= 0 ? 'flood' : 'ebb') !== kind) {

@@ -12,6 +12,7 @@ import { StationFileError } from '../errors.js';
 import { cosineCurve } from '../tides.js';
 import type { TideEvent } from '../types.js';
 import type { AnyStreamStation, StreamEvent, StreamSecondaryStation, StreamStation } from './types.js';
+import { numberAt } from '../item.js';
 
 const MINUTE = 60_000;
 const DEG = Math.PI / 180;
@@ -81,7 +82,7 @@ export function streamSecondarySeries(
   const east = new Float64Array(count);
   const north = new Float64Array(count);
   for (let i = 0; i < count; i++) {
-    const s = along[i]!;
+    const s = numberAt(along, i, 'along');
     const dir = s >= 0 ? flood : ebb;
     east[i] = Math.abs(s) * Math.sin(dir);
     north[i] = Math.abs(s) * Math.cos(dir);

@@ -1,6 +1,6 @@
 // Access windows and hourly heights of a station-year as downloads: windows as CSV and JSON (whole
 // intervals, UTC and local), as iCalendar events for the station's calendar, and the hourly heights as CSV.
-import { clock, type StationYear, type WindowYear } from '../../engine/index.js';
+import { clock, itemAt, type StationYear, type WindowYear } from '../../engine/index.js';
 import { wordsFor, type Words } from '../locale/index.js';
 import { csvTable, csvText, exportHeight, HEIGHT_DIGITS, heightField, heightRecord, type ExportRecord } from './fields.js';
 import type { CalendarEvent } from './calendar.js';
@@ -77,8 +77,8 @@ export function hourlyCsv(model: StationYear, words: Words = wordsFor()): string
   const secondary = model.hourly.method === 'secondary-curve';
   const lines = notes(model, words, 'export.hourlyFor', secondary).map((n) => `# ${n}`);
   const records = model.hourly.days.flatMap((d) => d.clocks.map((c, i) => {
-    const local = `${d.date}T${c}:00${d.offsets[i]!}`;
-    return heightRecord(model.station.id, new Date(Date.parse(local)).toISOString().slice(0, 19) + 'Z', local, d.heights[i]!, units);
+    const local = `${d.date}T${c}:00${itemAt(d.offsets, i, 'hourly offsets')}`;
+    return heightRecord(model.station.id, new Date(Date.parse(local)).toISOString().slice(0, 19) + 'Z', local, itemAt(d.heights, i, 'hourly heights'), units);
   }));
   return csvText([...lines, ...csvTable(['station_id', 'time', 'time_local', heightField(units)], records, HEIGHT_DIGITS)]);
 }

@@ -23,13 +23,12 @@ export const CATALOGUES: Readonly<Record<Language, Catalogue>> = { en, fr, es, p
 
 /** The catalogue language of a BCP 47 tag ("fr-CA" → fr, "no" → nb), or null when unsupported. */
 export function languageOf(tag: string): Language | null {
-  let canonical: string;
+  let lang: string;
   try {
-    canonical = Intl.getCanonicalLocales(tag)[0] ?? '';
+    lang = new Intl.Locale(tag).language;
   } catch {
     return null;
   }
-  const lang = canonical.split('-')[0]!.toLowerCase();
   if (lang === 'no' || lang === 'nn') return 'nb'; // written Norwegian: the Bokmål catalogue
   return (LANGUAGES as readonly string[]).includes(lang) ? (lang as Language) : null;
 }

@@ -50,7 +50,7 @@ export class UnsupportedLocaleError extends Error {
 export function checkLocale(tag: string): { tag: string; language: Language } {
   const language = languageOf(tag);
   if (language === null) throw new UnsupportedLocaleError(tag);
-  return { tag: Intl.getCanonicalLocales(tag)[0]!, language };
+  return { tag: new Intl.Locale(tag).toString(), language };
 }
 
 const cache = new Map<string, Words>();

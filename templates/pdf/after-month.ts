@@ -1,6 +1,6 @@
 // Pages that follow a month in a book: the month's access windows (for a station that has them) and,
 // when the project asks for it (hourly: true), its heights on every hour of local time.
-import type { DayEntry, StationYear } from '../../engine/index.js';
+import { itemAt, type DayEntry, type StationYear } from '../../engine/index.js';
 import { drawDayCurve } from './day-curve.js';
 import { inUnits } from '../locale/index.js';
 import type { LogicalPage, PageContext } from './page.js';
@@ -71,7 +71,7 @@ export function windowsPage(view: StationView, month: MonthEntry): LogicalPage {
       const days = monthDays(model, month);
       const dayW = 31 * u;
       const cellText = (win: (typeof model.windows)[number], i: number): string => {
-        const d = win.days[month.firstDayIndex + i]!;
+        const d = itemAt(win.days, month.firstDayIndex + i, 'window days');
         return d.state === 'open' ? w.t('window.allDay') : d.state === 'closed' ? w.t('window.noOpening') : d.pieces.map((p) => `${p.startClock}\u2013${p.endClock}`).join('  ');
       };
       // columns as wide as their longest line; one smaller type size for all if they would not fit
@@ -84,24 +84,24 @@ export function windowsPage(view: StationView, month: MonthEntry): LogicalPage {
       const total = natural.reduce((a, b) => a + b, 0);
       const shrink = Math.min(1, avail / total);
       size *= shrink;
-      const colX: number[] = [];
       let x = box.x + dayW;
-      natural.forEach((n) => {
-        colX.push(x);
+      const columns = model.windows.map((win, k) => {
+        const left = x;
+        const n = itemAt(natural, k, 'natural column widths');
         x += total <= avail ? n + (avail - total) / natural.length : n * shrink;
+        return { win, left, width: (k === natural.length - 1 ? box.x + box.width : x) - left };
       });
-      const colW = (k: number): number => (k + 1 < colX.length ? colX[k + 1]! : box.x + box.width) - colX[k]!;
       const head = { font: 'narrow-bold' as const, size: 6.6 * u, color: MID };
-      model.windows.forEach((w, k) => putFitted(doc, w.name.toUpperCase(), colX[k]!, top - 4 * u, head, colW(k) - gap / 2, 4.5 * u));
+      for (const { win, left, width } of columns) putFitted(doc, win.name.toUpperCase(), left, top - 4 * u, head, width - gap / 2, 4.5 * u);
       doc.save().lineWidth(0.8 * u).strokeColor(INK).moveTo(box.x, top - 1 * u).lineTo(box.x + box.width, top - 1 * u).stroke().restore();
       days.forEach((day, i) => {
         const y = top + (i + 1) * row - row * 0.3;
         put(doc, `${view.words.weekdayShort(day.weekday)} ${day.dayOfMonth}`, box.x, y, { font: day.weekday === 7 ? 'narrow-bold' : 'narrow', size: Math.min(7.2 * u, row * 0.6) });
-        model.windows.forEach((w, k) => {
-          const state = w.days[month.firstDayIndex + i]!.state;
+        for (const { win, left, width } of columns) {
+          const state = itemAt(win.days, month.firstDayIndex + i, 'window days').state;
           const style = { font: state === 'some' ? 'regular' as const : 'narrow' as const, size, color: state === 'closed' ? MID : INK };
-          putFitted(doc, cellText(w, i), colX[k]!, y, style, colW(k) - gap / 2, size * 0.7);
-        });
+          putFitted(doc, cellText(win, i), left, y, style, width - gap / 2, size * 0.7);
+        }
         doc.save().lineWidth(HAIRLINE * u).strokeColor(RULE)
           .moveTo(box.x, top + (i + 1) * row).lineTo(box.x + box.width, top + (i + 1) * row).stroke().restore();
       });
@@ -139,19 +139,20 @@ export function hoursPage(view: StationView, month: MonthEntry): LogicalPage {
         put(doc, `${view.words.weekdayShort(day.weekday)} ${day.dayOfMonth}`, box.x, y, { font: day.weekday === 7 ? 'narrow-bold' : 'narrow', size });
         const cells: string[][] = Array.from({ length: 24 }, () => []);
         hourly?.clocks.forEach((c, k) => {
-          const v = inUnits(hourly.heights[k]!, units);
-          cells[Number(c.slice(0, 2))]!.push(view.words.number(Math.round(v * 10) / 10 + 0, 1));
+          const v = inUnits(itemAt(hourly.heights, k, 'hourly heights'), units);
+          itemAt(cells, Number(c.slice(0, 2)), 'clock hours').push(view.words.number(Math.round(v * 10) / 10 + 0, 1));
         });
         cells.forEach((values, h) => {
           const right = box.x + dayW + (h + 1) * cellW - 1 * u;
-          if (values.length === 2) {
+          const [first = '\u2013', second] = values;
+          if (second !== undefined) {
             // the repeated hour: before the change above, after it below, in smaller type
             const small = { font: 'narrow' as const, size: size * 0.85 };
-            putFitted(doc, values[0]!, right, y - size * 0.5, small, cellW - 1 * u, size * 0.4, 'right');
-            putFitted(doc, values[1]!, right, y + size * 0.45, small, cellW - 1 * u, size * 0.4, 'right');
+            putFitted(doc, first, right, y - size * 0.5, small, cellW - 1 * u, size * 0.4, 'right');
+            putFitted(doc, second, right, y + size * 0.45, small, cellW - 1 * u, size * 0.4, 'right');
             return;
           }
-          putFitted(doc, values[0] ?? '\u2013', right, y, { font: 'narrow' as const, size }, cellW - 1 * u, size * 0.5, 'right');
+          putFitted(doc, first, right, y, { font: 'narrow' as const, size }, cellW - 1 * u, size * 0.5, 'right');
         });
         drawDayCurve(doc, day, { x: box.x + box.width - curveW, y: top + i * row + row * 0.12, width: curveW, height: row * 0.76 }, view.curve, u);
         doc.save().lineWidth(HAIRLINE * u).strokeColor(RULE)

@@ -25,7 +25,7 @@ export function coverageNotes(station: object, file: string): string[] {
   const notes: string[] = [];
   const walk = (value: unknown, path: string[]): void => {
     if (typeof value === 'string') {
-      if (path.length === 1 && NOT_PRINTED.has(path[0]!)) return;
+      if (path.length === 1 && NOT_PRINTED.has(path.join('.'))) return;
       const missing = missingInBook(value);
       if (missing.length === 0) return;
       const shown = missing.slice(0, 3).map(describeCharacter).join(', ') + (missing.length > 3 ? ', …' : '');

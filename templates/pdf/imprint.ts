@@ -1,7 +1,7 @@
 // The imprint page, last in every book: who publishes it and how to reach them, the edition's date,
 // the tidewright version, the datum epochs, where the constants of each station come from, and the
 // caution in full.
-import type { StationYear, StreamYear } from '../../engine/index.js';
+import { firstOf, type StationYear, type StreamYear } from '../../engine/index.js';
 import type { Words } from '../locale/index.js';
 import { printable } from './format.js';
 import type { LogicalPage } from './page.js';
@@ -17,7 +17,7 @@ export interface ImprintText {
 }
 
 export function imprintPage(models: readonly (StationYear | StreamYear)[], words: Words, text: ImprintText, label?: string): LogicalPage {
-  const first = models[0]!;
+  const first = firstOf(models, 'models of the imprint');
   const invented = models.some((m) => m.invented);
   return {
     kind: 'imprint',

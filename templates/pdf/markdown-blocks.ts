@@ -96,14 +96,16 @@ export function markdownBlocks(markdown: string): Block[] {
     }
     blocks.push(...images);
   };
-  for (let i = 0; i < tokens.length; i++) {
-    const t = tokens[i]!;
+  // One cursor through the tokens: a heading or a table takes the tokens it holds from it, and the
+  // outer loop goes on after them (an array iterator has no return(), so leaving an inner loop keeps it open).
+  const cursor = tokens.values();
+  for (const t of cursor) {
     switch (t.type) {
       case 'heading_open': {
         const level = Math.min(3, Number(t.tag.slice(1))) as 1 | 2 | 3;
-        const { pieces, images } = inline(tokens[i + 1]);
+        const { pieces, images } = inline(cursor.next().value);
+        cursor.next(); // heading_close
         blocks.push({ kind: 'heading', level, pieces }, ...images);
-        i += 2;
         break;
       }
       case 'inline': { const { pieces, images } = inline(t); text(pieces, images); break; }
@@ -124,8 +126,8 @@ export function markdownBlocks(markdown: string): Block[] {
         const align: Align[] = [];
         let row: Piece[][] | null = null;
         let inHead = false;
-        for (i++; i < tokens.length && tokens[i]!.type !== 'table_close'; i++) {
-          const c = tokens[i]!;
+        for (const c of cursor) {
+          if (c.type === 'table_close') break;
           if (c.type === 'thead_open') inHead = true;
           else if (c.type === 'thead_close') inHead = false;
           else if (c.type === 'tr_open') row = [];

@@ -2,6 +2,7 @@
 // from their markers, tables sized to their content, pictures fitted to the width. Measured once with
 // a scratch document before the book is drawn, since the book's page count must be known up front;
 // every position is relative to the content box, so a page draws on a recto or a verso alike.
+import { itemAt, lastOf } from '../../engine/index.js';
 import type { Align, Block, Piece } from './markdown-blocks.js';
 import { fitted, loadPicture, type Picture } from './picture.js';
 import { widthOf, type TextStyle } from './text.js';
@@ -102,7 +103,7 @@ export function layoutMarkdown(doc: PDFKit.PDFDocument, blocks: Block[], images:
   const s = style.scale;
   const pages: Placed[][] = [[]];
   let y = top;
-  const page = (): Placed[] => pages[pages.length - 1]!;
+  const page = (): Placed[] => lastOf(pages, 'pages');
   const room = (h: number): void => {
     if (y + h > style.height && page().length > 0) { pages.push([]); y = 0; }
   };
@@ -185,7 +186,7 @@ function layoutTable(doc: PDFKit.PDFDocument, block: Extract<Block, { kind: 'tab
   const rowOf = (row: Piece[][], header: boolean) => {
     const cells = Array.from({ length: columns }, (_, c) => {
       const pieces = (row[c] ?? []).map((p) => (header ? { ...p, font: 'bold' as const } : p));
-      return wrapPieces(doc, pieces, size, widths[c]! - 2 * pad);
+      return wrapPieces(doc, pieces, size, itemAt(widths, c, 'column widths') - 2 * pad);
     });
     return { cells, height: Math.max(1, ...cells.map((l) => l.length)) * leading + pad };
   };
@@ -202,8 +203,8 @@ function layoutTable(doc: PDFKit.PDFDocument, block: Extract<Block, { kind: 'tab
       const align: Align = block.align[c] ?? 'left';
       return lines.flatMap((line, i) => {
         const w = line.reduce((m, r) => Math.max(m, r.x + r.width), 0);
-        const room = widths[c]! - 2 * pad - w;
-        const dx = lefts[c]! + pad + (align === 'right' ? room : align === 'center' ? room / 2 : 0);
+        const room = itemAt(widths, c, 'column widths') - 2 * pad - w;
+        const dx = itemAt(lefts, c, 'column lefts') + pad + (align === 'right' ? room : align === 'center' ? room / 2 : 0);
         return line.map((r) => ({ ...r, x: r.x + dx, y: y + pad / 2 + size + i * leading }));
       });
     });

@@ -16,7 +16,7 @@ import { put, putFitted, widthOf } from './text.js';
 
 /** "Times UTC+00:00, UTC+01:00 from 28 March" — the offsets of the month (the day itself says when). */
 export function offsetStatement(days: DayEntry[], w: Words): string {
-  const first = days[0]!.offsetStart;
+  const first = firstOf(days, 'days of the month').offsetStart;
   const changes = days.filter((d) => d.offsetChange !== null);
   if (changes.length === 0) return w.t('book.allTimes', { offset: w.offset(first) });
   const pieces = changes.map((d) => w.t('zone.fromDate', { offset: w.offset(d.offsetChange!.to), date: w.date(d.date, { year: false }) }));

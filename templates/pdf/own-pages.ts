@@ -67,14 +67,19 @@ function drawBlock(ctx: PageContext, type: TagType, runs: Run[], options: TagOpt
 
 function drawPlaced(ctx: PageContext, items: Placed[]): void {
   const { doc, box } = ctx;
-  for (let i = 0; i < items.length; i++) {
-    const item = items[i]!;
+  let list: Placed[] = []; // consecutive list items, drawn as one L
+  const endList = (): void => {
+    const items = list;
+    list = [];
+    if (items.length > 0) group(doc, 'L', {}, () => { for (const li of items) if (li.kind === 'text') drawBlock(ctx, 'LI', li.runs); });
+  };
+  for (const item of items) {
     if (item.kind === 'text' && item.tag === 'LI') {
-      const list: Placed[] = [];
-      while (i < items.length && items[i]!.kind === 'text' && (items[i] as { tag: string }).tag === 'LI') list.push(items[i++]!);
-      i--;
-      group(doc, 'L', {}, () => { for (const li of list) if (li.kind === 'text') drawBlock(ctx, 'LI', li.runs); });
-    } else if (item.kind === 'text') {
+      list.push(item);
+      continue;
+    }
+    endList();
+    if (item.kind === 'text') {
       drawBlock(ctx, item.tag, item.runs);
     } else if (item.kind === 'rule') {
       doc.save().lineWidth(0.6 * unit(ctx)).strokeColor(RULE).moveTo(box.x, box.y + item.y).lineTo(box.x + item.width, box.y + item.y).stroke().restore();
@@ -98,6 +103,7 @@ function drawPlaced(ctx: PageContext, items: Placed[]): void {
       });
     }
   }
+  endList();
 }
 
 /** A Markdown page: its title, then its text, over as many book pages as it takes. */
@@ -137,10 +143,9 @@ function picturePage(page: PublisherPage, c: OwnPagesContext): LogicalPage {
   const cellW = (box.width - gap) / 2;
   const cellH = (box.height - gap) / 2;
   const list = page.image ? [{ ...page.image, size: 'full' as const }] : page.grid ?? [];
-  const pictures = list.map((p) => loadPicture(p.path, p.size === 'quarter' ? cellW : box.width));
   // quarters take the first free cell of a 2 × 2 grid, halves the first free row
   const taken = [false, false, false, false];
-  const cells = list.map((p) => {
+  const cellOf = (p: (typeof list)[number]): { col: number; row: number; w: number; h: number } => {
     if (p.size === 'full') return { col: 0, row: 0, w: box.width, h: box.height };
     if (p.size === 'half') {
       const row = taken[0] || taken[1] ? 1 : 0;
@@ -150,16 +155,16 @@ function picturePage(page: PublisherPage, c: OwnPagesContext): LogicalPage {
     const at = taken.indexOf(false);
     taken[at] = true;
     return { col: at % 2, row: Math.floor(at / 2), w: cellW, h: cellH };
-  });
+  };
+  const placed = list.map((p) => ({ p, picture: loadPicture(p.path, p.size === 'quarter' ? cellW : box.width), cell: cellOf(p) }));
   return {
     kind: 'own',
     footer: { invented: c.invented, label: page.title },
     outline: { title: page.title, level: c.level },
     draw(ctx) {
-      list.forEach((p, i) => {
-        const cell = cells[i]!;
-        drawPicture(ctx, pictures[i]!, p, ctx.box.x + cell.col * (cellW + gap), ctx.box.y + cell.row * (cellH + gap), cell.w, cell.h);
-      });
+      for (const { p, picture, cell } of placed) {
+        drawPicture(ctx, picture, p, ctx.box.x + cell.col * (cellW + gap), ctx.box.y + cell.row * (cellH + gap), cell.w, cell.h);
+      }
       if (list.length === 0) put(ctx.doc, page.title, ctx.box.x, ctx.box.y + 12, { font: 'bold', size: 12, color: DARK });
     },
   };

@@ -32,8 +32,8 @@ export function rasterPixels(bytes: Uint8Array): PixelSize | null {
   if (view[0] !== 0xff || view[1] !== 0xd8) return null;
   let at = 2;
   while (at + 9 < view.length) {
-    if (view[at] !== 0xff) return null;
-    const marker = view[at + 1]!;
+    if (view.readUInt8(at) !== 0xff) return null;
+    const marker = view.readUInt8(at + 1);
     const length = view.readUInt16BE(at + 2);
     // SOF0…SOF15 except DHT (C4), JPG (C8) and DAC (CC)
     if (marker >= 0xc0 && marker <= 0xcf && marker !== 0xc4 && marker !== 0xc8 && marker !== 0xcc) {

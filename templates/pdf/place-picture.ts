@@ -5,6 +5,7 @@
 // sRGB values (ITU-R BT.709-6, item 3.2), written as a DeviceGray image, which a print shop's
 // separation sends to the black plate alone, as it does the book's own greys. Transparency is kept.
 import { Resvg } from '@resvg/resvg-js';
+import { itemAt } from '../../engine/index.js';
 import { checkImageResolution, type ImageWarningSink } from './image-resolution.js';
 import type { Picture } from './picture.js';
 
@@ -45,15 +46,15 @@ export function greyPixels(picture: Picture): GreyPixels {
   let opaque = true;
   let coloured = false;
   for (let i = 0; i < n; i++) {
-    const a = rgba[4 * i + 3]!;
+    const a = itemAt(rgba, 4 * i + 3, 'pixel bytes');
     alpha[i] = a;
     if (a === 0) { grey[i] = 255; opaque = false; continue; }
     if (a < 255) opaque = false;
     // resvg hands out premultiplied pixels: divide the coverage back out
     const k = 255 / a;
-    const r = rgba[4 * i]! * k;
-    const g = rgba[4 * i + 1]! * k;
-    const b = rgba[4 * i + 2]! * k;
+    const r = itemAt(rgba, 4 * i, 'pixel bytes') * k;
+    const g = itemAt(rgba, 4 * i + 1, 'pixel bytes') * k;
+    const b = itemAt(rgba, 4 * i + 2, 'pixel bytes') * k;
     if (Math.abs(r - g) > 1.5 || Math.abs(g - b) > 1.5) coloured = true;
     grey[i] = Math.min(255, Math.round(0.2126 * r + 0.7152 * g + 0.0722 * b));
   }

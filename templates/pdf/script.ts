@@ -4,6 +4,7 @@
 // The shaper inside pdfkit (fontkit) lays a piece of right-to-left script out right to left itself;
 // so each piece is handed over in the order the shaper expects, and the pieces are placed by us.
 import bidiModule, { type Bidi } from 'bidi-js';
+import { itemAt } from '../../engine/index.js';
 
 // The package's main export is its factory (CommonJS); its type file calls the same thing `default`.
 const bidi: Bidi = (bidiModule as unknown as () => Bidi)();
@@ -56,7 +57,7 @@ export function visualPieces(text: string): Piece[] {
     run = null;
   };
   for (const i of order) {
-    const { c, level } = chars[i]!;
+    const { c, level } = itemAt(chars, i, 'characters in visual order');
     const space = /\s/u.test(c);
     const rtl = level % 2 === 1;
     if (!run || run.space !== space || run.rtl !== rtl) {

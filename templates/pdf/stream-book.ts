@@ -96,8 +96,7 @@ function peak(doc: PDFKit.PDFDocument, e: StreamAlmanacEvent, x: number, y: numb
   return w1 + w2 + 16 * u;
 }
 
-function monthPage(model: StreamYear, monthIndex: number, words: Words): LogicalPage {
-  const month = model.months[monthIndex]!;
+function monthPage(model: StreamYear, month: StreamYear['months'][number], words: Words): LogicalPage {
   const days: StreamDayEntry[] = model.days.slice(month.firstDayIndex, month.firstDayIndex + month.dayCount);
   return {
     kind: 'month',
@@ -179,7 +178,7 @@ function drawDays(ctx: PageContext, model: StreamYear, days: StreamDayEntry[], c
 
 /** The pages of one stream-year: its first page, then a page per month. */
 export function streamBookPages(model: StreamYear, title: string, words: Words): LogicalPage[] {
-  return [firstPage(model, title, words), ...model.months.map((_, i) => monthPage(model, i, words))];
+  return [firstPage(model, title, words), ...model.months.map((month) => monthPage(model, month, words))];
 }
 
 export async function renderStreamBook(model: StreamYear, options: BookOptions): Promise<Buffer> {

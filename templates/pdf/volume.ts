@@ -1,7 +1,7 @@
 // One volume of the combined output of a large set: its own cover, contents and bookmarks, the
 // stations' sections (full, or compact for secondary ports), and an imprint. The page counts a
 // planner needs to fill volumes come from the same composition, before anything is drawn.
-import type { StationYear } from '../../engine/index.js';
+import { firstOf, type StationYear } from '../../engine/index.js';
 import { wordsFor } from '../locale/index.js';
 import { bookCoverPage } from './book-cover.js';
 import { cautionPage } from './caution.js';
@@ -68,7 +68,8 @@ export async function renderVolume(stations: VolumeStation[], options: BookOptio
   if (stations.length === 0) throw new RangeError('a volume needs at least one station');
   const g = pageGeometry(options.page);
   const w = words(options);
-  const views = stations.map((s) => stationView(s.model, g, w));
+  const members = stations.map((station) => ({ station, view: stationView(station.model, g, w) }));
+  const views = members.map((m) => m.view);
   const title = printable(options.title ?? w.t('book.defaultTitle'));
   const invented = views.some((v) => v.model.invented);
   const years = [...new Set(views.map((v) => v.model.year))].sort((a, b) => a - b);
@@ -79,16 +80,16 @@ export async function renderVolume(stations: VolumeStation[], options: BookOptio
   const cover = bookCoverPage(views, { title, years: yearText, ...(options.publisher !== undefined && { publisher: options.publisher }),
     ...(own.logo && { logo: own.logo }), ...(own.coverImage && { coverImage: own.coverImage }), ...(own.accent && { accent: own.accent }),
     ...(volumeLine !== undefined && { volume: volumeLine }) }, w.caution, invented);
-  const fullParts = views.filter((v, i) => !(stations[i]!.compact && v.model.station.kind === 'secondary')).flatMap((v) => v.parts);
+  const fullParts = members.filter(({ station, view }) => !(station.compact && view.model.station.kind === 'secondary')).flatMap(({ view }) => view.parts);
   const row = rowHeight(fullParts, g);
   const contentsCount = contentsPageCount(views.length, contentBox(g, 1).height, g.scale);
   const mixed = views.some((v) => v.southern) && views.some((v) => !v.southern);
-  const caution = cautionPage(views[0]!, { combined: true, mixedHemispheres: mixed });
+  const caution = cautionPage(firstOf(views, 'stations of the volume'), { combined: true, mixedHemispheres: mixed });
   let next = 1 + contentsCount + 1 + 1;
   const sections: LogicalPage[] = [];
-  const entries = views.map((view, i) => {
+  const entries = members.map(({ station, view }) => {
     const kicker = `${w.t(view.model.station.kind === 'secondary' ? 'port.secondary' : 'port.reference')} \u00b7 ${title}`;
-    const pages = sectionOf(view, stations[i]!, next, row, kicker, options.hourly);
+    const pages = sectionOf(view, station, next, row, kicker, options.hourly);
     const entry = { view, page: next };
     next += pages.length;
     sections.push(...pages);
@@ -101,7 +102,7 @@ export async function renderVolume(stations: VolumeStation[], options: BookOptio
     author: options.publisher,
     subject: w.t('book.subjectCombined', { count: views.length }) + `${invented ? ` (${w.t('book.inventedSubject')})` : ''}`,
     keywords: w.t('book.keywords'),
-    date: options.stamp !== undefined ? new Date(options.stamp) : editionDate(years[0]!),
+    date: options.stamp !== undefined ? new Date(options.stamp) : editionDate(firstOf(years, 'years of the volume')),
     lang: w.tag,
     tagged: options.tagged,
   }, options.imposition ?? 'none', () => notesPage({ invented }));

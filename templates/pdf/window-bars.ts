@@ -80,10 +80,10 @@ export function drawWindowKey(
   const labels = windows.map((w) => words.t('window.barKey', { window: w.name }));
   const share = maxWidth / Math.max(1, windows.length) - sample - 2 * gap;
   let x = right;
-  for (let k = labels.length - 1; k >= 0; k--) {
-    const w = Math.min(widthOf(doc, labels[k]!, style), share);
+  for (const label of [...labels].reverse()) {
+    const w = Math.min(widthOf(doc, label, style), share);
     x -= w;
-    putFitted(doc, labels[k]!, x, y, style, share, LABEL_MIN);
+    putFitted(doc, label, x, y, style, share, LABEL_MIN);
     x -= gap + sample;
     doc.save().rect(x, y - 2.4 * u, sample, BAR * u).fill(DARK).restore();
     x -= 2 * gap;

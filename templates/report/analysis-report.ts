@@ -5,7 +5,7 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import nunjucks from 'nunjucks';
-import type { HarmonicAnalysis, StationMeta } from '../../engine/index.js';
+import { numberAt, type HarmonicAnalysis, type StationMeta } from '../../engine/index.js';
 import { wordsFor, type MessageKey, type Words } from '../locale/index.js';
 import { projectRoot } from '../site/paths.js';
 import { timeSeriesChart } from './chart.js';
@@ -29,11 +29,12 @@ const instant = (t: number): string => `${new Date(t).toISOString().slice(0, 16)
 function busiestWindow(times: Float64Array, days: number): [number, number] {
   const width = days * DAY;
   let best = 0, bestStart = times[0] ?? 0;
-  for (let i = 0, j = 0; i < times.length; i++) {
-    while (j < times.length && times[j]! < times[i]! + width) j++;
+  let j = 0; // the first reading at or after t + width
+  for (const [i, t] of times.entries()) {
+    while (j < times.length && numberAt(times, j, 'record times') < t + width) j++;
     if (j - i > best) {
       best = j - i;
-      bestStart = times[i]!;
+      bestStart = t;
     }
     if (j === times.length) break;
   }
@@ -44,8 +45,7 @@ function busiestWindow(times: Float64Array, days: number): [number, number] {
 function charts(a: HarmonicAnalysis, w: Words): Record<'record' | 'fit' | 'residual', nunjucks.runtime.SafeString> {
   const { record, fitted } = a;
   const breakAfterMs = Math.max(3 * a.summary.intervalHours * HOUR, 2 * HOUR);
-  const residuals = new Float64Array(record.heights.length);
-  for (let i = 0; i < residuals.length; i++) residuals[i] = record.heights[i]! - fitted[i]!;
+  const residuals = record.heights.map((h, i) => h - numberAt(fitted, i, 'fitted heights'));
   const [start, end] = busiestWindow(record.times, 4);
   const safe = (svg: string) => new nunjucks.runtime.SafeString(svg);
   return {

@@ -2,6 +2,7 @@
 // lowest and highest value of each pixel column, so a year of readings keeps its envelope in a few
 // kilobytes; gaps in the record stay visible as breaks in the line.
 
+import { numberAt } from '../../engine/index.js';
 import { escapeHtml } from './escape.js';
 
 const DAY = 86_400_000;
@@ -76,14 +77,14 @@ function seriesPath(s: ChartSeries, x: (t: number) => number, y: (v: number) => 
   let column = -1, lo = 0, hi = 0, loT = 0, hiT = 0, lastT = Number.NaN, pen = 'M';
   const flush = (): void => {
     if (column < 0) return;
-    const points = loT <= hiT ? [[loT, lo], [hiT, hi]] : [[hiT, hi], [loT, lo]];
+    const points: [number, number][] = loT <= hiT ? [[loT, lo], [hiT, hi]] : [[hiT, hi], [loT, lo]];
     for (const [t, v] of points) {
-      parts.push(`${pen}${x(t!).toFixed(1)} ${y(v!).toFixed(1)}`);
+      parts.push(`${pen}${x(t).toFixed(1)} ${y(v).toFixed(1)}`);
       pen = 'L';
     }
   };
-  for (let i = 0; i < s.times.length; i++) {
-    const t = s.times[i]!, v = s.values[i]!;
+  for (const [i, t] of s.times.entries()) {
+    const v = numberAt(s.values, i, 'chart values');
     if (t < start || t > end || !Number.isFinite(v)) continue;
     if (t - lastT > breakAfterMs) {
       flush();
@@ -114,12 +115,13 @@ export function timeSeriesChart(series: readonly ChartSeries[], options: ChartOp
   let start = options.start ?? Infinity, end = options.end ?? -Infinity;
   let lo = Infinity, hi = -Infinity;
   for (const s of series) {
-    if (options.start === undefined && s.times.length > 0) start = Math.min(start, s.times[0]!);
-    if (options.end === undefined && s.times.length > 0) end = Math.max(end, s.times[s.times.length - 1]!);
+    const first = s.times.at(0), last = s.times.at(-1);
+    if (options.start === undefined && first !== undefined) start = Math.min(start, first);
+    if (options.end === undefined && last !== undefined) end = Math.max(end, last);
   }
   for (const s of series) {
-    for (let i = 0; i < s.times.length; i++) {
-      const t = s.times[i]!, v = s.values[i]!;
+    for (const [i, t] of s.times.entries()) {
+      const v = numberAt(s.values, i, 'chart values');
       if (t < start || t > end || !Number.isFinite(v)) continue;
       if (v < lo) lo = v;
       if (v > hi) hi = v;

@@ -10,9 +10,9 @@ export const SITE_CSS = join('templates', 'assets', 'site.css');
 
 /** `--name: value` pairs of the first :root { … } block of a stylesheet, in order. */
 export function rootCustomProperties(css: string): [string, string][] {
-  const block = /:root\s*\{([^}]*)\}/.exec(css.replace(/\/\*[\s\S]*?\*\//g, ''));
-  if (block === null) return [];
-  return [...block[1]!.matchAll(/(--[\w-]+)\s*:\s*([^;]+);/g)].map((m) => [m[1]!, m[2]!.trim()]);
+  const block = /:root\s*\{(?<body>[^}]*)\}/.exec(css.replace(/\/\*[\s\S]*?\*\//g, ''))?.groups?.body;
+  if (block === undefined) return [];
+  return [...block.matchAll(/(?<name>--[\w-]+)\s*:\s*(?<value>[^;]+);/g)].flatMap(({ groups }) => (groups?.name && groups.value ? [[groups.name, groups.value.trim()]] : []));
 }
 
 /** The site's custom properties as one :root rule for the report. */

@@ -6,6 +6,7 @@ import { createRequire } from 'node:module';
 import {
   geoMercator, geoNaturalEarth1, geoPath, type GeoProjection,
 } from 'd3-geo';
+import { itemAt, lastOf } from '../../engine/index.js';
 import { feature } from 'topojson-client';
 import type { GeometryCollection, Topology } from 'topojson-specification';
 
@@ -61,10 +62,9 @@ export function spreadDots(points: { x: number; y: number }[], width: number, he
   }
   for (let round = 0; round < SPREAD_ROUNDS; round++) {
     let moved = false;
-    for (let i = 0; i < at.length; i++) {
-      for (let j = i + 1; j < at.length; j++) {
-        const a = at[i]!;
-        const b = at[j]!;
+    for (const [i, a] of at.entries()) {
+      for (const [j, b] of at.entries()) {
+        if (j <= i) continue; // each pair once
         const dx = b.x - a.x;
         const dy = b.y - a.y;
         const d = Math.hypot(dx, dy);
@@ -95,14 +95,14 @@ export function longitudeSpan(longitudes: readonly number[]): { west: number; sp
   const sorted = [...new Set(longitudes.map((l) => ((l % 360) + 540) % 360 - 180))].sort((a, b) => a - b);
   if (sorted.length <= 1) return { west: sorted[0] ?? 0, span: 0 };
   // The widest gap between neighbours (going round) is the part of the world left out.
-  let gap = sorted[0]! + 360 - sorted[sorted.length - 1]!;
-  let west = sorted[0]!;
-  for (let i = 1; i < sorted.length; i++) {
-    const g = sorted[i]! - sorted[i - 1]!;
-    if (g > gap) {
-      gap = g;
-      west = sorted[i]!;
+  let gap = -Infinity, west = 0;
+  let previous = lastOf(sorted, 'longitudes') - 360; // the last one, a turn earlier, so the gap across 180° counts first
+  for (const longitude of sorted) {
+    if (longitude - previous > gap) {
+      gap = longitude - previous;
+      west = longitude;
     }
+    previous = longitude;
   }
   return { west, span: 360 - gap };
 }
@@ -154,7 +154,8 @@ export function stationMap(stations: readonly MapStation[]): StationMap | null {
   });
   const drawn = spreadDots(places, MAP_WIDTH, height);
   const dots = stations.map((s, i) => {
-    const [x, y, atX, atY] = [drawn[i]!.x, drawn[i]!.y, places[i]!.x, places[i]!.y].map(round) as [number, number, number, number];
+    const dot = itemAt(drawn, i, 'map dots'), place = itemAt(places, i, 'map places');
+    const [x, y, atX, atY] = [round(dot.x), round(dot.y), round(place.x), round(place.y)];
     return { ...s, x, y, atX, atY, moved: Math.hypot(x - atX, y - atY) > 1 };
   });
   return { width: MAP_WIDTH, height, land, dots };

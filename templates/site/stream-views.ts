@@ -54,8 +54,9 @@ function monthPagesOf(model: StreamYear, yearUrl: string, words: Words): StreamM
   const siblings = pages.map(link);
   pages.forEach((p, i) => {
     p.siblings = siblings;
-    if (i > 0) p.prev = link(pages[i - 1]!);
-    if (i < pages.length - 1) p.next = link(pages[i + 1]!);
+    const before = pages[i - 1], after = pages[i + 1];
+    if (before) p.prev = link(before);
+    if (after) p.next = link(after);
   });
   return pages;
 }

@@ -1,6 +1,6 @@
 // View helpers for access windows and hourly heights: what each day's window line and hour row read.
 // The numbers come from the model (StationYear.windows, StationYear.hourly); nothing is recomputed.
-import type { DayEntry, StationYear, WindowDay, WindowYear } from '../../engine/index.js';
+import { itemAt, type DayEntry, type StationYear, type WindowDay, type WindowYear } from '../../engine/index.js';
 import { inUnits, type Words } from '../locale/index.js';
 
 export interface DayWindowLine {
@@ -32,7 +32,7 @@ export function dayWindows(day: DayEntry, model: StationYear): DayWindowLine[] {
   const i = dayIndex(model, day.date);
   if (i < 0) return [];
   return model.windows.map((w) => {
-    const d = w.days[i]!;
+    const d = itemAt(w.days, i, 'window days');
     return { id: w.id, name: w.name, state: d.state, spans: d.pieces.map((p) => `${p.startClock}–${p.endClock}`) };
   });
 }
@@ -49,8 +49,8 @@ export function hourCells(day: DayEntry, model: StationYear, words: Words): Hour
   const cells: HourCell[] = Array.from({ length: 24 }, (_, h) => ({ clock: String(h).padStart(2, '0'), values: [], below: false }));
   if (!hourly) return cells;
   hourly.clocks.forEach((c, k) => {
-    const cell = cells[Number(c.slice(0, 2))]!;
-    const metres = hourly.heights[k]!;
+    const cell = itemAt(cells, Number(c.slice(0, 2)), 'clock hours');
+    const metres = itemAt(hourly.heights, k, 'hourly heights');
     const value = inUnits(metres, words.units);
     cell.values.push(Number.isFinite(value) ? words.number(Math.round(value * 10) / 10 + 0, 1).replace('-', '\u2212') : '–');
     if (metres < 0) cell.below = true;

@@ -8,6 +8,7 @@ import { dirname, join } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { parse, stringify } from 'yaml';
 import { seededRandom } from '../fixtures/analysis-records.js';
+import { entryOf, firstOf, itemAt } from '../../engine/index.js';
 
 const STATION_COUNT = 200;
 const TARGET_MS = 180_000;
@@ -38,7 +39,7 @@ export function generateStations(demoDir: string, outDir: string, count: number)
   mkdirSync(outDir, { recursive: true });
   for (let i = 0; i < count; i++) {
     const copy = Math.floor(i / demo.length);
-    const s = structuredClone(demo[i % demo.length]!);
+    const s = structuredClone(itemAt(demo, i % demo.length, 'demo'));
     s.id = `${s.id}-${copy}`;
     s.name = `${s.name.replace(/ \(invented\)$/, '')} ${copy} (invented variant)`;
     const pos = s.position as { latitude: number; longitude: number };
@@ -115,7 +116,7 @@ export async function bench(): Promise<void> {
     const stations = join(work, 'stations');
     generateStations(join(root, 'stations-demo'), stations, STATION_COUNT);
     // Other work on the machine stretches wall-clock times; the load average says how much there was.
-    console.log(`build: ${STATION_COUNT} generated stations, ${availableParallelism()} cores, load average ${loadavg()[0]!.toFixed(1)}`);
+    console.log(`build: ${STATION_COUNT} generated stations, ${availableParallelism()} cores, load average ${firstOf(loadavg(), 'load averages').toFixed(1)}`);
     const runs: Record<number, BuildRun> = {};
     for (const workers of [1, 2]) {
       const run = buildOnce(root, work, stations, join(work, `out-${workers}`), workers);
@@ -126,11 +127,11 @@ export async function bench(): Promise<void> {
         + `${run.summary.files} files, ${mib(run.summary.bytes)} (${steps})`);
       rmSync(join(work, `out-${workers}`), { recursive: true, force: true });
     }
-    const one = runs[1]!;
-    const two = runs[2]!;
+    const one = entryOf(runs, 1, 'runs');
+    const two = entryOf(runs, 2, 'runs');
     const speedUp = one.ms / two.ms;
     const peak = Math.max(one.maxRssBytes, two.maxRssBytes);
-    console.log(`  speed-up of 2 workers over 1: ${speedUp.toFixed(2)}× (load average now ${loadavg()[0]!.toFixed(1)})`);
+    console.log(`  speed-up of 2 workers over 1: ${speedUp.toFixed(2)}× (load average now ${firstOf(loadavg(), 'load averages').toFixed(1)})`);
     console.log(`  target: under ${s(TARGET_MS)} with 2 workers: ${two.ms < TARGET_MS ? 'met' : 'MISSED'}; `
       + `peak memory under ${mib(TARGET_BYTES)}: ${peak < TARGET_BYTES ? 'met' : 'MISSED'}`);
   } finally {

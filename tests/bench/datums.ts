@@ -1,7 +1,7 @@
 // Benchmark of the datums: LAT and HAT over the 19-year epoch of a 60-constituent station from the
 // high/low water search, against 1-minute sampling with direct cosines over the same span (target
 // ≥ 30×). The sampling is timed over one year and scaled by 19 (19 years of it would take minutes).
-import { astronomicalExtremes, datumEpoch, epochTideEvents, stationDatums } from '../../engine/index.js';
+import { astronomicalExtremes, datumEpoch, epochTideEvents, itemAt, stationDatums } from '../../engine/index.js';
 import type { ReferenceStation } from '../../engine/index.js';
 import { sixtyConstituentStation } from '../fixtures/engine-stations.js';
 import { directMinuteSeries } from './direct.js';
@@ -13,16 +13,16 @@ function sampledExtremes(station: ReferenceStation, start: number, days: number)
   const h = directMinuteSeries(station, start, days);
   let low = Infinity;
   let high = -Infinity;
-  for (let j = 0; j < h.length; j++) {
-    if (h[j]! < low) low = h[j]!;
-    if (h[j]! > high) high = h[j]!;
+  for (const height of h) {
+    if (height < low) low = height;
+    if (height > high) high = height;
   }
   return { low, high };
 }
 
 function median(xs: number[]): number {
   const s = [...xs].sort((a, b) => a - b);
-  return s[s.length >> 1]!;
+  return itemAt(s, s.length >> 1, 's');
 }
 
 export async function bench(): Promise<void> {

@@ -1,5 +1,5 @@
 // The baseline the benchmarks measure against: direct cosine sums at 1-minute steps.
-import { findConstituent, compileAstronomicalTerms } from '../../engine/index.js';
+import { compileAstronomicalTerms, entryOf, findConstituent, numberAt } from '../../engine/index.js';
 import type { ReferenceStation } from '../../engine/index.js';
 
 const DAY = 86_400_000;
@@ -17,8 +17,8 @@ export function directMinuteSeries(station: ReferenceStation, start: number, day
   const key = names.join(' ');
   const terms = compiled.get(key) ?? compileAstronomicalTerms(names);
   compiled.set(key, terms);
-  const H = Float64Array.from(names, (k) => station.constituents[k]!.amplitude);
-  const g = Float64Array.from(names, (k) => station.constituents[k]!.phase);
+  const H = Float64Array.from(names, (k) => entryOf(station.constituents, k, 'constituents').amplitude);
+  const g = Float64Array.from(names, (k) => entryOf(station.constituents, k, 'constituents').phase);
   const omegaPerMinute = Float64Array.from(names, (k) => (findConstituent(k)!.speed * DEG) / 60);
   const V = new Float64Array(n);
   const f = new Float64Array(n);
@@ -29,12 +29,12 @@ export function directMinuteSeries(station: ReferenceStation, start: number, day
   for (let d = 0; d < days; d++) {
     terms.evaluate(start + d * DAY, V, f, u);
     for (let k = 0; k < n; k++) {
-      amplitude[k] = f[k]! * H[k]!;
-      phase[k] = (V[k]! + u[k]! - g[k]!) * DEG;
+      amplitude[k] = numberAt(f, k, 'node factors') * numberAt(H, k, 'amplitudes');
+      phase[k] = (numberAt(V, k, 'equilibrium arguments') + numberAt(u, k, 'nodal angles') - numberAt(g, k, 'phase lags')) * DEG;
     }
     for (let m = 0; m < 1440; m++) {
       let h = station.mean_level;
-      for (let k = 0; k < n; k++) h += amplitude[k]! * Math.cos(phase[k]! + omegaPerMinute[k]! * m);
+      for (let k = 0; k < n; k++) h += numberAt(amplitude, k, 'amplitudes') * Math.cos(numberAt(phase, k, 'phases') + numberAt(omegaPerMinute, k, 'speeds') * m);
       out[d * 1440 + m] = h;
     }
   }

@@ -3,7 +3,7 @@
 //     loop (f, u and V₀ evaluated once a day, one cosine per constituent per step); target ≥ 3×;
 // (b) all high and low waters of that station-year: findExtrema against 1-minute sampling with direct
 //     cosines (which is also 60 times coarser in time); target ≥ 30×.
-import { findExtrema, compilePredictor, itemAt } from '../../engine/index.js';
+import { compilePredictor, findExtrema, itemAt, numberAt } from '../../engine/index.js';
 import { sixtyConstituentStation } from '../fixtures/engine-stations.js';
 import { directMinuteSeries } from './direct.js';
 
@@ -14,8 +14,12 @@ const RUNS = 15;
 /** High and low waters read off a sampled series (the sample nearest each turn). */
 function sampledExtrema(h: Float64Array): number {
   let events = 0;
-  for (let j = 1; j + 1 < h.length; j++) {
-    if ((h[j]! > h[j - 1]! && h[j]! >= h[j + 1]!) || (h[j]! < h[j - 1]! && h[j]! <= h[j + 1]!)) events++;
+  let before = h[0] ?? Number.NaN, here = h[1] ?? Number.NaN; // NaN compares false: fewer than 3 samples have no turn
+  for (let j = 2; j < h.length; j++) {
+    const after = numberAt(h, j, 'sampled heights');
+    if ((here > before && here >= after) || (here < before && here <= after)) events++;
+    before = here;
+    here = after;
   }
   return events;
 }
@@ -27,7 +31,7 @@ interface Timing {
 
 function median(values: number[]): number {
   const sorted = [...values].sort((a, b) => a - b);
-  return sorted[sorted.length >> 1]!;
+  return itemAt(sorted, sorted.length >> 1, 'timings');
 }
 
 // `npm run bench` starts node with --expose-gc
@@ -46,21 +50,19 @@ export function timeSideBySide(jobs: (() => unknown)[]): Timing[] {
     const t0 = performance.now();
     for (let r = 0; r < 10 || performance.now() - t0 < 1000; r++) job();
   }
-  const wall = jobs.map(() => [] as number[]);
-  const cpu = jobs.map(() => [] as number[]);
+  const runs = jobs.map((job) => ({ job, wall: [] as number[], cpu: [] as number[] }));
   for (let r = 0; r < RUNS; r++) {
     collectGarbage();
-    for (let i = jobs.length - 1; i >= 0; i--) {
-      const job = itemAt(jobs, i, 'benchmark jobs');
+    for (const { job, wall, cpu } of [...runs].reverse()) {
       const c0 = process.cpuUsage();
       const t0 = performance.now();
       job();
-      itemAt(wall, i, 'wall times').push(performance.now() - t0);
+      wall.push(performance.now() - t0);
       const c = process.cpuUsage(c0);
-      itemAt(cpu, i, 'CPU times').push((c.user + c.system) / 1000);
+      cpu.push((c.user + c.system) / 1000);
     }
   }
-  return jobs.map((_, i) => ({ wall: median(itemAt(wall, i, 'wall times')), cpu: median(itemAt(cpu, i, 'CPU times')) }));
+  return runs.map(({ wall, cpu }) => ({ wall: median(wall), cpu: median(cpu) }));
 }
 
 export function line(label: string, t: Timing): string {
@@ -82,7 +84,7 @@ export async function bench(): Promise<void> {
   const kernel = predictor.heights(start, MINUTE, days * 1440);
   const direct = directMinuteSeries(station, start, days);
   let worst = 0;
-  for (let j = 0; j < kernel.length; j++) worst = Math.max(worst, Math.abs(kernel[j]! - direct[j]!));
+  for (let j = 0; j < kernel.length; j++) worst = Math.max(worst, Math.abs(numberAt(kernel, j, 'kernel heights') - numberAt(direct, j, 'direct heights')));
   const [k, d] = timeSideBySide([
     () => predictor.heights(start, MINUTE, days * 1440),
     () => directMinuteSeries(station, start, days),

@@ -53,7 +53,7 @@ export async function bench(argv: readonly string[] = process.argv): Promise<voi
   const largest = lastOf(counts, 'station counts');
   const work = mkdtempSync(join(tmpdir(), 'tw-bench-national-'));
   try {
-    console.log(`national: ${availableParallelism()} cores, ${WORKERS} workers, load average ${loadavg()[0]!.toFixed(1)}`);
+    console.log(`national: ${availableParallelism()} cores, ${WORKERS} workers, load average ${firstOf(loadavg(), 'load averages').toFixed(1)}`);
     const runs = new Map<number, BuildRun>();
     for (const count of counts) {
       const stations = join(work, `stations-${count}`);
@@ -80,7 +80,7 @@ export async function bench(argv: readonly string[] = process.argv): Promise<voi
     const targets = largest === 1000
       ? `target 1,000 under ${s(TARGET_MS)}: ${big.ms < TARGET_MS ? 'met' : 'MISSED'}; peak under ${mib(TARGET_BYTES)}: ${big.maxRssBytes < TARGET_BYTES ? 'met' : 'MISSED'}; ` : '';
     console.log(`  ${targets}rebuild ${((rebuild.ms / big.ms) * 100).toFixed(1)} % of the full build (target under 10 %: ${rebuild.ms < big.ms / 10 ? 'met' : 'MISSED'}) `
-      + `(load average now ${loadavg()[0]!.toFixed(1)})`);
+      + `(load average now ${firstOf(loadavg(), 'load averages').toFixed(1)})`);
   } finally {
     rmSync(work, { recursive: true, force: true });
   }

@@ -3,7 +3,7 @@
 // (every station of a build after the first), and cold (the first station, which fills the grid);
 // beside it, the same events found one after another by astronomy-engine's SearchRiseSet.
 import { Body, Observer, SearchRiseSet } from 'astronomy-engine';
-import { localDays, createSkyEphemeris, skyForDays } from '../../engine/index.js';
+import { createSkyEphemeris, firstOf, itemAt, lastOf, localDays, skyForDays } from '../../engine/index.js';
 
 const DAY = 86_400_000;
 const RUNS = 5;
@@ -16,7 +16,7 @@ function medianMs(job: () => unknown): number {
     job();
     times.push(performance.now() - t0);
   }
-  return times.sort((a, b) => a - b)[RUNS >> 1]!;
+  return itemAt(times.sort((a, b) => a - b), RUNS >> 1, 'times');
 }
 
 export async function bench(): Promise<void> {
@@ -28,8 +28,8 @@ export async function bench(): Promise<void> {
     const warm = medianMs(() => skyForDays(days, position, zone, eph));
     const cold = medianMs(() => skyForDays(days, position, zone, createSkyEphemeris()));
     const observer = new Observer(position.latitude, position.longitude, 0);
-    const from = days[0]!.start;
-    const to = days[days.length - 1]!.end;
+    const from = firstOf(days, 'days').start;
+    const to = lastOf(days, 'days').end;
     const reference = medianMs(() => {
       for (const body of [Body.Sun, Body.Moon]) {
         for (const direction of [1, -1]) {

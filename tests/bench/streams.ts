@@ -2,13 +2,13 @@
 // stream station, and its whole StreamYear model, against a year of 1-minute velocities (the kernel on
 // both components) for scale. No target yet: figures to watch.
 import { join } from 'node:path';
-import { buildStreamYear, compileStreamPredictor, loadStationSet, streamEvents, type StreamStation } from '../../engine/index.js';
+import { buildStreamYear, compileStreamPredictor, itemAt, loadStationSet, streamEvents, type StreamStation } from '../../engine/index.js';
 
 const RUNS = 5;
 
 function median(xs: number[]): number {
   const s = [...xs].sort((a, b) => a - b);
-  return s[s.length >> 1]!;
+  return itemAt(s, s.length >> 1, 's');
 }
 
 export async function bench(): Promise<void> {

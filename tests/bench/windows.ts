@@ -13,7 +13,11 @@ const DAY = 86_400_000;
 function sampledCrossings(h: Float64Array, levels: readonly number[]): number {
   let n = 0;
   for (const level of levels) {
-    for (let j = 1; j < h.length; j++) if (h[j - 1]! >= level !== h[j]! >= level) n++;
+    let above: boolean | null = null;
+    for (const height of h) {
+      if (above !== null && height >= level !== above) n++;
+      above = height >= level;
+    }
   }
   return n;
 }

@@ -8,6 +8,7 @@ import { availableParallelism, loadavg, tmpdir } from 'node:os';
 import { dirname, join } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { generateStations } from './build.js';
+import { firstOf, itemAt } from '../../engine/index.js';
 
 function repoRoot(): string {
   let dir = dirname(fileURLToPath(import.meta.url));
@@ -54,7 +55,7 @@ export async function bench(stationCount = 200, workers = 2): Promise<void> {
   try {
     const stations = join(work, 'stations');
     generateStations(join(root, 'stations-demo'), stations, stationCount);
-    console.log(`years: ${stationCount} generated stations, ${workers} workers, ${availableParallelism()} cores, load average ${loadavg()[0]!.toFixed(1)}`);
+    console.log(`years: ${stationCount} generated stations, ${workers} workers, ${availableParallelism()} cores, load average ${firstOf(loadavg(), 'load averages').toFixed(1)}`);
     const runs: [string, number, Run][] = [];
     for (const [years, count] of [['2027', 1], ['2027-2029', 3]] as const) {
       const run = buildOnce(root, work, stations, join(work, `out-${count}`), years, workers);
@@ -65,11 +66,11 @@ export async function bench(stationCount = 200, workers = 2): Promise<void> {
         + `${(run.siteBytes / stationYears / 1024).toFixed(0)} KiB)`);
       rmSync(join(work, `out-${count}`), { recursive: true, force: true });
     }
-    const [, , one] = runs[0]!;
-    const [, , three] = runs[1]!;
+    const [, , one] = firstOf(runs, 'runs');
+    const [, , three] = itemAt(runs, 1, 'runs');
     const ratio = three.ms / (3 * one.ms);
     console.log(`  three years take ${(three.ms / one.ms).toFixed(2)}× one year: ${ratio.toFixed(2)} of linear `
-      + `(load average now ${loadavg()[0]!.toFixed(1)}); target linear in station-years (within 10 %): ${Math.abs(ratio - 1) <= 0.1 || ratio < 1 ? 'met' : 'MISSED'}`);
+      + `(load average now ${firstOf(loadavg(), 'load averages').toFixed(1)}); target linear in station-years (within 10 %): ${Math.abs(ratio - 1) <= 0.1 || ratio < 1 ? 'met' : 'MISSED'}`);
   } finally {
     rmSync(work, { recursive: true, force: true });
   }

@@ -5,7 +5,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, afterEach, describe, expect, it, vi } from 'vitest';
 import { runCli } from '../fixtures/run-cli.js';
-import { buildStationYear, loadStationSet } from '../../engine/index.js';
+import { buildStationYear, firstOf, loadStationSet } from '../../engine/index.js';
 import type { StationYear } from '../../engine/index.js';
 import { wordsFor } from '../../templates/locale/index.js';
 
@@ -29,7 +29,7 @@ describe('almanac --format json', () => {
     expect(printed).toEqual(JSON.parse(JSON.stringify({ ...model, caution: wordsFor().caution })));
     expect(printed.reference).toEqual({ id: 'brinewold-head', name: 'Brinewold Head (invented)' });
     expect(printed.events[0]).toEqual(model.events[0]);
-    expect(Object.keys(printed.events[0]!)).toEqual(['time', 'local', 'clock', 'date', 'offset', 'type', 'height', 'belowDatum']);
+    expect(Object.keys(firstOf(printed.events, 'events'))).toEqual(['time', 'local', 'clock', 'date', 'offset', 'type', 'height', 'belowDatum']);
     expect(printed.days[0]).toMatchObject({ date: '2027-01-01', weekday: 5, start: '2027-01-01T00:00:00Z' });
     expect(printed.tideType).toEqual({ formNumber: model.tideType.formNumber, kind: model.tideType.kind });
   });
@@ -37,7 +37,7 @@ describe('almanac --format json', () => {
   it('gives every day every sun and moon rise and set, in time order, the single fields as the first of each', async () => {
     // The demo station nearest a pole, where a day can hold two moonrises or two moonsets.
     const set = loadStationSet(DEMO);
-    const polar = [...set.stations].sort((a, b) => Math.abs(b.position.latitude) - Math.abs(a.position.latitude))[0]!;
+    const polar = firstOf([...set.stations].sort((a, b) => Math.abs(b.position.latitude) - Math.abs(a.position.latitude)), 'stations');
     const { code, stdout } = await runCli(['almanac', join(DEMO, `${polar.id}.yaml`), '--year', '2027', '--format', 'json']);
     expect(code).toBe(0);
     const printed = JSON.parse(stdout) as StationYear;

@@ -8,6 +8,7 @@ import { tmpdir } from 'node:os';
 import { dirname, join, resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { MAX_BUILD_YEARS, yearSpan } from '../../cli/years.js';
+import { itemAt } from '../../engine/index.js';
 
 const ROOT = join(import.meta.dirname, '..', '..');
 const BIN = join(ROOT, 'bin', 'tidewright.js');
@@ -39,7 +40,7 @@ const read = (path: string): string => readFileSync(join(out, path), 'utf8');
 function links(page: string, within = ''): string[] {
   const html = read(page);
   const scope = within ? (new RegExp(`<nav class="${within}"[\\s\\S]*?</nav>`).exec(html)?.[0] ?? '') : html;
-  return [...scope.matchAll(/href="([^"#]+)"/g)].map((m) => resolve(dirname(join(out, page)), m[1]!));
+  return [...scope.matchAll(/href="([^"#]+)"/g)].map((m) => resolve(dirname(join(out, page)), itemAt(m, 1, 'm')));
 }
 
 describe('a build of several years', () => {

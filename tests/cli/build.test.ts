@@ -9,6 +9,7 @@ import {
 import { tmpdir } from 'node:os';
 import { join, relative } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { itemAt } from '../../engine/index.js';
 
 const ROOT = join(import.meta.dirname, '..', '..');
 const BIN = join(ROOT, 'bin', 'tidewright.js');
@@ -167,12 +168,12 @@ describe('a broken station set', () => {
 
   it('lists every problem, not only the first', () => {
     const run = tidewright(['build', '--stations', stationSet((d) => {
-      faults[2]![1](d);
-      faults[4]![1](d);
+      itemAt(faults, 2, 'faults')[1](d);
+      itemAt(faults, 4, 'faults')[1](d);
     }), '--out', goodOut]);
     expect(run.code).toBe(1);
-    expect(run.stderr).toMatch(faults[2]![2]);
-    expect(run.stderr).toMatch(faults[4]![2]);
+    expect(run.stderr).toMatch(itemAt(faults, 2, 'faults')[2]);
+    expect(run.stderr).toMatch(itemAt(faults, 4, 'faults')[2]);
     expect(run.stderr).toMatch(/2 problems in the station files/);
   });
 });

@@ -5,7 +5,7 @@ import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync
 import { tmpdir } from 'node:os';
 import { dirname, join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { buildStationYear } from '../../engine/index.js';
+import { buildStationYear, firstOf } from '../../engine/index.js';
 import { StationFileError } from '../../engine/index.js';
 import { loadStationSet } from '../../engine/index.js';
 import { loadProjectFile } from '../../cli/build/project.js';
@@ -57,7 +57,7 @@ describe('the logo in the outputs', () => {
   it('is an image on the cover of a station book and of the combined book (pdfimages)', async () => {
     const station = join(dir, 'station.pdf');
     const combined = join(dir, 'combined.pdf');
-    writeFileSync(station, await renderStationBook(models[0]!, { units: 'm', page: 'a5', logo: pngLogo }));
+    writeFileSync(station, await renderStationBook(firstOf(models, 'models'), { units: 'm', page: 'a5', logo: pngLogo }));
     writeFileSync(combined, await renderCombinedBook(models, { units: 'm', page: 'a5', logo: pngLogo }));
     let lists: string[];
     try {
@@ -77,7 +77,7 @@ describe('the logo in the outputs', () => {
     await renderSite(models, out, { units: 'm', quiet: true, logo: join(dir, 'brand', 'logo.svg') });
     expect(readFileSync(join(out, 'assets', 'logo.svg'), 'utf8')).toBe(LOGO_SVG);
     expect(readFileSync(join(out, 'index.html'), 'utf8')).toContain('<img class="masthead-logo" src="assets/logo.svg" alt="">');
-    const station = readFileSync(join(out, models[0]!.station.id, '2027', 'index.html'), 'utf8');
+    const station = readFileSync(join(out, firstOf(models, 'models').station.id, '2027', 'index.html'), 'utf8');
     expect(station).toContain('<img class="masthead-logo" src="../../assets/logo.svg" alt="">');
     expect(existsSync(join(out, 'assets', 'logo.png'))).toBe(false);
   }, 60_000);

@@ -5,7 +5,7 @@ import { mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, symlinkSync,
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { compilePredictor } from '../../engine/index.js';
+import { compilePredictor, firstOf } from '../../engine/index.js';
 import type { ReferenceStation } from '../../engine/index.js';
 import { evenTimes, recordCsv, recordOf } from '../fixtures/analysis-records.js';
 import { runCli } from '../fixtures/run-cli.js';
@@ -52,7 +52,7 @@ const POSITION = ['--latitude', '47', '--longitude', '-16', '--timezone', 'UTC']
 function oneLine(stderr: string): string {
   const lines = stderr.trim().split('\n');
   expect(lines).toHaveLength(1);
-  return lines[0]!;
+  return firstOf(lines, 'lines');
 }
 
 describe('files written by analyse and differences', () => {

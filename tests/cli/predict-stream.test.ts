@@ -5,7 +5,7 @@
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { runCli } from '../fixtures/run-cli.js';
-import { loadStationSet, streamEventsFor, streamVelocities } from '../../engine/index.js';
+import { itemAt, loadStationSet, streamEventsFor, streamVelocities } from '../../engine/index.js';
 
 const ROOT = join(import.meta.dirname, '..', '..');
 const DEMO = join(ROOT, 'stations-demo');
@@ -27,7 +27,7 @@ describe('predict on a stream station', () => {
     expect(printed.length).toBe(expected.length);
     expect(printed.length).toBeGreaterThan(12);
     printed.forEach((p, i) => {
-      const e = expected[i]!;
+      const e = itemAt(expected, i, 'expected');
       expect(Object.keys(p)).toEqual(['station_id', 'time', 'time_local', 'type', 'speed_kn', 'direction_deg_true']);
       expect(p.station_id).toBe('wrackrun-narrows');
       expect(p.time).toBe(isoSecond(e.time));
@@ -50,9 +50,9 @@ describe('predict on a stream station', () => {
     const { east, north } = streamVelocities(set.streams!.find((s) => s.id === 'wrackrun-narrows')!, set, Date.parse('2027-01-01T00:00:00Z'), 600_000, 12);
     rows.forEach((r, i) => {
       expect(Object.keys(r)).toEqual(['station_id', 'time', 'time_local', 'speed_kn', 'direction_deg_true', 'east_kn', 'north_kn']);
-      expect(r.east_kn).toBe(Math.round(east[i]! * 100) / 100 + 0);
-      expect(r.north_kn).toBe(Math.round(north[i]! * 100) / 100 + 0);
-      expect(r.speed_kn).toBe(Math.round(Math.hypot(east[i]!, north[i]!) * 100) / 100);
+      expect(r.east_kn).toBe(Math.round(itemAt(east, i, 'east') * 100) / 100 + 0);
+      expect(r.north_kn).toBe(Math.round(itemAt(north, i, 'north') * 100) / 100 + 0);
+      expect(r.speed_kn).toBe(Math.round(Math.hypot(itemAt(east, i, 'east'), itemAt(north, i, 'north')) * 100) / 100);
     });
   });
 

@@ -6,7 +6,7 @@ import { cpSync, existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, write
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { buildStationYear, loadStationSet, StationFileError, type StationYear } from '../../engine/index.js';
+import { buildStationYear, firstOf, itemAt, loadStationSet, StationFileError, type StationYear } from '../../engine/index.js';
 import { loadProjectFile } from '../../cli/build/project.js';
 import { makePlan } from '../../cli/build/plan.js';
 import { parseBuildArgs } from '../../cli/build/args.js';
@@ -37,7 +37,7 @@ const flat = (s: string): string => s.replace(/\s+/g, ' ');
 
 beforeAll(async () => {
   models = set.stations.map((s) => buildStationYear(s, set, 2027));
-  writeFileSync(book, await renderStationBook(models[0]!, { ...plan.render, warn: (w) => placed.push(w) }));
+  writeFileSync(book, await renderStationBook(firstOf(models, 'models'), { ...plan.render, warn: (w) => placed.push(w) }));
   writeFileSync(combined, await renderCombinedBook(models, plan.render));
   await renderSite(models, site, { ...plan.render, quiet: true });
 }, 240_000);
@@ -73,14 +73,14 @@ describe('the publisher fixture', () => {
     expect(welcome).toBeGreaterThan(0);
     expect(notes).toBeGreaterThan(welcome);
     expect(january).toBeGreaterThan(notes);
-    expect(flat(pages[welcome]!)).toContain('Keep to 4 knots inside the breakwaters.');
+    expect(flat(itemAt(pages, welcome, 'pages'))).toContain('Keep to 4 knots inside the breakwaters.');
     const table = text(book, '-layout', '-f', String(notes + 1), '-l', String(notes + 1));
     expect(table).toMatch(/Visitors' pontoon\s+2\.4\s+60/);
     expect(table).toMatch(/Drying wall\s+dries 0\.6\s+45/);
-    expect(flat(pages[notes]!)).toContain('such as <b>this</b>, prints just as it is written');
+    expect(flat(itemAt(pages, notes, 'pages'))).toContain('such as <b>this</b>, prints just as it is written');
     expect(at('Imprint')).toBe(pages.filter((p) => p.trim() !== '').length - 1);
-    expect(flat(pages[at('Imprint')]!)).toContain('15 November 2026');
-    expect(flat(pages[at('Imprint')]!)).toContain('Test caution of the invented board');
+    expect(flat(itemAt(pages, at('Imprint'), 'pages'))).toContain('15 November 2026');
+    expect(flat(itemAt(pages, at('Imprint'), 'pages'))).toContain('Test caution of the invented board');
   });
 
   it.skipIf(!POPPLER)('draws the logo, the cover picture and the pages\' pictures as images (pdfimages)', () => {

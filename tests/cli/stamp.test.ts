@@ -6,7 +6,7 @@ import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { dirname, join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { buildStationYear } from '../../engine/index.js';
+import { buildStationYear, entryOf } from '../../engine/index.js';
 import { StationFileError, UsageError } from '../../engine/index.js';
 import { loadStationSet } from '../../engine/index.js';
 import { makePlan } from '../../cli/build/plan.js';
@@ -46,7 +46,7 @@ describe('outputStamp', () => {
     expect(() => makePlan(args, dir, new Date(), {})).toThrow(StationFileError);
     expect(() => makePlan(args, dir, new Date(), {}))
       .toThrow(/tidewright\.yaml: edition: "2026-11-31" is not a date written YYYY-MM-DD; write the date of this edition as YYYY-MM-DD/);
-    writeFileSync(join(dir, 'tidewright.yaml'), STARTER_FILES['tidewright.yaml']!);
+    writeFileSync(join(dir, 'tidewright.yaml'), entryOf(STARTER_FILES, 'tidewright.yaml', 'STARTER_FILES'));
   });
 });
 

@@ -4,6 +4,7 @@
 import { describe, expect, it } from 'vitest';
 import { planVolumes, volumeLength, type PlanStation } from '../../cli/build/volume-plan.js';
 import { indexEntries } from '../../cli/build/volumes.js';
+import { firstOf } from '../../engine/index.js';
 
 const frame = { front: (n: number) => 2 + Math.ceil(n / 40), back: 1 };
 const ref = (id: string, region?: string): PlanStation => ({ id, name: id, kind: 'reference', ...(region && { region }), sections: { full: [30, 31], compact: [30, 31] } });
@@ -23,8 +24,8 @@ describe('planning the combined volumes', () => {
     const plan = planVolumes(set(2, 1), { pages: 600 }, frame);
     expect(plan.mode).toBe('full');
     expect(plan.volumes).toHaveLength(1);
-    expect(plan.volumes[0]!.stations.map((s) => s.id)).toEqual(['r0', 's0-0', 'r1', 's1-0']);
-    expect(plan.volumes[0]!.stations.every((s) => !s.compact)).toBe(true);
+    expect(firstOf(plan.volumes, 'volumes').stations.map((s) => s.id)).toEqual(['r0', 's0-0', 'r1', 's1-0']);
+    expect(firstOf(plan.volumes, 'volumes').stations.every((s) => !s.compact)).toBe(true);
   });
 
   it('goes compact by default when it does not, and never passes the page limit', () => {
@@ -40,7 +41,7 @@ describe('planning the combined volumes', () => {
       for (const s of v.stations) if (s.id.startsWith('s')) expect(v.stations.some((r) => r.id === `r${s.id.slice(1).split('-')[0]}`)).toBe(true);
     }
     expect(plan.volumes.flatMap((v) => v.stations.map((s) => s.id))).toEqual(stations.map((s) => s.id));
-    expect(plan.volumes[0]!.label).toMatch(/^r0 \u2013 r\d+$/);
+    expect(firstOf(plan.volumes, 'volumes').label).toMatch(/^r0 \u2013 r\d+$/);
   });
 
   it('gives each region volumes of its own, A to Z, numbering the parts of a long one; secondary ports follow their reference', () => {

@@ -7,6 +7,7 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { FIRST_YEAR, LAST_YEAR } from '../../cli/years.js';
 import { loadProjectFile } from '../../cli/build/project.js';
 import { runCli } from '../fixtures/run-cli.js';
+import { firstOf } from '../../engine/index.js';
 
 const dir = mkdtempSync(join(tmpdir(), 'tw-years-'));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
@@ -30,7 +31,7 @@ async function refused(argv: string[]): Promise<string> {
   expect(stdout).toBe('');
   const lines = stderr.trim().split('\n');
   expect(lines).toHaveLength(1);
-  return lines[0]!;
+  return firstOf(lines, 'lines');
 }
 
 describe('the years every command accepts', () => {

@@ -6,6 +6,8 @@ import { dayIndexOf, isoUtc, localDays } from '../../engine/localtime.js';
 import { loadStationSet } from '../../engine/stations.js';
 import { predictorFor } from '../../engine/tides.js';
 import type { ReferenceStation, Station, StationYear } from '../../engine/types.js';
+import { firstOf, lastOf } from '../../engine/index.js';
+import { neighbours } from '../fixtures/lists.js';
 
 const HOUR = 3_600_000;
 const single = (s: Station) => ({ byId: new Map([[s.id, s]]) });
@@ -68,23 +70,23 @@ describe('daylight saving in the model', () => {
     const inA = a.events.filter((e) => e.local.startsWith('2027-10-31T01:'));
     const inB = b.events.filter((e) => e.local.startsWith('2027-10-31T01:'));
     expect(inA.length).toBe(1);
-    expect(inA[0]!.offset).toBe('+01:00');
-    expect(inA[0]!.local).toMatch(/^2027-10-31T01:3\d:\d\d\+01:00$/);
-    expect(inA[0]!.time).toMatch(/^2027-10-31T00:3/);
+    expect(firstOf(inA, 'inA').offset).toBe('+01:00');
+    expect(firstOf(inA, 'inA').local).toMatch(/^2027-10-31T01:3\d:\d\d\+01:00$/);
+    expect(firstOf(inA, 'inA').time).toMatch(/^2027-10-31T00:3/);
     expect(inB.length).toBe(1);
-    expect(inB[0]!.offset).toBe('+00:00');
-    expect(inB[0]!.local).toMatch(/^2027-10-31T01:3\d:\d\d\+00:00$/);
-    expect(inB[0]!.time).toMatch(/^2027-10-31T01:3/);
+    expect(firstOf(inB, 'inB').offset).toBe('+00:00');
+    expect(firstOf(inB, 'inB').local).toMatch(/^2027-10-31T01:3\d:\d\d\+00:00$/);
+    expect(firstOf(inB, 'inB').time).toMatch(/^2027-10-31T01:3/);
     // Same wall clock, different instants, each once on the day.
-    expect(inA[0]!.clock.slice(0, 3)).toBe(inB[0]!.clock.slice(0, 3));
-    expect(dayOf(a, '2027-10-31').events.filter((e) => e.time === inA[0]!.time).length).toBe(1);
-    expect(dayOf(b, '2027-10-31').events.filter((e) => e.time === inB[0]!.time).length).toBe(1);
+    expect(firstOf(inA, 'inA').clock.slice(0, 3)).toBe(firstOf(inB, 'inB').clock.slice(0, 3));
+    expect(dayOf(a, '2027-10-31').events.filter((e) => e.time === firstOf(inA, 'inA').time).length).toBe(1);
+    expect(dayOf(b, '2027-10-31').events.filter((e) => e.time === firstOf(inB, 'inB').time).length).toBe(1);
   });
 
   it('loses and duplicates no event: the model equals the extrema over the local year', () => {
     for (const [st, model] of [[first, a], [second, b]] as const) {
       const days = localDays(2027, st.timezone);
-      const expected = findExtrema(predictorFor(st), days[0]!.start - HOUR, days[days.length - 1]!.end + HOUR)
+      const expected = findExtrema(predictorFor(st), firstOf(days, 'days').start - HOUR, lastOf(days, 'days').end + HOUR)
         .filter((e) => dayIndexOf(days, e.time) >= 0);
       expect(model.events.map((e) => e.time)).toEqual(expected.map((e) => isoUtc(e.time)));
       expect(model.days.flatMap((d) => d.events)).toEqual(model.events);
@@ -148,7 +150,7 @@ describe('every demo station', () => {
         expect(d.curve.length).toBe(d.hours * 2 + 1);
         expect(d.range === null || d.range > 0).toBe(true);
       }
-      for (let i = 1; i < model.events.length; i++) expect(model.events[i]!.time > model.events[i - 1]!.time).toBe(true);
+      for (const [a, b] of neighbours(model.events)) expect(b.time > a.time).toBe(true);
       const { datums: d } = model;
       expect(d.LAT).toBeLessThanOrEqual(d.MLWS);
       expect(d.HAT).toBeGreaterThanOrEqual(d.MHWS);

@@ -8,6 +8,7 @@ import { parseStation } from '../../engine/stations.js';
 import { tideHeights } from '../../engine/tides.js';
 import type { ReferenceStation, SecondaryStation, Station } from '../../engine/types.js';
 import { DAY, HOUR, degrade, evenTimes, recordOf } from '../fixtures/analysis-records.js';
+import { entryOf, itemAt } from '../../engine/index.js';
 
 const MINUTE = 60_000;
 const START = Date.UTC(2027, 2, 1);
@@ -68,8 +69,8 @@ describe('recordExtrema', () => {
     const events = recordExtrema(recordOf(times, heights));
     expect(events.map((e) => e.type)).toEqual(truth.map((e) => e.type));
     events.forEach((e, i) => {
-      expect(Math.abs(e.time - truth[i]!.time) / MINUTE).toBeLessThan(0.5);
-      expect(Math.abs(e.height - truth[i]!.height)).toBeLessThan(0.001);
+      expect(Math.abs(e.time - itemAt(truth, i, 'truth').time) / MINUTE).toBeLessThan(0.5);
+      expect(Math.abs(e.height - itemAt(truth, i, 'truth').height)).toBeLessThan(0.001);
     });
   });
 
@@ -78,9 +79,9 @@ describe('recordExtrema', () => {
     expect(events.map((e) => e.type)).toEqual(truth.map((e) => e.type));
     let sumSq = 0;
     events.forEach((e, i) => {
-      sumSq += ((e.time - truth[i]!.time) / MINUTE) ** 2;
-      expect(Math.abs(e.time - truth[i]!.time) / MINUTE).toBeLessThan(10);
-      expect(Math.abs(e.height - truth[i]!.height)).toBeLessThan(0.025);
+      sumSq += ((e.time - itemAt(truth, i, 'truth').time) / MINUTE) ** 2;
+      expect(Math.abs(e.time - itemAt(truth, i, 'truth').time) / MINUTE).toBeLessThan(10);
+      expect(Math.abs(e.height - itemAt(truth, i, 'truth').height)).toBeLessThan(0.025);
     });
     expect(Math.sqrt(sumSq / events.length)).toBeLessThan(3.5);
   });
@@ -172,7 +173,7 @@ describe('analyseDifferences: a synthetic secondary built from known differences
   });
 
   it('refuses a reference port without S2 (springs and neaps cannot be told apart)', () => {
-    const noS2: ReferenceStation = { ...reference, constituents: { M2: reference.constituents['M2']! } };
+    const noS2: ReferenceStation = { ...reference, constituents: { M2: entryOf(reference.constituents, 'M2', 'constituents') } };
     expect(() => analyseDifferences(secondaryRecord(30, 10), noS2)).toThrow(/no S2 amplitude/);
   });
 });

@@ -5,6 +5,7 @@ import { analyseRecord, type HarmonicAnalysis } from '../../engine/analysis/harm
 import { expectedEquilibriumConstant } from '../fixtures/analysis-equilibrium.js';
 import { equilibriumTide, hourlyEphemeris, type Ephemeris } from '../fixtures/engine-equilibrium.js';
 import { DAY, HOUR, degrade, evenTimes, gaussian, recordOf, seededRandom } from '../fixtures/analysis-records.js';
+import { itemAt } from '../../engine/index.js';
 
 const START = Date.UTC(2026, 0, 1);
 const phaseGap = (a: number, b: number): number => Math.abs(((a - b + 540) % 360) - 180);
@@ -50,7 +51,7 @@ function cosineRecord(days: number, sigma: number, seed: number) {
   const normal = gaussian(seededRandom(seed));
   const heights = new Float64Array(times.length);
   for (let i = 0; i < times.length; i++) {
-    const hours = (times[i]! - START) / HOUR;
+    const hours = (itemAt(times, i, 'times') - START) / HOUR;
     heights[i] = 3 + 1.2 * Math.cos((28.9841042 * hours - 40) * Math.PI / 180) + sigma * normal();
   }
   return recordOf(times, heights);

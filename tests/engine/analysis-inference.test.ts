@@ -10,6 +10,7 @@ import { compilePredictor } from '../../engine/predict.js';
 import { loadStationSet } from '../../engine/stations.js';
 import type { ConstituentConstant, ReferenceStation } from '../../engine/types.js';
 import { HOUR, evenTimes, recordOf } from '../fixtures/analysis-records.js';
+import { entryOf, firstOf } from '../../engine/index.js';
 
 const DEMO = new URL('../../stations-demo/', import.meta.url).pathname;
 const START = Date.UTC(2027, 0, 1);
@@ -46,8 +47,8 @@ function unmodelledNear(x: string, station: ReferenceStation, a: HarmonicAnalysi
     const got = a.constituents.find((c) => c.name === y);
     if (got !== undefined && got.inferred === undefined) continue; // fitted: the record models it exactly
     const remainder = got?.inferred === undefined ? truth.amplitude : vectorGap(truth, {
-      amplitude: got.inferred.ratio * station.constituents[got.inferred.from]!.amplitude,
-      phase: station.constituents[got.inferred.from]!.phase,
+      amplitude: got.inferred.ratio * entryOf(station.constituents, got.inferred.from, 'constituents').amplitude,
+      phase: entryOf(station.constituents, got.inferred.from, 'constituents').phase,
     });
     const near = y === x || got?.inferred?.from === x || Math.abs(constituentSpeed(x) - constituentSpeed(y)) * hours < 360;
     if (near) sum += remainder;
@@ -84,7 +85,7 @@ describe('short records: inference by the equilibrium ratio', () => {
   });
 
   it('infers K2 and T2 from S2, P1 from K1, NU2 and 2N2 from N2 in 59 days, and says so', () => {
-    const a = analysed(demoReferencePorts[0]!, 59);
+    const a = analysed(firstOf(demoReferencePorts, 'demoReferencePorts'), 59);
     const inferred = Object.fromEntries(a.constituents.filter((c) => c.inferred).map((c) => [c.name, c.inferred!.from]));
     expect(inferred).toMatchObject({ K2: 'S2', T2: 'S2', P1: 'K1', NU2: 'N2', '2N2': 'N2' });
     const k2 = a.constituents.find((c) => c.name === 'K2')!;
@@ -93,7 +94,7 @@ describe('short records: inference by the equilibrium ratio', () => {
     expect(k2.phase).toBe(s2.phase);
     expect(a.excluded.map((e) => e.name)).not.toContain('K2');
     // and none of them is inferred from a year, which separates them all
-    const year = analysed(demoReferencePorts[0]!, 366);
+    const year = analysed(firstOf(demoReferencePorts, 'demoReferencePorts'), 366);
     expect(year.constituents.filter((c) => c.inferred)).toEqual([]);
   });
 

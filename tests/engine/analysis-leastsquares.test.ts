@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import {
   addObservation, choleskyFactor, createNormalEquations, normalMatrix, SingularSystemError, solveNormalEquations,
 } from '../../engine/analysis/leastsquares.js';
+import { itemAt } from '../../engine/index.js';
 
 describe('least squares by normal equations', () => {
   it('fits a straight line exactly as the textbook closed form does', () => {
@@ -23,7 +24,7 @@ describe('least squares by normal equations', () => {
       const a = 0.3 * t, b = 0.71 * t;
       row.set([1, Math.cos(a), Math.sin(a), Math.cos(b), Math.sin(b)]);
       let y = 0;
-      for (let k = 0; k < 5; k++) y += truth[k]! * row[k]!;
+      for (let k = 0; k < 5; k++) y += itemAt(truth, k, 'truth') * itemAt(row, k, 'row');
       addObservation(eq, row, y);
     }
     const x = solveNormalEquations(eq).coefficients;

@@ -4,6 +4,7 @@
 import { readdirSync, readFileSync, statSync } from 'node:fs';
 import { join, relative } from 'node:path';
 import { describe, expect, it } from 'vitest';
+import { itemAt } from '../../engine/index.js';
 
 const ROOT = join(import.meta.dirname, '..', '..');
 const SOURCE = /\.(ts|js|mjs|cjs)$/;
@@ -19,7 +20,7 @@ function sources(dir: string): string[] {
 // Every module specifier of a file: static imports and exports, and dynamic import().
 function specifiers(file: string): string[] {
   const text = readFileSync(file, 'utf8');
-  return [...text.matchAll(/(?:\bfrom\s*|\bimport\s*\(\s*|^\s*import\s+)(['"])([^'"]+)\1/gm)].map((m) => m[2]!);
+  return [...text.matchAll(/(?:\bfrom\s*|\bimport\s*\(\s*|^\s*import\s+)(['"])([^'"]+)\1/gm)].map((m) => itemAt(m, 2, 'm'));
 }
 
 describe('engine boundary', () => {

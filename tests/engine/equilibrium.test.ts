@@ -15,6 +15,7 @@ import {
   mean,
   type Ephemeris,
 } from '../fixtures/engine-equilibrium.js';
+import { firstOf, itemAt } from '../../engine/index.js';
 
 const START = Date.UTC(2027, 0, 1);
 const HOURS = 8760;
@@ -49,7 +50,7 @@ function equilibriumPhase(species: number, latitude: number, longitude: number):
 function equilibriumStation(latitude: number, longitude: number): ReferenceStation {
   const constituents: Record<string, ConstituentConstant> = {};
   for (const [name, amplitude] of Object.entries(EQUILIBRIUM)) {
-    const k = findConstituent(name)!.doodson[0]!;
+    const k = firstOf(findConstituent(name)!.doodson, 'Doodson numbers');
     constituents[name] = {
       amplitude: amplitude * Math.abs(latitudeFactor(k, latitude)),
       phase: equilibriumPhase(k, latitude, longitude),
@@ -92,7 +93,7 @@ describe('equilibrium tide from Moon and Sun positions', () => {
     // residual at the five main frequencies, fitted with a mean and a trend (the 18.6-year line), ≤ 3 mm
     const names = ['M2', 'S2', 'N2', 'K1', 'O1'];
     const omega = names.map((n) => findConstituent(n)!.speed * DEG);
-    const residual = Float64Array.from(direct, (v, j) => v - d0 - (engine[j]! - e0));
+    const residual = Float64Array.from(direct, (v, j) => v - d0 - (itemAt(engine, j, 'engine') - e0));
     const x = leastSquares(HOURS, 2 + 2 * names.length, (j, row) => {
       row[0] = 1;
       row[1] = j / HOURS;
@@ -102,7 +103,7 @@ describe('equilibrium tide from Moon and Sun positions', () => {
       });
     }, residual);
     names.forEach((name, i) => {
-      expect(Math.hypot(x[2 + 2 * i]!, x[3 + 2 * i]!), `${name} residual (m)`).toBeLessThanOrEqual(0.003);
+      expect(Math.hypot(itemAt(x, 2 + 2 * i, 'x'), itemAt(x, 3 + 2 * i, 'x')), `${name} residual (m)`).toBeLessThanOrEqual(0.003);
     });
   });
 
@@ -123,14 +124,14 @@ describe('equilibrium tide from Moon and Sun positions', () => {
         row[0] = 1;
         row[1] = j / HOURS;
         for (let k = 0; k < n; k++) {
-          row[2 + 2 * k] = f[k]! * Math.cos((V[k]! + u[k]!) * DEG);
-          row[3 + 2 * k] = f[k]! * Math.sin((V[k]! + u[k]!) * DEG);
+          row[2 + 2 * k] = itemAt(f, k, 'f') * Math.cos((itemAt(V, k, 'V') + itemAt(u, k, 'u')) * DEG);
+          row[3 + 2 * k] = itemAt(f, k, 'f') * Math.sin((itemAt(V, k, 'V') + itemAt(u, k, 'u')) * DEG);
         }
       }, y);
       // y ≈ Σ H cos(V + u − g) = Σ H cos g·cos(V + u) + H sin g·sin(V + u)
       return new Map(names.map((name, k) => {
-        const a = x[2 + 2 * k]!;
-        const b = x[3 + 2 * k]!;
+        const a = itemAt(x, 2 + 2 * k, 'x');
+        const b = itemAt(x, 3 + 2 * k, 'x');
         return [name, { H: Math.hypot(a, b), g: ((Math.atan2(b, a) / DEG) % 360 + 360) % 360 }];
       }));
     };
@@ -149,7 +150,7 @@ describe('equilibrium tide from Moon and Sun positions', () => {
       let checked = 0;
       for (const name of names) {
         if (name === 'TAU1') continue;
-        const k = findConstituent(name)!.doodson[0]!;
+        const k = firstOf(findConstituent(name)!.doodson, 'Doodson numbers');
         const [latitude, longitude, result] = k === 1 ? [45, -70, midLatitude] : [0, 40, equator];
         const { H, g } = result.get(name)!;
         if (H < 0.0008) continue;

@@ -3,6 +3,8 @@ import { findExtrema } from '../../engine/extrema.js';
 import { compilePredictor, type Predictor } from '../../engine/predict.js';
 import type { ReferenceStation, TideEvent } from '../../engine/types.js';
 import { diurnalStation, doubleHighStation, sixtyConstituentStation, standStation } from '../fixtures/engine-stations.js';
+import { itemAt } from '../../engine/index.js';
+import { neighbours } from '../fixtures/lists.js';
 
 const SECOND = 1000;
 const HOUR = 3_600_000;
@@ -15,8 +17,8 @@ function bruteForce(predictor: Predictor, start: number, end: number): TideEvent
   const events: TideEvent[] = [];
   for (let j = 1; j <= count; j++) {
     const time = start + (j - 1) * SECOND;
-    if (h[j]! > h[j - 1]! && h[j]! >= h[j + 1]!) events.push({ time, type: 'high', height: h[j]! });
-    else if (h[j]! < h[j - 1]! && h[j]! <= h[j + 1]!) events.push({ time, type: 'low', height: h[j]! });
+    if (itemAt(h, j, 'h') > itemAt(h, j - 1, 'h') && itemAt(h, j, 'h') >= itemAt(h, j + 1, 'h')) events.push({ time, type: 'high', height: itemAt(h, j, 'h') });
+    else if (itemAt(h, j, 'h') < itemAt(h, j - 1, 'h') && itemAt(h, j, 'h') <= itemAt(h, j + 1, 'h')) events.push({ time, type: 'low', height: itemAt(h, j, 'h') });
   }
   return events;
 }
@@ -24,7 +26,7 @@ function bruteForce(predictor: Predictor, start: number, end: number): TideEvent
 function expectSameEvents(found: TideEvent[], reference: TideEvent[]): void {
   expect(found.length).toBe(reference.length);
   found.forEach((e, i) => {
-    const r = reference[i]!;
+    const r = itemAt(reference, i, 'reference');
     expect(e.type, `event ${i}`).toBe(r.type);
     expect(Math.abs(e.time - r.time), `event ${i} time (ms)`).toBeLessThanOrEqual(SECOND);
     expect(Math.abs(e.height - r.height), `event ${i} height (m)`).toBeLessThan(0.001);
@@ -48,7 +50,7 @@ describe('high and low waters', () => {
     const predictor = compilePredictor(make());
     const found = findExtrema(predictor, start, end);
     expectSameEvents(found, bruteForce(predictor, start, end));
-    for (let i = 1; i < found.length; i++) expect(found[i]!.type).not.toBe(found[i - 1]!.type);
+    for (const [a, b] of neighbours(found)) expect(b.type).not.toBe(a.type);
     expect(found.every((e) => e.time >= start && e.time < end)).toBe(true);
   });
 
@@ -57,7 +59,7 @@ describe('high and low waters', () => {
     // a high, a low less than 0.3 m below it and another high, all within four hours: nearly every tide
     const doubles = found.filter((e, i) => {
       const next = found[i + 2];
-      return e.type === 'high' && next && next.time - e.time < 4 * HOUR && e.height - found[i + 1]!.height < 0.3;
+      return e.type === 'high' && next && next.time - e.time < 4 * HOUR && e.height - itemAt(found, i + 1, 'found').height < 0.3;
     });
     expect(doubles.length).toBeGreaterThan(40);
   });
@@ -99,8 +101,8 @@ describe('high and low waters', () => {
     const pieces = [...findExtrema(predictor, start, cut), ...findExtrema(predictor, cut, end)];
     expect(pieces.length).toBe(whole.length);
     pieces.forEach((e, i) => {
-      expect(Math.abs(e.time - whole[i]!.time)).toBeLessThanOrEqual(1);
-      expect(e.height).toBeCloseTo(whole[i]!.height, 7);
+      expect(Math.abs(e.time - itemAt(whole, i, 'whole').time)).toBeLessThanOrEqual(1);
+      expect(e.height).toBeCloseTo(itemAt(whole, i, 'whole').height, 7);
     });
   });
 

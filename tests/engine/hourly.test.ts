@@ -4,6 +4,7 @@ import { localDays } from '../../engine/localtime.js';
 import { cosineCurve, predictorFor, tideEvents } from '../../engine/tides.js';
 import type { ReferenceStation, SecondaryStation, Station } from '../../engine/types.js';
 import { diurnalStation, standStation } from '../fixtures/engine-stations.js';
+import { firstOf, itemAt } from '../../engine/index.js';
 
 const HOUR = 3_600_000;
 const DAY = 86_400_000;
@@ -43,7 +44,7 @@ describe('hourly heights on the local hour', () => {
     const station = inZone('UTC');
     const days = localDays(2027, 'UTC').slice(0, 40);
     const year = hourlyHeights(station, set(station), days, []);
-    const direct = predictorFor(station).heights(days[0]!.start, HOUR, 40 * 24);
+    const direct = predictorFor(station).heights(firstOf(days, 'days').start, HOUR, 40 * 24);
     expect(year.days.flatMap((d) => d.heights)).toEqual(Array.from(direct, (h) => Math.round(h * 1000) / 1000 + 0));
 
     const reference = diurnalStation();
@@ -56,10 +57,10 @@ describe('hourly heights on the local hour', () => {
       },
     };
     const both = set(reference, secondary);
-    const events = tideEvents(secondary, both, days[0]!.start - 3 * DAY, days[39]!.end + 3 * DAY);
+    const events = tideEvents(secondary, both, firstOf(days, 'days').start - 3 * DAY, itemAt(days, 39, 'days').end + 3 * DAY);
     const curve = hourlyHeights(secondary, both, days, events);
     expect(curve.method).toBe('secondary-curve');
-    const expected = cosineCurve(events, days[0]!.start, HOUR, 40 * 24);
+    const expected = cosineCurve(events, firstOf(days, 'days').start, HOUR, 40 * 24);
     expect(curve.days.flatMap((d) => d.heights)).toEqual(Array.from(expected, (h) => Math.round(h * 1000) / 1000 + 0));
   });
 });

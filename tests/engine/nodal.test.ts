@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { fundamentalArguments, type FundamentalArguments } from '../../engine/astro.js';
 import { findConstituent } from '../../engine/constituents.js';
 import { equilibriumArguments, nodeFactors, nodeFactorsFromArguments } from '../../engine/nodal.js';
+import { entryOf, firstOf, itemAt } from '../../engine/index.js';
 
 const at = (N: number, p = 0): FundamentalArguments => ({ T: 0, s: 0, h: 0, p, N, pp: 0 });
 
@@ -16,8 +17,8 @@ describe('node factors', () => {
     for (const N of [0, 180]) {
       const { f, u } = nodeFactorsFromArguments(names, at(N));
       names.forEach((name, k) => {
-        expect(Math.abs(f[k]! - table[N]![k]!), `${name} at N = ${N}`).toBeLessThan(0.002);
-        expect(Math.abs(u[k]!), `u of ${name} at N = ${N}`).toBeLessThan(1e-9); // ν = ξ = 0 there
+        expect(Math.abs(itemAt(f, k, 'f') - itemAt(entryOf(table, N, 'table'), k, 'table row')), `${name} at N = ${N}`).toBeLessThan(0.002);
+        expect(Math.abs(itemAt(u, k, 'u')), `u of ${name} at N = ${N}`).toBeLessThan(1e-9); // ν = ξ = 0 there
       });
     }
   });
@@ -30,9 +31,9 @@ describe('node factors', () => {
     const steps = 3600;
     for (let k = 0; k < steps; k++) {
       const { f } = nodeFactorsFromArguments(names, at((360 * k) / steps));
-      f.forEach((v, i) => (sums[i]! += v / steps));
+      f.forEach((v, i) => (sums[i] = itemAt(sums, i, 'sums') + v / steps));
     }
-    names.forEach((name, i) => expect(Math.abs(sums[i]! - 1), name).toBeLessThan(0.01));
+    names.forEach((name, i) => expect(Math.abs(itemAt(sums, i, 'sums') - 1), name).toBeLessThan(0.01));
   });
 
   it('give compounds the product of their parents\' f and the sum of their u', () => {
@@ -60,14 +61,14 @@ describe('node factors', () => {
     const rad = Math.PI / 180;
     const I = 28.597 * rad;
     const { f, u } = nodeFactorsFromArguments(['L2', 'M1', 'M2', 'O1'], at(0, 0));
-    expect(f[0]! / f[2]!).toBeCloseTo(1 - 6 * Math.tan(I / 2) ** 2, 3);
-    expect(f[1]! / f[3]!).toBeCloseTo(0.5 + (1.5 * Math.cos(I)) / Math.cos(I / 2) ** 2, 3);
+    expect(firstOf(f, 'f') / itemAt(f, 2, 'f')).toBeCloseTo(1 - 6 * Math.tan(I / 2) ** 2, 3);
+    expect(itemAt(f, 1, 'f') / itemAt(f, 3, 'f')).toBeCloseTo(0.5 + (1.5 * Math.cos(I)) / Math.cos(I / 2) ** 2, 3);
     expect(u[0]).toBeCloseTo(0, 9);
     expect(u[1]).toBeCloseTo(0, 9);
     // with the perigee at 90°, cos 2P = −1: 1/Ra = 1 + 6 tan²½I, 1/Qa = |1.5 cos I / cos²½I − ½|
     const q = nodeFactorsFromArguments(['L2', 'M1', 'M2', 'O1'], at(0, 90));
-    expect(q.f[0]! / q.f[2]!).toBeCloseTo(1 + 6 * Math.tan(I / 2) ** 2, 3);
-    expect(q.f[1]! / q.f[3]!).toBeCloseTo((1.5 * Math.cos(I)) / Math.cos(I / 2) ** 2 - 0.5, 3);
+    expect(firstOf(q.f, 'f') / itemAt(q.f, 2, 'f')).toBeCloseTo(1 + 6 * Math.tan(I / 2) ** 2, 3);
+    expect(itemAt(q.f, 1, 'f') / itemAt(q.f, 3, 'f')).toBeCloseTo((1.5 * Math.cos(I)) / Math.cos(I / 2) ** 2 - 0.5, 3);
   });
 });
 
@@ -93,7 +94,7 @@ describe('equilibrium arguments', () => {
     const V1 = equilibriumArguments(names, t0 + hours * 3_600_000);
     names.forEach((name, k) => {
       const expected = (findConstituent(name)!.speed * hours) % 360;
-      const got = (((V1[k]! - V0[k]!) % 360) + 360) % 360;
+      const got = (((itemAt(V1, k, 'V1') - itemAt(V0, k, 'V0')) % 360) + 360) % 360;
       expect(got, name).toBeCloseTo(expected, 6);
     });
   });

@@ -6,6 +6,7 @@ import { describe, expect, it } from 'vitest';
 import { localDays } from '../../engine/localtime.js';
 import { createSkyEphemeris, skyCrossings, skyForDays, type Crossing, type SkyBody } from '../../engine/sky.js';
 import type { Position } from '../../engine/types.js';
+import { firstOf, itemAt, lastOf } from '../../engine/index.js';
 
 const DAY = 86_400_000;
 const MINUTE = 60_000;
@@ -49,7 +50,7 @@ describe('every rise and set of 2027 near the polar circles', () => {
         const mine = skyCrossings(body, from, to, position, eph);
         const theirs = reference(body, position, from, to);
         expect(mine.map((c) => c.direction)).toEqual(theirs.map((c) => c.direction));
-        const worst = Math.max(...mine.map((c, i) => Math.abs(c.time - theirs[i]!.time)));
+        const worst = Math.max(...mine.map((c, i) => Math.abs(c.time - itemAt(theirs, i, 'theirs').time)));
         expect(worst).toBeLessThanOrEqual(TOLERANCE_MS);
         // Sanity of the count: below the circle the Sun rises and sets every day.
         if (body === 'sun' && Math.abs(position.latitude) === 60) expect(mine).toHaveLength(730);
@@ -63,12 +64,12 @@ describe('every rise and set of 2027 near the polar circles', () => {
     const days = localDays(2027, zone);
     const sky = skyForDays(days, position, zone, eph);
     const all = [
-      ...skyCrossings('sun', days[0]!.start - DAY, days[days.length - 1]!.end + DAY, position, eph).map((c) => ({ ...c, body: 'sun' })),
-      ...skyCrossings('moon', days[0]!.start - DAY, days[days.length - 1]!.end + DAY, position, eph).map((c) => ({ ...c, body: 'moon' })),
+      ...skyCrossings('sun', firstOf(days, 'days').start - DAY, lastOf(days, 'days').end + DAY, position, eph).map((c) => ({ ...c, body: 'sun' })),
+      ...skyCrossings('moon', firstOf(days, 'days').start - DAY, lastOf(days, 'days').end + DAY, position, eph).map((c) => ({ ...c, body: 'moon' })),
     ];
     let held = 0;
     sky.forEach((s, i) => {
-      const { start, end } = days[i]!;
+      const { start, end } = itemAt(days, i, 'days');
       const expected = all
         .filter((c) => Math.round(c.time / MINUTE) * MINUTE >= start && Math.round(c.time / MINUTE) * MINUTE < end)
         .sort((a, b) => a.time - b.time)
@@ -97,7 +98,7 @@ describe('the cases of the polar-circle report, at its latitude 69.68°N, in ope
   const observer = new Observer(position.latitude, position.longitude, 0);
   const days = localDays(2027, zone);
   const sky = skyForDays(days, position, zone, createSkyEphemeris());
-  const on = (date: string) => sky[days.findIndex((d) => d.date === date)]!;
+  const on = (date: string) => itemAt(sky, days.findIndex((d) => d.date === date), 'sky');
   const clockOf = (t: number) => new Date(Math.round(t / MINUTE) * MINUTE + 2 * 3_600_000).toISOString().slice(11, 16); // CEST
   const list = (date: string) => on(date).events.map((e) => `${e.body} ${e.type} ${clockOf(e.time)}`);
   const expectNear = (t: number, iso: string) => expect(Math.abs(t - Date.parse(iso))).toBeLessThanOrEqual(TOLERANCE_MS);
@@ -108,7 +109,7 @@ describe('the cases of the polar-circle report, at its latitude 69.68°N, in ope
     for (const s of doubles) {
       const rises = s.events.filter((e) => e.body === 'moon' && e.type === 'rise');
       for (const r of rises) expectNear(r.time, SearchRiseSet(Body.Moon, observer, 1, new Date(r.time - 30 * MINUTE), 1)!.date.toISOString());
-      expect(s.moonrise).toBe(rises[0]!.time);
+      expect(s.moonrise).toBe(firstOf(rises, 'rises').time);
     }
   });
 

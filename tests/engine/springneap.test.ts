@@ -5,6 +5,8 @@ import { moonQuarters } from '../../engine/sky.js';
 import { dayRange, springNeapMarkers } from '../../engine/springneap.js';
 import { tideEvents } from '../../engine/tides.js';
 import type { ReferenceStation, TideEvent } from '../../engine/types.js';
+import { firstOf, lastOf } from '../../engine/index.js';
+import { neighbours } from '../fixtures/lists.js';
 
 const DAY = 86_400_000;
 const HOUR = 3_600_000;
@@ -19,8 +21,8 @@ function station(constituents: ReferenceStation['constituents']): ReferenceStati
 
 function markersFor(st: ReferenceStation, year: number) {
   const days = [...localDays(year - 1, 'UTC').slice(-20), ...localDays(year, 'UTC'), ...localDays(year + 1, 'UTC').slice(0, 20)];
-  const from = days[0]!.start - DAY;
-  const to = days[days.length - 1]!.end + DAY;
+  const from = firstOf(days, 'days').start - DAY;
+  const to = lastOf(days, 'days').end + DAY;
   const events = tideEvents(st, { byId: new Map([[st.id, st]]) }, from, to);
   const quarters = moonQuarters(from - 20 * DAY, to);
   const markers = springNeapMarkers(events, days, quarters, ageOfTideHours(st.constituents))
@@ -52,7 +54,7 @@ describe('springs and neaps from the station\'s own range', () => {
 
   it('finds one spring per syzygy and one neap per quadrature, alternating', () => {
     const { markers, quarters } = markersFor(semidiurnal, 2027);
-    for (let i = 1; i < markers.length; i++) expect(markers[i]!.kind).not.toBe(markers[i - 1]!.kind);
+    for (const [a, b] of neighbours(markers)) expect(b.kind).not.toBe(a.kind);
     const syzygies = quarters.filter((q) => q.phase === 'new' || q.phase === 'full').length;
     const springs = markers.filter((m) => m.kind === 'spring');
     expect(Math.abs(springs.length - syzygies)).toBeLessThanOrEqual(1);
@@ -81,11 +83,11 @@ describe('springs and neaps from the station\'s own range', () => {
       K1: { amplitude: 0.4, phase: 200 }, O1: { amplitude: 0.3, phase: 180 },
     });
     const { markers } = markersFor(mixed, 2027);
-    for (let i = 1; i < markers.length; i++) {
-      expect(markers[i]!.kind).not.toBe(markers[i - 1]!.kind);
+    for (const [a, b] of neighbours(markers)) {
+      expect(b.kind).not.toBe(a.kind);
       // A spring and the next neap: a few days apart even where the declination cycle (13.66 d)
       // and the phase cycle (14.77 d) of a mixed tide beat against each other.
-      expect(markers[i]!.time - markers[i - 1]!.time).toBeGreaterThan(3 * DAY);
+      expect(b.time - a.time).toBeGreaterThan(3 * DAY);
     }
     const springs = markers.filter((m) => m.kind === 'spring').length;
     expect(springs).toBeGreaterThanOrEqual(20);

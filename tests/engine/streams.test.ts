@@ -11,6 +11,7 @@ import {
   compileStreamPredictor, streamEvents, streamEventsFor, streamVelocities, type StreamEvent, type StreamStation,
 } from '../../engine/streams.js';
 import type { ReferenceStation } from '../../engine/types.js';
+import { entryOf, firstOf, itemAt, lastOf } from '../../engine/index.js';
 
 const DAY = 86_400_000;
 const MINUTE = 60_000;
@@ -46,10 +47,10 @@ function directVelocity(station: StreamStation, t: number): [number, number] {
   let east = station.mean_current.east;
   let north = station.mean_current.north;
   names.forEach((name, k) => {
-    const e = station.constituents[name]!;
-    const theta = (V[k]! + u[k]! - e.phase) * DEG;
-    const x = f[k]! * e.major * Math.cos(theta);
-    const y = f[k]! * e.minor * Math.sin(theta);
+    const e = entryOf(station.constituents, name, 'constituents');
+    const theta = (itemAt(V, k, 'V') + itemAt(u, k, 'u') - e.phase) * DEG;
+    const x = itemAt(f, k, 'f') * e.major * Math.cos(theta);
+    const y = itemAt(f, k, 'f') * e.minor * Math.sin(theta);
     const phi = e.inclination * DEG;
     east += x * Math.cos(phi) - y * Math.sin(phi);
     north += x * Math.sin(phi) + y * Math.cos(phi);
@@ -64,7 +65,7 @@ describe('the velocity kernel', () => {
     let worst = 0;
     for (let i = 0; i < count; i++) {
       const [e, n] = directVelocity(rotaryish, JAN + i * MINUTE);
-      worst = Math.max(worst, Math.abs(east[i]! - e), Math.abs(north[i]! - n));
+      worst = Math.max(worst, Math.abs(itemAt(east, i, 'east') - e), Math.abs(itemAt(north, i, 'north') - n));
     }
     expect(worst).toBeLessThan(1e-6);
   });
@@ -108,7 +109,7 @@ describe('a to-and-fro stream is the height engine on its axis', () => {
     expect(extrema.every((x) => (x.type === 'high' ? x.height > 0 : x.height < 0))).toBe(true);
     expect(maxima.length).toBe(extrema.length);
     maxima.forEach((m, i) => {
-      const x = extrema[i]!;
+      const x = itemAt(extrema, i, 'extrema');
       expect(m.type).toBe(x.type === 'high' ? 'flood' : 'ebb');
       expect(Math.abs(m.time - x.time)).toBeLessThanOrEqual(1000);
       expect(m.speed).toBeCloseTo(Math.abs(x.height), 6);
@@ -122,8 +123,8 @@ describe('a to-and-fro stream is the height engine on its axis', () => {
     // zero crossings of the height curve between each high and the next low, by plain bisection to 1 ms
     const crossings: number[] = [];
     for (let i = 0; i + 1 < extrema.length; i++) {
-      let lo = extrema[i]!.time;
-      let hi = extrema[i + 1]!.time;
+      let lo = itemAt(extrema, i, 'extrema').time;
+      let hi = itemAt(extrema, i + 1, 'extrema').time;
       const sLo = Math.sign(predictor.heightAt(lo));
       while (hi - lo > 1) {
         const mid = (lo + hi) / 2;
@@ -132,10 +133,10 @@ describe('a to-and-fro stream is the height engine on its axis', () => {
       }
       crossings.push(lo);
     }
-    const inside = slacks.filter((s) => s.time > extrema[0]!.time && s.time < extrema[extrema.length - 1]!.time);
+    const inside = slacks.filter((s) => s.time > firstOf(extrema, 'extrema').time && s.time < lastOf(extrema, 'extrema').time);
     expect(inside.length).toBe(crossings.length);
     inside.forEach((s, i) => {
-      expect(Math.abs(s.time - crossings[i]!)).toBeLessThanOrEqual(1000);
+      expect(Math.abs(s.time - itemAt(crossings, i, 'crossings'))).toBeLessThanOrEqual(1000);
       expect(s.speed).toBeLessThan(1e-4);
       expect(s.direction).toBeNull();
     });
@@ -149,9 +150,9 @@ function bruteSlacks(station: StreamStation, from: number, to: number): number[]
   const fx = Math.sin(station.flood_direction * DEG);
   const fy = Math.cos(station.flood_direction * DEG);
   const out: number[] = [];
-  let previous = east[0]! * fx + north[0]! * fy;
+  let previous = firstOf(east, 'east') * fx + firstOf(north, 'north') * fy;
   for (let i = 1; i < count; i++) {
-    const s = east[i]! * fx + north[i]! * fy;
+    const s = itemAt(east, i, 'east') * fx + itemAt(north, i, 'north') * fy;
     if (previous >= 0 !== s >= 0) out.push(from + i * 1000 - 500);
     previous = s;
   }
@@ -170,7 +171,7 @@ describe('slack water against 1-second brute force over a month', () => {
       expect(nearest).toBeLessThanOrEqual(30_000);
     }
     // and no sign change is left without its slack (none in this stream turns back within a minute)
-    expect(brute.filter((t) => t > slacks[0]!.time - 60_000 && t < slacks[slacks.length - 1]!.time + 60_000).length).toBe(slacks.length);
+    expect(brute.filter((t) => t > firstOf(slacks, 'slacks').time - 60_000 && t < lastOf(slacks, 'slacks').time + 60_000).length).toBe(slacks.length);
   });
 
   test('a rotary stream: slack is the least speed between the maxima, with that speed', () => {
@@ -188,13 +189,13 @@ describe('slack water against 1-second brute force over a month', () => {
     const { east, north } = streamVelocities(rotary, {}, from, 1000, count);
     const speedAt = (t: number) => {
       const i = Math.round((t - from) / 1000);
-      return Math.hypot(east[i]!, north[i]!);
+      return Math.hypot(itemAt(east, i, 'east'), itemAt(north, i, 'north'));
     };
     let checked = 0;
     events.forEach((e, k) => {
       if (e.type !== 'slack' || k === 0 || k === events.length - 1) return;
-      const a = events[k - 1]!.time;
-      const b = events[k + 1]!.time;
+      const a = itemAt(events, k - 1, 'events').time;
+      const b = itemAt(events, k + 1, 'events').time;
       let best = a;
       for (let t = a; t <= b; t += 1000) if (speedAt(t) < speedAt(best)) best = t;
       expect(Math.abs(best - e.time)).toBeLessThanOrEqual(30_000);
@@ -237,7 +238,7 @@ describe('stream-secondary stations', () => {
       const shifts = { flood: 15, ebb: 5 } as Record<string, number>;
       const match = ref.find((r) => r.type === e.type && (e.type === 'slack'
         ? [20, -10].some((m) => r.time + m * MINUTE === e.time)
-        : r.time + shifts[e.type]! * MINUTE === e.time));
+        : r.time + entryOf(shifts, e.type, 'shifts') * MINUTE === e.time));
       expect(match, `${e.type} at ${new Date(e.time).toISOString()}`).toBeDefined();
       if (e.type === 'flood') {
         expect(e.speed).toBeCloseTo(match!.speed * 0.8, 12);
@@ -255,7 +256,7 @@ describe('stream-secondary stations', () => {
     const ref = streamEventsFor(rotaryish, set, JAN, JAN + 4 * DAY);
     sec.forEach((e, i) => {
       if (e.type !== 'slack' || i + 1 >= sec.length) return;
-      const next = sec[i + 1]!;
+      const next = itemAt(sec, i + 1, 'sec');
       const shift = next.type === 'flood' ? 20 : -10;
       expect(ref.some((r) => r.type === 'slack' && r.time + shift * MINUTE === e.time)).toBe(true);
     });
@@ -265,7 +266,7 @@ describe('stream-secondary stations', () => {
     const sec = streamEventsFor(secondary, set, JAN + DAY, JAN + 2 * DAY);
     const flood = sec.find((e) => e.type === 'flood')!;
     const { east, north } = streamVelocities(secondary, set, flood.time, MINUTE, 1);
-    expect(Math.hypot(east[0]!, north[0]!)).toBeCloseTo(flood.speed, 9);
-    expect(east[0]!).toBeCloseTo(flood.speed, 9); // the flood sets toward 90°: due east
+    expect(Math.hypot(firstOf(east, 'east'), firstOf(north, 'north'))).toBeCloseTo(flood.speed, 9);
+    expect(firstOf(east, 'east')).toBeCloseTo(flood.speed, 9); // the flood sets toward 90°: due east
   });
 });

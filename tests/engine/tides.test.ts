@@ -5,6 +5,7 @@ import { springNeapFactor, springNeapRanges } from '../../engine/secondary.js';
 import { createEngineContext } from '../../engine/context.js';
 import { cosineCurve, predictorFor, tideEvents, tideHeights } from '../../engine/tides.js';
 import type { ReferenceStation, SecondaryStation, Station, TideEvent } from '../../engine/types.js';
+import { firstOf, itemAt } from '../../engine/index.js';
 
 const HOUR = 3_600_000;
 const DAY = 24 * HOUR;
@@ -61,8 +62,8 @@ describe('tide facade: secondary ports', () => {
       // for these differences even extrapolated), then redo the method by its definition.
       const i = refEvents.findIndex((r) => r.type === e.type && e.time - r.time >= 0 && e.time - r.time <= 90 * MINUTE);
       expect(i).toBeGreaterThan(0);
-      const r = refEvents[i]!;
-      const range = Math.abs(r.height - refEvents[i + 1]!.height);
+      const r = itemAt(refEvents, i, 'refEvents');
+      const range = Math.abs(r.height - itemAt(refEvents, i + 1, 'refEvents').height);
       const k = springNeapFactor(range, springs, neaps);
       const d = e.type === 'high' ? secondary.differences.high_water : secondary.differences.low_water;
       expect((e.time - r.time) / MINUTE).toBeCloseTo(d.neaps.time + k * (d.springs.time - d.neaps.time), 2);
@@ -75,14 +76,14 @@ describe('tide facade: secondary ports', () => {
     const parts = [...tideEvents(secondary, set, from, split), ...tideEvents(secondary, set, split, to)];
     expect(parts.length).toBe(events.length);
     parts.forEach((e, i) => {
-      expect(Math.abs(e.time - events[i]!.time)).toBeLessThanOrEqual(1000);
-      expect(e.height).toBeCloseTo(events[i]!.height, 3);
+      expect(Math.abs(e.time - itemAt(events, i, 'events').time)).toBeLessThanOrEqual(1000);
+      expect(e.height).toBeCloseTo(itemAt(events, i, 'events').height, 3);
     });
   });
 
   it('draws heights by the cosine curve through its own events', () => {
-    const a = events[10]!;
-    const b = events[11]!;
+    const a = itemAt(events, 10, 'events');
+    const b = itemAt(events, 11, 'events');
     const h = tideHeights(secondary, set, a.time, (b.time - a.time) / 4, 5);
     // By the curve's formula h1 + (h2 − h1)(1 − cos(πx))/2: x = 0, ¼, ½, ¾, 1 give
     // factors 0, (1 − √½)/2, ½, (1 + √½)/2, 1.
@@ -93,10 +94,10 @@ describe('tide facade: secondary ports', () => {
   it('cosine curve is NaN outside its events rather than inventing heights', () => {
     const ev: TideEvent[] = [{ time: 0, type: 'low', height: 1 }, { time: 6 * HOUR, type: 'high', height: 3 }];
     const h = cosineCurve(ev, -HOUR, HOUR, 9);
-    expect(Number.isNaN(h[0]!)).toBe(true);
+    expect(Number.isNaN(firstOf(h, 'h'))).toBe(true);
     expect(h[1]).toBe(1);
     expect(h[4]).toBeCloseTo(2, 12);
     expect(h[7]).toBe(3);
-    expect(Number.isNaN(h[8]!)).toBe(true);
+    expect(Number.isNaN(itemAt(h, 8, 'h'))).toBe(true);
   });
 });

@@ -7,6 +7,7 @@ import type { ReferenceStation, Station } from '../../engine/types.js';
 import { findExtrema, scanTides } from '../../engine/extrema.js';
 import { openIntervals, type OpenInterval, type WindowSide } from '../../engine/windows.js';
 import { diurnalStation, sixtyConstituentStation, standStation } from '../fixtures/engine-stations.js';
+import { firstOf, itemAt, lastOf } from '../../engine/index.js';
 
 const SECOND = 1000;
 const HOUR = 3_600_000;
@@ -83,7 +84,7 @@ describe('closed form: two solar constituents', () => {
           const found = crossingsOf(openIntervals(station, solo(station), side, level, from, to), from, to);
           const expected = expectedCrossings(level, from, to, withS4);
           expect(found.length, `${side} ${level}`).toBe(expected.length);
-          found.forEach((t, i) => expect(Math.abs(t - expected[i]!), `${side} ${level} #${i}`).toBeLessThan(100));
+          found.forEach((t, i) => expect(Math.abs(t - itemAt(expected, i, 'expected')), `${side} ${level} #${i}`).toBeLessThan(100));
         }
       }
     });
@@ -94,7 +95,7 @@ describe('closed form: two solar constituents', () => {
 function sampledCrossings(heights: Float64Array, start: number, level: number): number[] {
   const out: number[] = [];
   for (let i = 1; i < heights.length; i++) {
-    if (heights[i - 1]! >= level !== heights[i]! >= level) out.push(start + i * SECOND);
+    if (itemAt(heights, i - 1, 'heights') >= level !== itemAt(heights, i, 'heights') >= level) out.push(start + i * SECOND);
   }
   return out;
 }
@@ -112,7 +113,7 @@ function expectMatchesSampling(station: Station, set: ReturnType<typeof solo>, l
       const found = crossingsOf(openIntervals(station, set, side, level, from, to), from, to);
       const sampled = sampledCrossings(heights, from, level);
       expect(found.length, `${station.id} ${side} ${level}`).toBe(sampled.length);
-      found.forEach((t, i) => expect(Math.abs(t - sampled[i]!), `${station.id} ${side} ${level} #${i}`).toBeLessThanOrEqual(30 * SECOND));
+      found.forEach((t, i) => expect(Math.abs(t - itemAt(sampled, i, 'sampled')), `${station.id} ${side} ${level} #${i}`).toBeLessThanOrEqual(30 * SECOND));
       total += found.length;
     }
   }
@@ -197,8 +198,8 @@ describe('windows that never open, never close, and across midnight', () => {
   it('pieces on 23- and 25-hour days stay inside their day and join back into the intervals', () => {
     const lisbon: ReferenceStation = { ...standStation(), timezone: 'Europe/Lisbon' };
     const days = localDays(2027, 'Europe/Lisbon');
-    const yearFrom = days[0]!.start;
-    const yearTo = days[days.length - 1]!.end;
+    const yearFrom = firstOf(days, 'days').start;
+    const yearTo = lastOf(days, 'days').end;
     const intervals = openIntervals(lisbon, solo(lisbon), 'above', lisbon.mean_level, yearFrom, yearTo);
     const split = splitByDay(intervals, days, 'Europe/Lisbon');
     const short = split.find((d) => d.date === '2027-03-28')!;
@@ -207,8 +208,8 @@ describe('windows that never open, never close, and across midnight', () => {
     expect(days.find((d) => d.date === '2027-10-31')!.hours).toBe(25);
     for (const [i, d] of split.entries()) {
       for (const p of d.pieces) {
-        expect(Date.parse(p.start)).toBeGreaterThanOrEqual(days[i]!.start);
-        expect(Date.parse(p.end)).toBeLessThanOrEqual(days[i]!.end);
+        expect(Date.parse(p.start)).toBeGreaterThanOrEqual(itemAt(days, i, 'days').start);
+        expect(Date.parse(p.end)).toBeLessThanOrEqual(itemAt(days, i, 'days').end);
       }
     }
     // every piece joined to its neighbour across midnight gives back the interval (to its nearest minute)

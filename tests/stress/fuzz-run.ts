@@ -4,7 +4,7 @@
 import { mkdirSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { parse } from 'yaml';
-import { loadStationSet, TidewrightError, type Station } from '../../engine/index.js';
+import { entryOf, itemAt, loadStationSet, TidewrightError, type Station } from '../../engine/index.js';
 import { checkStations } from '../../cli/check.js';
 
 const ROOT = join(import.meta.dirname, '..', '..').replace(/[\\/]dist$/, '');
@@ -23,7 +23,7 @@ export function seeded(seed: number): () => number {
 }
 
 type Random = () => number;
-const pick = <T>(random: Random, list: readonly T[]): T => list[Math.floor(random() * list.length)]!;
+const pick = <T>(random: Random, list: readonly T[]): T => itemAt(list, Math.floor(random() * list.length), 'list');
 const int = (random: Random, below: number): number => Math.floor(random() * below);
 
 const VALUE = /^(\s*[A-Za-z0-9_]+:\s*)([^\s{#][^#\n]*?)\s*$/gm;
@@ -33,7 +33,7 @@ const KEY = /^(\s*)([A-Za-z_][A-Za-z0-9_]*):/gm;
 function replaceNth(text: string, pattern: RegExp, pickIndex: (count: number) => number, make: (match: RegExpExecArray) => string): string {
   const matches = [...text.matchAll(pattern)];
   if (matches.length === 0) return text;
-  const m = matches[pickIndex(matches.length)]! as RegExpExecArray;
+  const m = itemAt(matches, pickIndex(matches.length), 'matches') as RegExpExecArray;
   return text.slice(0, m.index) + make(m) + text.slice(m.index + m[0].length);
 }
 
@@ -45,12 +45,12 @@ const INSERTS = ['\u0000', '\u202e', '\ud83c\udf0a', '\t', '\r', '"', "'", ':', 
 export const MUTATIONS: Readonly<Record<string, (text: string, random: Random) => string>> = {
   'byte flip': (text, random) => {
     const bytes = Buffer.from(text, 'utf8');
-    for (let i = 1 + int(random, 3); i > 0; i--) { const at = int(random, bytes.length); bytes[at] = bytes[at]! ^ (1 << int(random, 8)); }
+    for (let i = 1 + int(random, 3); i > 0; i--) { const at = int(random, bytes.length); bytes[at] = itemAt(bytes, at, 'bytes') ^ (1 << int(random, 8)); }
     return bytes.toString('utf8');
   },
   truncation: (text, random) => text.slice(0, int(random, text.length)),
   'key swap': (text, random) => {
-    const keys = [...text.matchAll(KEY)].map((m) => m[2]!);
+    const keys = [...text.matchAll(KEY)].map((m) => itemAt(m, 2, 'm'));
     if (keys.length < 2) return text;
     const [a, b] = [pick(random, keys), pick(random, keys)];
     return text.replace(KEY, (all, indent: string, key: string) => (key === a ? `${indent}${b}:` : key === b ? `${indent}${a}:` : all));
@@ -67,9 +67,9 @@ export const MUTATIONS: Readonly<Record<string, (text: string, random: Random) =
     const lines = text.split('\n');
     const i = int(random, lines.length);
     const choice = int(random, 3);
-    if (choice === 0) lines.splice(i, 0, lines[int(random, lines.length)]!); // duplicated
+    if (choice === 0) lines.splice(i, 0, itemAt(lines, int(random, lines.length), 'lines')); // duplicated
     else if (choice === 1) lines.splice(i, 1); // deleted
-    else lines[i] = `${' '.repeat(int(random, 6))}${lines[i]!.trimStart()}`; // re-indented
+    else lines[i] = `${' '.repeat(int(random, 6))}${itemAt(lines, i, 'lines').trimStart()}`; // re-indented
     return lines.join('\n');
   },
   insertion: (text, random) => { const at = int(random, text.length + 1); return text.slice(0, at) + pick(random, INSERTS) + text.slice(at); },
@@ -96,7 +96,7 @@ export function mutant(seed: number, index: number, files: readonly { name: stri
   const base = pick(random, files);
   const kinds = Array.from({ length: 1 + int(random, 3) }, () => pick(random, KINDS));
   let text = base.text;
-  for (const kind of kinds) text = MUTATIONS[kind]!(text, random);
+  for (const kind of kinds) text = entryOf(MUTATIONS, kind, 'MUTATIONS')(text, random);
   return { index, base: base.name, kinds, text };
 }
 

@@ -4,7 +4,7 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterEach, describe, expect, it, vi } from 'vitest';
-import { buildStationYear } from '../../engine/index.js';
+import { buildStationYear, firstOf, itemAt } from '../../engine/index.js';
 import type { ReferenceStation, Station } from '../../engine/index.js';
 import { eventsCsv } from '../../templates/exports/csv.js';
 import { eventsJson } from '../../templates/exports/json.js';
@@ -26,13 +26,13 @@ function documentedFields(): Set<string> {
   const names = new Set<string>();
   for (const line of table.split('\n').slice(2)) {
     const first = line.split('|')[1] ?? '';
-    for (const m of first.matchAll(/`([a-z0-9_]+)`/g)) names.add(m[1]!);
+    for (const m of first.matchAll(/`([a-z0-9_]+)`/g)) names.add(itemAt(m, 1, 'm'));
   }
   return names;
 }
 
 const csvHeader = (csv: string): string[] => csv.split('\r\n').find((l) => !l.startsWith('# '))!.split(',');
-const jsonKeys = (text: string): string[] => Object.keys((JSON.parse(text) as Record<string, unknown>[])[0]!);
+const jsonKeys = (text: string): string[] => Object.keys(firstOf(JSON.parse(text) as Record<string, unknown>[], 'records'));
 
 const station: ReferenceStation = {
   ...standStation(), timezone: 'Europe/Lisbon', windows: [{ id: 'sill', name: 'Marina sill', above: 2.0 }],
@@ -44,7 +44,7 @@ const span = ['--from', '2027-01-01', '--to', '2027-01-03'];
 describe('the fields of the exports', () => {
   it('are the same for one kind of record in every export', async () => {
     const events = eventsJson(model);
-    const buildEvents = Object.keys((JSON.parse(events) as { events: Record<string, unknown>[] }).events[0]!);
+    const buildEvents = Object.keys(firstOf((JSON.parse(events) as { events: Record<string, unknown>[] }).events, 'events'));
     const predictJson = jsonKeys((await runCli(['predict', BRINEWOLD, ...span, '--format', 'json'])).stdout);
     const predictCsv = csvHeader((await runCli(['predict', BRINEWOLD, ...span, '--format', 'csv'])).stdout);
     expect(buildEvents).toEqual(['station_id', 'time', 'time_local', 'date_local', 'type', 'height_m', 'below_chart_datum']);
@@ -60,7 +60,7 @@ describe('the fields of the exports', () => {
   it('are snake_case, lead with station_id, and are all in the README table', async () => {
     const documented = documentedFields();
     expect(documented.size).toBeGreaterThan(15);
-    const windowIntervals = (JSON.parse(windowsJson(model)) as { windows: { intervals: Record<string, unknown>[] }[] }).windows[0]!.intervals[0]!;
+    const windowIntervals = firstOf(firstOf((JSON.parse(windowsJson(model)) as { windows: { intervals: Record<string, unknown>[] }[] }).windows, 'windows').intervals, 'intervals');
     const records: [string, string[]][] = [
       ['build events CSV', csvHeader(eventsCsv(model))],
       ['build events CSV in feet', csvHeader(eventsCsv(model, wordsFor({ units: 'ft' })))],

@@ -5,13 +5,14 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import ICAL from 'ical.js';
 import { describe, expect, it } from 'vitest';
-import { buildStationYear } from '../../engine/index.js';
+import { buildStationYear, firstOf, itemAt } from '../../engine/index.js';
 import type { ReferenceStation, Station } from '../../engine/index.js';
 import { eventsICalendar } from '../../templates/exports/icalendar.js';
 import { hourlyCsv, windowsCsv, windowsJson } from '../../templates/exports/windows.js';
 import { writeExports } from '../../templates/exports/write.js';
 import { standStation } from '../fixtures/engine-stations.js';
 import { wordsFor } from '../../templates/locale/index.js';
+import { neighbours } from '../fixtures/lists.js';
 
 const station: ReferenceStation = {
   ...standStation(), timezone: 'Europe/Lisbon',
@@ -49,8 +50,8 @@ describe('window downloads', () => {
     const opens = events.filter((e) => e.summary.endsWith(' open'));
     expect(opens).toHaveLength(model.windows.reduce((n, w) => n + w.intervals.length, 0));
     expect(events).toHaveLength(model.events.length + opens.length);
-    const first = opens[0]!;
-    const interval = model.windows[0]!.intervals[0]!;
+    const first = firstOf(opens, 'opens');
+    const interval = firstOf(firstOf(model.windows, 'windows').intervals, 'intervals');
     expect(first.summary).toBe('Marina sill, east gate open');
     expect(first.startDate.toJSDate().toISOString().replace('.000', '')).toBe(interval.start);
     expect(first.endDate.toJSDate().toISOString().replace('.000', '')).toBe(interval.end);
@@ -62,9 +63,9 @@ describe('window downloads', () => {
     const calendar = new ICAL.Component(ICAL.parse(eventsICalendar(model)));
     const opens = calendar.getAllSubcomponents('vevent').map((v) => new ICAL.Event(v)).filter((e) => e.uid.includes('-sill-'));
     // an opening starting in the second half of a minute: the page prints the next minute, so must the calendar
-    const late = model.windows[0]!.intervals.find((i) => new Date(i.start).getUTCSeconds() >= 30)!;
+    const late = firstOf(model.windows, 'windows').intervals.find((i) => new Date(i.start).getUTCSeconds() >= 30)!;
     expect(late).toBeDefined();
-    const printed = model.windows[0]!.days.flatMap((d) => d.pieces)
+    const printed = firstOf(model.windows, 'windows').days.flatMap((d) => d.pieces)
       .find((p) => Date.parse(p.start) === Math.round(Date.parse(late.start) / 60_000) * 60_000)!;
     const event = opens.find((e) => e.startDate.toJSDate().getTime() === Date.parse(late.start))!;
     expect(event.description).toContain(`From ${printed.startClock} `);
@@ -76,12 +77,12 @@ describe('hourly heights CSV', () => {
     const [header, ...body] = rows(hourlyCsv(model));
     expect(header).toEqual(['station_id', 'time', 'time_local', 'height_m']);
     expect(body).toHaveLength(8760);
-    expect(body.filter((r) => r[2]!.startsWith('2027-03-28'))).toHaveLength(23);
+    expect(body.filter((r) => itemAt(r, 2, 'r').startsWith('2027-03-28'))).toHaveLength(23);
     // the repeated hour of 31 October: two local 01:00s, an hour apart in UTC
-    expect(body.filter((r) => r[2]!.startsWith('2027-10-31T01:00')).map((r) => [r[1], r[2]]))
+    expect(body.filter((r) => itemAt(r, 2, 'r').startsWith('2027-10-31T01:00')).map((r) => [r[1], r[2]]))
       .toEqual([['2027-10-31T00:00:00Z', '2027-10-31T01:00:00+01:00'], ['2027-10-31T01:00:00Z', '2027-10-31T01:00:00+00:00']]);
-    expect(body[0]).toEqual([station.id, '2027-01-01T00:00:00Z', '2027-01-01T00:00:00+00:00', model.hourly.days[0]!.heights[0]!.toFixed(3)]);
-    for (let i = 1; i < body.length; i++) expect(Date.parse(body[i]![1]!) - Date.parse(body[i - 1]![1]!)).toBe(3_600_000);
+    expect(body[0]).toEqual([station.id, '2027-01-01T00:00:00Z', '2027-01-01T00:00:00+00:00', firstOf(firstOf(model.hourly.days, 'days').heights, 'heights').toFixed(3)]);
+    for (const [a, b] of neighbours(body)) expect(Date.parse(itemAt(b, 1, 'time')) - Date.parse(itemAt(a, 1, 'time'))).toBe(3_600_000);
   });
 
   it('a secondary port says its heights come from its curve; writeExports writes all five files', async () => {

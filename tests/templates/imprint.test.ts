@@ -12,6 +12,7 @@ import { STARTER_FILES } from '../../cli/init-files.js';
 import { renderCombinedBook, renderStationBook } from '../../templates/pdf/book.js';
 import { renderSite } from '../../templates/site/render.js';
 import { wordsFor } from '../../templates/locale/index.js';
+import { captured } from '../fixtures/lists.js';
 
 const dir = mkdtempSync(join(tmpdir(), 'tidewright-imprint-'));
 for (const [name, text] of Object.entries(STARTER_FILES)) {
@@ -30,7 +31,7 @@ function lastPageText(pdf: Buffer, name: string): string | null {
   const file = join(dir, name);
   writeFileSync(file, pdf);
   try {
-    const pages = /Pages:\s+(\d+)/.exec(execFileSync('pdfinfo', [file], { encoding: 'utf8' }))![1]!;
+    const pages = captured(/Pages:\s+(\d+)/, execFileSync('pdfinfo', [file], { encoding: 'utf8' }), 'pdfinfo pages');
     return execFileSync('pdftotext', ['-f', pages, '-l', pages, file, '-'], { encoding: 'utf8' }).replace(/\s+/g, ' ');
   } catch {
     console.warn('poppler-utils (pdfinfo, pdftotext) not installed: imprint text check skipped');

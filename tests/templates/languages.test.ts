@@ -7,8 +7,9 @@ import { CATALOGUES, LANGUAGES } from '../../templates/locale/catalogue.js';
 import { en } from '../../templates/locale/messages/en.js';
 import { wordsFor } from '../../templates/locale/index.js';
 import { demoPair, publishedIn } from './languages.js';
+import { firstOf, itemAt } from '../../engine/index.js';
 
-const placeholders = (text: string): string[] => [...text.matchAll(/\{(\w+)\}/g)].map((m) => m[1]!).sort();
+const placeholders = (text: string): string[] => [...text.matchAll(/\{(\w+)\}/g)].map((m) => itemAt(m, 1, 'm')).sort();
 
 describe('message catalogues', () => {
   it.each(LANGUAGES)('%s has every key of the English catalogue, no empty text, the same placeholders', (language) => {
@@ -19,7 +20,7 @@ describe('message catalogues', () => {
       const forms = typeof message === 'string' ? [message] : Object.values(message).filter((v) => v !== message.count);
       for (const form of forms) expect(form.trim(), `${language} ${key}`).not.toBe('');
       const englishForms = typeof english === 'string' ? [english] : [english.other];
-      const expected = placeholders(englishForms[0]!);
+      const expected = placeholders(firstOf(englishForms, 'englishForms'));
       expect(placeholders(typeof message === 'string' ? message : message.other), `${language} ${key}`).toEqual(expected);
       if (typeof english !== 'string') {
         expect(typeof message, `${language} ${key} is a plural message`).toBe('object');
@@ -48,8 +49,8 @@ describe('message catalogues', () => {
     const lisbonLike = { days: days.map((d) => ({ ...d })) };
     expect(typeof wordsFor().zoneSummary(lisbonLike)).toBe('string');
     const fake = (offsetStart: string, changes: [string, string, string][]) => ({
-      days: [{ ...days[0]!, offsetStart, offsetChange: null },
-        ...changes.map(([date, from, to]) => ({ ...days[0]!, date, offsetChange: { time: `${date}T01:00:00Z`, from, to } }))],
+      days: [{ ...firstOf(days, 'days'), offsetStart, offsetChange: null },
+        ...changes.map(([date, from, to]) => ({ ...firstOf(days, 'days'), date, offsetChange: { time: `${date}T01:00:00Z`, from, to } }))],
     });
     const north = fake('+00:00', [['2027-03-28', '+00:00', '+01:00'], ['2027-10-31', '+01:00', '+00:00']]);
     expect(wordsFor({ locale: 'en' }).zoneSummary(north)).toBe('UTC+00:00; summer time UTC+01:00 from 28 March to 31 October');

@@ -6,7 +6,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { buildStationYear, buildStreamYear, loadStationSet } from '../../engine/index.js';
+import { buildStationYear, buildStreamYear, firstOf, itemAt, loadStationSet } from '../../engine/index.js';
 import type { StationYear, StreamYear } from '../../engine/index.js';
 import { renderStreamBook } from '../../templates/pdf/stream-book.js';
 import { CATALOGUES, type Catalogue, type Language } from '../../templates/locale/catalogue.js';
@@ -79,10 +79,10 @@ export async function buildIn(locale: string, models: StationYear[], stream: Str
   let book = '';
   if (POPPLER) {
     const pdf = join(dir, 'book.pdf');
-    writeFileSync(pdf, await renderStationBook(models[1]!, { units: 'm', page: 'a5', locale }));
+    writeFileSync(pdf, await renderStationBook(itemAt(models, 1, 'models'), { units: 'm', page: 'a5', locale }));
     book = execFileSync('pdftotext', ['-layout', pdf, '-'], { encoding: 'utf8', maxBuffer: 64 << 20 });
     const pocket = join(dir, 'pocket.pdf');
-    writeFileSync(pocket, await renderPocketTable(models[1]!, { units: 'm', sheet: 'a4', locale }));
+    writeFileSync(pocket, await renderPocketTable(itemAt(models, 1, 'models'), { units: 'm', sheet: 'a4', locale }));
     book += execFileSync('pdftotext', ['-layout', pocket, '-'], { encoding: 'utf8', maxBuffer: 64 << 20 });
     if (stream) {
       const streamPdf = join(dir, 'stream.pdf');
@@ -139,14 +139,14 @@ export function publishedIn(languages: Language[]): void {
   });
 
   it('names months and weekdays and writes decimals as Intl does for the locale', () => {
-    const secondary = built!.models[1]!;
+    const secondary = itemAt(built!.models, 1, 'models');
     const march = built!.pages.get(`${secondary.station.id}/2027/03/index.html`)!;
     expect(march).toContain(intlMonth(language, 3));
     const weekday = new Intl.DateTimeFormat(language, { weekday: 'short', timeZone: 'UTC' }).format(Date.UTC(2027, 2, 10));
     expect(march).toContain(`${weekday} 10`);
     const separator = intlDecimal(language);
     const day = secondary.days.find((d) => d.date === '2027-03-10')!;
-    const e = day.events[0]!;
+    const e = firstOf(day.events, 'events');
     expect(march).toContain(`${e.clock} ${Math.abs(e.height).toFixed(2).replace('.', separator)}`);
     if (POPPLER) {
       expect(built!.book).toContain(intlMonth(language, 3));
@@ -156,11 +156,11 @@ export function publishedIn(languages: Language[]): void {
 
   it('prints position, heights, the age of the tide and UTC offsets the same way on the site and in the book', () => {
     const w = wordsFor({ locale: language });
-    const m = built!.models[1]!;
+    const m = itemAt(built!.models, 1, 'models');
     const flat = (t: string): string => t.replace(/\u00a0/g, ' ').replace(/\s+/g, ' ');
     const site = flat(built!.pages.get(`${m.station.id}/2027/index.html`)!);
     const same = [w.position(m.station.position), w.hours(m.ageOfTideHours), w.height(m.meanSpringRange),
-      w.offset(m.days[0]!.offsetStart)].map(flat);
+      w.offset(firstOf(m.days, 'days').offsetStart)].map(flat);
     for (const text of same) expect(site, text).toContain(text);
     if (POPPLER) for (const text of same) expect(flat(built!.book), text).toContain(text);
   });

@@ -5,7 +5,7 @@ import { existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { buildStationYear } from '../../engine/index.js';
+import { buildStationYear, firstOf, itemAt } from '../../engine/index.js';
 import type { Station } from '../../engine/index.js';
 import { renderStationBook } from '../../templates/pdf/book.js';
 import { countPdfPages } from '../../cli/build/station-job.js';
@@ -43,10 +43,10 @@ describe('pages after each month', () => {
     // the March windows page comes after the March month page and lists every day with both windows
     const marchIndex = pages.findIndex((p) => /March 2027 · access windows/.test(p));
     expect(pages.slice(0, marchIndex).some((p) => /March\s+2027/.test(p) && !/access windows|hour by hour/.test(p))).toBe(true);
-    const march = pages[marchIndex]!;
+    const march = itemAt(pages, marchIndex, 'pages');
     expect(march).toContain('MARINA SILL');
     expect(march).toContain('ROAD BRIDGE');
-    const sill = model.windows[0]!.days.find((d) => d.date === '2027-03-10')!;
+    const sill = firstOf(model.windows, 'windows').days.find((d) => d.date === '2027-03-10')!;
     const line = march.split('\n').find((l) => /^\s*Wed 10\b/.test(l))!;
     for (const p of sill.pieces) expect(line).toContain(`${p.startClock}–${p.endClock}`);
     // the 23-hour day shows the skipped hour empty; the 25-hour day shows the repeated hour twice

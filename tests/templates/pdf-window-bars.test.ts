@@ -6,7 +6,7 @@ import { existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { buildStationYear } from '../../engine/index.js';
+import { buildStationYear, firstOf, itemAt } from '../../engine/index.js';
 import type { Station } from '../../engine/index.js';
 import { renderStationBook } from '../../templates/pdf/book.js';
 import { drawWindowBars, windowLookup, windowsAlt } from '../../templates/pdf/window-bars.js';
@@ -44,8 +44,8 @@ describe('window bars under the day curve', () => {
       const day = model.days.find((d) => d.date === date)!;
       const { doc, rects } = recorder();
       drawWindowBars(doc, lookup, day, box, scale, 1);
-      const sill = model.windows[0]!.days.find((d) => d.date === date)!;
-      const bridge = model.windows[1]!.days.find((d) => d.date === date)!;
+      const sill = firstOf(model.windows, 'windows').days.find((d) => d.date === date)!;
+      const bridge = itemAt(model.windows, 1, 'windows').days.find((d) => d.date === date)!;
       const dayStart = Date.parse(day.start);
       const length = Date.parse(day.end) - dayStart;
       // Worked by hand for the 25-hour day (31 October, clocks back at 02:00 local): the day is 25 h
@@ -55,11 +55,11 @@ describe('window bars under the day curve', () => {
         : w.pieces.map((p) => ({ k, a: (Date.parse(p.start) - dayStart) / length, b: (Date.parse(p.end) - dayStart) / length }))));
       expect(rects).toHaveLength(expected.length);
       expected.forEach((e, i) => {
-        const r = rects[i]!;
+        const r = itemAt(rects, i, 'rects');
         expect(r.x).toBeCloseTo(box.x + e.a * box.width, 6);
         expect(r.w).toBeCloseTo(Math.max((e.b - e.a) * box.width, 0.6), 6); // a sliver stays visible
         expect(r.y).toBeGreaterThanOrEqual(box.y + box.height); // under the curve
-        expect(r.y).toBeCloseTo(rects.find((o, j) => expected[j]!.k === e.k)!.y, 9); // one line per window
+        expect(r.y).toBeCloseTo(rects.find((o, j) => itemAt(expected, j, 'expected').k === e.k)!.y, 9); // one line per window
       });
       const ys = [...new Set(rects.map((r) => r.y))].sort((a, b) => a - b);
       expect(ys.length).toBeLessThanOrEqual(2);
@@ -70,7 +70,7 @@ describe('window bars under the day curve', () => {
 
   it('the curve figure says the openings in words', () => {
     const day = model.days.find((d) => d.date === '2027-03-10')!;
-    const sill = model.windows[0]!.days.find((d) => d.date === '2027-03-10')!;
+    const sill = firstOf(model.windows, 'windows').days.find((d) => d.date === '2027-03-10')!;
     const alt = windowsAlt(windowLookup(model.windows), day, wordsFor({ locale: 'en' }));
     expect(alt.startsWith('Marina sill: ')).toBe(true);
     for (const p of sill.pieces) expect(alt).toContain(`${p.startClock}\u2013${p.endClock}`);

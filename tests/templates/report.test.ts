@@ -11,6 +11,7 @@ import { projectRoot } from '../../templates/site/paths.js';
 import { niceTicks } from '../../templates/report/chart.js';
 import { escapeHtml } from '../../templates/report/escape.js';
 import { DAY, degrade, evenTimes, recordOf } from '../fixtures/analysis-records.js';
+import { captured } from '../fixtures/lists.js';
 
 const START = Date.UTC(2027, 0, 1);
 // Invented constants, realistic in magnitude.
@@ -68,7 +69,7 @@ describe('renderAnalysisReport', () => {
     expect(html).toContain('<path class="fitted"');
     expect(html).toContain('<path class="residual"');
     // The two-day hole shows as a break: the record's path starts a new piece after it
-    const recordPath = /<path class="observed" d="([^"]+)"/.exec(html)![1]!;
+    const recordPath = captured(/<path class="observed" d="([^"]+)"/, html, 'observed path');
     expect(recordPath.match(/M/g)!.length).toBe(2);
   });
 
@@ -108,7 +109,7 @@ describe('renderAnalysisReport', () => {
   it('takes its colours from the site\'s stylesheet, the one source of the palette', () => {
     const site = rootCustomProperties(readFileSync(join(projectRoot(), 'templates/assets/site.css'), 'utf8'));
     expect(site.length).toBeGreaterThanOrEqual(8);
-    const style = /<style>([\s\S]*?)<\/style>/.exec(html)![1]!;
+    const style = captured(/<style>([\s\S]*?)<\/style>/, html, 'style');
     expect(rootCustomProperties(style)).toEqual(site);
     // outside that copied block the report names no colour of its own
     const own = style.replace(/:root \{[^}]*\}/, '');
@@ -135,7 +136,7 @@ describe('renderAnalysisReport', () => {
 
   it('keeps a year of readings small by drawing each pixel column at most twice', () => {
     const year = renderAnalysisReport(analysis(366, 60), hostile);
-    const recordPath = /<path class="observed" d="([^"]+)"/.exec(year)![1]!;
+    const recordPath = captured(/<path class="observed" d="([^"]+)"/, year, 'observed path');
     expect(recordPath.match(/[ML]/g)!.length).toBeLessThanOrEqual(2 * 700); // 8785 readings, 696 columns
     expect(year.length).toBeLessThan(150_000);
   });

@@ -8,11 +8,12 @@ import { tmpdir } from 'node:os';
 import { dirname, extname, join, normalize, resolve } from 'node:path';
 import { chromium, type Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { StationYear } from '../../engine/index.js';
+import { firstOf, itemAt, type StationYear } from '../../engine/index.js';
 import { initialOf } from '../../templates/site/index-views.js';
 import { longitudeSpan } from '../../templates/site/map.js';
 import { renderSite } from '../../templates/site/render.js';
 import { demoModels } from './site-build.js';
+import { captured } from '../fixtures/lists.js';
 
 const CHROMIUM = '/usr/bin/chromium';
 const hasChromium = existsSync(CHROMIUM);
@@ -56,7 +57,7 @@ describe('the index grouped by region', () => {
     const html = read('index.html');
     const headings = [...html.matchAll(/<h3 id="(region-[^"]+)-heading" class="region-heading">([^<]+)<\/h3>/g)].map((m) => m[2]);
     expect(headings).toEqual(['Brinewold Coast', 'Galewrack Shelf', 'Outer Brinewold Banks', 'Rimeskerry Skerries', 'Other stations']);
-    const section = (name: string): string => html.split('class="region-heading">').find((part) => part.startsWith(name))!.split('<section class="region"')[0]!;
+    const section = (name: string): string => firstOf(html.split('class="region-heading">').find((part) => part.startsWith(name))!.split('<section class="region"'), name);
     expect(section('Brinewold Coast')).toContain('Kelpmoor Harbour');
     expect(section('Rimeskerry Skerries')).toContain('Whitespume Sound');
     expect(section('Other stations')).toContain('Palmsward Reach');
@@ -69,13 +70,13 @@ describe('the index grouped by region', () => {
 
   it('has an A–Z jump list whose letters reach the first region under each letter', () => {
     const html = read('index.html');
-    const jump = /<ol class="jump-letters">([\s\S]*?)<\/ol>/.exec(html)![1]!;
-    const linked = [...jump.matchAll(/<a href="#([^"]+)">([^<]+)<\/a>/g)].map((m) => [m[2]!, m[1]!] as const);
+    const jump = captured(/<ol class="jump-letters">([\s\S]*?)<\/ol>/, html, 'jump list');
+    const linked = [...jump.matchAll(/<a href="#([^"]+)">([^<]+)<\/a>/g)].map((m): [string, string] => [itemAt(m, 2, 'jump letter'), itemAt(m, 1, 'jump target')]);
     expect(linked.map(([letter]) => letter)).toEqual(['B', 'G', 'O', 'R']);
     for (const [letter, target] of linked) {
       const heading = new RegExp(`id="${target}"[^>]*>\\s*<h3 id="${target}-heading" class="region-heading">([^<]+)<`).exec(html);
       expect(heading, target).not.toBeNull();
-      expect(initialOf(heading![1]!)).toBe(letter);
+      expect(initialOf(itemAt(heading!, 1, 'region heading'))).toBe(letter);
     }
     // Every other letter is there, as plain text.
     expect([...jump.matchAll(/<span class="jump-none">([^<]+)<\/span>/g)]).toHaveLength(26 - 4);
@@ -94,7 +95,7 @@ describe('the map of the stations', () => {
     expect(svg).not.toBeNull();
     const [width, height] = [Number(svg[1]), Number(svg[2])];
     expect(svg[3]).toMatch(/<path class="map-land" d="M[\d.,\-LMZ]+/); // the frame spans half the world: land is in it
-    const dots = [...svg[3]!.matchAll(/<a class="map-station" href="([^"]+)"[^>]*><title>([^<]+)<\/title><circle cx="([\d.]+)" cy="([\d.]+)"/g)];
+    const dots = [...itemAt(svg, 3, 'map svg').matchAll(/<a class="map-station" href="([^"]+)"[^>]*><title>([^<]+)<\/title><circle cx="([\d.]+)" cy="([\d.]+)"/g)];
     expect(dots.map((d) => d[2]).sort()).toEqual(models.filter((m) => m.year === 2027).map((m) => m.station.name).sort());
     for (const [, href, name, cx, cy] of dots) {
       expect(existsSync(resolve(dirname(join(site, 'index.html')), href!)), `${name} → ${href}`).toBe(true);

@@ -121,7 +121,7 @@ describe('month pages against the model', () => {
         const lists = [...rowById(page, `day-${d.dayOfMonth}`).matchAll(/<ul class="events lane lane-(high|low)">([\s\S]*?)<\/ul>/g)];
         const times = (type: string) => d.events.filter((e) => e.type === type).map((e) => e.time);
         expect(lists.map((l) => l[1])).toEqual(['high', 'low'].filter((t) => times(t).length > 0));
-        for (const l of lists) expect([...l[2]!.matchAll(/datetime="([^"]+)"/g)].map((m) => m[1])).toEqual(times(l[1]!));
+        for (const l of lists) expect([...itemAt(l, 2, 'l').matchAll(/datetime="([^"]+)"/g)].map((m) => m[1])).toEqual(times(itemAt(l, 1, 'l')));
         if (d.events[0]?.type === 'low') lowFirst++;
       }
     }
@@ -223,7 +223,7 @@ describe('footer, escaping and units', () => {
   it('the index and datums pages carry one provenance sentence, not one per near-identical station text', async () => {
     // This site mixes three provenances: the footer points to the station pages, once.
     for (const path of ['index.html', 'datums/index.html']) {
-      const text = textOf(read(site, path).split('<footer class="colophon">')[1]!);
+      const text = textOf(itemAt(read(site, path).split('<footer class="colophon">'), 1, `footer of ${path}`));
       expect(text.split('Provenance of the data:').length - 1, path).toBe(1);
       expect(text).toContain('Provenance of the data: each station’s page names where its data come from.');
       expect(text).not.toContain(secondary.station.provenance);
@@ -235,14 +235,14 @@ describe('footer, escaping and units', () => {
     const out = join(tmp, 'site-demo-pair');
     await renderSite(demo, out, { units: 'm', quiet: true });
     for (const path of ['index.html', 'datums/index.html']) {
-      const text = textOf(read(out, path).split('<footer class="colophon">')[1]!);
+      const text = textOf(itemAt(read(out, path).split('<footer class="colophon">'), 1, `footer of ${path}`));
       expect(text.split('Provenance of the data:').length - 1).toBe(1);
       expect(text.split('Invented for the tidewright demo').length - 1, path).toBe(0);
     }
     // One provenance shared by every station is printed as it is.
     const one = join(tmp, 'site-one');
     await renderSite([reference], one, { units: 'm', quiet: true });
-    expect(textOf(read(one, 'index.html').split('<footer class="colophon">')[1]!)).toContain(`Provenance of the data: ${reference.station.provenance}.`);
+    expect(textOf(itemAt(read(one, 'index.html').split('<footer class="colophon">'), 1, 'footer of index.html'))).toContain(`Provenance of the data: ${reference.station.provenance}.`);
   });
 
   it('shows station text with markup as text, never as markup', () => {

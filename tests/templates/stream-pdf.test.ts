@@ -5,7 +5,7 @@ import { existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { loadStationSet, buildStreamYear, type StreamYear } from '../../engine/index.js';
+import { buildStreamYear, firstOf, loadStationSet, type StreamYear } from '../../engine/index.js';
 import { renderCombinedBook } from '../../templates/pdf/book.js';
 import { renderStreamBook } from '../../templates/pdf/stream-book.js';
 import { wordsFor } from '../../templates/locale/index.js';
@@ -42,7 +42,7 @@ describe('renderStreamBook', () => {
     expect(pages).toHaveLength(14);
     expect(pages[13]).toContain(wordsFor().t('site.imprint'));
     expect(pages[13]).toContain(model.station.provenance);
-    const first = pages[0]!.replace(/\s+/g, ' ');
+    const first = firstOf(pages, 'pages').replace(/\s+/g, ' ');
     expect(first).toContain('Astronomical predictions only');
     expect(first).toContain('Tidal streams vary across a channel');
     expect(first).toContain('INVENTED DATA');

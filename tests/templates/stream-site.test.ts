@@ -6,7 +6,7 @@ import { tmpdir } from 'node:os';
 import { dirname, join, resolve } from 'node:path';
 import { HtmlValidate } from 'html-validate';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { loadStationSet, buildStreamYear, streamAlmanacEvent, type StreamYear } from '../../engine/index.js';
+import { buildStreamYear, itemAt, loadStationSet, streamAlmanacEvent, type StreamYear } from '../../engine/index.js';
 import { renderSite } from '../../templates/site/render.js';
 import { demoModels, htmlFiles, read, textOf } from './site-build.js';
 
@@ -125,7 +125,7 @@ describe('stream pages over several years', () => {
     for (const [page, current] of [['wrackrun-narrows/2028/index.html', '2028'], ['wrackrun-narrows/2027/06/index.html', '2027']] as const) {
       const nav = /<nav class="year-switch"[\s\S]*?<\/nav>/.exec(read(years, page))?.[0] ?? '';
       const suffix = page.includes('/06/') ? '06/' : '';
-      const targets = [...nav.matchAll(/href="([^"]+)"/g)].map((m) => resolve(dirname(join(years, page)), m[1]!));
+      const targets = [...nav.matchAll(/href="([^"]+)"/g)].map((m) => resolve(dirname(join(years, page)), itemAt(m, 1, 'm')));
       expect(targets, page).toEqual(['2027', '2028'].map((y) => join(years, `wrackrun-narrows/${y}/${suffix}index.html`)));
       for (const t of targets) expect(existsSync(t), t).toBe(true);
       expect(nav, page).toContain(`aria-current="page">${current}</a>`);

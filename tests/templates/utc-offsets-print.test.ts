@@ -11,7 +11,7 @@ import { renderStationBook } from '../../templates/pdf/book.js';
 import { renderSite } from '../../templates/site/render.js';
 import { read, rowById, textOf } from './site-build.js';
 import { testBankStation, testBankYear } from '../fixtures/test-bank.js';
-import type { StationYear } from '../../engine/index.js';
+import { firstOf, itemAt, type StationYear } from '../../engine/index.js';
 
 const POPPLER = existsSync('/usr/bin/pdftotext');
 if (!POPPLER) console.warn('poppler-utils not found in /usr/bin: the PDF text checks of local time are SKIPPED');
@@ -45,7 +45,7 @@ beforeAll(async () => {
   tmp = mkdtempSync(join(tmpdir(), 'tidewright-offsets-'));
   site = join(tmp, 'site');
   for (const p of PART_HOUR) {
-    partHour.set(p.zone, model(station(`part-${p.zone.split('/')[1]!.toLowerCase().replace('_', '-')}`, p.zone, p.latitude, p.longitude), p.year));
+    partHour.set(p.zone, model(station(`part-${itemAt(p.zone.split('/'), 1, p.zone).toLowerCase().replace('_', '-')}`, p.zone, p.latitude, p.longitude), p.year));
   }
   await renderSite([...partHour.values()], site, { units: 'm', quiet: true });
 }, 120_000);
@@ -100,10 +100,10 @@ describe('UTC offsets that are not whole hours', () => {
 describe('offsets with seconds (local mean time before standard time)', () => {
   it('Asia/Kathmandu 1919 is UTC+05:41:16 and its 1920 change is 11 minutes 16 seconds, never a fraction', () => {
     const m1919 = model(station('lmt-1919', KATHMANDU_LMT.zone, KATHMANDU_LMT.latitude, KATHMANDU_LMT.longitude), 1919);
-    expect(m1919.days[0]!.offsetStart).toBe('+05:41:16');
-    expect(en.offset(m1919.days[0]!.offsetStart)).toBe('UTC+05:41:16');
+    expect(firstOf(m1919.days, 'days').offsetStart).toBe('+05:41:16');
+    expect(en.offset(firstOf(m1919.days, 'days').offsetStart)).toBe('UTC+05:41:16');
     // the change falls on the last day of 1919: LMT midnight is 11 min 16 s before the new one
-    const change = m1919.offsetChanges[0]!;
+    const change = firstOf(m1919.offsetChanges, 'offsetChanges');
     expect(m1919.days.find((d) => d.offsetChange)!.date).toBe('1919-12-31');
     expect(change).toMatchObject({ from: '+05:41:16', to: '+05:30' });
     expect(en.offsetChange(change)).toMatch(/^Clocks go back 11 minutes 16 seconds at /);

@@ -1,7 +1,7 @@
 // A month on one panel of the pocket table: a line per day with its high waters and, where they fit at
 // the legible minimum, its low waters. Whether they fit is decided once per table by measuring the
 // widest times and heights of the year in the faces and sizes used.
-import type { AlmanacEvent, DayEntry, MonthEntry, StationYear } from '../../../engine/index.js';
+import { firstOf, type AlmanacEvent, type DayEntry, type MonthEntry, type StationYear } from '../../../engine/index.js';
 import type { Words } from '../../locale/index.js';
 import type { Box } from '../geometry.js';
 import { clockGlyph, laneMark, moonGlyph } from '../glyphs.js';
@@ -111,7 +111,8 @@ export function drawPocketMonth(doc: PDFKit.PDFDocument, model: StationYear, mon
   const monthName = words.monthName(month.month);
   tag(doc, 'H2', {}, () => put(doc, monthName, box.x, box.y + 9, { font: 'bold', size: 10 }));
   const change = days.find((d) => d.offsetChange !== null);
-  const offsets = change ? `${words.offset(days[0]!.offsetStart)} \u2192 ${words.offset(change.offsetChange!.to)}` : words.offset(days[0]!.offsetStart);
+  const start = firstOf(days, 'days of the month').offsetStart;
+  const offsets = change ? `${words.offset(start)} \u2192 ${words.offset(change.offsetChange!.to)}` : words.offset(start);
   putFitted(doc, offsets, box.x + box.width, box.y + 9, { font: 'narrow', size: LABEL_MIN, color: MID }, box.width * 0.45, LABEL_MIN, 'right');
 
   const dayX = box.x;
