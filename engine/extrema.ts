@@ -342,6 +342,7 @@ function scanGrid(s: Scratch, cols: number): void {
   D.fill(0, 0, cols);
   C.fill(0, 0, cols);
   for (let k = 0; k < s.re.length; k += 4) {
+    // Spelled out read by read: a helper returning the four as a tuple measured ~50 % slower here.
     let x0 = numberAt(s.re, k, 'phasors'), x1 = numberAt(s.re, k + 1, 'phasors');
     let x2 = numberAt(s.re, k + 2, 'phasors'), x3 = numberAt(s.re, k + 3, 'phasors');
     let y0 = numberAt(s.im, k, 'phasors'), y1 = numberAt(s.im, k + 1, 'phasors');
