@@ -1,15 +1,11 @@
 // Which characters of a station's text the book's typeface cannot draw (they print as U+FFFD, see
 // script.ts), so check and build can say so once per field instead of a book showing a mark unexplained.
-import { create, type Font } from 'fontkit';
-import { fontBuffers } from './fonts.js';
+import { fontFaces } from './fonts.js';
 import { missingCharacters } from './script.js';
-
-let regular: Font | null = null;
 
 /** The characters of `text` the book's regular face lacks, each once. */
 export function missingInBook(text: string): string[] {
-  regular ??= create(fontBuffers().regular);
-  return missingCharacters(text, regular);
+  return missingCharacters(text, fontFaces().regular);
 }
 
 /** "🌊 (U+1F30A)". */

@@ -1,6 +1,6 @@
 // A pdfkit document that is byte-for-byte reproducible: fixed dates and metadata, so pdfkit's file
 // identifier (an MD5 of the info dictionary and creation date) is fixed too; no clock is read.
-import { defaultFontPath, registerFonts } from './fonts.js';
+import { registerFonts } from './fonts.js';
 import { PDFDocument } from './pdfkit.js';
 import { startTagging } from './tags.js';
 
@@ -27,7 +27,7 @@ export function createDocument(meta: DocumentMeta): PDFKit.PDFDocument {
   if (meta.author) info.Author = meta.author;
   const doc = new PDFDocument({
     autoFirstPage: false,
-    font: defaultFontPath(), // otherwise pdfkit loads a standard font as its default
+    font: null as unknown as string, // no default: pdfkit would load a standard font; registerFonts selects ours
     pdfVersion: '1.7',
     compress: true,
     lang: meta.lang,

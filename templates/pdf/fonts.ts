@@ -3,7 +3,7 @@
 import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { dirname, join } from 'node:path';
-import { registerFile } from './pdfkit.js';
+import { create, type Font } from 'fontkit';
 
 export type FontName = 'regular' | 'bold' | 'narrow' | 'narrow-bold' | 'oblique';
 
@@ -16,24 +16,14 @@ const FILES: Record<FontName, string> = {
 };
 
 let cache: Record<FontName, Buffer> | null = null;
+let parsed: Record<FontName, Font> | null = null;
 
 function fontDir(): string {
   const pkg = createRequire(import.meta.url).resolve('dejavu-fonts-ttf/package.json');
   return join(dirname(pkg), 'ttf');
 }
 
-/** Path of the font the document is created with, so pdfkit never loads its built-in default. */
-let regularPath: string | null = null;
-
-export function defaultFontPath(): string {
-  if (regularPath === null) {
-    regularPath = join(fontDir(), FILES.regular);
-    registerFile(regularPath, fontBuffers().regular);
-  }
-  return regularPath;
-}
-
-/** Font files read once per process (pdfkit parses them per document). */
+/** Font files read once per process. */
 export function fontBuffers(): Record<FontName, Buffer> {
   if (!cache) {
     const dir = fontDir();
@@ -44,45 +34,54 @@ export function fontBuffers(): Record<FontName, Buffer> {
   return cache;
 }
 
-export function registerFonts(doc: PDFKit.PDFDocument): void {
-  const buffers = fontBuffers();
-  for (const name of Object.keys(buffers) as FontName[]) {
-    if (name !== 'regular') doc.registerFont(name, buffers[name]);
+/**
+ * The faces, parsed once per thread and handed to every document. pdfkit parses a font file again for
+ * each document it is given as bytes (measured: 8 % of a worker's time at national scale); given the
+ * parsed face, a document only starts its own subset of it, so what each document embeds is unchanged.
+ */
+export function fontFaces(): Record<FontName, Font> {
+  if (!parsed) {
+    const buffers = fontBuffers();
+    const out = {} as Record<FontName, Font>;
+    for (const name of Object.keys(buffers) as FontName[]) out[name] = create(buffers[name]);
+    parsed = out;
   }
+  return parsed;
 }
 
-/**
- * Selects a face. The regular face is the document's default, opened from its path; pdfkit keeps it
- * under that path, and selecting it by any other key would parse the font file again on every call.
- */
+/** Registers every face under its name and selects the regular one. */
+export function registerFonts(doc: PDFKit.PDFDocument): void {
+  const faces = fontFaces();
+  // pdfkit's declarations take a file or bytes; it takes a parsed face too (one that can lay out text)
+  for (const name of Object.keys(faces) as FontName[]) doc.registerFont(name, faces[name] as unknown as Buffer);
+  useFont(doc, 'regular');
+}
+
+/** Selects a face. */
 export function useFont(doc: PDFKit.PDFDocument, name: FontName): PDFKit.PDFDocument {
-  doc.font(name === 'regular' ? defaultFontPath() : name);
+  doc.font(name);
   shareLayouts(doc, name);
   return doc;
 }
 
-// pdfkit shapes each word once per document and keeps the result on the font object. Shaping is
-// most of the cost of a book, and the result depends only on the face and the word, so documents of
-// this process share one store per face (pdfkit 0.20 keeps it in `layoutCache`). Each shaped word
-// holds on to the font object of the document that shaped it (the parsed face, ~0.5 MiB), so a store
-// shared by every book of a worker kept every book's fonts (measured: ~2 MiB more per book, 1 GiB
-// over 500 books); a store therefore serves LAYOUT_DOCUMENTS documents, then starts again: at most
-// ~100 MiB of fonts kept per thread, for about 1.5 s of shaping anew each time (measured on 20 books).
-const layouts = new Map<FontName, { store: Record<string, unknown>; documents: number }>();
-export const LAYOUT_DOCUMENTS = 48;
+// pdfkit shapes each word once per document and keeps the result on its font object. Shaping is much
+// of the cost of a book, and the result depends only on the face and the word, so the documents of a
+// thread share one store per face (pdfkit 0.20 keeps it in `layoutCache`). A shaped word refers to the
+// parsed face, which every document of the thread shares (fontFaces), so the store keeps nothing of
+// any one document; it grows with the distinct words printed (times, heights, names), not with books.
+const layouts = new Map<FontName, Record<string, unknown>>();
 
 interface FontWithLayouts { layoutCache?: Record<string, unknown> | null }
 
 function shareLayouts(doc: PDFKit.PDFDocument, name: FontName): void {
   const font = (doc as unknown as { _font?: FontWithLayouts })._font;
   if (!font || !font.layoutCache) return;
-  let shared = layouts.get(name);
-  if (shared && font.layoutCache === shared.store) return;
+  let store = layouts.get(name);
+  if (font.layoutCache === store) return;
   // the face's first use in this document
-  if (!shared || shared.documents >= LAYOUT_DOCUMENTS) {
-    shared = { store: Object.create(null) as Record<string, unknown>, documents: 0 };
-    layouts.set(name, shared);
+  if (!store) {
+    store = Object.create(null) as Record<string, unknown>;
+    layouts.set(name, store);
   }
-  shared.documents++;
-  font.layoutCache = shared.store;
+  font.layoutCache = store;
 }
