@@ -14,20 +14,64 @@ export interface TextStyle {
 
 export type Align = 'left' | 'right' | 'center';
 
-/** The current face's character map (pdfkit keeps the parsed font on `_font.font`), if it can be reached. */
-function coverage(doc: PDFKit.PDFDocument): GlyphCoverage | null {
-  const font = (doc as unknown as { _font?: { font?: Partial<GlyphCoverage> } })._font?.font;
-  return typeof font?.hasGlyphForCodePoint === 'function' ? (font as GlyphCoverage) : null;
+interface Face extends GlyphCoverage {
+  layout(text: string, features?: unknown, onlyWidth?: boolean): { advanceWidth: number };
+}
+
+/** The current face as pdfkit holds it (`_font`: its own wrapper; `_font.font`: the parsed face). */
+function currentFace(doc: PDFKit.PDFDocument): { wrapper: Face; parsed: GlyphCoverage } | null {
+  const wrapper = (doc as unknown as { _font?: Partial<Face> & { font?: Partial<GlyphCoverage> } })._font;
+  const parsed = wrapper?.font;
+  if (typeof parsed?.hasGlyphForCodePoint !== 'function' || typeof wrapper?.layout !== 'function') return null;
+  return { wrapper: wrapper as Face, parsed: parsed as GlyphCoverage };
+}
+
+// Every document of a thread shares the parsed faces (fonts.ts), and a book measures and draws the same
+// strings (times, heights, day names) thousands of times: what each string becomes in a face and its
+// width there are kept per face. Both depend only on the face and the string.
+interface Measured { drawable: Map<string, string>; advance: Map<string, number> }
+const measured = new WeakMap<object, Measured>();
+const MEASURED_MAX = 100_000; // strings kept per face before starting afresh (a few MiB)
+
+function measuredFor(face: object): Measured {
+  let m = measured.get(face);
+  if (!m || m.drawable.size > MEASURED_MAX || m.advance.size > MEASURED_MAX) {
+    m = { drawable: new Map(), advance: new Map() };
+    measured.set(face, m);
+  }
+  return m;
 }
 
 /** The text as it is drawn: control characters as spaces, characters the face lacks as U+FFFD. */
 function drawable(doc: PDFKit.PDFDocument, text: string): string {
-  return withReplacements(printable(text), coverage(doc));
+  const face = currentFace(doc);
+  if (!face) return printable(text);
+  const m = measuredFor(face.parsed);
+  let s = m.drawable.get(text);
+  if (s === undefined) {
+    s = withReplacements(printable(text), face.parsed);
+    m.drawable.set(text, s);
+  }
+  return s;
+}
+
+/** What doc.widthOfString(s) gives (the same arithmetic, so the same number), from the face's kept advance. */
+function widthOfDrawn(doc: PDFKit.PDFDocument, s: string): number {
+  const face = currentFace(doc);
+  if (!face) return doc.widthOfString(s);
+  const m = measuredFor(face.parsed);
+  let advance = m.advance.get(s);
+  if (advance === undefined) {
+    advance = face.wrapper.layout(s, undefined, true).advanceWidth;
+    m.advance.set(s, advance);
+  }
+  const size = (doc as unknown as { _fontSize: number })._fontSize;
+  return (advance * (size / 1000) + 0 * (s.length - 1)) * 100 / 100;
 }
 
 export function widthOf(doc: PDFKit.PDFDocument, text: string, style: TextStyle): number {
   useFont(doc, style.font).fontSize(style.size);
-  return doc.widthOfString(drawable(doc, text));
+  return widthOfDrawn(doc, drawable(doc, text));
 }
 
 /** Draws one line with its baseline at y; returns the drawn width. */
@@ -42,7 +86,7 @@ function putUntagged(doc: PDFKit.PDFDocument, text: string, x: number, y: number
   useFont(doc, style.font).fontSize(style.size).fillColor(style.color ?? '#000000');
   // a right-to-left line keeps no unseen end space (spacedLines): it would land at its left end
   const s = needsBidi(text) ? drawable(doc, text).trimEnd() : drawable(doc, text);
-  const w = doc.widthOfString(s);
+  const w = widthOfDrawn(doc, s);
   const left = align === 'left' ? x : align === 'right' ? x - w : x - w / 2;
   if (!needsBidi(s)) {
     doc.text(s, left, y, { lineBreak: false, baseline: 'alphabetic' });
