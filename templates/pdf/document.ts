@@ -45,17 +45,45 @@ interface Output { chunks: Uint8Array[]; ended: boolean; done: (() => void) | nu
 
 const outputs = new WeakMap<PDFKit.PDFDocument, Output>();
 
+interface DocumentStream {
+  _buffer: Uint8Array[];
+  _offset: number; // bytes written so far (the cross-reference table's offsets count from it)
+  push(chunk: Uint8Array | null): boolean;
+  _write(data: Uint8Array | string): void;
+}
+
 /**
  * Takes the document's bytes as pdfkit writes them. Its platform-neutral build queues them in an array
  * it empties with shift(), which grows quadratic in the number of objects (a tagged combined book has
- * hundreds of thousands), so the chunks are taken at the source instead.
+ * hundreds of thousands), so the chunks are taken at the source instead. pdfkit also turns each line of
+ * the file into bytes of its own (several per object); lines are kept as text here and turned into bytes
+ * once per run of them: the same bytes (one per character, each line ending in a newline), far fewer arrays.
  */
 function collectOutput(doc: PDFKit.PDFDocument): void {
-  const stream = doc as unknown as { _buffer: Uint8Array[]; push(chunk: Uint8Array | null): boolean };
+  const stream = doc as unknown as DocumentStream;
   // what the constructor wrote (the header) is already queued
   const out: Output = { chunks: stream._buffer.splice(0), ended: false, done: null };
   outputs.set(doc, out);
+  let lines: string[] = [];
+  const flushLines = (): void => {
+    if (lines.length === 0) return;
+    lines.push('');
+    out.chunks.push(Buffer.from(lines.join('\n'), 'latin1'));
+    lines = [];
+  };
+  stream._write = (data) => {
+    if (data instanceof Uint8Array) {
+      flushLines();
+      out.chunks.push(data);
+      stream._offset += data.length;
+      return;
+    }
+    const line = String(data);
+    lines.push(line);
+    stream._offset += line.length + 1;
+  };
   stream.push = (chunk) => {
+    flushLines();
     if (chunk === null) { out.ended = true; out.done?.(); } else out.chunks.push(chunk);
     return true;
   };
