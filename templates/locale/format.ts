@@ -15,6 +15,16 @@ export const MINUS = '\u2212';
 const NBSP = '\u00a0';
 
 /** Metres in the display unit (feet are converted; metres pass through). */
+/** The value kept under `key`, made by `make` the first time. */
+function remembered<K, V>(kept: Map<K, V>, key: K, make: () => V): V {
+  let value = kept.get(key);
+  if (value === undefined) {
+    value = make();
+    kept.set(key, value);
+  }
+  return value;
+}
+
 export function inUnits(metres: number, units: Units): number {
   return units === 'ft' ? metres / METRES_PER_FOOT : metres;
 }
@@ -100,6 +110,10 @@ export function createFormat(tag: string, units: Units, t: (key: MessageKey, par
     return parts.length === 0 ? t('unit.minutes', { count: 0 }) : parts.join(' ');
   };
   const listFormat = new Intl.ListFormat(intlLocale, { style: 'long', type: 'conjunction' });
+  // names of months and weekdays, asked for on every row of a table: formatted once per language
+  const monthNames = new Map<number, string>();
+  const monthShorts = new Map<number, string>();
+  const weekdayShorts = new Map<number, string>();
   return {
     intlLocale,
     number,
@@ -124,10 +138,10 @@ export function createFormat(tag: string, units: Units, t: (key: MessageKey, par
       day: 'numeric', month: 'long', ...(parts.year !== false && { year: 'numeric' }),
       ...(parts.weekday && { weekday: 'long' }),
     }),
-    monthName: (month) => DateTime.utc(2000, month, 1).setLocale(intlLocale).toLocaleString({ month: 'long' }),
-    monthShort: (month) => DateTime.utc(2000, month, 1).setLocale(intlLocale).toLocaleString({ month: 'short' }),
+    monthName: (month) => remembered(monthNames, month, () => DateTime.utc(2000, month, 1).setLocale(intlLocale).toLocaleString({ month: 'long' })),
+    monthShort: (month) => remembered(monthShorts, month, () => DateTime.utc(2000, month, 1).setLocale(intlLocale).toLocaleString({ month: 'short' })),
     // 2024-01-01 was a Monday (ISO weekday 1)
-    weekdayShort: (weekday) => DateTime.utc(2024, 1, weekday).setLocale(intlLocale).toLocaleString({ weekday: 'short' }),
+    weekdayShort: (weekday) => remembered(weekdayShorts, weekday, () => DateTime.utc(2024, 1, weekday).setLocale(intlLocale).toLocaleString({ weekday: 'short' })),
     hours: (hours) => {
       const whole = Math.round(hours);
       const days = Math.floor(whole / 24);
