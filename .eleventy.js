@@ -1,7 +1,7 @@
-// Eleventy wiring only: where templates, layouts and data live, Nunjucks with autoescape, the CSS.
-// renderSite (templates/site/render.ts) registers the filters and hands over the models before this
-// runs; started on its own (npx @11ty/eleventy) it takes the compiled filters from dist/ (npm ci builds
-// them), templates/_data asks the engine for the demo, and the site goes to out/site.
+// Eleventy wiring only: where templates, layouts and data live, the CSS. renderSite
+// (templates/site/render.ts) registers the filters and Nunjucks' settings and hands over the models;
+// started on its own (npx @11ty/eleventy) it takes the compiled filters and settings from dist/ (npm ci
+// builds them), templates/_data asks the engine for the demo, and the site goes to out/site.
 import { dirname, join, relative, sep } from 'node:path';
 import { fileURLToPath } from 'node:url';
 
@@ -12,10 +12,11 @@ export default async function (eleventyConfig) {
   if (standalone) {
     const { registerSiteFilters } = await import('./dist/templates/site/filters.js');
     const { wordsFor } = await import('./dist/templates/locale/index.js');
+    const { NUNJUCKS_OPTIONS } = await import('./dist/templates/site/station-render.js');
     registerSiteFilters(eleventyConfig, wordsFor());
+    eleventyConfig.setNunjucksEnvironmentOptions(NUNJUCKS_OPTIONS);
   }
   eleventyConfig.setUseGitIgnore(false);
-  eleventyConfig.setNunjucksEnvironmentOptions({ autoescape: true, trimBlocks: true, lstripBlocks: true });
   // Eleventy matches ignore globs against paths relative to the working folder, not absolute ones.
   for (const folder of ['pdf', 'site', 'exports', 'report']) {
     eleventyConfig.ignores.add(`./${relative(process.cwd(), join(root, 'templates', folder)).split(sep).join('/')}/**`);

@@ -4,6 +4,7 @@ declare module '@11ty/eleventy' {
     addFilter(name: string, fn: (...args: never[]) => unknown): unknown;
     addGlobalData(name: string, data: unknown): unknown;
     addPassthroughCopy(map: Record<string, string>): unknown;
+    setNunjucksEnvironmentOptions(options: Record<string, unknown>): unknown;
     ignores: { add(glob: string): unknown };
     benchmarks?: { config?: { setIsVerbose(verbose: boolean): void } };
   }

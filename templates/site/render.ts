@@ -3,12 +3,11 @@
 // every station-year's downloads are written inside the site (outDir/data/), once, so the site is
 // whole wherever it is uploaded as one folder and its links reach them.
 //
-// Memory stays flat however many stations there are: the shared pages (index, map, imprint) are built
-// from the station-years' small summaries, and each station-year's model is read (from the build
-// cache, by the caller's `model`) only when its own pages are drawn, in runs of a few station-years
-// (Eleventy keeps every page of a run in memory until the run ends, about 5 MiB per station-year).
-// Every run sees the same site-wide facts, so the pages are the same as from one run. A station-year
-// whose pages were kept from an earlier build under the same facts is copied instead of drawn.
+// Memory stays flat however many stations there are: the shared pages (index, map, imprint) are drawn
+// by one Eleventy run from the station-years' small summaries, and each station-year's model is read
+// (from the build cache, by the caller's `model`) only when its own pages are drawn, one station-year
+// at a time, with Nunjucks directly (station-render.ts: templates compiled once per build). A
+// station-year whose pages were kept from an earlier build under the same facts is copied instead.
 import { createHash } from 'node:crypto';
 import { copyFile, cp, mkdir, mkdtemp, readdir, rm } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
@@ -19,14 +18,13 @@ import { writeStreamExports } from '../exports/streams.js';
 import { writeExports } from '../exports/write.js';
 import { registerSiteFilters } from './filters.js';
 import { projectRoot } from './paths.js';
+import { stationPageRenderer, NUNJUCKS_OPTIONS } from './station-render.js';
 import { stationPageChrome, stationYearPages, stationYearUrl, type StationPageFacts } from './station-pages.js';
 import type { StationYearSummary } from './summary.js';
 import { pageFacts, sharedSiteData, siteOrder, siteWords, type SiteData, type SiteOptions } from './views.js';
 
 export interface RenderSiteOptions extends SiteOptions {
   quiet?: boolean;
-  /** Station-years per Eleventy run (default STATION_YEARS_PER_RUN); bounds the renderer's memory. */
-  stationYearsPerRun?: number;
   /** A publisher's own files (e.g. CNAME), copied into the site as they are; none may replace a page of the site. */
   siteFiles?: string;
   /** The stream-years of the build's tidal stream stations (pages written with the shared pages). */
@@ -38,11 +36,7 @@ export interface RenderSiteOptions extends SiteOptions {
 /** The global-data name under which renderSite hands the site to templates/_data/site.js. */
 export const HANDOFF_KEY = 'tidewrightSite';
 
-/** 25 station-years ≈ 130 MiB of Eleventy's page content; more per run saves little time. */
-export const STATION_YEARS_PER_RUN = 25;
-
-// Which templates each kind of run leaves out.
-const SHARED_PAGES = ['index.njk', 'datums.njk', 'imprint.njk', 'stream-year.njk', 'stream-month.njk', 'own-page.njk'];
+// Drawn by stationPageRenderer, so left out of the Eleventy run.
 const STATION_PAGES = ['station-year.njk', 'month.njk', 'hours.njk'];
 
 /** Tidewright's site templates with the publisher's `site/` files laid over them, in a temporary folder. */
@@ -71,6 +65,7 @@ async function runEleventy(root: string, input: string, out: string, site: SiteD
       // curves always does, by design, so the warning only adds noise to the build's output.
       config.benchmarks?.config?.setIsVerbose(false);
       registerSiteFilters(config, siteWords(options));
+      config.setNunjucksEnvironmentOptions(NUNJUCKS_OPTIONS);
       for (const name of skip) config.ignores.add(join(input, name));
       config.addPassthroughCopy({ [join(input, 'assets')]: 'assets' });
       if (copy) config.addPassthroughCopy({ [copy]: '/' });
@@ -127,8 +122,6 @@ export async function renderSite(models: StationYear[], outDir: string, options:
 export async function renderSiteFrom(source: SiteSource, outDir: string, options: RenderSiteOptions): Promise<void> {
   const root = projectRoot();
   const out = resolve(outDir);
-  const size = options.stationYearsPerRun ?? STATION_YEARS_PER_RUN;
-  if (!Number.isInteger(size) || size < 1) throw new RangeError(`stationYearsPerRun must be a whole number from 1, not ${size}`);
   const words = siteWords(options);
   const site = sharedSiteData(source.stationYears, options, true, options.streams ?? []);
   const facts = pageFacts(source.stationYears);
@@ -143,18 +136,16 @@ export async function renderSiteFrom(source: SiteSource, outDir: string, options
   const layered = options.siteTheme === undefined ? null : await layeredTemplates(root, options.siteTheme);
   const input = layered ?? join(root, 'templates');
   try {
-    for (let i = 0; i < toDraw.length; i += size) {
-      const models: StationYear[] = [];
-      for (const sy of toDraw.slice(i, i + size)) models.push(await source.model(sy));
-      const pages = models.map((model) => stationYearPages(model, facts(model), words));
-      await runEleventy(root, input, out, { ...site, stationYears: pages.map((p) => p.page), monthPages: pages.flatMap((p) => p.months) }, SHARED_PAGES, options);
-      for (const model of models) {
-        const names = await writeExports(model, siteData, words, options.stamp);
-        if (!source.pages) continue;
-        const exports = [names.csv, names.json, names.ics, names.hourly, ...(names.windows ? [names.windows.csv, names.windows.json] : [])];
-        const files = [...await filesUnder(out, join(out, stationYearUrl(model.station.id, model.year))), ...exports.map((n) => `data/${n}`)];
-        await source.pages.store(model, keyOf(model), files, out);
-      }
+    const stationPages = stationPageRenderer(input, site, words);
+    for (const sy of toDraw) {
+      const model = await source.model(sy);
+      const { page, months } = stationYearPages(model, facts(model), words);
+      await stationPages.write(page, months, out);
+      const names = await writeExports(model, siteData, words, options.stamp);
+      if (!source.pages) continue;
+      const exports = [names.csv, names.json, names.ics, names.hourly, ...(names.windows ? [names.windows.csv, names.windows.json] : [])];
+      const files = [...await filesUnder(out, join(out, stationYearUrl(model.station.id, model.year))), ...exports.map((n) => `data/${n}`)];
+      await source.pages.store(model, keyOf(model), files, out);
     }
     await runEleventy(root, input, out, site, STATION_PAGES, options, options.siteFiles);
   } finally {
