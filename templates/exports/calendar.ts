@@ -8,6 +8,7 @@ import type { Words } from '../locale/index.js';
 
 /** Escape a TEXT value (RFC 5545 §3.3.11): backslash, semicolon, comma and line breaks. */
 export function escapeText(text: string): string {
+  if (!/[\\;,\r\n]/.test(text)) return text; // the usual case: nothing to escape
   return text
     .replace(/\\/g, '\\\\')
     .replace(/;/g, '\\;')

@@ -76,9 +76,20 @@ export function hourlyCsv(model: StationYear, words: Words = wordsFor()): string
   const units = words.units;
   const secondary = model.hourly.method === 'secondary-curve';
   const lines = notes(model, words, 'export.hourlyFor', secondary).map((n) => `# ${n}`);
-  const records = model.hourly.days.flatMap((d) => d.clocks.map((c, i) => {
-    const local = `${d.date}T${c}:00${itemAt(d.offsets, i, 'hourly offsets')}`;
-    return heightRecord(model.station.id, new Date(Date.parse(local)).toISOString().slice(0, 19) + 'Z', local, itemAt(d.heights, i, 'hourly heights'), units);
-  }));
+  // The instant of a local clock reading: the day's midnight at that reading's offset (parsed once per
+  // day and offset) plus the clock's minutes; 8,760 readings a year, so Date.parse only a few times a day.
+  const records = model.hourly.days.flatMap((d) => {
+    const midnights = new Map<string, number>();
+    return d.clocks.map((c, i) => {
+      const offset = itemAt(d.offsets, i, 'hourly offsets');
+      let midnight = midnights.get(offset);
+      if (midnight === undefined) {
+        midnight = Date.parse(`${d.date}T00:00:00${offset}`);
+        midnights.set(offset, midnight);
+      }
+      const utc = midnight + (Number(c.slice(0, 2)) * 60 + Number(c.slice(3, 5))) * MINUTE;
+      return heightRecord(model.station.id, `${new Date(utc).toISOString().slice(0, 19)}Z`, `${d.date}T${c}:00${offset}`, itemAt(d.heights, i, 'hourly heights'), units);
+    });
+  });
   return csvText([...lines, ...csvTable(['station_id', 'time', 'time_local', heightField(units)], records, HEIGHT_DIGITS)]);
 }

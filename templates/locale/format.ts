@@ -114,6 +114,7 @@ export function createFormat(tag: string, units: Units, t: (key: MessageKey, par
   const monthNames = new Map<number, string>();
   const monthShorts = new Map<number, string>();
   const weekdayShorts = new Map<number, string>();
+  const dates = new Map<string, string>();
   return {
     intlLocale,
     number,
@@ -134,10 +135,11 @@ export function createFormat(tag: string, units: Units, t: (key: MessageKey, par
       const w = new Date(instant(iso) + offsetSeconds(offset) * 1000);
       return `${String(w.getUTCHours()).padStart(2, '0')}:${String(w.getUTCMinutes()).padStart(2, '0')}`;
     },
-    date: (date, parts = {}) => dateTime(date).toLocaleString({
+    // the edition's date is in every page's footer: each date is worded once per form
+    date: (date, parts = {}) => remembered(dates, `${date}|${parts.year !== false}|${parts.weekday === true}`, () => dateTime(date).toLocaleString({
       day: 'numeric', month: 'long', ...(parts.year !== false && { year: 'numeric' }),
       ...(parts.weekday && { weekday: 'long' }),
-    }),
+    })),
     monthName: (month) => remembered(monthNames, month, () => DateTime.utc(2000, month, 1).setLocale(intlLocale).toLocaleString({ month: 'long' })),
     monthShort: (month) => remembered(monthShorts, month, () => DateTime.utc(2000, month, 1).setLocale(intlLocale).toLocaleString({ month: 'short' })),
     // 2024-01-01 was a Monday (ISO weekday 1)

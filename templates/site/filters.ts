@@ -25,6 +25,8 @@ export function siteFilters(w: Words): Record<string, (...args: never[]) => unkn
   const glances = new WeakMap<StationYear, GlanceMonth[]>();
   const moons = new WeakMap<StationYear, Map<string, MoonPhaseEntry>>();
   const streamScales = new WeakMap<StreamYear, number>();
+  // a day's curve is drawn on its month page and on its hours page: drawn once, for the same model
+  const curves = new WeakMap<DayEntry, { model: StationYear; curve: DayCurve }>();
   const scaleOf = (model: StationYear): HeightScale => {
     let s = scales.get(model);
     if (!s) {
@@ -66,7 +68,13 @@ export function siteFilters(w: Words): Record<string, (...args: never[]) => unkn
     latBelowChartDatum: (datums: Datums): number | null => latBelowChartDatum(datums),
     bearing: (degrees: number | null): string => (degrees === null ? '' : `${String(Math.round(degrees) % 360).padStart(3, '0')}°`),
     moonLit: (phase: MoonPhaseName, latitude: number): string => moonLitPath(phase, latitude < 0),
-    tideCurve: (day: DayEntry, model: StationYear): DayCurve => dayCurve(day, model.curveStepMinutes, scaleOf(model)),
+    tideCurve: (day: DayEntry, model: StationYear): DayCurve => {
+      const kept = curves.get(day);
+      if (kept?.model === model) return kept.curve;
+      const curve = dayCurve(day, model.curveStepMinutes, scaleOf(model));
+      curves.set(day, { model, curve });
+      return curve;
+    },
     glance: (model: StationYear): GlanceMonth[] => {
       let g = glances.get(model);
       if (!g) {

@@ -43,7 +43,8 @@ export function windowRule(w: WindowYear, words: Words): string {
 }
 
 /** The 24 clock hours of a day with their heights to a tenth (a repeated hour has two, a skipped one none). */
-export function hourCells(day: DayEntry, model: StationYear, words: Words): HourCell[] {
+export function hourCells(day: DayEntry, model: StationYear, words: Words,
+  tenths: (value: number) => string = (value) => words.number(value, 1)): HourCell[] {
   const i = dayIndex(model, day.date);
   const hourly = model.hourly.days[i];
   const cells: HourCell[] = Array.from({ length: 24 }, (_, h) => ({ clock: String(h).padStart(2, '0'), values: [], below: false }));
@@ -52,16 +53,26 @@ export function hourCells(day: DayEntry, model: StationYear, words: Words): Hour
     const cell = itemAt(cells, Number(c.slice(0, 2)), 'clock hours');
     const metres = itemAt(hourly.heights, k, 'hourly heights');
     const value = inUnits(metres, words.units);
-    cell.values.push(Number.isFinite(value) ? words.number(Math.round(value * 10) / 10 + 0, 1).replace('-', '\u2212') : '–');
+    cell.values.push(Number.isFinite(value) ? tenths(Math.round(value * 10) / 10 + 0).replace('-', '\u2212') : '–');
     if (metres < 0) cell.below = true;
   });
   return cells;
 }
 
 export function windowFilters(words: Words): Record<string, (...args: never[]) => unknown> {
+  // 8,760 heights a year to a tenth, of a hundred or so different values: each worded once
+  const worded = new Map<number, string>();
+  const tenths = (value: number): string => {
+    let text = worded.get(value);
+    if (text === undefined) {
+      text = words.number(value, 1);
+      worded.set(value, text);
+    }
+    return text;
+  };
   return {
     dayWindows: (day: DayEntry, model: StationYear) => dayWindows(day, model),
     windowRule: (w: WindowYear) => windowRule(w, words),
-    hourCells: (day: DayEntry, model: StationYear) => hourCells(day, model, words),
+    hourCells: (day: DayEntry, model: StationYear) => hourCells(day, model, words, tenths),
   };
 }
