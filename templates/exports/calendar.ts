@@ -49,6 +49,9 @@ export function foldLine(line: string): string {
 
 /** "2027-01-01T03:12:41Z" → "20270101T031241Z" (RFC 5545 §3.3.5, form 2: UTC). */
 export function icalUtc(iso: string): string {
+  if (iso.length === 20 && iso[19] === 'Z' && iso[10] === 'T') { // the model's own form, whole seconds: cut, not searched
+    return `${iso.slice(0, 4)}${iso.slice(5, 7)}${iso.slice(8, 13)}${iso.slice(14, 16)}${iso.slice(17)}`;
+  }
   return iso.replace(/[-:]/g, '').replace(/\.\d+/, '');
 }
 
@@ -79,19 +82,25 @@ export interface CalendarEvent {
 
 /** The lines of one VEVENT. */
 export function calendarEventLines(place: CalendarPlace, stamp: string, e: CalendarEvent): string[] {
-  return [
-    'BEGIN:VEVENT',
-    `UID:${eventUid(place.id, e.what, e.start)}`,
-    `DTSTAMP:${stamp}`,
-    `DTSTART:${icalUtc(e.start)}`,
-    ...(e.end === undefined ? [] : [`DTEND:${icalUtc(e.end)}`]),
-    `SUMMARY:${escapeText(e.summary)}`,
-    `DESCRIPTION:${escapeText(e.description)}`,
-    `LOCATION:${escapeText(place.name)}`,
-    `GEO:${place.position.latitude.toFixed(6)};${place.position.longitude.toFixed(6)}`,
-    'TRANSP:TRANSPARENT',
-    'END:VEVENT',
-  ];
+  const lines: string[] = [];
+  eventLinesOf(placeLines(place), stamp, e, lines);
+  return lines;
+}
+
+/** What every event of a calendar says of its place: LOCATION and GEO, worded once per calendar. */
+function placeLines(place: CalendarPlace): { id: string; location: string; geo: string } {
+  return {
+    id: place.id,
+    location: `LOCATION:${escapeText(place.name)}`,
+    geo: `GEO:${place.position.latitude.toFixed(6)};${place.position.longitude.toFixed(6)}`,
+  };
+}
+
+function eventLinesOf(place: ReturnType<typeof placeLines>, stamp: string, e: CalendarEvent, lines: string[]): void {
+  lines.push('BEGIN:VEVENT', `UID:${eventUid(place.id, e.what, e.start)}`, `DTSTAMP:${stamp}`, `DTSTART:${icalUtc(e.start)}`);
+  if (e.end !== undefined) lines.push(`DTEND:${icalUtc(e.end)}`);
+  lines.push(`SUMMARY:${escapeText(e.summary)}`, `DESCRIPTION:${escapeText(e.description)}`, place.location, place.geo,
+    'TRANSP:TRANSPARENT', 'END:VEVENT');
 }
 
 /** What the calendar says once, at its head. */
@@ -107,8 +116,9 @@ export function calendarText(head: CalendarHead, words: Words, place: CalendarPl
     'METHOD:PUBLISH',
     `X-WR-CALNAME:${escapeText(head.name)}`,
     `X-WR-CALDESC:${escapeText(head.description)}`,
-    ...events.flatMap((e) => calendarEventLines(place, stamp, e)),
-    'END:VCALENDAR',
   ];
+  const where = placeLines(place);
+  for (const e of events) eventLinesOf(where, stamp, e, lines);
+  lines.push('END:VCALENDAR');
   return `${lines.map(foldLine).join('\r\n')}\r\n`;
 }

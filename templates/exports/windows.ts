@@ -2,11 +2,12 @@
 // intervals, UTC and local), as iCalendar events for the station's calendar, and the hourly heights as CSV.
 import { clock, itemAt, type StationYear, type WindowYear } from '../../engine/index.js';
 import { wordsFor, type Words } from '../locale/index.js';
-import { csvTable, csvText, exportHeight, HEIGHT_DIGITS, heightField, heightRecord, type ExportRecord } from './fields.js';
+import { csvField, csvTable, csvText, exportHeight, HEIGHT_DIGITS, heightField, heightFields, type ExportRecord } from './fields.js';
 import type { CalendarEvent } from './calendar.js';
 import { exportNotes } from './notes.js';
 
 const MINUTE = 60_000;
+const DAY = 86_400_000;
 
 /** "open while the tide is at or above 2.40 m" */
 function rule(w: WindowYear, words: Words): string {
@@ -72,24 +73,49 @@ export function windowCalendarEvents(model: StationYear, words: Words): Calendar
   });
 }
 
+/** "2027-03-28T01:00:00Z": an instant of whole seconds as the exports write it, the date worded once per UTC day. */
+function utcSeconds(dates: Map<number, string>): (ms: number) => string {
+  const two = (n: number): string => (n < 10 ? `0${n}` : String(n));
+  return (ms) => {
+    const day = Math.floor(ms / DAY);
+    let date = dates.get(day);
+    if (date === undefined) {
+      date = new Date(day * DAY).toISOString().slice(0, 10); // throws on an instant that is not one, as toISOString does
+      dates.set(day, date);
+    }
+    const s = Math.round((ms - day * DAY) / 1000);
+    return `${date}T${two(Math.floor(s / 3600))}:${two(Math.floor((s % 3600) / 60))}:${two(s % 60)}Z`;
+  };
+}
+
+/**
+ * The hourly heights: 8,760 rows a year, so each row is written straight from the fields of a height
+ * record (fields.ts: heightFields, heightRecord's values) rather than through a record object each.
+ */
 export function hourlyCsv(model: StationYear, words: Words = wordsFor()): string {
   const units = words.units;
   const secondary = model.hourly.method === 'secondary-curve';
   const lines = notes(model, words, 'export.hourlyFor', secondary).map((n) => `# ${n}`);
-  // The instant of a local clock reading: the day's midnight at that reading's offset (parsed once per
-  // day and offset) plus the clock's minutes; 8,760 readings a year, so Date.parse only a few times a day.
-  const records = model.hourly.days.flatMap((d) => {
+  const fields = heightFields(units);
+  const digits = HEIGHT_DIGITS[heightField(units)];
+  lines.push(fields.join(','));
+  const id = csvField(model.station.id);
+  const utc = utcSeconds(new Map());
+  for (const d of model.hourly.days) {
+    // The instant of a local clock reading: the day's midnight at that reading's offset (parsed once
+    // per day and offset) plus the clock's minutes.
     const midnights = new Map<string, number>();
-    return d.clocks.map((c, i) => {
+    d.clocks.forEach((c, i) => {
       const offset = itemAt(d.offsets, i, 'hourly offsets');
       let midnight = midnights.get(offset);
       if (midnight === undefined) {
         midnight = Date.parse(`${d.date}T00:00:00${offset}`);
         midnights.set(offset, midnight);
       }
-      const utc = midnight + (Number(c.slice(0, 2)) * 60 + Number(c.slice(3, 5))) * MINUTE;
-      return heightRecord(model.station.id, `${new Date(utc).toISOString().slice(0, 19)}Z`, `${d.date}T${c}:00${offset}`, itemAt(d.heights, i, 'hourly heights'), units);
+      const height = itemAt(d.heights, i, 'hourly heights');
+      const value = height === null || !Number.isFinite(height) ? '' : exportHeight(height, units).toFixed(digits);
+      lines.push(`${id},${utc(midnight + (Number(c.slice(0, 2)) * 60 + Number(c.slice(3, 5))) * MINUTE)},${csvField(`${d.date}T${c}:00${offset}`)},${value}`);
     });
-  });
-  return csvText([...lines, ...csvTable(['station_id', 'time', 'time_local', heightField(units)], records, HEIGHT_DIGITS)]);
+  }
+  return csvText(lines);
 }

@@ -33,12 +33,14 @@ export function languageOf(tag: string): Language | null {
   return (LANGUAGES as readonly string[]).includes(lang) ? (lang as Language) : null;
 }
 
-const PLACEHOLDER = /\{(\w+)\}/g;
+const PLACEHOLDER = /\{(\w+)\}/;
 
 /** A translator for one language: `t(key, params)` fills the placeholders; plural forms by Intl. */
 export function translator(language: Language, numberText: (n: number) => string): (key: MessageKey, params?: Params) => string {
   const catalogue = CATALOGUES[language];
   const plural = new Intl.PluralRules(language);
+  // each message split once at its placeholders: literal text at even places, placeholder names at odd
+  const pieces = new Map<string, string[]>();
   return (key, params = {}) => {
     const message = catalogue[key] ?? en[key];
     let text: string;
@@ -47,10 +49,18 @@ export function translator(language: Language, numberText: (n: number) => string
       const n = Number(params[message.count] ?? 0);
       text = message[plural.select(n)] ?? message.other;
     }
-    return text.replace(PLACEHOLDER, (all, name: string) => {
+    if (!text.includes('{')) return text;
+    let parts = pieces.get(text);
+    if (!parts) {
+      parts = text.split(PLACEHOLDER);
+      pieces.set(text, parts);
+    }
+    let filled = parts[0] ?? '';
+    for (let i = 1; i < parts.length; i += 2) {
+      const name = parts[i] ?? '';
       const v = params[name];
-      if (v === undefined) return all;
-      return typeof v === 'number' ? numberText(v) : v;
-    });
+      filled += (v === undefined ? `{${name}}` : typeof v === 'number' ? numberText(v) : v) + (parts[i + 1] ?? '');
+    }
+    return filled;
   };
 }
